@@ -1,0 +1,20 @@
+"""Framewright core: numpy-only orientation arithmetic. Never imports Qt."""
+
+from core.errors import (
+    DecodeError,
+    FramewrightError,
+    InvalidInputError,
+    MatrixRefusedError,
+    SequenceError,
+)
+from core.orientation import AngleSet, Orientation
+
+__all__ = [
+    "AngleSet",
+    "DecodeError",
+    "FramewrightError",
+    "InvalidInputError",
+    "MatrixRefusedError",
+    "Orientation",
+    "SequenceError",
+]

@@ -1,0 +1,228 @@
+"""Orientation: one immutable value for a 3D orientation, built and read through symmetric pairs
+(from_matrix / as_matrix, from_quaternion / as_quaternion, ...).
+
+Inside is a canonical unit quaternion (Hamilton, w-first, w >= 0). The orientation is the rotation R with
+v_ref = R · v_body: the columns of R are the body axes written in reference coordinates. Every angle a
+person reads or types is in degrees unless `degrees=False` says otherwise.
+"""
+
+from dataclasses import dataclass
+
+import numpy as np
+
+from core import kernels
+from core.errors import InvalidInputError, MatrixRefusedError
+from core.nearest import orthogonality_report
+from core.sequences import parse_sequence
+
+# A quaternion or axis whose length is off by more than this was not meant to be unit length: say so.
+_UNIT_NOTICE = 1e-9
+
+
+@dataclass(frozen=True)
+class AngleSet:
+    """Three angles of a sequence, as returned by Orientation.as_angles.
+
+    locked: the orientation is in gimbal lock for this sequence; then the third angle is zero and the
+    first carries the whole coupled angle (only their sum or difference is determined)."""
+
+    sequence: str
+    intrinsic: bool
+    degrees: bool
+    angles: np.ndarray
+    locked: bool
+
+    def __iter__(self):
+        return iter(self.angles)
+
+
+def _angle_in(value, degrees):
+    return np.radians(value) if degrees else value
+
+
+def _angle_out(value, degrees):
+    return np.degrees(value) if degrees else value
+
+
+class Orientation:
+    __slots__ = ("_q", "_notes", "_matrix")
+
+    def __init__(self, quaternion_wxyz, notes=()):
+        """Prefer the from_* constructors; this one takes a finite, non-zero w-first quaternion."""
+        q = kernels.check_array(quaternion_wxyz, (4,), "quaternion")
+        if q.shape != (4,):
+            raise InvalidInputError(f"quaternion: expected 4 numbers, got shape {q.shape}")
+        q, _ = kernels.normalize_quaternions(q)
+        q = kernels.canonical_quaternions(q)
+        q.setflags(write=False)
+        object.__setattr__(self, "_q", q)
+        object.__setattr__(self, "_notes", tuple(notes))
+        object.__setattr__(self, "_matrix", None)
+
+    def __setattr__(self, name, value):
+        raise AttributeError("Orientation is immutable")
+
+    # --- identity and quaternion --------------------------------------------------------------------
+
+    @classmethod
+    def identity(cls):
+        return cls((1.0, 0.0, 0.0, 0.0))
+
+    @classmethod
+    def from_quaternion(cls, quaternion, scalar_last=False):
+        """From four numbers, (w, x, y, z) by default or (x, y, z, w) with scalar_last=True. Non-unit
+        input is normalised and the result's notes say so."""
+        q = kernels.check_array(quaternion, (4,), "quaternion")
+        if q.shape != (4,):
+            raise InvalidInputError(f"quaternion: expected 4 numbers, got shape {q.shape}")
+        if scalar_last:
+            q = np.roll(q, 1)
+        norm = float(np.linalg.norm(q))
+        if norm == 0:
+            raise InvalidInputError("quaternion of zero length; expected a non-zero (w, x, y, z)")
+        notes = (f"normalised from norm {norm:.10g}",) if abs(norm - 1.0) > _UNIT_NOTICE else ()
+        return cls(q, notes)
+
+    def as_quaternion(self, scalar_last=False):
+        """Canonical unit quaternion: (w, x, y, z), or (x, y, z, w) with scalar_last=True."""
+        return np.roll(self._q, -1) if scalar_last else self._q.copy()
+
+    @property
+    def quaternion(self):
+        """The canonical w-first quaternion (read-only view)."""
+        return self._q
+
+    @property
+    def notes(self):
+        """How this value was made from its input (normalised, corrected); empty when exact."""
+        return self._notes
+
+    # --- matrix -------------------------------------------------------------------------------------
+
+    @classmethod
+    def from_matrix(cls, matrix, transposed=False):
+        """From a 3x3 matrix, body -> reference (columns are the body axes). transposed=True reads the
+        nine numbers as reference -> body (rows are the body axes), as many drawings print them.
+
+        Not-quite-orthonormal input is replaced by its nearest rotation with a note; input too far from
+        a rotation, or a reflection, raises MatrixRefusedError with the report attached."""
+        m = kernels.check_array(matrix, (3, 3), "matrix")
+        if m.shape != (3, 3):
+            raise InvalidInputError(f"matrix: expected 3x3, got shape {m.shape}")
+        if transposed:
+            m = m.T
+        report = orthogonality_report(m)
+        if not report.accepted:
+            raise MatrixRefusedError(report.message, report)
+        notes = () if report.band == "exact" else (report.message,)
+        return cls(kernels.matrices_to_quaternions(report.nearest), notes)
+
+    def as_matrix(self, transposed=False):
+        """3x3 body -> reference matrix, or its transpose (reference -> body) with transposed=True."""
+        if self._matrix is None:
+            m = kernels.quaternions_to_matrices(self._q)
+            m.setflags(write=False)
+            object.__setattr__(self, "_matrix", m)
+        return (self._matrix.T if transposed else self._matrix).copy()
+
+    # --- axis-angle and rotation vector -------------------------------------------------------------
+
+    @classmethod
+    def from_axis_angle(cls, axis, angle, degrees=True):
+        """Rotation by `angle` about `axis` (right-hand rule). A non-unit axis is normalised, noted."""
+        axis = kernels.check_array(axis, (3,), "axis")
+        if axis.shape != (3,):
+            raise InvalidInputError(f"axis: expected 3 numbers, got shape {axis.shape}")
+        angle = float(kernels.check_array(angle, (), "angle"))
+        length = float(np.linalg.norm(axis))
+        if length == 0 and angle != 0:
+            raise InvalidInputError("rotation axis of zero length; expected a non-zero direction (x, y, z)")
+        notes = ()
+        if length > 0 and abs(length - 1.0) > _UNIT_NOTICE:
+            notes = (f"axis normalised from length {length:.10g}",)
+        return cls(kernels.axis_angles_to_quaternions(axis, _angle_in(angle, degrees)), notes)
+
+    def as_axis_angle(self, degrees=True):
+        """(unit axis, angle) with the angle in [0, 180] degrees; the axis is (0, 0, 0) at angle 0."""
+        axis, angle = kernels.quaternions_to_axis_angles(self._q)
+        return axis, float(_angle_out(angle, degrees))
+
+    @classmethod
+    def from_rotation_vector(cls, rotation_vector, degrees=True):
+        rv = kernels.check_array(rotation_vector, (3,), "rotation vector")
+        if rv.shape != (3,):
+            raise InvalidInputError(f"rotation vector: expected 3 numbers, got shape {rv.shape}")
+        return cls(kernels.rotation_vectors_to_quaternions(_angle_in(rv, degrees)))
+
+    def as_rotation_vector(self, degrees=True):
+        return _angle_out(kernels.quaternions_to_rotation_vectors(self._q), degrees)
+
+    # --- angle sequences ----------------------------------------------------------------------------
+
+    @classmethod
+    def from_angles(cls, sequence, angles, intrinsic=True, degrees=True):
+        """From three angles about the axes of `sequence` ('ZYX', "Z-Y'-X''", ...). Intrinsic turns about
+        the moving body axes; extrinsic about the fixed reference axes in the order written."""
+        sequence = parse_sequence(sequence)
+        values = kernels.check_array(angles, (3,), "angles")
+        if values.shape != (3,):
+            raise InvalidInputError(f"angles: expected 3 numbers, got shape {values.shape}")
+        return cls(kernels.angles_to_quaternions(_angle_in(values, degrees), sequence, intrinsic))
+
+    def as_angles(self, sequence, intrinsic=True, degrees=True):
+        sequence = parse_sequence(sequence)
+        angles, locked = kernels.quaternions_to_angles(self._q, sequence, intrinsic)
+        angles = _angle_out(angles, degrees)
+        angles.setflags(write=False)
+        return AngleSet(sequence, intrinsic, degrees, angles, bool(locked))
+
+    # --- algebra ------------------------------------------------------------------------------------
+
+    def __matmul__(self, other):
+        """Composition with the meaning of the matrix product: (a @ b).as_matrix() == A @ B."""
+        if not isinstance(other, Orientation):
+            return NotImplemented
+        return Orientation(kernels.multiply_quaternions(self._q, other._q))
+
+    def inverse(self):
+        return Orientation(kernels.conjugate_quaternions(self._q))
+
+    def apply(self, vectors):
+        """Body-frame vectors, shape (3,) or (N, 3), written in the reference frame: R · v."""
+        v = kernels.check_array(vectors, (3,), "vectors")
+        return kernels.rotate_vectors(self._q, v)
+
+    @property
+    def angle(self):
+        """Rotation angle from the reference, degrees in [0, 180]."""
+        return float(np.degrees(kernels.angles_between(np.array([1.0, 0, 0, 0]), self._q)))
+
+    def angle_to(self, other, degrees=True):
+        """Angle of the rotation that takes this orientation onto `other`."""
+        return float(_angle_out(kernels.angles_between(self._q, other._q), degrees))
+
+    def isclose(self, other, atol=1e-12):
+        """Same orientation within `atol` radians (q and −q are the same orientation)."""
+        return self.angle_to(other, degrees=False) <= atol
+
+    def with_notes(self, notes):
+        """The same orientation carrying other notes."""
+        return Orientation(self._q, notes)
+
+    def __eq__(self, other):
+        if not isinstance(other, Orientation):
+            return NotImplemented
+        return bool(np.array_equal(self._q, other._q))
+
+    def __hash__(self):
+        return hash(self._q.tobytes())
+
+    def __repr__(self):
+        w, x, y, z = (float(v) for v in self._q)
+        return f"Orientation.from_quaternion([{w!r}, {x!r}, {y!r}, {z!r}])"
+
+    def __str__(self):
+        axis, angle = self.as_axis_angle()
+        if angle == 0:
+            return "Orientation(identity)"
+        return f"Orientation({angle:.6g}° about [{axis[0]:.6g}, {axis[1]:.6g}, {axis[2]:.6g}])"
