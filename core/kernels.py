@@ -20,9 +20,12 @@ ALL_SEQUENCES = TAIT_BRYAN + PROPER_EULER
 # Below this gimbal margin (radians) the first and third angles cannot be told apart in double precision
 # without moving the orientation by more than about this much; we then report lock and set the third
 # angle to zero. The bound is small because a larger one would change the orientation the angles spell.
-LOCK_MARGIN_RAD = 1e-12
+LOCK_MARGIN_RAD = 1e-13
 
 _AXIS_INDEX = {"X": 0, "Y": 1, "Z": 2}
+
+# |w| at or below this is a half turn (see canonical_quaternions).
+_HALF_TURN_W = 1.5e-15
 
 
 # --- validation -------------------------------------------------------------------------------------
@@ -65,10 +68,14 @@ def normalize_quaternions(q):
 def canonical_quaternions(q):
     """The sign of q that CONVENTIONS.md calls canonical: w > 0, or w = 0 and the first non-zero of
     x, y, z positive. q and -q are the same orientation; this picks one spelling."""
-    q = np.asarray(q, dtype=np.float64)
+    q = np.array(q, dtype=np.float64)
     w, x, y, z = q[..., 0], q[..., 1], q[..., 2], q[..., 3]
+    # A half turn computed in floating point leaves w at about 1e-16 (cos(pi/2) is not 0): treat that as
+    # the half turn it is, so its axis gets the canonical sign. Moves the orientation by < 3e-15 rad.
+    half_turn = np.abs(w) <= _HALF_TURN_W
+    w[half_turn] = 0.0
     first_vector = np.where(x != 0, x, np.where(y != 0, y, z))
-    flip = (w < 0) | ((w == 0) & (first_vector < 0))
+    flip = (w < 0) | (half_turn & (first_vector < 0))
     # Adding 0.0 turns any -0.0 into +0.0, so no "-0" ever reaches a screen.
     return np.where(flip[..., None], -q, q) + 0.0
 
@@ -248,7 +255,8 @@ def quaternions_to_rotation_vectors(q):
     s = np.linalg.norm(v, axis=-1)
     angle = 2.0 * np.arctan2(s, q[..., 0])
     # angle / s tends to 2 / w as s -> 0; atan2 keeps the ratio exact right down to the last bit.
-    factor = np.where(s > 0, angle / np.where(s > 0, s, 1.0), 2.0 / q[..., 0])
+    has_axis = s > 0
+    factor = np.where(has_axis, angle / np.where(has_axis, s, 1.0), 2.0 / np.where(has_axis, 1.0, q[..., 0]))
     return v * factor[..., None]
 
 

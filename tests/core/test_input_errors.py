@@ -1,0 +1,59 @@
+"""Bad input raises our own ValueError subclasses with messages saying what was wrong and what was
+expected."""
+
+import math
+
+import numpy as np
+import pytest
+
+from core import FramewrightError, InvalidInputError, Orientation, SequenceError
+from core.sequences import parse_sequence
+
+
+@pytest.mark.parametrize("call, words", [
+    (lambda: Orientation.from_quaternion([math.nan, 0, 0, 1]), "NaN"),
+    (lambda: Orientation.from_quaternion([math.inf, 0, 0, 1]), "infinity"),
+    (lambda: Orientation.from_quaternion([0, 0, 0, 0]), "zero length"),
+    (lambda: Orientation.from_quaternion([1, 0, 0]), "shape"),
+    (lambda: Orientation.from_axis_angle([0, 0, 0], 10), "zero length"),
+    (lambda: Orientation.from_axis_angle([1, 0], 10), "shape"),
+    (lambda: Orientation.from_matrix(np.eye(2)), "3, 3"),
+    (lambda: Orientation.from_matrix([[1, 0, 0], [0, 1, 0], [0, 0, "x"]]), "numbers"),
+    (lambda: Orientation.from_rotation_vector([1, 2, math.nan]), "NaN"),
+    (lambda: Orientation.from_angles("ZYX", [1, 2]), "shape"),
+])
+def test_bad_values_are_refused_with_a_message(call, words):
+    with pytest.raises(InvalidInputError, match=words):
+        call()
+
+
+@pytest.mark.parametrize("name", ["ZZX", "XYY", "ABC", "ZY", "ZYXZ", "", "Z-Z-X"])
+def test_bad_sequence_names_are_refused(name):
+    with pytest.raises(SequenceError, match="expected"):
+        Orientation.from_angles(name, [1, 2, 3])
+
+
+@pytest.mark.parametrize("text, expected", [
+    ("ZYX", "ZYX"), ("zyx", "ZYX"), ("Z-Y-X", "ZYX"), ("Z-Y′-X″", "ZYX"), ("Z-Y'-X''", "ZYX"),
+    ("z y x", "ZYX"), ("z,x,z", "ZXZ"),
+])
+def test_sequence_spellings(text, expected):
+    assert parse_sequence(text) == expected
+
+
+def test_all_our_errors_are_value_errors():
+    assert issubclass(FramewrightError, ValueError)
+    with pytest.raises(ValueError):
+        Orientation.from_quaternion([0, 0, 0, 0])
+
+
+def test_zero_axis_with_zero_angle_is_the_identity():
+    assert Orientation.from_axis_angle([0, 0, 0], 0) == Orientation.identity()
+
+
+def test_orientation_is_immutable():
+    o = Orientation.identity()
+    with pytest.raises(AttributeError):
+        o.anything = 1
+    with pytest.raises(ValueError):
+        o.quaternion[0] = 2.0
