@@ -1,0 +1,161 @@
+"""Angles editor: three angles of one of the twelve sequences, intrinsic or extrinsic, and under them the
+same orientation spelled in the other convention."""
+
+from __future__ import annotations
+
+import numpy as np
+from PySide6.QtWidgets import QComboBox, QGridLayout, QLabel
+
+from app.editors.base import EditorBase
+from app.editors.number_field import NumberField
+from core.errors import FramewrightError
+from core.orientation import Orientation
+from core.sequences import ALL_SEQUENCES, PRESETS, is_proper_euler, other_convention
+
+PRIMES = ("", "′", "″")
+
+
+def preset_names(sequence: str, intrinsic: bool) -> tuple[str, str, str] | None:
+    """yaw/pitch/roll names when (sequence, intrinsic) is one of the trade's presets."""
+    for seq, intr, names in PRESETS.values():
+        if seq == sequence and intr == intrinsic:
+            return names
+    return None
+
+
+def axis_labels(sequence: str, intrinsic: bool) -> list[str]:
+    """'Z', 'Y′', 'X″' for intrinsic (moving axes), plain letters for extrinsic (fixed axes), plus the
+    preset's angle names where there is one."""
+    names = preset_names(sequence, intrinsic)
+    labels = []
+    for i, axis in enumerate(sequence):
+        text = f"{axis}{PRIMES[i] if intrinsic else ''}"
+        if names:
+            text += f" ({names[i]})"
+        labels.append(text)
+    return labels
+
+
+def spelled_sequence(sequence: str, intrinsic: bool) -> str:
+    return "-".join(f"{a}{PRIMES[i] if intrinsic else ''}" for i, a in enumerate(sequence))
+
+
+class AnglesEditor(EditorBase):
+    def __init__(self, model, parent=None):
+        super().__init__(model, "Angles", parent)
+        self.sequence_box = QComboBox()
+        for seq in ALL_SEQUENCES:
+            kind = "proper Euler" if is_proper_euler(seq) else "Tait–Bryan"
+            self.sequence_box.addItem(f"{'-'.join(seq)}  ({kind})", seq)
+        self.sequence_box.setToolTip("Axis order of the three turns. Tait–Bryan use three different axes; "
+                                     "proper Euler repeat the first axis last.")
+        self.kind_box = QComboBox()
+        self.kind_box.addItem("intrinsic (about the moving body axes)", True)
+        self.kind_box.addItem("extrinsic (about the fixed reference axes)", False)
+        self.kind_box.setToolTip("Intrinsic: R = R1(θ1)·R2(θ2)·R3(θ3), each turn about the axes already turned. "
+                                 "Extrinsic: R = R3(θ3)·R2(θ2)·R1(θ1), each about the fixed reference axes, "
+                                 "in the order written.")
+        self.fields = [NumberField("", step=1.0) for _ in range(3)]
+        self.labels = [QLabel() for _ in range(3)]
+        self.other_label = QLabel()
+        self.other_label.setWordWrap(True)
+        self.other_label.setToolTip("Intrinsic a1-a2-a3 (θ1, θ2, θ3) is the same orientation as extrinsic "
+                                    "a3-a2-a1 (θ3, θ2, θ1).")
+        self.note = self.note_label()
+
+        grid = QGridLayout(self)
+        grid.addWidget(QLabel("Sequence"), 0, 0)
+        grid.addWidget(self.sequence_box, 0, 1)
+        grid.addWidget(QLabel("Turns"), 1, 0)
+        grid.addWidget(self.kind_box, 1, 1)
+        for i, (label, field) in enumerate(zip(self.labels, self.fields)):
+            grid.addWidget(label, i + 2, 0)
+            grid.addWidget(field, i + 2, 1)
+        grid.addWidget(self.other_label, 5, 0, 1, 2)
+        grid.addWidget(self.note, 6, 0, 1, 2)
+        grid.setColumnStretch(1, 1)
+        grid.setRowStretch(7, 1)
+
+        for i, field in enumerate(self.fields):
+            field.edited.connect(self._on_typed)
+            field.committed.connect(self._on_committed)
+            field.stepped.connect(lambda value, f=field: self._on_stepped(f, value))
+        self.sequence_box.activated.connect(
+            lambda i: self.model.set_preferences(origin=self, sequence=self.sequence_box.itemData(i)))
+        self.kind_box.activated.connect(
+            lambda i: self.model.set_preferences(origin=self, intrinsic=self.kind_box.itemData(i)))
+        self.render()
+
+    @property
+    def sequence(self) -> str:
+        return self.model.preferences.sequence
+
+    @property
+    def intrinsic(self) -> bool:
+        return self.model.preferences.intrinsic
+
+    def _tooltip(self, i: int) -> str:
+        seq, intr = self.sequence, self.intrinsic
+        axis = seq[i]
+        frame = "moving body" if intr else "fixed reference"
+        if i == 1:
+            span = "[−90°, 90°]" if not is_proper_euler(seq) else "[0°, 180°]"
+        else:
+            span = "(−180°, 180°]"
+        return (f"θ{i + 1} ({self.angle_unit}): turn about the {frame} {axis} axis, right-handed, "
+                f"{spelled_sequence(seq, intr)} {'intrinsic' if intr else 'extrinsic'}. Shown in {span}.")
+
+    def render(self) -> None:
+        seq, intr = self.sequence, self.intrinsic
+        self.sequence_box.setCurrentIndex(self.sequence_box.findData(seq))
+        self.kind_box.setCurrentIndex(0 if intr else 1)
+        for i, (label, text) in enumerate(zip(self.labels, axis_labels(seq, intr))):
+            label.setText(f"{text} ({self.angle_unit})")
+            self.fields[i].set_convention_tooltip(self._tooltip(i))
+            self.fields[i].set_step(1.0 if self.degrees else 0.01)
+        angle_set = self.model.current_orientation().as_angles(seq, intrinsic=intr, degrees=self.degrees)
+        for field, value in zip(self.fields, angle_set.angles):
+            field.set_text(self.fmt(value))
+        self._show_other(angle_set.angles)
+        self.note.setText(
+            f"Gimbal lock: only θ1 and θ3 together are determined; θ3 is set to 0 and θ1 carries the turn."
+            if angle_set.locked else "")
+
+    def _show_other(self, angles) -> None:
+        seq, intr = self.sequence, self.intrinsic
+        other_seq, other_angles, other_intr = other_convention(seq, angles, intr)
+        names = preset_names(other_seq, other_intr)
+        values = ", ".join(f"{self.fmt(a)}" for a in other_angles)
+        named = f" ({', '.join(names)})" if names else ""
+        self.other_label.setText(
+            f"Same orientation: {'intrinsic' if other_intr else 'extrinsic'} "
+            f"{spelled_sequence(other_seq, other_intr)}{named} = ({values}) {self.angle_unit}")
+
+    def _read(self) -> Orientation | None:
+        values = self.read_fields(self.fields)
+        if values is None:
+            return None
+        try:
+            o = Orientation.from_angles(self.sequence, values, intrinsic=self.intrinsic, degrees=self.degrees)
+        except FramewrightError as exc:
+            for field in self.fields:
+                field.set_problem(str(exc))
+            return None
+        self._show_other(np.asarray(values))
+        return o
+
+    def _on_typed(self, _text: str = "") -> None:
+        o = self._read()
+        self._editing = True
+        if o is not None:
+            self.push(o, "typing")
+
+    def _on_stepped(self, field: NumberField, value: float) -> None:
+        field.set_text(self.fmt(value))
+        o = self._read()
+        if o is not None:
+            self.push(o, f"step-{self.fields.index(field)}")
+
+    def _on_committed(self) -> None:
+        if self._read() is not None:
+            self.finish_editing()

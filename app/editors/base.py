@@ -1,0 +1,91 @@
+"""What every editor shares: render from the model, ignore the orientation change it made itself, keep the
+user's spelling until focus leaves the editor, then show the canonical form."""
+
+from __future__ import annotations
+
+from PySide6.QtWidgets import QApplication, QGroupBox, QLabel, QWidget
+
+from app.editors.number_field import NumberField, format_number, parse_number
+from app.model import ORIENTATION, PREFERENCES, Change, SessionModel
+
+
+class EditorBase(QGroupBox):
+    def __init__(self, model: SessionModel, title: str, parent: QWidget | None = None):
+        super().__init__(title, parent)
+        self.model = model
+        self._editing = False  # the user has typed or stepped here since the last render
+        model.changed.connect(self._on_model_changed)
+        app = QApplication.instance()
+        if app is not None:
+            app.focusChanged.connect(self._on_focus_changed)
+
+    # ---- to implement ---------------------------------------------------------------------------
+    def render(self) -> None:
+        """Show the model's current orientation in this editor's canonical spelling."""
+        raise NotImplementedError
+
+    # ---- shared behaviour -----------------------------------------------------------------------
+    @property
+    def digits(self) -> int:
+        return self.model.preferences.significant_digits
+
+    @property
+    def degrees(self) -> bool:
+        return self.model.preferences.angle_units == "deg"
+
+    @property
+    def angle_unit(self) -> str:
+        return "°" if self.degrees else "rad"
+
+    def fmt(self, value: float) -> str:
+        return format_number(float(value), self.digits)
+
+    def _on_model_changed(self, change: Change) -> None:
+        if change.made_by(self) and change.what == frozenset({ORIENTATION}):
+            return  # our own edit: the fields already hold what the user typed
+        self._editing = False
+        if change.touches(PREFERENCES):
+            for field in self.findChildren(NumberField):
+                field.fit_digits(self.digits)
+        self.render()
+
+    def _on_focus_changed(self, old, new) -> None:
+        if not self._editing:
+            return
+        was_inside = old is not None and self.isAncestorOf(old)
+        now_inside = new is not None and self.isAncestorOf(new)
+        if was_inside and not now_inside:
+            self.finish_editing()
+
+    def finish_editing(self) -> None:
+        """The user is done here (Enter, or focus went elsewhere): end the undo run, show canonical."""
+        self.model.end_continuous()
+        self._editing = False
+        self.render()
+
+    def push(self, orientation, key: str) -> None:
+        """Send an edit to the model; runs of the same key merge into one undo step."""
+        self._editing = True
+        self.model.set_orientation(orientation, origin=self, continuous_key=(type(self).__name__, key),
+                                   text=f"Edit {self.title().replace('&&', '&')}")
+
+    @staticmethod
+    def read_fields(fields: list[NumberField]) -> list[float] | None:
+        """Parse each field, marking the bad ones; None when any is bad."""
+        values, good = [], True
+        for field in fields:
+            try:
+                values.append(parse_number(field.text()))
+                field.set_problem(None)
+            except ValueError as exc:
+                field.set_problem(str(exc))
+                good = False
+        return values if good else None
+
+    @staticmethod
+    def note_label() -> QLabel:
+        label = QLabel("")
+        label.setWordWrap(True)
+        label.setObjectName("EditorNote")
+        label.setStyleSheet("color: #444;")
+        return label

@@ -1,0 +1,137 @@
+"""One number field: free text the user owns, '.' as the decimal point whatever the locale, arrows and
+wheel stepping, and a red frame with a tooltip saying why when the text is not a number.
+
+The field never rewrites its own text while the user types; the editor decides when to render.
+"""
+
+from __future__ import annotations
+
+import math
+
+from PySide6.QtCore import Qt, Signal
+from PySide6.QtGui import QValidator
+from PySide6.QtWidgets import QAbstractSpinBox
+
+# Characters people paste in place of a plain minus sign or space.
+_MINUS_SIGNS = {"\u2212": "-", "\u2013": "-", "\u2012": "-", "\ufe63": "-", "\uff0d": "-"}
+_SPACES = {"\u00a0": "", "\u202f": "", "\u2009": "", " ": ""}
+
+
+def parse_number(text: str) -> float:
+    """Read one number typed or pasted by a person. Raises ValueError with a message for that person."""
+    cleaned = text.strip()
+    for odd, plain in {**_MINUS_SIGNS, **_SPACES}.items():
+        cleaned = cleaned.replace(odd, plain)
+    if cleaned == "":
+        raise ValueError("empty: type a number")
+    if "," in cleaned:
+        raise ValueError(f"“{text.strip()}”: use '.' as the decimal point, not ','")
+    try:
+        value = float(cleaned)
+    except ValueError:
+        raise ValueError(f"“{text.strip()}” is not a number") from None
+    if not math.isfinite(value):
+        raise ValueError(f"“{text.strip()}” is not a finite number")
+    return value
+
+
+def format_number(value: float, digits: int) -> str:
+    """Significant digits, no negative zero, no exponent noise for values that are zero in practice."""
+    if abs(value) < 10.0 ** -(digits + 3):
+        value = 0.0
+    text = f"{value:.{digits}g}"
+    if text in ("-0", "-0.0"):
+        text = "0"
+    return text
+
+
+class NumberField(QAbstractSpinBox):
+    """Signals: ``edited(text)`` while the user types; ``stepped(value)`` for each arrow, wheel or
+    up/down-key step; ``committed()`` on Enter."""
+
+    edited = Signal(str)
+    stepped = Signal(float)
+    committed = Signal()
+
+    def __init__(self, convention_tooltip: str, step: float = 1.0, parent=None, steppable: bool = True):
+        super().__init__(parent)
+        self._base_tooltip = convention_tooltip
+        self._step = step
+        self._steppable = steppable
+        self._problem: str | None = None
+        self.setToolTip(convention_tooltip)
+        self.setAccelerated(True)
+        self.setKeyboardTracking(True)
+        self.setCorrectionMode(QAbstractSpinBox.CorrectionMode.CorrectToPreviousValue)
+        self.setAlignment(Qt.AlignmentFlag.AlignRight | Qt.AlignmentFlag.AlignVCenter)
+        if not steppable:
+            self.setButtonSymbols(QAbstractSpinBox.ButtonSymbols.NoButtons)
+        self.lineEdit().textEdited.connect(self.edited)
+        self.lineEdit().returnPressed.connect(self.committed)
+        self.fit_digits(9)
+        self.setObjectName("NumberField")
+
+    # ---- text the editor renders ----------------------------------------------------------------
+    def set_text(self, text: str) -> None:
+        """Replace the text (a render from the model); clears any problem."""
+        if self.lineEdit().text() != text:
+            self.lineEdit().setText(text)
+        self.set_problem(None)
+
+    def text(self) -> str:  # noqa: D401 - the field's current text
+        return self.lineEdit().text()
+
+    def value(self) -> float:
+        return parse_number(self.text())
+
+    def fit_digits(self, digits: int) -> None:
+        """Wide enough for a signed number with this many significant digits, never clipped."""
+        sample = "-0.000" + "8" * digits
+        self.setMinimumWidth(self.fontMetrics().horizontalAdvance(sample) + (44 if self._steppable else 16))
+
+    def set_step(self, step: float) -> None:
+        self._step = step
+
+    # ---- problems -------------------------------------------------------------------------------
+    def set_problem(self, problem: str | None) -> None:
+        if problem == self._problem:
+            return
+        self._problem = problem
+        self.setProperty("invalid", problem is not None)
+        if problem is None:
+            self.setToolTip(self._base_tooltip)
+            self.setStyleSheet("")
+        else:
+            self.setToolTip(f"Not used: {problem}\n\n{self._base_tooltip}")
+            self.setStyleSheet("NumberField { border: 2px solid #c62828; border-radius: 2px; }")
+
+    @property
+    def problem(self) -> str | None:
+        return self._problem
+
+    def set_convention_tooltip(self, text: str) -> None:
+        self._base_tooltip = text
+        if self._problem is None:
+            self.setToolTip(text)
+        else:
+            self.setToolTip(f"Not used: {self._problem}\n\n{text}")
+
+    # ---- QAbstractSpinBox hooks -----------------------------------------------------------------
+    def validate(self, text, pos):
+        # Accept any text: a bad entry is shown (red frame, tooltip), never blocked or silently fixed.
+        return QValidator.State.Acceptable, text, pos
+
+    def fixup(self, text):
+        return text
+
+    def stepEnabled(self):
+        if not self._steppable:
+            return QAbstractSpinBox.StepEnabledFlag.StepNone
+        return QAbstractSpinBox.StepEnabledFlag.StepUpEnabled | QAbstractSpinBox.StepEnabledFlag.StepDownEnabled
+
+    def stepBy(self, steps: int) -> None:
+        try:
+            start = self.value()
+        except ValueError:
+            return  # nothing good to step from; the red frame already says why
+        self.stepped.emit(start + steps * self._step)
