@@ -1,0 +1,199 @@
+"""A mount chain: reference -> bracket -> plate -> ... -> body, as an immutable value.
+
+Each step holds the orientation of its child frame in its parent frame (v_parent = R_step · v_child), so
+the chain composes as R = R_1 · R_2 · ... · R_n (CONVENTIONS.md: R = R_A · R_AB · R_B,body), step 1 being
+the one fixed to the reference. A step marked `inverted` contributes R_stepᵀ: its value was given the
+other way round (parent in child), as some drawings do. A disabled step contributes nothing (identity),
+e.g. a spacer that is not fitted.
+
+Every edit (add, remove, move, reorder, invert, enable) returns a new Chain; nothing is changed in place,
+which is what the undo stack above us needs.
+
+Session-file form (to_dict / from_dict)::
+
+    {"name": "antenna mast",
+     "steps": [{"name": "bracket", "orientation": {"quaternion_wxyz": [w, x, y, z]},
+                "inverted": false, "enabled": true}, ...]}
+
+The orientation entry has the same form as a mount's in core/session.py.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, replace
+
+from core.errors import FramewrightError, InvalidInputError
+from core.orientation import Orientation
+
+
+@dataclass(frozen=True)
+class ChainStep:
+    """One link: `orientation` of the child frame in the parent frame, as entered."""
+
+    name: str
+    orientation: Orientation
+    inverted: bool = False
+    enabled: bool = True
+
+    def __post_init__(self):
+        if not isinstance(self.name, str):
+            raise InvalidInputError(f"step name: expected text, got {self.name!r}")
+        if not isinstance(self.orientation, Orientation):
+            raise InvalidInputError(
+                f"step {self.name!r}: expected an Orientation, got {type(self.orientation).__name__}")
+        for flag in ("inverted", "enabled"):
+            if not isinstance(getattr(self, flag), bool):
+                raise InvalidInputError(f"step {self.name!r}: {flag} must be true or false, "
+                                        f"got {getattr(self, flag)!r}")
+
+    @property
+    def contribution(self):
+        """What this step multiplies into the chain: its orientation, its inverse, or the identity."""
+        if not self.enabled:
+            return Orientation.identity()
+        return self.orientation.inverse() if self.inverted else self.orientation
+
+    def to_dict(self):
+        return {
+            "name": self.name,
+            "orientation": {"quaternion_wxyz": [float(v) for v in self.orientation.quaternion]},
+            "inverted": self.inverted,
+            "enabled": self.enabled,
+        }
+
+    @classmethod
+    def from_dict(cls, data, where="step"):
+        if not isinstance(data, dict):
+            raise FramewrightError(f"{where}: expected a JSON object, got {type(data).__name__}")
+        for key in ("name", "orientation"):
+            if key not in data:
+                raise FramewrightError(f"{where}: missing {key!r}; expected keys name, orientation, "
+                                       f"inverted, enabled")
+        orientation = data["orientation"]
+        if not isinstance(orientation, dict) or "quaternion_wxyz" not in orientation:
+            raise FramewrightError(f"{where}: orientation must be {{\"quaternion_wxyz\": [w, x, y, z]}}, "
+                                   f"got {orientation!r}")
+        try:
+            value = Orientation.from_quaternion(orientation["quaternion_wxyz"])
+            return cls(data["name"], value, data.get("inverted", False), data.get("enabled", True))
+        except FramewrightError as exc:
+            raise type(exc)(f"{where}: {exc}") from exc
+
+
+@dataclass(frozen=True)
+class Frame:
+    """An intermediate frame: the cumulative orientation (this frame -> reference) after step `index`."""
+
+    index: int
+    name: str
+    orientation: Orientation
+
+
+@dataclass(frozen=True)
+class Chain:
+    """An ordered tuple of ChainStep, reference side first."""
+
+    steps: tuple = ()
+    name: str = "chain"
+
+    def __post_init__(self):
+        steps = tuple(self.steps)
+        for i, step in enumerate(steps):
+            if not isinstance(step, ChainStep):
+                raise InvalidInputError(f"chain step {i}: expected a ChainStep, got {type(step).__name__}")
+        if not isinstance(self.name, str):
+            raise InvalidInputError(f"chain name: expected text, got {self.name!r}")
+        object.__setattr__(self, "steps", steps)
+
+    def __len__(self):
+        return len(self.steps)
+
+    def _index(self, index, allow_end=False):
+        top = len(self.steps) if allow_end else len(self.steps) - 1
+        if not isinstance(index, int) or isinstance(index, bool) or not 0 <= index <= top:
+            raise InvalidInputError(
+                f"no step at index {index!r}; the chain has {len(self.steps)} step(s), "
+                f"expected an index from 0 to {top}")
+        return index
+
+    # --- results --------------------------------------------------------------------------------------
+
+    def product(self):
+        """body -> reference through every enabled step."""
+        result = Orientation.identity()
+        for step in self.steps:
+            result = result @ step.contribution
+        return result
+
+    def frames(self):
+        """The cumulative orientation after each enabled step, reference side first; the last one is the
+        product (or there are none when no step is enabled)."""
+        frames = []
+        cumulative = Orientation.identity()
+        for i, step in enumerate(self.steps):
+            if step.enabled:
+                cumulative = cumulative @ step.contribution
+                frames.append(Frame(i, step.name, cumulative))
+        return tuple(frames)
+
+    # --- edits (each returns a new chain) -------------------------------------------------------------
+
+    def with_step(self, step, at=None):
+        """`step` inserted before index `at` (appended at the body end when None)."""
+        at = len(self.steps) if at is None else self._index(at, allow_end=True)
+        return replace(self, steps=self.steps[:at] + (step,) + self.steps[at:])
+
+    def without_step(self, index):
+        index = self._index(index)
+        return replace(self, steps=self.steps[:index] + self.steps[index + 1:])
+
+    def with_step_replaced(self, index, step):
+        index = self._index(index)
+        return replace(self, steps=self.steps[:index] + (step,) + self.steps[index + 1:])
+
+    def moved(self, index, to):
+        """The step at `index` moved so that it ends up at index `to`."""
+        index, to = self._index(index), self._index(to)
+        steps = list(self.steps)
+        steps.insert(to, steps.pop(index))
+        return replace(self, steps=tuple(steps))
+
+    def reordered(self, order):
+        """Steps in the order given as a permutation of the indices, e.g. (2, 0, 1)."""
+        order = tuple(order)
+        if sorted(order) != list(range(len(self.steps))):
+            raise InvalidInputError(
+                f"reorder: {order!r} is not a permutation of 0..{len(self.steps) - 1}; expected each step "
+                f"index exactly once")
+        return replace(self, steps=tuple(self.steps[i] for i in order))
+
+    def with_inverted(self, index, inverted=None):
+        """Step `index` with its inverted flag set (toggled when `inverted` is None)."""
+        step = self.steps[self._index(index)]
+        flag = (not step.inverted) if inverted is None else inverted
+        return self.with_step_replaced(index, replace(step, inverted=flag))
+
+    def with_enabled(self, index, enabled=None):
+        """Step `index` enabled or disabled (toggled when `enabled` is None)."""
+        step = self.steps[self._index(index)]
+        flag = (not step.enabled) if enabled is None else enabled
+        return self.with_step_replaced(index, replace(step, enabled=flag))
+
+    def renamed(self, name):
+        return replace(self, name=name)
+
+    # --- session file ---------------------------------------------------------------------------------
+
+    def to_dict(self):
+        return {"name": self.name, "steps": [step.to_dict() for step in self.steps]}
+
+    @classmethod
+    def from_dict(cls, data):
+        if not isinstance(data, dict):
+            raise FramewrightError(f"chain: expected a JSON object, got {type(data).__name__}")
+        steps = data.get("steps", [])
+        if not isinstance(steps, list):
+            raise FramewrightError(f"chain: 'steps' must be a list, got {type(steps).__name__}")
+        name = data.get("name", "chain")
+        return cls(tuple(ChainStep.from_dict(s, where=f"chain {name!r} step {i}") for i, s in enumerate(steps)),
+                   name)

@@ -1,0 +1,263 @@
+"""Nominal against measured: total deviation, pointing error of a body axis and the roll about it, each
+against a tolerance with a pass / fail and a margin.
+
+Definitions (CONVENTIONS.md):
+- Deviation D = Nᵀ M: the turn that takes the nominal body frame onto the measured one, written in the
+  nominal body frame. Its angle is the total deviation; its axis is given in nominal body axes.
+- Pointing error of a body axis a: the angle between N a and M a (where the axis should point and where it
+  does point). Equal to the angle between a and D a.
+- Roll about a: what is left of D once the pointing is corrected. D is split as D = S · T (swing–twist),
+  T a turn about a, S a turn about an axis perpendicular to a. The swing angle is the pointing error, the
+  twist angle is the roll (signed, right-hand rule about a, in (−180°, 180°]). The twist angle is the same
+  whichever order the split is taken in (S · T or T · S), so "roll" has one meaning.
+- Margin = tolerance − value (negative when failing). A value equal to its tolerance passes.
+
+The array functions (radians, quaternions w-first, any leading shape) serve one check and a batch of a
+million alike; `check` wraps them for one pair of Orientations.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+
+import numpy as np
+
+from core import kernels
+from core.errors import FramewrightError, InvalidInputError
+from core.orientation import Orientation
+
+MODES = ("total", "pointing_and_roll")
+
+_NAMED_AXES = {
+    "+X": (1.0, 0.0, 0.0), "-X": (-1.0, 0.0, 0.0),
+    "+Y": (0.0, 1.0, 0.0), "-Y": (0.0, -1.0, 0.0),
+    "+Z": (0.0, 0.0, 1.0), "-Z": (0.0, 0.0, -1.0),
+}
+
+
+def axis_name(spec):
+    """'+X' for 'x', '+x', 'X', ' +X '; None when `spec` is not a named axis."""
+    if not isinstance(spec, str):
+        return None
+    text = spec.strip().upper().replace("−", "-")
+    if len(text) == 1:
+        text = "+" + text
+    return text if text in _NAMED_AXES else None
+
+
+def axis_vector(spec, what="body axis"):
+    """A unit 3-vector from a named axis ('+Z', '-x', 'Y') or three numbers (normalised)."""
+    if isinstance(spec, str):
+        name = axis_name(spec)
+        if name is None:
+            raise InvalidInputError(
+                f"{what}: cannot read {spec!r}; expected one of {', '.join(_NAMED_AXES)} or three numbers")
+        return np.array(_NAMED_AXES[name])
+    v = kernels.check_array(spec, (3,), what)
+    if v.shape != (3,):
+        raise InvalidInputError(f"{what}: expected three numbers, got shape {v.shape}")
+    length = float(np.linalg.norm(v))
+    if length == 0:
+        raise InvalidInputError(f"{what}: zero-length direction; expected a non-zero (x, y, z)")
+    return v / length
+
+
+# --- array functions (radians) ---------------------------------------------------------------------
+
+def deviation_quaternions(q_nominal, q_measured):
+    """D = N⁻¹ ⊗ M for unit quaternions (any leading shape): the deviation in the nominal body frame."""
+    return kernels.multiply_quaternions(kernels.conjugate_quaternions(q_nominal), q_measured)
+
+
+def deviation_angles(d):
+    """Rotation angle of each deviation quaternion, radians in [0, pi] (atan2 form: exact near 0)."""
+    d = np.asarray(d, dtype=np.float64)
+    return 2.0 * np.arctan2(np.linalg.norm(d[..., 1:], axis=-1), np.abs(d[..., 0]))
+
+
+def deviation_axes(d):
+    """Unit rotation axis of each deviation (nominal body frame); (0, 0, 0) where the angle is zero.
+
+    The sign follows w >= 0, so the axis goes with an angle in [0, pi]."""
+    d = np.asarray(d, dtype=np.float64)
+    v = d[..., 1:] * np.where(d[..., :1] < 0, -1.0, 1.0)
+    s = np.linalg.norm(v, axis=-1)
+    return np.where((s > 0)[..., None], v / np.where(s > 0, s, 1.0)[..., None], 0.0) + 0.0
+
+
+def swing_twist_angles(d, axis):
+    """(swing, twist, twist_defined) of each deviation about the unit body axis `axis` (radians).
+
+    With D = (w, v) and p = v · a: the twist is the normalised (w, p a), so cos(swing/2) = hypot(w, p)
+    and sin(swing/2) = |v − p a|. swing is the pointing error of a, in [0, pi]; twist is the roll about a,
+    in (−pi, pi]. When swing is exactly pi the twist is undefined: it is reported as 0 with
+    twist_defined False."""
+    d = np.asarray(d, dtype=np.float64)
+    a = np.asarray(axis, dtype=np.float64)
+    w = d[..., 0]
+    v = d[..., 1:]
+    p = np.einsum("...i,...i->...", v, np.broadcast_to(a, v.shape))
+    perpendicular = np.linalg.norm(v - p[..., None] * a, axis=-1)
+    along = np.hypot(w, p)
+    swing = 2.0 * np.arctan2(perpendicular, along)
+    # twist = 2 atan2(p, w); taking w >= 0 first keeps it in (−pi, pi] for either sign of D.
+    sign = np.where(w < 0, -1.0, 1.0)
+    twist = 2.0 * np.arctan2(p * sign, w * sign)
+    twist = np.where(twist <= -np.pi, twist + 2.0 * np.pi, twist)
+    defined = along > 0
+    return swing, np.where(defined, twist, 0.0) + 0.0, defined
+
+
+def pointing_errors(q_nominal, q_measured, body_axis):
+    """Angle (radians) between N a and M a for each pair: the pointing error of body axis a."""
+    return swing_twist_angles(deviation_quaternions(q_nominal, q_measured), body_axis)[0]
+
+
+# --- settings and one check ------------------------------------------------------------------------
+
+def _tolerance(value, what):
+    try:
+        number = float(value)
+    except (TypeError, ValueError) as exc:
+        raise InvalidInputError(f"{what}: expected a number of degrees, got {value!r}") from exc
+    if not math.isfinite(number) or number < 0:
+        raise InvalidInputError(f"{what}: expected a finite angle >= 0 degrees, got {value!r}")
+    return number
+
+
+@dataclass(frozen=True)
+class CheckSettings:
+    """What a check compares against.
+
+    mode: 'total' (the total deviation against total_tolerance_deg) or 'pointing_and_roll' (the pointing
+    error of body_axis against pointing_tolerance_deg and |roll| about it against roll_tolerance_deg).
+    body_axis: a named axis ('+Z') or three numbers; None reports no pointing figures (mode 'total' only).
+    """
+
+    mode: str = "total"
+    total_tolerance_deg: float = 0.5
+    pointing_tolerance_deg: float = 0.5
+    roll_tolerance_deg: float = 1.0
+    body_axis: str | tuple | None = None
+
+    def __post_init__(self):
+        if self.mode not in MODES:
+            raise InvalidInputError(f"check mode {self.mode!r} is unknown; expected one of {', '.join(MODES)}")
+        for name in ("total_tolerance_deg", "pointing_tolerance_deg", "roll_tolerance_deg"):
+            object.__setattr__(self, name, _tolerance(getattr(self, name), name.replace("_", " ")))
+        axis = self.body_axis
+        if axis is not None:
+            name = axis_name(axis)
+            if name is not None:
+                axis = name
+            else:
+                axis_vector(axis)  # validates
+                axis = tuple(float(c) for c in np.asarray(axis, dtype=float))
+            object.__setattr__(self, "body_axis", axis)
+        if self.mode == "pointing_and_roll" and axis is None:
+            raise InvalidInputError(
+                "check mode 'pointing_and_roll' needs a body axis; expected body_axis such as '+Z'")
+
+    def axis_vector(self):
+        """The unit body axis, or None."""
+        return None if self.body_axis is None else axis_vector(self.body_axis)
+
+    def to_dict(self):
+        axis = self.body_axis
+        return {
+            "mode": self.mode,
+            "total_tolerance_deg": self.total_tolerance_deg,
+            "pointing_tolerance_deg": self.pointing_tolerance_deg,
+            "roll_tolerance_deg": self.roll_tolerance_deg,
+            "body_axis": list(axis) if isinstance(axis, tuple) else axis,
+        }
+
+    @classmethod
+    def from_dict(cls, data):
+        """Settings from to_dict's form; missing keys take the defaults, unknown keys are refused."""
+        if not isinstance(data, dict):
+            raise FramewrightError(f"check settings: expected a JSON object, got {type(data).__name__}")
+        known = {"mode", "total_tolerance_deg", "pointing_tolerance_deg", "roll_tolerance_deg", "body_axis"}
+        unknown = sorted(set(data) - known)
+        if unknown:
+            raise FramewrightError(
+                f"check settings: unknown key(s) {', '.join(unknown)}; expected some of {', '.join(sorted(known))}")
+        values = dict(data)
+        if isinstance(values.get("body_axis"), list):
+            values["body_axis"] = tuple(values["body_axis"])
+        return cls(**values)
+
+
+@dataclass(frozen=True)
+class Criterion:
+    """One figure against its tolerance (degrees). margin = tolerance − value; passed when margin >= 0."""
+
+    name: str
+    value_deg: float
+    tolerance_deg: float
+
+    @property
+    def margin_deg(self):
+        return self.tolerance_deg - self.value_deg
+
+    @property
+    def passed(self):
+        return self.value_deg <= self.tolerance_deg
+
+
+@dataclass(frozen=True)
+class CheckResult:
+    """deviation: D = Nᵀ M. total_deg and axis (nominal body frame; zeros at no deviation).
+    pointing_deg / roll_deg: for settings.body_axis (None without one); roll_defined is False when the
+    axis points exactly backwards and the roll cannot be told. criteria: the figures judged."""
+
+    deviation: Orientation
+    total_deg: float
+    axis: np.ndarray
+    body_axis: np.ndarray | None
+    pointing_deg: float | None
+    roll_deg: float | None
+    roll_defined: bool
+    criteria: tuple
+    notes: tuple = ()
+
+    @property
+    def passed(self):
+        return all(c.passed for c in self.criteria)
+
+    @property
+    def margin_deg(self):
+        """The smallest margin of the criteria (the one that decides)."""
+        return min(c.margin_deg for c in self.criteria)
+
+    def summary(self):
+        """One line for a person, e.g. 'PASS: total deviation 0.500° within 1.000° (margin 0.500°)'."""
+        parts = [f"{c.name} {c.value_deg:.3f}° {'within' if c.passed else 'exceeds'} "
+                 f"{c.tolerance_deg:.3f}° (margin {c.margin_deg:+.3f}°)" for c in self.criteria]
+        return ("PASS: " if self.passed else "FAIL: ") + "; ".join(parts)
+
+
+def check(nominal, measured, settings=CheckSettings()):
+    """Compare a measured Orientation with the nominal one under `settings`."""
+    if not isinstance(nominal, Orientation) or not isinstance(measured, Orientation):
+        raise InvalidInputError("check: expected two Orientation values (nominal, measured)")
+    d = deviation_quaternions(nominal.quaternion, measured.quaternion)
+    total = float(np.degrees(deviation_angles(d)))
+    axis = deviation_axes(d)
+    body_axis = settings.axis_vector()
+    pointing = roll = None
+    roll_defined = True
+    notes = []
+    if body_axis is not None:
+        swing, twist, defined = swing_twist_angles(d, body_axis)
+        pointing, roll, roll_defined = float(np.degrees(swing)), float(np.degrees(twist)), bool(defined)
+        if not roll_defined:
+            notes.append("the body axis points exactly backwards: the roll about it is undefined (shown as 0)")
+    if settings.mode == "total":
+        criteria = (Criterion("total deviation", total, settings.total_tolerance_deg),)
+    else:
+        criteria = (Criterion("pointing error", pointing, settings.pointing_tolerance_deg),
+                    Criterion("roll", abs(roll), settings.roll_tolerance_deg))
+    return CheckResult(Orientation(d), total, axis, body_axis, pointing, roll, roll_defined, criteria,
+                       tuple(notes))

@@ -1,0 +1,346 @@
+"""A measured orientation from what the bench can measure: point pairs, three datum points, or two or more
+directions.
+
+Point pairs (`fit_points`): nominal points p_i in the body frame (from the drawing) and measured points
+q_i in the reference frame (arm, tracker). The best rigid fit q ≈ R p + t in the weighted least-squares
+sense is the Kabsch (1976) / Horn (1987) solution: with centroids removed, H = Σ w q pᵀ = U S Vᵀ and
+R = U diag(1, 1, d) Vᵀ, d = ±1 making det R = +1.
+- A genuine mirror image (the best orthogonal fit is a reflection and it fits clearly better than any
+  rotation) is refused: a sign or an axis convention is wrong; it is never "fixed".
+- Collinear nominal points leave the rotation about their line undetermined: refused when the off-line
+  spread is below COLLINEAR_REFUSE of the along-line spread, a note below COLLINEAR_NOTE.
+- Flagged points: the modified z-score rule of Iglewicz & Hoaglin (1993, from memory) on the residual
+  distances, z = 0.6745 (d − median) / MAD; a point is flagged when z > 3.5 (only large residuals count),
+  and its residual is also above a floor of 1e-9 of the point set's size (so round-off is never flagged).
+  At least FLAG_MIN_POINTS points are needed; with fewer, the fit absorbs any one bad point.
+
+Three datum points (`frame_from_three_points`, the "3-2-1" construction): the body origin, a point on
+the body +X axis, and a point in the body XY plane on the +Y side, all measured in the reference frame.
+
+Directions (`triad`, `fit_directions`): unit vectors known in the body frame and measured in the
+reference frame (gravity from a level, a boresight from a sight). TRIAD (Black 1964) matches the first
+direction exactly and the plane of the pair; the least-squares answer for two or more weighted
+directions solves Wahba's problem (1965) by the SVD of the attitude profile matrix (the same optimum as
+Davenport's q-method). The angle between the pair is the quality figure: errors about the poorly
+seen axis grow like 1 / sin(angle); nearly parallel directions are refused.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+import numpy as np
+
+from core.errors import FramewrightError, InvalidInputError
+from core.orientation import Orientation
+
+COLLINEAR_REFUSE = 1e-3
+COLLINEAR_NOTE = 5e-2
+FLAG_Z = 3.5
+FLAG_MIN_POINTS = 5
+MIN_PAIR_ANGLE_DEG = 2.0
+WEAK_PAIR_ANGLE_DEG = 15.0
+_MAD_TO_Z = 0.6745
+
+
+class FitRefusedError(FramewrightError):
+    """The measurements do not determine an orientation (collinear, mirrored, parallel, too few).
+
+    `reason` is one of 'too few', 'collinear', 'reflection', 'parallel'."""
+
+    def __init__(self, message, reason):
+        super().__init__(message)
+        self.reason = reason
+
+
+def _points(values, what):
+    try:
+        array = np.asarray(values, dtype=np.float64)
+    except (TypeError, ValueError) as exc:
+        raise InvalidInputError(f"{what}: expected rows of three numbers, got {values!r}") from exc
+    if array.ndim != 2 or array.shape[1] != 3:
+        raise InvalidInputError(f"{what}: expected shape (N, 3), got {array.shape}")
+    if not np.isfinite(array).all():
+        row = int(np.argwhere(~np.isfinite(array))[0, 0])
+        raise InvalidInputError(f"{what}: point {row} has NaN or infinity; expected finite numbers")
+    return array
+
+
+def _weights(weights, n, what="weights"):
+    if weights is None:
+        return None
+    w = np.asarray(weights, dtype=np.float64)
+    if w.shape != (n,):
+        raise InvalidInputError(f"{what}: expected {n} numbers (one per point), got shape {w.shape}")
+    bad = ~np.isfinite(w) | (w < 0)
+    if bad.any():
+        i = int(np.argmax(bad))
+        raise InvalidInputError(f"{what}: weight {i} is {w[i]!r}; expected a finite number >= 0")
+    return w
+
+
+def _rotation_from_profile(h):
+    """The proper rotation maximising trace(Rᵀ H), with the singular values and the sign d that was
+    needed (d = −1: the best orthogonal matrix would have been a reflection)."""
+    u, s, vt = np.linalg.svd(h)
+    d = 1.0 if np.linalg.det(u) * np.linalg.det(vt) > 0 else -1.0
+    u[:, 2] *= d
+    return u @ vt, s, d
+
+
+# --- point pairs -----------------------------------------------------------------------------------
+
+@dataclass(frozen=True)
+class PointFit:
+    """orientation R and translation t with measured ≈ R · nominal + t (reference frame).
+
+    residuals: measured − fitted per point (reference frame); distances: their lengths.
+    rms: sqrt(Σ w d² / Σ w) (the plain RMS when unweighted). worst_index: the largest distance.
+    flagged: indices of points standing far above the rest (see the module docstring for the rule),
+    flag_threshold the distance above which a point is flagged (None when too few points).
+    spread_ratio: off-line over along-line spread of the nominal points (0 collinear, 1 well spread)."""
+
+    orientation: Orientation
+    translation: np.ndarray
+    residuals: np.ndarray
+    distances: np.ndarray
+    rms: float
+    worst_index: int
+    flagged: tuple
+    flag_threshold: float | None
+    spread_ratio: float
+    notes: tuple = ()
+
+    @property
+    def flag_rule(self):
+        return (f"flagged when 0.6745·(d − median)/MAD > {FLAG_Z:g} "
+                f"(modified z-score, Iglewicz & Hoaglin), with at least {FLAG_MIN_POINTS} points")
+
+
+def fit_points(nominal, measured, weights=None):
+    """Best-fit rotation and translation taking nominal body-frame points onto measured reference-frame
+    points, with residuals. `weights` (optional, >= 0, one per point) scale each point's say."""
+    p = _points(nominal, "nominal points")
+    q = _points(measured, "measured points")
+    n = len(p)
+    if q.shape != p.shape:
+        raise InvalidInputError(f"nominal and measured points differ in number ({n} and {len(q)}); "
+                                f"expected one measured point per nominal point")
+    w = _weights(weights, n)
+    used = n if w is None else int(np.count_nonzero(w))
+    if used < 3:
+        raise FitRefusedError(f"{used} point pair(s) with weight above zero; expected at least 3", "too few")
+
+    # Centroids and profile matrix H = Σ w (q − q̄)(p − p̄)ᵀ, and the nominal scatter for collinearity.
+    if w is None:
+        p_mean = p.sum(axis=0) / n
+        q_mean = q.sum(axis=0) / n
+        pc = p - p_mean
+        h = (q - q_mean).T @ pc
+        scatter = pc.T @ pc / n
+    else:
+        total = w.sum()
+        p_mean = w @ p / total
+        q_mean = w @ q / total
+        pc = p - p_mean
+        wp = pc * w[:, None]
+        h = (q - q_mean).T @ wp
+        scatter = pc.T @ wp / total
+
+    spread = np.linalg.eigvalsh(scatter)          # ascending
+    if spread[2] <= 0:
+        raise FitRefusedError("all nominal points coincide; expected points spread over the part", "collinear")
+    spread_ratio = float(np.sqrt(max(spread[1], 0.0) / spread[2]))
+    size = float(np.sqrt(spread[2]))
+    if spread_ratio < COLLINEAR_REFUSE:
+        raise FitRefusedError(
+            f"the nominal points lie on one line (off-line spread {spread_ratio:.2g} of the along-line "
+            f"spread, limit {COLLINEAR_REFUSE:g}): the rotation about that line is not determined; "
+            f"expected at least one point well off the line", "collinear")
+
+    r, s, d = _rotation_from_profile(h)
+    if d < 0 and s[2] > 1e-9 * s[0]:
+        # Energies of the best mirror fit and of the best rotation differ by 4 s3 (weighted sums).
+        q_energy = float(np.sum((q - q_mean) ** 2 if w is None else (q - q_mean) ** 2 * w[:, None]))
+        p_energy = float(np.sum(pc * (pc if w is None else wp)))
+        mirror_energy = max(q_energy + p_energy - 2.0 * float(s.sum()), 0.0)
+        if 4.0 * s[2] > mirror_energy:
+            raise FitRefusedError(
+                "the measured points are a mirror image of the nominal points: the best fit is a "
+                "reflection (det −1), not a rotation; a sign or an axis convention is wrong (a left-handed "
+                "frame?); expected both point sets in right-handed frames", "reflection")
+
+    t = q_mean - r @ p_mean
+    residuals = q - p @ r.T - t
+    sq = np.einsum("ij,ij->i", residuals, residuals)
+    distances = np.sqrt(sq)
+    rms = float(np.sqrt(sq.mean() if w is None else (w @ sq) / w.sum()))
+    flagged, threshold = _flag(distances, size)
+
+    notes = []
+    if spread_ratio < COLLINEAR_NOTE:
+        off_line = float(np.sqrt(max(spread[1] + spread[0], 0.0)))
+        uncertainty = np.degrees(np.arctan2(rms, off_line * np.sqrt(used)))
+        notes.append(f"the nominal points are nearly collinear (off-line spread {spread_ratio:.2g} of the "
+                     f"along-line spread): the rotation about their line is weakly determined, about "
+                     f"±{uncertainty:.2g}° from the residuals")
+    if n < FLAG_MIN_POINTS:
+        notes.append(f"with {n} points no point is flagged: the fit absorbs a single bad point "
+                     f"(at least {FLAG_MIN_POINTS} are needed)")
+    orientation = Orientation.from_matrix(r)
+    return PointFit(orientation, t, residuals, distances, rms, int(np.argmax(distances)), flagged, threshold,
+                    spread_ratio, tuple(notes))
+
+
+def _flag(distances, size):
+    if len(distances) < FLAG_MIN_POINTS:
+        return (), None
+    k = len(distances) // 2
+    part = np.partition(distances, [k - 1, k] if len(distances) % 2 == 0 else [k])
+    median = 0.5 * (part[k - 1] + part[k]) if len(distances) % 2 == 0 else part[k]
+    mad = float(np.median(np.abs(distances - median)))
+    threshold = max(float(median) + FLAG_Z * mad / _MAD_TO_Z, 1e-9 * size)
+    return tuple(int(i) for i in np.flatnonzero(distances > threshold)), threshold
+
+
+# --- three datum points ----------------------------------------------------------------------------
+
+@dataclass(frozen=True)
+class PointFrame:
+    """orientation: body -> reference; origin: the body origin in the reference frame."""
+
+    orientation: Orientation
+    origin: np.ndarray
+    x_distance: float       # from the origin to the X-axis point
+    off_axis_distance: float  # of the XY-plane point from the X axis
+    notes: tuple = ()
+
+
+def frame_from_three_points(origin, on_x_axis, in_xy_plane):
+    """The body frame from three measured points (reference frame): X from the origin towards the X-axis
+    point, Z normal to the plane of the three (right-handed, so the third point is on the +Y side),
+    Y = Z × X."""
+    o, a, b = _points([origin, on_x_axis, in_xy_plane], "three datum points")
+    x = a - o
+    x_distance = float(np.linalg.norm(x))
+    size = max(x_distance, float(np.linalg.norm(b - o)))
+    if x_distance == 0 or x_distance <= 1e-12 * size:
+        raise FitRefusedError("the X-axis point coincides with the origin; expected a point some way along "
+                              "the body +X axis", "collinear")
+    x /= x_distance
+    z = np.cross(x, b - o)
+    off_axis = float(np.linalg.norm(z))
+    if off_axis <= 1e-9 * size:
+        raise FitRefusedError("the XY-plane point lies on the X axis: the rotation about X is not "
+                              "determined; expected a point well off the X axis, on the +Y side", "collinear")
+    z /= off_axis
+    y = np.cross(z, x)
+    notes = ()
+    if off_axis < COLLINEAR_NOTE * x_distance:
+        notes = (f"the XY-plane point is only {off_axis:.3g} off the X axis ({off_axis / x_distance:.2g} of "
+                 f"the X distance): the rotation about X is weakly determined",)
+    return PointFrame(Orientation.from_matrix(np.column_stack([x, y, z])), o, x_distance, off_axis, notes)
+
+
+# --- directions ------------------------------------------------------------------------------------
+
+@dataclass(frozen=True)
+class DirectionFit:
+    """orientation: body -> reference. residual_angles_deg: angle between R b_i and r_i per direction.
+    pair_angle_deg: the angle between the two body directions (for more, the widest pair, folded to
+    0..90 because antiparallel is as bad as parallel); reference_pair_angle_deg the same for the
+    measurements; mismatch_deg their difference, a consistency figure no rotation can remove."""
+
+    orientation: Orientation
+    residual_angles_deg: np.ndarray
+    pair_angle_deg: float
+    reference_pair_angle_deg: float
+    mismatch_deg: float
+    method: str
+    notes: tuple = ()
+
+
+def _directions(values, what):
+    v = _points(values, what)
+    lengths = np.linalg.norm(v, axis=1)
+    if np.any(lengths == 0):
+        raise InvalidInputError(f"{what}: direction {int(np.argmin(lengths))} has zero length; "
+                                f"expected a non-zero (x, y, z)")
+    return v / lengths[:, None]
+
+
+def _widest_pair_deg(unit):
+    """The largest angle between two of the directions, folded to 0..90 (rows processed in blocks)."""
+    smallest = 1.0
+    for start in range(0, len(unit), 1024):
+        cos = np.abs(unit[start:start + 1024] @ unit.T)
+        smallest = min(smallest, float(cos.min()))
+    return float(np.degrees(np.arccos(min(smallest, 1.0))))
+
+
+def _pair_angle_deg(u, v):
+    return float(np.degrees(np.arctan2(np.linalg.norm(np.cross(u, v)), u @ v)))
+
+
+def _judge_pair(body, ref, min_angle_deg):
+    if len(body) == 2:
+        pair, ref_pair = _pair_angle_deg(body[0], body[1]), _pair_angle_deg(ref[0], ref[1])
+        folded = min(pair, 180.0 - pair), min(ref_pair, 180.0 - ref_pair)
+    else:
+        pair, ref_pair = _widest_pair_deg(body), _widest_pair_deg(ref)
+        folded = pair, ref_pair
+    worst = min(folded)
+    if worst < min_angle_deg:
+        raise FitRefusedError(
+            f"the directions are nearly parallel ({worst:.3g}° apart, limit {min_angle_deg:g}°): the rotation "
+            f"about them is not determined; expected directions at least {min_angle_deg:g}° apart, "
+            f"ideally near 90°", "parallel")
+    notes = []
+    if worst < WEAK_PAIR_ANGLE_DEG:
+        notes.append(f"the directions are only {worst:.3g}° apart: errors about the poorly seen axis are "
+                     f"magnified about {1.0 / np.sin(np.radians(worst)):.2g} times")
+    return pair, ref_pair, notes
+
+
+def _direction_result(r, body, ref, pair, ref_pair, method, notes):
+    fitted = body @ r.T
+    residual = np.degrees(np.arctan2(np.linalg.norm(np.cross(fitted, ref), axis=1),
+                                     np.einsum("ij,ij->i", fitted, ref)))
+    return DirectionFit(Orientation.from_matrix(r), residual, pair, ref_pair, abs(pair - ref_pair), method,
+                        tuple(notes))
+
+
+def triad(body_first, body_second, reference_first, reference_second, min_angle_deg=MIN_PAIR_ANGLE_DEG):
+    """TRIAD (Black 1964): the first direction is matched exactly, the second as well as the pair's
+    plane allows. Give the more accurate measurement first. Triads t1 = r1, t2 = (r1 × r2)/|r1 × r2|,
+    t3 = t1 × t2 in each frame; R = [t_ref] [t_body]ᵀ."""
+    body = _directions([body_first, body_second], "body directions")
+    ref = _directions([reference_first, reference_second], "reference directions")
+    pair, ref_pair, notes = _judge_pair(body, ref, min_angle_deg)
+
+    def frame(v):
+        t2 = np.cross(v[0], v[1])
+        t2 /= np.linalg.norm(t2)
+        return np.column_stack([v[0], t2, np.cross(v[0], t2)])
+
+    r = frame(ref) @ frame(body).T
+    return _direction_result(r, body, ref, pair, ref_pair, "TRIAD", notes)
+
+
+def fit_directions(body, reference, weights=None, min_angle_deg=MIN_PAIR_ANGLE_DEG):
+    """The rotation minimising Σ w_i |r_i − R b_i|² over unit directions (Wahba's problem), solved by the
+    SVD of B = Σ w r bᵀ. Needs two or more directions that are not all parallel."""
+    b = _directions(body, "body directions")
+    r = _directions(reference, "reference directions")
+    if b.shape != r.shape:
+        raise InvalidInputError(f"body and reference directions differ in number ({len(b)} and {len(r)}); "
+                                f"expected one measurement per body direction")
+    w = _weights(weights, len(b))
+    keep = slice(None) if w is None else w > 0
+    if len(b[keep]) < 2:
+        raise FitRefusedError(f"{len(b[keep])} direction(s) with weight above zero; expected at least 2",
+                              "too few")
+    pair, ref_pair, notes = _judge_pair(b[keep], r[keep], min_angle_deg)
+    profile = r.T @ (b if w is None else b * w[:, None])
+    rotation, _, _ = _rotation_from_profile(profile)
+    return _direction_result(rotation, b, r, pair, ref_pair, "least squares (Wahba, SVD)", notes)
