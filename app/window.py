@@ -1,0 +1,373 @@
+"""The main window: Mounts, the Scene's place, the four editors, the Gimbal margin meter and a side area
+of panels (Decode now; Chain, Check, Measure and Batch join it as tabs), with menus, shortcuts and the
+status bar. The window holds no state of its own: everything is in the SessionModel."""
+
+from __future__ import annotations
+
+import sys
+import time
+from pathlib import Path
+
+from PySide6.QtCore import QLocale, Qt, QTimer
+from PySide6.QtGui import QAction, QKeySequence
+from PySide6.QtWidgets import (QAbstractSpinBox, QApplication, QComboBox, QFileDialog, QFrame, QGridLayout,
+                               QHBoxLayout, QLabel, QLineEdit, QMainWindow, QMessageBox, QPlainTextEdit,
+                               QSpinBox, QSplitter, QTabWidget, QTextEdit, QVBoxLayout, QWidget)
+
+from app import about, copy_as, settings
+from app.editors.angles_editor import AnglesEditor
+from app.editors.axis_angle_editor import AxisAngleEditor
+from app.editors.base import EditorBase
+from app.editors.matrix_editor import MatrixEditor
+from app.editors.quaternion_editor import QuaternionEditor
+from app.model import PREFERENCES, Change, SessionModel
+from app.panels.decode_panel import DecodePanel
+from app.panels.gimbal_meter import GimbalMeter
+from app.panels.mounts_list import MountsList
+from app.preferences_dialog import PreferencesDialog
+from core.errors import FramewrightError
+from core.session import FILE_SUFFIX, Session, load_session, save_session
+
+RESOURCES = Path(__file__).resolve().parents[1] / "resources"
+DEMO_SESSION = RESOURCES / "demo.fwsession.json"
+FILE_FILTER = f"Framewright sessions (*{FILE_SUFFIX});;All files (*)"
+
+
+def scene_placeholder() -> QWidget:
+    """The Scene's place in the layout until the 3D view lands."""
+    frame = QFrame()
+    frame.setObjectName("ScenePlaceholder")
+    frame.setFrameShape(QFrame.Shape.StyledPanel)
+    frame.setMinimumHeight(240)
+    label = QLabel("Scene\n(the 3D view of the part, its frames and the rotation axis goes here)")
+    label.setAlignment(Qt.AlignmentFlag.AlignCenter)
+    label.setStyleSheet("color: #666;")
+    layout = QVBoxLayout(frame)
+    layout.addWidget(label)
+    return frame
+
+
+def _is_text_entry(widget) -> bool:
+    return isinstance(widget, (QLineEdit, QAbstractSpinBox, QPlainTextEdit, QTextEdit))
+
+
+class MainWindow(QMainWindow):
+    def __init__(self, model: SessionModel, parent=None):
+        super().__init__(parent)
+        self.model = model
+        self.setWindowTitle("Framewright")
+        self._settings = settings.open_settings()
+        self.last_copy_format = settings.load_text("copy/last_format", "json", self._settings)
+        self.default_copy_format = settings.load_text("copy/default_format", "text", self._settings)
+        if self.last_copy_format not in copy_as.FORMATS:
+            self.last_copy_format = "json"
+        if self.default_copy_format not in copy_as.FORMATS:
+            self.default_copy_format = "text"
+
+        # ---- parts ----
+        self.mounts = MountsList(model)
+        self.axis_angle = AxisAngleEditor(model)
+        self.quaternion = QuaternionEditor(model)
+        self.matrix = MatrixEditor(model)
+        self.angles = AnglesEditor(model)
+        self.meter = GimbalMeter(model)
+        self.decode_panel = DecodePanel(model)
+        self.scene = scene_placeholder()
+        self.editors: list[EditorBase] = [self.axis_angle, self.quaternion, self.matrix, self.angles]
+        self.current_editor: EditorBase = self.axis_angle
+
+        editors = QWidget()
+        grid = QGridLayout(editors)
+        grid.setContentsMargins(0, 0, 0, 0)
+        grid.addWidget(self.axis_angle, 0, 0)
+        grid.addWidget(self.quaternion, 0, 1)
+        grid.addWidget(self.matrix, 0, 2)
+        grid.addWidget(self.angles, 1, 0, 1, 2)
+        grid.addWidget(self.meter, 1, 2)
+        centre = QSplitter(Qt.Orientation.Vertical)
+        centre.addWidget(self.scene)
+        centre.addWidget(editors)
+        centre.setStretchFactor(0, 1)
+        centre.setStretchFactor(1, 0)
+        centre.setChildrenCollapsible(False)
+
+        # Side area: Decode now; the Chain, Check, Measure and Batch panels are added as tabs here.
+        self.side_tabs = QTabWidget()
+        self.side_tabs.addTab(self.decode_panel, "Decode")
+
+        splitter = QSplitter(Qt.Orientation.Horizontal)
+        splitter.addWidget(self.mounts)
+        splitter.addWidget(centre)
+        splitter.addWidget(self.side_tabs)
+        splitter.setStretchFactor(0, 0)
+        splitter.setStretchFactor(1, 1)
+        splitter.setStretchFactor(2, 0)
+        splitter.setSizes([230, 1000, 380])
+        splitter.setChildrenCollapsible(False)
+        self.splitter = splitter
+        self.setCentralWidget(splitter)
+
+        self._build_toolbar()
+        self._build_menus()
+        self.statusBar().showMessage("Ready. Safety: verify against the governing drawing and procedure.")
+
+        model.changed.connect(self._on_model_changed)
+        model.undo_stack.cleanChanged.connect(lambda _: self._update_title())
+        QApplication.instance().focusChanged.connect(self._track_editor)
+        self._update_title()
+
+        geometry, state = settings.load_window_state(self._settings)
+        if geometry is not None:
+            self.restoreGeometry(geometry)
+        else:
+            self.resize(1600, 1000)
+        if state is not None:
+            self.restoreState(state)
+
+    # ---- building ------------------------------------------------------------------------------
+    def _build_toolbar(self) -> None:
+        bar = self.addToolBar("Display")
+        bar.setObjectName("DisplayToolbar")
+        bar.setMovable(False)
+        self.units_box = QComboBox()
+        self.units_box.addItem("degrees", "deg")
+        self.units_box.addItem("radians", "rad")
+        self.units_box.setToolTip("Unit of every angle shown and typed (the gimbal margin is always in degrees).")
+        self.digits_box = QSpinBox()
+        self.digits_box.setRange(3, 17)
+        self.digits_box.setToolTip("Significant digits shown in the editors.")
+        bar.addWidget(QLabel(" Angles in "))
+        bar.addWidget(self.units_box)
+        bar.addWidget(QLabel("   Digits "))
+        bar.addWidget(self.digits_box)
+        self.units_box.activated.connect(
+            lambda i: self.model.set_preferences(origin=self, angle_units=self.units_box.itemData(i)))
+        self.digits_box.valueChanged.connect(
+            lambda v: self.model.set_preferences(origin=self, significant_digits=v))
+        self._render_toolbar()
+
+    def _action(self, text, slot, shortcut=None, tip=None) -> QAction:
+        action = QAction(text, self)
+        if shortcut is not None:
+            action.setShortcut(QKeySequence(shortcut))
+        if tip:
+            action.setStatusTip(tip)
+        action.triggered.connect(slot)
+        self.addAction(action)
+        return action
+
+    def _build_menus(self) -> None:
+        keys = QKeySequence.StandardKey
+        file_menu = self.menuBar().addMenu("&File")
+        self.open_action = self._action("&Open…", self.open_file, keys.Open)
+        self.save_action = self._action("&Save", self.save_file, keys.Save)
+        self.save_as_action = self._action("Save &as…", self.save_file_as, keys.SaveAs)
+        self.quit_action = self._action("&Quit", self.close, keys.Quit)
+        for action in (self.open_action, self.save_action, self.save_as_action):
+            file_menu.addAction(action)
+        file_menu.addSeparator()
+        file_menu.addAction(self.quit_action)
+
+        edit_menu = self.menuBar().addMenu("&Edit")
+        self.undo_action = self._action("&Undo", self.model.undo, keys.Undo)
+        self.redo_action = self._action("&Redo", self.model.redo, keys.Redo)
+        self.model.undo_stack.canUndoChanged.connect(self.undo_action.setEnabled)
+        self.model.undo_stack.canRedoChanged.connect(self.redo_action.setEnabled)
+        self.model.undo_stack.undoTextChanged.connect(lambda t: self.undo_action.setText(f"&Undo {t}".strip()))
+        self.model.undo_stack.redoTextChanged.connect(lambda t: self.redo_action.setText(f"&Redo {t}".strip()))
+        self.undo_action.setEnabled(False)
+        self.redo_action.setEnabled(False)
+        self.copy_action = self._action("&Copy", self.copy_default, keys.Copy,
+                                        "Copy the orientation in the default format (Preferences)")
+        self.copy_again_action = self._action("", self.copy_last, "Ctrl+Shift+C")
+        self.paste_action = self._action("&Paste", self.paste, keys.Paste,
+                                         "Paste into the field in use, or into Decode")
+        self.preferences_action = self._action("Pre&ferences…", self.show_preferences, keys.Preferences)
+        for action in (self.undo_action, self.redo_action):
+            edit_menu.addAction(action)
+        edit_menu.addSeparator()
+        edit_menu.addAction(self.copy_action)
+        self.copy_as_menu = edit_menu.addMenu("Copy &as")
+        self.copy_as_actions = {}
+        for key, label in copy_as.FORMATS.items():
+            action = QAction(label, self)
+            action.triggered.connect(lambda _=False, k=key: self.copy_as(k))
+            self.copy_as_menu.addAction(action)
+            self.copy_as_actions[key] = action
+        edit_menu.addAction(self.copy_again_action)
+        edit_menu.addAction(self.paste_action)
+        edit_menu.addSeparator()
+        edit_menu.addAction(self.preferences_action)
+        self._update_copy_again_text()
+
+        help_menu = self.menuBar().addMenu("&Help")
+        self.about_action = self._action("&About Framewright", lambda: about.show_about(self))
+        help_menu.addAction(self.about_action)
+
+    # ---- model -> window -----------------------------------------------------------------------
+    def _on_model_changed(self, change: Change) -> None:
+        if change.touches(PREFERENCES):
+            self._render_toolbar()
+            settings.save_preferences(self.model.preferences, self._settings)
+        self._update_title()
+
+    def _render_toolbar(self) -> None:
+        prefs = self.model.preferences
+        self.units_box.setCurrentIndex(0 if prefs.angle_units == "deg" else 1)
+        self.digits_box.blockSignals(True)
+        self.digits_box.setValue(prefs.significant_digits)
+        self.digits_box.blockSignals(False)
+
+    def _update_title(self) -> None:
+        name = Path(self.model.file_path).name if self.model.file_path else "demo session"
+        dirty = "" if self.model.undo_stack.isClean() else " (changed)"
+        self.setWindowTitle(f"Framewright — {name}{dirty}")
+
+    def _track_editor(self, _old, new) -> None:
+        for editor in self.editors:
+            if new is not None and editor.isAncestorOf(new):
+                self.current_editor = editor
+                return
+
+    # ---- clipboard -----------------------------------------------------------------------------
+    def copy_as(self, fmt: str) -> copy_as.CopyResult:
+        result = copy_as.copy_to_clipboard(self.model, fmt, self.current_editor)
+        if fmt != "text":
+            self.last_copy_format = fmt
+            settings.save_text("copy/last_format", fmt, self._settings)
+            self._update_copy_again_text()
+        self.statusBar().showMessage(result.status_message)
+        return result
+
+    def copy_default(self) -> None:
+        focus = QApplication.focusWidget()
+        if _is_text_entry(focus) and self._selected_text(focus):
+            self._forward(focus, "copy")
+            return
+        self.copy_as(self.default_copy_format)
+
+    def copy_last(self) -> None:
+        self.copy_as(self.last_copy_format)
+
+    def _update_copy_again_text(self) -> None:
+        self.copy_again_action.setText(f"Copy again as {copy_as.FORMATS[self.last_copy_format]}")
+
+    def paste(self) -> None:
+        """Ctrl+V in a text field pastes there (the field handles the key itself); from a menu or outside
+        a text field the clipboard goes to Decode."""
+        focus = QApplication.focusWidget()
+        if _is_text_entry(focus):
+            self._forward(focus, "paste")
+            return
+        self.side_tabs.setCurrentWidget(self.decode_panel)
+        self.decode_panel.paste_from_clipboard()
+
+    @staticmethod
+    def _selected_text(widget) -> str:
+        if isinstance(widget, QAbstractSpinBox):
+            return widget.lineEdit().selectedText()
+        if isinstance(widget, QLineEdit):
+            return widget.selectedText()
+        return widget.textCursor().selectedText()
+
+    @staticmethod
+    def _forward(widget, verb: str) -> None:
+        target = widget.lineEdit() if isinstance(widget, QAbstractSpinBox) else widget
+        getattr(target, verb)()
+
+    # ---- files ---------------------------------------------------------------------------------
+    def _confirm_discard(self) -> bool:
+        """True when unsaved edits may be dropped (none, or the user says so)."""
+        if self.model.undo_stack.isClean():
+            return True
+        answer = QMessageBox.question(
+            self, "Unsaved changes", "The session has changes that are not saved. Save them first?",
+            QMessageBox.StandardButton.Save | QMessageBox.StandardButton.Discard | QMessageBox.StandardButton.Cancel,
+            QMessageBox.StandardButton.Save)
+        if answer == QMessageBox.StandardButton.Save:
+            return self.save_file()
+        return answer == QMessageBox.StandardButton.Discard
+
+    def open_file(self, path: str | None = None) -> bool:
+        if not self._confirm_discard():
+            return False
+        if not path:
+            path, _ = QFileDialog.getOpenFileName(self, "Open session", "", FILE_FILTER)
+            if not path:
+                return False
+        try:
+            session = load_session(path)
+        except FramewrightError as exc:
+            QMessageBox.warning(self, "Cannot open session", str(exc))
+            self.statusBar().showMessage(f"Not opened: {exc}")
+            return False
+        self.model.load_session(session, file_path=str(path))
+        self.statusBar().showMessage(f"Opened {path}: {len(session.mounts)} mounts.")
+        return True
+
+    def save_file(self) -> bool:
+        if not self.model.file_path:
+            return self.save_file_as()
+        return self._save_to(self.model.file_path)
+
+    def save_file_as(self, path: str | None = None) -> bool:
+        if not path:
+            path, _ = QFileDialog.getSaveFileName(self, "Save session", f"session{FILE_SUFFIX}", FILE_FILTER)
+            if not path:
+                return False
+        if not str(path).endswith(FILE_SUFFIX):
+            path = str(path) + FILE_SUFFIX
+        return self._save_to(path)
+
+    def _save_to(self, path: str) -> bool:
+        try:
+            save_session(self.model.session(), path)
+        except (OSError, FramewrightError) as exc:
+            QMessageBox.warning(self, "Cannot save session", f"{path}: {exc}")
+            return False
+        self.model.file_path = str(path)
+        self.model.undo_stack.setClean()
+        self._update_title()
+        self.statusBar().showMessage(f"Saved {path}.")
+        return True
+
+    # ---- dialogs and closing -------------------------------------------------------------------
+    def show_preferences(self) -> None:
+        dialog = PreferencesDialog(self.model, copy_as.FORMATS, self.default_copy_format, self)
+        if dialog.exec():
+            self.default_copy_format = dialog.chosen_copy_default
+            settings.save_text("copy/default_format", self.default_copy_format, self._settings)
+
+    def closeEvent(self, event) -> None:
+        if not self._confirm_discard():
+            event.ignore()
+            return
+        settings.save_window_state(self.saveGeometry(), self.saveState(), self._settings)
+        settings.save_preferences(self.model.preferences, self._settings)
+        event.accept()
+
+
+def demo_session() -> Session:
+    return load_session(DEMO_SESSION)
+
+
+def make_window(session: Session | None = None) -> MainWindow:
+    """The window on a session (the demo by default), with the user's stored preferences."""
+    QLocale.setDefault(QLocale.c())  # '.' as the decimal point in every Qt number widget
+    model = SessionModel(session or demo_session())
+    model.set_preferences(**settings.load_preferences().to_dict())
+    return MainWindow(model)
+
+
+def run_window() -> int:
+    """Show the window on the demo session and run until it closes."""
+    started = time.perf_counter()
+    app = QApplication.instance() or QApplication(sys.argv)
+    app.setOrganizationName(settings.ORGANISATION)
+    app.setApplicationName(settings.APPLICATION)
+    window = make_window()
+    window.show()
+    QTimer.singleShot(0, lambda: window.statusBar().showMessage(
+        f"Demo session (an invented scenario) opened in {time.perf_counter() - started:.2f} s. "
+        "Verify every value against the governing drawing and procedure."))
+    return app.exec()
