@@ -2,10 +2,10 @@
 
 from __future__ import annotations
 
-from PySide6.QtCore import Qt, QTimer
+from PySide6.QtCore import QTimer
 from PySide6.QtGui import QGuiApplication
-from PySide6.QtWidgets import (QHBoxLayout, QLabel, QPlainTextEdit, QPushButton, QTreeWidget,
-                               QTreeWidgetItem, QVBoxLayout, QWidget)
+from PySide6.QtWidgets import (QHBoxLayout, QLabel, QListWidget, QListWidgetItem, QPlainTextEdit,
+                               QPushButton, QVBoxLayout, QWidget)
 
 from app.model import SessionModel
 from core.errors import FramewrightError
@@ -39,11 +39,9 @@ class DecodePanel(QWidget):
         self.paste_button.setToolTip("Replace the text with the clipboard and read it.")
         self.message = QLabel("")
         self.message.setWordWrap(True)
-        self.list = QTreeWidget()
-        self.list.setColumnCount(3)
-        self.list.setHeaderLabels(["Kind", "Conventions", "Notes"])
-        self.list.setRootIsDecorated(False)
+        self.list = QListWidget()
         self.list.setWordWrap(True)
+        self.list.setSpacing(2)
         self.list.setAlternatingRowColors(True)
         self.list.setToolTip("Readings of the text, most plausible first. Double-click or Apply to use one "
                              "(undo takes it back).")
@@ -70,7 +68,7 @@ class DecodePanel(QWidget):
         self.read_button.clicked.connect(self.read)
         self.paste_button.clicked.connect(self.paste_from_clipboard)
         self.apply_button.clicked.connect(self.apply_selected)
-        self.list.itemDoubleClicked.connect(lambda *_: self.apply_selected())
+        self.list.itemActivated.connect(lambda *_: self.apply_selected())
         self.list.currentItemChanged.connect(lambda *_: self.apply_button.setEnabled(self.list.currentItem() is not None))
 
     def paste_from_clipboard(self) -> None:
@@ -101,25 +99,23 @@ class DecodePanel(QWidget):
             return
         self.message.setText(f"{len(self.readings)} reading{'s' if len(self.readings) != 1 else ''}, "
                              "most plausible first.")
-        for reading in self.readings:
-            item = QTreeWidgetItem([str(reading.kind), _words(reading.conventions), _words(reading.notes)])
-            tip = f"{getattr(reading, 'label', reading.kind)}\n{_words(reading.conventions)}"
+        for rank, reading in enumerate(self.readings, start=1):
+            lines = [f"{rank}. {reading.kind}: {_words(reading.conventions)}"]
             if _words(reading.notes):
-                tip += f"\nNotes: {_words(reading.notes)}"
+                lines.append(f"    {_words(reading.notes)}")
+            item = QListWidgetItem("\n".join(lines))
+            tip = f"{getattr(reading, 'label', reading.kind)}\n{_words(reading.conventions)}"
             if getattr(reading, "why", ""):
                 tip += f"\nRank: {reading.why}"
-            for column in range(3):
-                item.setToolTip(column, tip)
-            self.list.addTopLevelItem(item)
-        self.list.setCurrentItem(self.list.topLevelItem(0))
-        for column in range(2):
-            self.list.resizeColumnToContents(column)
+            item.setToolTip(tip)
+            self.list.addItem(item)
+        self.list.setCurrentRow(0)
 
     def apply_selected(self) -> None:
         item = self.list.currentItem()
         if item is None:
             return
-        reading = self.readings[self.list.indexOfTopLevelItem(item)]
+        reading = self.readings[self.list.row(item)]
         self.model.set_orientation(reading.orientation, origin=self,
                                    text=f"Apply decoded reading ({reading.kind})")
         self.message.setText(f"Applied: {reading.kind}, {_words(reading.conventions)}.")
