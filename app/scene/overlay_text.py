@@ -1,0 +1,87 @@
+"""Text of the scene's overlay: the current orientation in the chosen representation, and in words where
+each body axis points (core.describe). Plain strings; the label layer draws them."""
+
+from __future__ import annotations
+
+import numpy as np
+
+from core import describe
+from core.sequences import PRESETS
+
+REPRESENTATIONS = ("axis-angle", "quaternion", "matrix", "rotation vector", "angles")
+REPRESENTATION_TITLES = {
+    "axis-angle": "Axis & angle",
+    "quaternion": "Quaternion",
+    "matrix": "Matrix",
+    "rotation vector": "Rotation vector",
+    "angles": "Angles",
+}
+
+
+def _num(value, digits=4, width=0) -> str:
+    value = 0.0 if abs(value) < 0.5 * 10.0 ** -digits else float(value)  # never print "-0.0000"
+    return f"{value:{width}.{digits}f}".replace("-", describe.MINUS)
+
+
+def _vector(values, digits=4) -> str:
+    return "(" + ", ".join(_num(v, digits) for v in values) + ")"
+
+
+def _sequence_words(sequence, intrinsic) -> str:
+    if intrinsic:
+        return f"intrinsic {sequence[0]}-{sequence[1]}\u2032-{sequence[2]}\u2033"
+    return f"extrinsic {sequence[0]}-{sequence[1]}-{sequence[2]} (fixed axes)"
+
+
+def representation_lines(orientation, kind="axis-angle", sequence="ZYX", intrinsic=True) -> list[str]:
+    if kind == "axis-angle":
+        axis, angle = orientation.as_axis_angle()
+        if angle == 0:
+            return ["angle \u03c6 0\u00b0: at the reference (axis undefined)"]
+        return [f"axis n {_vector(axis)}", f"angle \u03c6 {_num(angle, 3)}\u00b0"]
+    if kind == "quaternion":
+        return [f"q (w, x, y, z) {_vector(orientation.as_quaternion(), 6)}"]
+    if kind == "matrix":
+        m = orientation.as_matrix()
+        rows = ["[" + " ".join(_num(v, 4, 7) for v in row) + " ]" for row in m]
+        return ["R (body \u2192 reference; columns = body axes)", *rows]
+    if kind == "rotation vector":
+        return [f"\u03c1 = \u03c6 n {_vector(orientation.as_rotation_vector(), 3)} deg"]
+    if kind == "angles":
+        angles = orientation.as_angles(sequence, intrinsic=intrinsic)
+        names = _angle_names(sequence, intrinsic)
+        values = "  ".join(f"{name} {_num(v, 3)}\u00b0" for name, v in zip(names, angles.angles))
+        lines = [_sequence_words(sequence, intrinsic), values]
+        if angles.locked:
+            lines.append("gimbal lock: only the sum/difference of the first and third angle is determined")
+        return lines
+    raise ValueError(f"unknown representation {kind!r}; expected one of {', '.join(REPRESENTATIONS)}")
+
+
+def _angle_names(sequence, intrinsic):
+    for seq, intr, names in PRESETS.values():
+        if seq == sequence and intr == intrinsic:
+            return names
+    return ("\u03b81", "\u03b82", "\u03b83")
+
+
+def orientation_panel(orientation, kind, sequence, intrinsic, preset) -> list[str]:
+    """The top-left overlay panel, line by line."""
+    title = REPRESENTATION_TITLES[kind]
+    lines = [f"{title}:", *("  " + s for s in representation_lines(orientation, kind, sequence, intrinsic))]
+    lines.append(f"Body axes ({describe.frame_preset(preset).title.split(' (')[0]}):")
+    lines += ["  " + s for s in describe.describe_axes(orientation, preset)]
+    near = describe.nearest_right_angle(orientation)
+    lines.append(f"Nearest right angle: {near.right_angle.rotation_words}, {describe.format_off(near.residual_deg)}")
+    lines.append(f"  ({near.right_angle.mapping_words})")
+    return lines
+
+
+def sweep_line(t, angle_deg) -> str:
+    return f"sweep t = {t:.2f}: {t * angle_deg:.1f}\u00b0 of {angle_deg:.1f}\u00b0 about n"
+
+
+def tracked_words(name, vector) -> str:
+    if name:
+        return name
+    return "typed " + _vector(np.asarray(vector) / np.linalg.norm(vector), 3)
