@@ -29,6 +29,10 @@ from core.orientation import Orientation
 
 MODES = ("total", "pointing_and_roll")
 
+# A body axis turned to within this (radians) of straight back has no roll worth reporting: the twist
+# would be rounding noise.
+ROLL_UNDEFINED_RAD = 2e-9
+
 _NAMED_AXES = {
     "+X": (1.0, 0.0, 0.0), "-X": (-1.0, 0.0, 0.0),
     "+Y": (0.0, 1.0, 0.0), "-Y": (0.0, -1.0, 0.0),
@@ -91,8 +95,8 @@ def swing_twist_angles(d, axis):
 
     With D = (w, v) and p = v · a: the twist is the normalised (w, p a), so cos(swing/2) = hypot(w, p)
     and sin(swing/2) = |v − p a|. swing is the pointing error of a, in [0, pi]; twist is the roll about a,
-    in (−pi, pi]. When swing is exactly pi the twist is undefined: it is reported as 0 with
-    twist_defined False."""
+    in (−pi, pi]. When swing is pi the twist is undefined; within ROLL_UNDEFINED_RAD of pi the rounding of
+    D decides it. There it is reported as 0 with twist_defined False."""
     d = np.asarray(d, dtype=np.float64)
     a = np.asarray(axis, dtype=np.float64)
     w = d[..., 0]
@@ -105,7 +109,7 @@ def swing_twist_angles(d, axis):
     sign = np.where(w < 0, -1.0, 1.0)
     twist = 2.0 * np.arctan2(p * sign, w * sign)
     twist = np.where(twist <= -np.pi, twist + 2.0 * np.pi, twist)
-    defined = along > 0
+    defined = along > 0.5 * ROLL_UNDEFINED_RAD     # cos(swing/2) ≈ (pi − swing)/2
     return swing, np.where(defined, twist, 0.0) + 0.0, defined
 
 
