@@ -74,7 +74,8 @@ class PartModel:
         facing = normals @ FACE_NORMALS[self.boresight_face] > 0.7 * np.linalg.norm(normals, axis=1)
         colours = np.where(facing[:, None], self._face_rgba(self.boresight_face),
                            self._face_rgba("none")).astype(float)
-        self.faces.setMeshData(vertexes=triangles, faceColors=colours)
+        # without an index array pyqtgraph takes face colours per corner: (N, 3, 4)
+        self.faces.setMeshData(vertexes=triangles, faceColors=np.repeat(colours[:, None, :], 3, axis=1))
         bbox = box_edges(self.upper - self.lower) + 0.5 * (self.upper + self.lower)
         self.edges.setData(pos=bbox)  # the bounding box, so the STL's extent along each axis is readable
         self.mark.setVisible(False)

@@ -23,6 +23,7 @@ from app.scene.scene_toolbar import SceneToolbar
 from app.scene.stl_reader import StlError
 from core import describe
 from core.orientation import Orientation
+from core.sequences import parse_sequence
 
 BODY_AXIS_LENGTH = 1.0
 REFERENCE_AXIS_LENGTH = 1.3
@@ -180,13 +181,23 @@ class SceneWidget(QtWidgets.QWidget):
             self._tracked_name, self._tracked_body = None, vec / np.linalg.norm(vec)
         self._refresh()
 
-    def set_overlay_representation(self, kind, sequence="ZYX", intrinsic=True):
+    def set_overlay_representation(self, kind, sequence=None, intrinsic=None):
+        """What the overlay writes: 'axis-angle', 'quaternion', 'matrix', 'rotation vector' or 'angles'
+        (in `sequence`, intrinsic or not; None keeps the current sequence)."""
         if kind not in overlay_text.REPRESENTATIONS:
             raise ValueError(f"unknown representation {kind!r}; expected one of "
                              f"{', '.join(overlay_text.REPRESENTATIONS)}")
-        self._representation, self._sequence, self._intrinsic = kind, sequence, intrinsic
+        self._representation = kind
+        if sequence is not None:
+            self._sequence = parse_sequence(sequence)
+        if intrinsic is not None:
+            self._intrinsic = bool(intrinsic)
         self.toolbar.select(self.toolbar.representation, kind)
         self._refresh()
+
+    def overlay_representation(self) -> tuple[str, str, bool]:
+        """(kind, sequence, intrinsic) the overlay writes the orientation in."""
+        return self._representation, self._sequence, self._intrinsic
 
     def set_frame_preset(self, name):
         self._preset = describe.frame_preset(name).key

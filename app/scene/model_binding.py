@@ -1,0 +1,54 @@
+"""bind_scene_to_model: feeds a SceneWidget from the session model, so the scene stays a plain view.
+
+The model is duck-typed. Required: a Qt signal ``changed(change)`` and the methods
+``current_orientation()`` and ``ghost_orientation()`` (None = no second orientation: the scene then shows
+the reference orientation as its ghost). Used when present: ``ghost_label()``; ``current_mount()`` with
+``.name`` and ``.part`` (``box_size_mm``, ``face_names``, ``boresight``); ``preferences`` with
+``sequence`` and ``intrinsic`` (the sequence the overlay writes angles in). The scene never writes back.
+"""
+
+from __future__ import annotations
+
+from core.orientation import Orientation
+
+
+class SceneBinding:
+    def __init__(self, scene, model):
+        self.scene = scene
+        self.model = model
+        self._part = None
+        self._ghost = ()
+        model.changed.connect(self.refresh)
+        self.refresh()
+
+    def refresh(self, change=None):
+        model, scene = self.model, self.scene
+        orientation = model.current_orientation()
+        if orientation != scene.orientation():
+            scene.set_orientation(orientation)
+        ghost = model.ghost_orientation()
+        label = model.ghost_label() if hasattr(model, "ghost_label") else None
+        if ghost is None:
+            ghost, label = Orientation.identity(), "reference"
+        if (ghost, label) != self._ghost:
+            self._ghost = (ghost, label)
+            scene.set_ghost(ghost, label or "second orientation")
+        mount = model.current_mount() if hasattr(model, "current_mount") else None
+        part = getattr(mount, "part", None)
+        if part is not None and part != self._part:
+            self._part = part
+            scene.set_part(part.box_size_mm, part.face_names, part.boresight)
+        prefs = getattr(model, "preferences", None)
+        if prefs is not None:
+            kind, sequence, intrinsic = scene.overlay_representation()
+            if (prefs.sequence, prefs.intrinsic) != (sequence, intrinsic):
+                scene.set_overlay_representation(kind, prefs.sequence, prefs.intrinsic)
+
+    def disconnect(self):
+        self.model.changed.disconnect(self.refresh)
+
+
+def bind_scene_to_model(scene, model) -> SceneBinding:
+    """Connect the scene to the model's change signal and show the model's state now. Keep the returned
+    binding (or call its disconnect()) for as long as the scene should follow the model."""
+    return SceneBinding(scene, model)
