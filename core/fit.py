@@ -31,6 +31,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
+from core import kernels
 from core.errors import FramewrightError, InvalidInputError
 from core.orientation import Orientation
 
@@ -131,21 +132,24 @@ def fit_points(nominal, measured, weights=None):
     if used < 3:
         raise FitRefusedError(f"{used} point pair(s) with weight above zero; expected at least 3", "too few")
 
-    # Centroids and profile matrix H = Σ w (q − q̄)(p − p̄)ᵀ, and the nominal scatter for collinearity.
+    # Points as (3, N) rows, so every step below runs over contiguous memory, centred in place (large
+    # temporaries cost more in fresh pages than in arithmetic). Weights are normalised to sum 1.
+    Pc = np.array(p.T, order="C")
+    Qc = np.array(q.T, order="C")
+    weight = np.full(n, 1.0 / n) if w is None else w / w.sum()
+    p_mean = Pc @ weight
+    q_mean = Qc @ weight
+    Pc -= p_mean[:, None]
+    Qc -= q_mean[:, None]
     if w is None:
-        p_mean = p.sum(axis=0) / n
-        q_mean = q.sum(axis=0) / n
-        pc = p - p_mean
-        h = (q - q_mean).T @ pc
-        scatter = pc.T @ pc / n
+        h = (Qc @ Pc.T) / n                            # profile matrix Σ w (q − q̄)(p − p̄)ᵀ
+        scatter = np.einsum("ik,jk->ij", Pc, Pc) / n   # nominal scatter, for collinearity
+        energy_p = float(np.trace(scatter))
     else:
-        total = w.sum()
-        p_mean = w @ p / total
-        q_mean = w @ q / total
-        pc = p - p_mean
-        wp = pc * w[:, None]
-        h = (q - q_mean).T @ wp
-        scatter = pc.T @ wp / total
+        Pw = Pc * weight
+        h = Qc @ Pw.T
+        scatter = Pc @ Pw.T
+        energy_p = float(np.trace(scatter))
 
     spread = np.linalg.eigvalsh(scatter)          # ascending
     if spread[2] <= 0:
@@ -160,10 +164,10 @@ def fit_points(nominal, measured, weights=None):
 
     r, s, d = _rotation_from_profile(h)
     if d < 0 and s[2] > 1e-9 * s[0]:
-        # Energies of the best mirror fit and of the best rotation differ by 4 s3 (weighted sums).
-        q_energy = float(np.sum((q - q_mean) ** 2 if w is None else (q - q_mean) ** 2 * w[:, None]))
-        p_energy = float(np.sum(pc * (pc if w is None else wp)))
-        mirror_energy = max(q_energy + p_energy - 2.0 * float(s.sum()), 0.0)
+        # The best mirror fit and the best rotation differ in residual energy by 4 s3: refuse when the
+        # mirror explains the points clearly better than any rotation could.
+        energy = float(np.einsum("ij,ij,j->", Qc, Qc, weight)) + energy_p
+        mirror_energy = max(energy - 2.0 * float(s.sum()), 0.0)
         if 4.0 * s[2] > mirror_energy:
             raise FitRefusedError(
                 "the measured points are a mirror image of the nominal points: the best fit is a "
@@ -171,10 +175,12 @@ def fit_points(nominal, measured, weights=None):
                 "frame?); expected both point sets in right-handed frames", "reflection")
 
     t = q_mean - r @ p_mean
-    residuals = q - p @ r.T - t
-    sq = np.einsum("ij,ij->i", residuals, residuals)
-    distances = np.sqrt(sq)
-    rms = float(np.sqrt(sq.mean() if w is None else (w @ sq) / w.sum()))
+    residual_rows = r @ Pc
+    np.subtract(Qc, residual_rows, out=residual_rows)   # measured − (R nominal + t), as (3, N)
+    sq = np.einsum("ij,ij->j", residual_rows, residual_rows)
+    rms = float(np.sqrt(sq @ weight))
+    distances = np.sqrt(sq, out=sq)
+    residuals = residual_rows.T
     flagged, threshold = _flag(distances, size)
 
     notes = []
@@ -187,19 +193,24 @@ def fit_points(nominal, measured, weights=None):
     if n < FLAG_MIN_POINTS:
         notes.append(f"with {n} points no point is flagged: the fit absorbs a single bad point "
                      f"(at least {FLAG_MIN_POINTS} are needed)")
-    orientation = Orientation.from_matrix(r)
+    # r is orthogonal by construction (U Vᵀ of an SVD): no orthogonality band to apply.
+    orientation = Orientation(kernels.matrices_to_quaternions(r))
     return PointFit(orientation, t, residuals, distances, rms, int(np.argmax(distances)), flagged, threshold,
                     spread_ratio, tuple(notes))
+
+
+def _median(values):
+    k = len(values) // 2
+    part = np.partition(values, k)
+    return float(part[k]) if len(values) % 2 else 0.5 * float(part[k] + part[:k].max())
 
 
 def _flag(distances, size):
     if len(distances) < FLAG_MIN_POINTS:
         return (), None
-    k = len(distances) // 2
-    part = np.partition(distances, [k - 1, k] if len(distances) % 2 == 0 else [k])
-    median = 0.5 * (part[k - 1] + part[k]) if len(distances) % 2 == 0 else part[k]
-    mad = float(np.median(np.abs(distances - median)))
-    threshold = max(float(median) + FLAG_Z * mad / _MAD_TO_Z, 1e-9 * size)
+    median = _median(distances)
+    mad = _median(np.abs(distances - median))
+    threshold = max(median + FLAG_Z * mad / _MAD_TO_Z, 1e-9 * size)
     return tuple(int(i) for i in np.flatnonzero(distances > threshold)), threshold
 
 
