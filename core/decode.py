@@ -58,7 +58,7 @@ def _normalise_characters(text: str) -> str:
 # Numbers
 # ---------------------------------------------------------------------------------------------------
 _NUMBER = re.compile(r"""
-    (?:(?<![\w.])|(?<=\d)(?=[+-]))                  # not glued to a name (IMU2, q0); '0.5-0.5' is two numbers
+    (?:(?<![\w.])(?<![A-Za-z_][-+])|(?<=\d)(?=[+-]))  # not part of a name (IMU2, q0, IMU-2); '0.5-0.5' is two
     (?P<sign>[+-]?)
     (?P<mantissa>\d+(?:\.\d*)?|\.\d+)
     (?:[eEdD](?P<exp>[+-]?\d+))?                   # 6.123e-17, Fortran 1.0D-3
@@ -525,10 +525,11 @@ def _keyed(parsed: ParsedNumbers) -> _Keyed | None:
             named = [{"q4": "w", "q1": "x", "q2": "y", "q3": "z"}[k] for k in keys]
         if sorted(p or "" for p in named) == ["w", "x", "y", "z"]:
             by = dict(zip(named, values))
-            note = f"read by their names ({', '.join(k for k in keys)}) as w, x, y, z"
+            note = f"read by their names ({', '.join(k for k in keys)}) and put in the order w, x, y, z"
             if "q4" in keys:
                 note += "; q4 taken as the scalar part"
-            return _Keyed([by["w"], by["x"], by["y"], by["z"]], "quaternion", order="wxyz", note=note)
+            written = "wxyz" if named[0] == "w" else "xyzw" if named[3] == "w" else "by name"
+            return _Keyed([by["w"], by["x"], by["y"], by["z"]], "quaternion", order=written, note=note)
         axis = [v for k, v in zip(keys, values) if k in ("axis", "rotation axis", "n", "u")]
         parts = {k: v for k, v in zip(keys, values) if k in ("axis_x", "axis_y", "axis_z", "ax", "ay", "az")}
         angle = [(v, u) for k, v, u in zip(keys, values, units) if k in ("angle", "theta", "rotation angle", "phi")]
@@ -675,7 +676,10 @@ def _four_candidates(values, parsed, hints, clues, keyed):
     first_largest = mags[0] > mags[1:].max()
     last_largest = mags[3] > mags[:3].max()
     fixed_order = keyed.order if keyed and keyed.kind == "quaternion" else None
-    for order, convention in (("wxyz", "Hamilton"), ("xyzw", "Hamilton"), ("xyzw", "JPL")):
+    orders = (("wxyz", "Hamilton"), ("xyzw", "Hamilton"), ("xyzw", "JPL"))
+    if fixed_order:   # the names said which is w; the values are already in w, x, y, z order
+        orders = (("wxyz", "Hamilton"), ("wxyz", "JPL"))
+    for order, convention in orders:
         jpl = convention == "JPL"
         if jpl:
             # named components are already in w, x, y, z order; bare numbers are read scalar last
@@ -684,7 +688,12 @@ def _four_candidates(values, parsed, hints, clues, keyed):
         else:
             make = lambda s=(order == "xyzw"): Orientation.from_quaternion(v, scalar_last=s)
             label = f"quaternion ({', '.join(order)}), Hamilton"
-        c = _Candidate("quaternion", {"order": order, "convention": convention}, make, label)
+        conventions = {"order": fixed_order or order, "convention": convention}
+        if fixed_order:
+            conventions["named"] = True
+            label = "quaternion by named components, " + (
+                "JPL convention: the inverse of the Hamilton reading" if jpl else "Hamilton")
+        c = _Candidate("quaternion", conventions, make, label)
         if unit_like:
             c.plus(1.0, f"norm {norm:.6g}: a unit quaternion")
         elif abs(norm - 1.0) < 0.05:
@@ -692,7 +701,7 @@ def _four_candidates(values, parsed, hints, clues, keyed):
         else:
             c.plus(-1.5, f"norm {norm:.6g} is far from 1")
         if fixed_order:
-            c.plus(1.0 if order == "wxyz" else 0.0, keyed.note)
+            c.plus(0.0 if jpl else 1.0, keyed.note)
         elif not jpl:
             if order == "wxyz" and first_largest:
                 c.plus(1.0, "the first number is the largest in magnitude: likely w first")
@@ -708,18 +717,16 @@ def _four_candidates(values, parsed, hints, clues, keyed):
         if "quaternion" in clues.kinds:
             c.plus(1.5, "the text says quaternion")
         out.append(c)
-    if hints.order or fixed_order:
-        wanted = hints.order or fixed_order
-        keep = []
-        for c in out:
-            tag = "jpl" if c.conventions["convention"] == "JPL" else c.conventions["order"]
-            if tag == wanted or (fixed_order and not hints.order and tag == "jpl"):
-                keep.append(c)
-        out = keep
+    if hints.order:
+        if fixed_order:   # names decide the order; the hint can still choose Hamilton or JPL
+            out = [c for c in out if (c.conventions["convention"] == "JPL") == (hints.order == "jpl")]
+        else:
+            out = [c for c in out if ("jpl" if c.conventions["convention"] == "JPL" else c.conventions["order"])
+                   == hints.order]
     # axis and angle (axis first, angle last)
     axis, angle = v[:3], float(v[3])
     axis_length = float(np.linalg.norm(axis))
-    if axis_length > 0 and not (hints.order and not hints.kind):
+    if (axis_length > 0 or angle == 0) and not (hints.order and not hints.kind):
         fixed_units = keyed.units if keyed and keyed.kind == "axis-angle" else None
         for units, points, unit_reason in _unit_choices([angle], hints, clues, fixed_units):
             c = _Candidate("axis-angle", {"order": "axis, angle", "units": units},
@@ -729,7 +736,7 @@ def _four_candidates(values, parsed, hints, clues, keyed):
             if abs(axis_length - 1.0) < 1e-3:
                 c.plus(1.0, "the first three numbers have unit length, as an axis has")
             else:
-                c.plus(-0.5, f"the axis has length {axis_length:.6g}")
+                c.plus(-1.5, f"the axis has length {axis_length:.6g}, not 1")
             if abs(angle) > 1.0 + 1e-9:
                 c.plus(2.5, f"the last number ({angle:g}) is beyond ±1: an angle, not a quaternion part")
             elif unit_like:

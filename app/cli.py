@@ -1,0 +1,223 @@
+"""The command line over the core: `framewright decode` and `framewright compare`. Imports no Qt.
+
+Each verb is one pair of functions, `add_<verb>_arguments(parser)` and `run_<verb>(args) -> exit status`,
+listed once in VERBS; adding `fit`, `batch` or `open` later is one more pair and one more line.
+
+Exit status: 0 decoded (or within tolerance), 1 outside the tolerance, 2 refused input, with one line on
+stderr saying what is wrong and where, and nothing on stdout.
+"""
+
+from __future__ import annotations
+
+import argparse
+import json
+import sys
+
+from core import formats
+from core.decode import KINDS, DecodeHints, decode
+from core.errors import FramewrightError
+
+EXIT_OK, EXIT_OUTSIDE, EXIT_REFUSED = 0, 1, 2
+
+
+class _Refused(Exception):
+    """Input we cannot use; the message is the one stderr line."""
+
+
+# ---------------------------------------------------------------------------------------------------
+# Options shared by every verb that reads an orientation from text
+# ---------------------------------------------------------------------------------------------------
+def add_reading_options(parser: argparse.ArgumentParser) -> None:
+    group = parser.add_argument_group("how to read the numbers (each one narrows the readings)")
+    group.add_argument("--kind", choices=KINDS, help="what the numbers are")
+    group.add_argument("--sequence", metavar="ZYX", help="angle sequence, e.g. ZYX or \"Z-Y'-X''\"")
+    turn = group.add_mutually_exclusive_group()
+    turn.add_argument("--intrinsic", dest="intrinsic", action="store_const", const=True,
+                      help="angles turn about the moving body axes")
+    turn.add_argument("--extrinsic", dest="intrinsic", action="store_const", const=False,
+                      help="angles turn about the fixed reference axes")
+    units = group.add_mutually_exclusive_group()
+    units.add_argument("--radians", dest="units", action="store_const", const="rad", help="angles in radians")
+    units.add_argument("--degrees", dest="units", action="store_const", const="deg", help="angles in degrees")
+    order = group.add_mutually_exclusive_group()
+    order.add_argument("--scalar-last", dest="order", action="store_const", const="xyzw",
+                       help="quaternion written (x, y, z, w)")
+    order.add_argument("--scalar-first", dest="order", action="store_const", const="wxyz",
+                       help="quaternion written (w, x, y, z)")
+    meaning = group.add_mutually_exclusive_group()
+    meaning.add_argument("--transposed", dest="transposed", action="store_const", const=True,
+                         help="the matrix is reference -> body (rows are the body axes)")
+    meaning.add_argument("--as-written", dest="transposed", action="store_const", const=False,
+                         help="the matrix is body -> reference (columns are the body axes)")
+
+
+def hints_from(args) -> DecodeHints:
+    return DecodeHints(kind=args.kind, sequence=args.sequence, intrinsic=args.intrinsic, order=args.order,
+                       units=args.units, transposed=args.transposed)
+
+
+def read_text(argument: str | None, stdin) -> str:
+    if argument is None or argument == "-":
+        return stdin.read()
+    return argument
+
+
+def decode_or_refuse(text: str, hints: DecodeHints, what: str = ""):
+    try:
+        return decode(text, hints)
+    except FramewrightError as error:
+        raise _Refused(f"{what}{error}") from None
+
+
+def reading_object(reading, args) -> dict:
+    """The JSON object for one reading (keys listed in the README)."""
+    conventions = reading.conventions
+    sequence = args.sequence or (conventions["sequence"] if reading.kind == "angles" else "ZYX")
+    if args.intrinsic is not None:
+        intrinsic = args.intrinsic
+    else:
+        intrinsic = conventions["intrinsic"] if reading.kind == "angles" and not args.sequence else True
+    summary = formats.summary(reading.orientation, sequence, intrinsic)
+    return {"kind": reading.kind, "label": reading.label, "conventions": dict(conventions), **summary,
+            "orthogonality_error": reading.orthogonality_error, "notes": list(reading.notes),
+            "why": reading.why}
+
+
+def _n(value: float) -> str:
+    """Ten significant digits for reading; round-off dust below 5e-13 shows as 0."""
+    value = float(value)
+    text = f"{(0.0 if abs(value) < 5e-13 else value) + 0.0:.10g}"
+    return "0" if text == "-0" else text
+
+
+def reading_text(reading, args, rank: int, total: int) -> str:
+    data = reading_object(reading, args)
+    kind = "intrinsic" if data["intrinsic"] else "extrinsic"
+    lines = [f"Reading {rank} of {total}: {reading.label}",
+             f"  quaternion (w, x, y, z): {', '.join(_n(v) for v in data['quaternion_wxyz'])}",
+             "  matrix (body -> reference):"]
+    lines += ["      " + "  ".join(_n(v).rjust(13) for v in row) for row in data["matrix"]]
+    if data["axis"] is None:
+        lines.append("  axis and angle: no rotation (the axis is undefined at angle 0)")
+    else:
+        lines.append(f"  axis ({', '.join(_n(v) for v in data['axis'])}), angle {_n(data['angle_deg'])} deg")
+    lines.append(f"  rotation vector (deg): {', '.join(_n(v) for v in data['rotation_vector_deg'])}")
+    lines.append(f"  angles {formats.spelled_sequence(data['sequence'], data['intrinsic'])} {kind} (deg): "
+                 f"{', '.join(_n(v) for v in data['angles_deg'])}; gimbal margin {_n(data['gimbal_margin_deg'])} deg")
+    if data["orthogonality_error"] is not None:
+        lines.append(f"  orthogonality error of the numbers as given: {data['orthogonality_error']:.2g}")
+    lines.append(f"  why: {reading.why}")
+    lines += [f"  note: {note}" for note in reading.notes]
+    return "\n".join(lines)
+
+
+# ---------------------------------------------------------------------------------------------------
+# decode
+# ---------------------------------------------------------------------------------------------------
+def add_decode_arguments(parser: argparse.ArgumentParser) -> None:
+    parser.add_argument("text", nargs="?", default="-", metavar="TEXT",
+                        help="the pasted text; '-' or nothing reads standard input")
+    add_reading_options(parser)
+    parser.add_argument("--all", action="store_true", help="show every reading, most plausible first")
+    parser.add_argument("--json", action="store_true", help="print one JSON object")
+
+
+def run_decode(args, stdin, stdout) -> int:
+    readings = decode_or_refuse(read_text(args.text, stdin), hints_from(args))
+    if args.json:
+        data = reading_object(readings[0], args)
+        if args.all:
+            data["readings"] = [reading_object(r, args) for r in readings]
+        stdout.write(json.dumps(data, indent=2) + "\n")
+        return EXIT_OK
+    shown = readings if args.all else readings[:1]
+    stdout.write("\n\n".join(reading_text(r, args, i, len(readings)) for i, r in enumerate(shown, 1)) + "\n")
+    if not args.all and len(readings) > 1:
+        stdout.write(f"({len(readings) - 1} more reading{'s' if len(readings) > 2 else ''}: --all shows them,"
+                     " options such as --kind narrow them)\n")
+    return EXIT_OK
+
+
+# ---------------------------------------------------------------------------------------------------
+# compare
+# ---------------------------------------------------------------------------------------------------
+def add_compare_arguments(parser: argparse.ArgumentParser) -> None:
+    parser.add_argument("nominal", metavar="NOMINAL", help="the nominal orientation as text ('-': standard input)")
+    parser.add_argument("measured", metavar="MEASURED", help="the measured orientation as text ('-': standard input)")
+    add_reading_options(parser)
+    parser.add_argument("--tolerance", type=float, metavar="DEG", help="allowed total deviation in degrees")
+    parser.add_argument("--json", action="store_true", help="print one JSON object")
+
+
+def run_compare(args, stdin, stdout) -> int:
+    if args.nominal == "-" and args.measured == "-":
+        raise _Refused("only one of NOMINAL and MEASURED can be read from standard input")
+    if args.tolerance is not None and not (args.tolerance >= 0 and args.tolerance != float("inf")):
+        raise _Refused(f"--tolerance must be a finite number of degrees, 0 or more; got {args.tolerance}")
+    hints = hints_from(args)
+    nominal_readings = decode_or_refuse(read_text(args.nominal, stdin), hints, "nominal: ")
+    measured_readings = decode_or_refuse(read_text(args.measured, stdin), hints, "measured: ")
+    nominal, measured = nominal_readings[0], measured_readings[0]
+    # D = Nᵀ M, written in the nominal body frame (CONVENTIONS.md)
+    deviation = nominal.orientation.inverse() @ measured.orientation
+    axis, angle = deviation.as_axis_angle()
+    within = None if args.tolerance is None else bool(angle <= args.tolerance)
+    warnings = []
+    for name, readings in (("nominal", nominal_readings), ("measured", measured_readings)):
+        if len(readings) > 1:
+            warnings.append(f"{name} read as {readings[0].label} (the most plausible of {len(readings)} "
+                            "readings; options such as --kind make it unique)")
+    if args.json:
+        data = {"deviation_deg": angle, "axis": None if angle == 0 else [float(v) for v in axis],
+                "axis_frame": "nominal body", "within_tolerance": within, "tolerance_deg": args.tolerance,
+                "margin_deg": None if args.tolerance is None else args.tolerance - angle,
+                "warnings": warnings, "nominal": reading_object(nominal, args),
+                "measured": reading_object(measured, args)}
+        stdout.write(json.dumps(data, indent=2) + "\n")
+    else:
+        where = "no rotation" if angle == 0 else f"about ({', '.join(_n(v) for v in axis)}) in nominal body axes"
+        lines = [f"deviation: {_n(angle)} deg {where}"]
+        if args.tolerance is not None:
+            margin = args.tolerance - angle
+            lines.append(f"within tolerance {_n(args.tolerance)} deg (margin {_n(margin)} deg)" if within else
+                         f"OUTSIDE tolerance {_n(args.tolerance)} deg (by {_n(-margin)} deg)")
+        lines += [f"nominal: {nominal.label}", f"measured: {measured.label}"]
+        lines += [f"warning: {w}" for w in warnings]
+        stdout.write("\n".join(lines) + "\n")
+    return EXIT_OUTSIDE if within is False else EXIT_OK
+
+
+# ---------------------------------------------------------------------------------------------------
+# The verbs and the entry point
+# ---------------------------------------------------------------------------------------------------
+VERBS = {
+    "decode": ("read pasted text as an orientation and show its readings", add_decode_arguments, run_decode),
+    "compare": ("deviation of a measured orientation from the nominal", add_compare_arguments, run_compare),
+}
+
+
+def build_parser() -> argparse.ArgumentParser:
+    parser = argparse.ArgumentParser(
+        prog="framewright",
+        description="Decode, compare and hand on 3D orientations. With no command, opens the window.",
+        epilog=f"Caution: {formats.SAFETY_CAUTION}.")
+    commands = parser.add_subparsers(dest="verb", metavar="COMMAND", required=True)
+    for name, (help_text, add_arguments, run) in VERBS.items():
+        sub = commands.add_parser(name, help=help_text, description=help_text[0].upper() + help_text[1:] + ".")
+        add_arguments(sub)
+        sub.set_defaults(run=run)
+    return parser
+
+
+def main(argv=None, stdin=None, stdout=None, stderr=None) -> int:
+    stdin, stdout, stderr = stdin or sys.stdin, stdout or sys.stdout, stderr or sys.stderr
+    args = build_parser().parse_args(argv)
+    try:
+        return args.run(args, stdin, stdout)
+    except _Refused as refused:
+        stderr.write(f"framewright {args.verb}: {' '.join(str(refused).split())}\n")
+        return EXIT_REFUSED
+
+
+if __name__ == "__main__":
+    sys.exit(main())
