@@ -59,6 +59,18 @@ class Orientation:
         object.__setattr__(self, "_notes", tuple(notes))
         object.__setattr__(self, "_matrix", None)
 
+    @classmethod
+    def _from_kernel(cls, q, notes=()):
+        """Wrap a quaternion a kernel returned (already unit and canonical) without checking it again:
+        the constructor's checks cost more than the conversions on the path of every edit."""
+        self = object.__new__(cls)
+        q = np.array(q, dtype=np.float64)
+        q.setflags(write=False)
+        object.__setattr__(self, "_q", q)
+        object.__setattr__(self, "_notes", tuple(notes))
+        object.__setattr__(self, "_matrix", None)
+        return self
+
     def __setattr__(self, name, value):
         raise AttributeError("Orientation is immutable")
 
@@ -115,7 +127,7 @@ class Orientation:
         if not report.accepted:
             raise MatrixRefusedError(report.message, report)
         notes = () if report.band == "exact" else (report.message,)
-        return cls(kernels.matrices_to_quaternions(report.nearest), notes)
+        return cls._from_kernel(kernels.matrices_to_quaternions(report.nearest), notes)
 
     def as_matrix(self, transposed=False):
         """3x3 body -> reference matrix, or its transpose (reference -> body) with transposed=True."""
@@ -140,7 +152,7 @@ class Orientation:
         notes = ()
         if length > 0 and abs(length - 1.0) > _UNIT_NOTICE:
             notes = (f"axis normalised from length {length:.10g}",)
-        return cls(kernels.axis_angles_to_quaternions(axis, _angle_in(angle, degrees)), notes)
+        return cls._from_kernel(kernels.axis_angles_to_quaternions(axis, _angle_in(angle, degrees)), notes)
 
     def as_axis_angle(self, degrees=True):
         """(unit axis, angle) with the angle in [0, 180] degrees; the axis is (0, 0, 0) at angle 0."""
@@ -152,7 +164,7 @@ class Orientation:
         rv = kernels.check_array(rotation_vector, (3,), "rotation vector")
         if rv.shape != (3,):
             raise InvalidInputError(f"rotation vector: expected 3 numbers, got shape {rv.shape}")
-        return cls(kernels.rotation_vectors_to_quaternions(_angle_in(rv, degrees)))
+        return cls._from_kernel(kernels.rotation_vectors_to_quaternions(_angle_in(rv, degrees)))
 
     def as_rotation_vector(self, degrees=True):
         return _angle_out(kernels.quaternions_to_rotation_vectors(self._q), degrees)
@@ -167,7 +179,7 @@ class Orientation:
         values = kernels.check_array(angles, (3,), "angles")
         if values.shape != (3,):
             raise InvalidInputError(f"angles: expected 3 numbers, got shape {values.shape}")
-        return cls(kernels.angles_to_quaternions(_angle_in(values, degrees), sequence, intrinsic))
+        return cls._from_kernel(kernels.angles_to_quaternions(_angle_in(values, degrees), sequence, intrinsic))
 
     def as_angles(self, sequence, intrinsic=True, degrees=True):
         sequence = parse_sequence(sequence)

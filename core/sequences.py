@@ -1,6 +1,7 @@
 """The twelve angle sequences: names, spellings people type, presets, gimbal margin and the
 best-conditioned sequence for an orientation. The conversions themselves are in kernels.py."""
 
+import functools
 import re
 from dataclasses import dataclass
 
@@ -30,12 +31,21 @@ PRESETS = {
 }
 
 
+@functools.lru_cache(maxsize=256)
+def _parse_sequence_text(text):
+    return _parse(text)
+
+
 def parse_sequence(text):
     """'ZYX' from the ways people write it: 'zyx', 'Z-Y-X', "Z-Y'-X''", 'Z Y X', 'z,y,x'.
 
     Case never means intrinsic or extrinsic here: that is always a separate, explicit choice."""
     if not isinstance(text, str):
         raise SequenceError(f"angle sequence must be text such as 'ZYX', got {text!r}")
+    return _parse_sequence_text(text)
+
+
+def _parse(text):
     letters = re.sub(r"[\s\-–,'′″\"_·.]", "", text).upper()
     if not re.fullmatch(r"[XYZ]{3}", letters):
         raise SequenceError(
