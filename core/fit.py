@@ -150,6 +150,7 @@ def fit_points(nominal, measured, weights=None):
         h = Qc @ Pw.T
         scatter = Pc @ Pw.T
         energy_p = float(np.trace(scatter))
+        del Pw
 
     spread = np.linalg.eigvalsh(scatter)          # ascending
     if spread[2] <= 0:
@@ -250,7 +251,7 @@ def frame_from_three_points(origin, on_x_axis, in_xy_plane):
     if off_axis < COLLINEAR_NOTE * x_distance:
         notes = (f"the XY-plane point is only {off_axis:.3g} off the X axis ({off_axis / x_distance:.2g} of "
                  f"the X distance): the rotation about X is weakly determined",)
-    return PointFrame(Orientation.from_matrix(np.column_stack([x, y, z])), o, x_distance, off_axis, notes)
+    return PointFrame(Orientation(kernels.matrices_to_quaternions(np.column_stack([x, y, z]))), o, x_distance, off_axis, notes)
 
 
 # --- directions ------------------------------------------------------------------------------------
@@ -258,9 +259,10 @@ def frame_from_three_points(origin, on_x_axis, in_xy_plane):
 @dataclass(frozen=True)
 class DirectionFit:
     """orientation: body -> reference. residual_angles_deg: angle between R b_i and r_i per direction.
-    pair_angle_deg: the angle between the two body directions (for more, the widest pair, folded to
-    0..90 because antiparallel is as bad as parallel); reference_pair_angle_deg the same for the
-    measurements; mismatch_deg their difference, a consistency figure no rotation can remove."""
+    pair_angle_deg: the angle between the two body directions (for more than two, the spread angle of
+    _spread_angle_deg, folded to 0..90 because antiparallel is as bad as parallel);
+    reference_pair_angle_deg the same for the measurements; mismatch_deg their difference, a consistency
+    figure no rotation can remove."""
 
     orientation: Orientation
     residual_angles_deg: np.ndarray
@@ -280,13 +282,12 @@ def _directions(values, what):
     return v / lengths[:, None]
 
 
-def _widest_pair_deg(unit):
-    """The largest angle between two of the directions, folded to 0..90 (rows processed in blocks)."""
-    smallest = 1.0
-    for start in range(0, len(unit), 1024):
-        cos = np.abs(unit[start:start + 1024] @ unit.T)
-        smallest = min(smallest, float(cos.min()))
-    return float(np.degrees(np.arccos(min(smallest, 1.0))))
+def _spread_angle_deg(unit):
+    """arccos(λ1 − λ2) of the scatter (1/N) Σ b bᵀ of unit directions: for two directions exactly their
+    angle folded to 0..90, 0 when all are parallel or antiparallel, 90 for directions spread evenly round
+    a plane or wider. One number, in O(N), with the meaning of the pair angle."""
+    eigen = np.linalg.eigvalsh(unit.T @ unit / len(unit))      # ascending
+    return float(np.degrees(np.arccos(np.clip(eigen[2] - eigen[1], 0.0, 1.0))))
 
 
 def _pair_angle_deg(u, v):
@@ -298,7 +299,7 @@ def _judge_pair(body, ref, min_angle_deg):
         pair, ref_pair = _pair_angle_deg(body[0], body[1]), _pair_angle_deg(ref[0], ref[1])
         folded = min(pair, 180.0 - pair), min(ref_pair, 180.0 - ref_pair)
     else:
-        pair, ref_pair = _widest_pair_deg(body), _widest_pair_deg(ref)
+        pair, ref_pair = _spread_angle_deg(body), _spread_angle_deg(ref)
         folded = pair, ref_pair
     worst = min(folded)
     if worst < min_angle_deg:
@@ -317,7 +318,8 @@ def _direction_result(r, body, ref, pair, ref_pair, method, notes):
     fitted = body @ r.T
     residual = np.degrees(np.arctan2(np.linalg.norm(np.cross(fitted, ref), axis=1),
                                      np.einsum("ij,ij->i", fitted, ref)))
-    return DirectionFit(Orientation.from_matrix(r), residual, pair, ref_pair, abs(pair - ref_pair), method,
+    # r is orthogonal by construction (SVD factors, or two orthonormal triads).
+    return DirectionFit(Orientation(kernels.matrices_to_quaternions(r)), residual, pair, ref_pair, abs(pair - ref_pair), method,
                         tuple(notes))
 
 

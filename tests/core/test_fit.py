@@ -214,3 +214,20 @@ def test_nearly_parallel_directions_are_refused():
         fit_directions([(0, 0, 1), -b2, (0, 0, -1)], [(0, 0, 1), -b2, (0, 0, -1)])
     weak = Rotation.from_euler("y", 8.0, degrees=True).apply([0, 0, 1])
     assert "magnified" in triad((0, 0, 1), weak, (0, 0, 1), weak).notes[0]
+
+
+def test_pair_angle_quality_figure():
+    # Hand-worked: directions 60° apart report 60°; for three or more the spread angle arccos(λ1 − λ2) of
+    # their scatter is used, which is 90° for the three body axes (λ = 1/3 each) and the folded pair angle
+    # (here 180° − 150° = 30°) for two directions given as a list.
+    b = np.array([[1.0, 0.0, 0.0], [0.5, np.sqrt(3) / 2, 0.0]])
+    assert fit_directions(b, b).pair_angle_deg == pytest.approx(60.0, abs=1e-12)
+    assert fit_directions(np.eye(3), np.eye(3)).pair_angle_deg == pytest.approx(90.0, abs=1e-12)
+    wide = np.array([[1.0, 0.0, 0.0], [-np.sqrt(3) / 2, 0.5, 0.0]])
+    assert triad(*wide, *wide).pair_angle_deg == pytest.approx(150.0, abs=1e-12)
+    three = np.vstack([wide, wide[0]])
+    # Hand-worked: x, x and u = (cos150°, sin150°, 0). In the xy-plane the scatter is
+    # (1/3)[[2 + 3/4, −√3/4], [−√3/4, 1/4]]: trace 1, determinant 1/18, so
+    # λ1 − λ2 = √(1 − 4/18) = √7/3 and the figure is arccos(√7/3) = 28.1255°.
+    assert fit_directions(three, three).pair_angle_deg == pytest.approx(np.degrees(np.arccos(np.sqrt(7) / 3)),
+                                                                       abs=1e-12)
