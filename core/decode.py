@@ -99,6 +99,7 @@ class ParsedNumbers:
     words: str = ""            # lower-case text of everything that is not a number (hints)
     captions: tuple[tuple[int, str], ...] = ()   # (line, text before its first number) per data line
     headers: tuple[tuple[int, str], ...] = ()    # (data line, the numberless line just above it): CSV headers
+    decimal_commas: bool = False                 # '0,7071' seen: maybe decimal commas (read as separators)
 
     @property
     def values(self) -> np.ndarray:
@@ -268,7 +269,8 @@ def parse_numbers(text: str) -> ParsedNumbers:
                 notes.add(f"line {line_no} ('{_shorten(rest.strip())}') holds no numbers and was ignored")
     if skipped_titles > 3:
         notes.add(f"{skipped_titles - 3} more lines without numbers were ignored")
-    return ParsedNumbers(tuple(numbers), tuple(notes), " ".join(words), tuple(captions), tuple(headers))
+    return ParsedNumbers(tuple(numbers), tuple(notes), " ".join(words), tuple(captions), tuple(headers),
+                         bool(re.search(r"\d,\d", clean)))
 
 
 def _shorten(text: str, width: int = 40) -> str:
@@ -513,6 +515,7 @@ def _keyed(parsed: ParsedNumbers) -> _Keyed | None:
         return None
     values = [n.value for n in parsed.numbers]
     keys, units = zip(*(_split_key(label) for label in labels))
+    keys = tuple(k or "" for k in keys)
     unit_set = {u for u in units if u}
     unit = unit_set.pop() if len(unit_set) == 1 else None
     n = len(values)
@@ -918,9 +921,8 @@ def _count_message(parsed: ParsedNumbers, hints: DecodeHints) -> str:
         return f"found no numbers in the text; Framewright reads {UNDERSTOOD_COUNTS}"
     message = f"found {n} number{'s' if n != 1 else ''} ({parsed.lines_summary()}); Framewright reads " \
               f"{UNDERSTOOD_COUNTS}"
-    if re.search(r"\d,\d", parsed.words + " ".join(n.text for n in parsed.numbers)) or any(
-            re.search(r"\d,\d", caption) for _, caption in parsed.captions):
-        message += " (decimal commas are read as separators: write decimal points)"
+    if parsed.decimal_commas:
+        message += " (commas are read as separators: if they are decimal commas, write decimal points)"
     return message
 
 

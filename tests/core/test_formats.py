@@ -1,0 +1,154 @@
+"""Export formats: every one parses back through decode to 1e-12 degrees when printed exactly, and to the
+printed precision (printed_precision_deg, stated there) when printed with fixed decimals. Orientations
+come from SciPy's Rotation so the numbers rendered are checked against an outside library too."""
+
+import json
+from datetime import datetime
+
+import numpy as np
+import pytest
+from scipy.spatial.transform import Rotation
+
+from core import formats
+from core.formats import (FORMAT_NAMES, FORMATS, JSON_KEYS, REPRESENTATIONS, SAFETY_CAUTION, FormatOptions,
+                          csv_header, printed_precision_deg, render, round_trip_error, round_trip_hints)
+from core.decode import decode
+from core.orientation import Orientation
+
+
+def from_scipy(rotation):
+    return Orientation.from_quaternion(rotation.as_quat(scalar_first=True))
+
+
+SAMPLES = {
+    "identity": Rotation.identity(),
+    "zyx-30-20-10": Rotation.from_euler("ZYX", [30, 20, 10], degrees=True),
+    "180-about-x": Rotation.from_rotvec([np.pi, 0, 0]),
+    "near-180": Rotation.from_rotvec([0.3, -2.1, 2.2]),
+    "gimbal-lock": Rotation.from_euler("ZYX", [40, 90, 0], degrees=True),
+    "tiny": Rotation.from_rotvec([1e-9, 0, 0]),
+    **{f"random-{i}": r for i, r in enumerate(Rotation.random(6, random_state=11))},
+}
+OPTION_SETS = [
+    {},
+    {"transposed": True},
+    {"scalar_last": True},
+    {"degrees": False},
+    {"sequence": "ZXZ", "intrinsic": False},
+    {"sequence": "XYZ", "intrinsic": True, "degrees": False},
+]
+
+
+def cases():
+    for fmt in FORMAT_NAMES:
+        for rep in REPRESENTATIONS:
+            for extra in OPTION_SETS:
+                if fmt in ("json", "report") and (rep != "matrix" or extra):
+                    continue            # these two write every representation whatever the options
+                yield fmt, rep, extra
+
+
+@pytest.mark.parametrize("sample", list(SAMPLES))
+@pytest.mark.parametrize("fmt, rep, extra", list(cases()))
+def test_every_format_round_trips_exactly(sample, fmt, rep, extra):
+    o = from_scipy(SAMPLES[sample])
+    options = FormatOptions(representation=rep, **extra)
+    text = render(o, fmt, options)
+    error = round_trip_error(o, text, fmt, options)
+    bound = max(1e-12, printed_precision_deg(fmt, options))
+    assert error <= bound, (text, error)
+    # what comes back is SciPy's rotation (checked against SciPy's Rotation.as_matrix)
+    decoded = decode(text, round_trip_hints(fmt, options))[0].orientation
+    atol = 1e-12 if fmt != "report" else 1e-9
+    assert np.allclose(decoded.as_matrix(), SAMPLES[sample].as_matrix(), atol=atol, rtol=0)
+
+
+@pytest.mark.parametrize("decimals", [4, 6, 9])
+@pytest.mark.parametrize("fmt", FORMAT_NAMES)
+@pytest.mark.parametrize("rep", REPRESENTATIONS)
+def test_fixed_decimals_round_trip_to_the_printed_precision(decimals, fmt, rep):
+    for rotation in Rotation.random(5, random_state=decimals):
+        o = from_scipy(rotation)
+        options = FormatOptions(representation=rep, decimals=decimals)
+        error = round_trip_error(o, render(o, fmt, options), fmt, options)
+        assert error <= printed_precision_deg(fmt, options)
+
+
+def test_printed_precision_is_stated_and_zero_when_exact():
+    assert printed_precision_deg("text") == 0.0
+    assert printed_precision_deg("report") > 0                  # the report prints 10 decimals
+    assert printed_precision_deg("text", {"decimals": 4}) == pytest.approx(np.degrees(4e-4))
+
+
+def test_format_list_has_plain_labels_for_the_menu():
+    assert [name for name, _ in FORMATS] == ["text", "json", "csv", "python", "c", "matlab", "report"]
+    assert all(label and label[0].isupper() for _, label in FORMATS)
+
+
+def test_json_is_one_object_with_the_listed_keys_and_sciPy_values():
+    r = Rotation.from_euler("ZYX", [30, 20, 10], degrees=True)
+    data = json.loads(render(from_scipy(r), "json"))
+    assert set(JSON_KEYS) <= set(data)
+    # checked against SciPy's Rotation
+    assert np.allclose(data["matrix"], r.as_matrix(), atol=1e-15)
+    assert np.allclose(data["quaternion_wxyz"], r.as_quat(scalar_first=True, canonical=True), atol=1e-15)
+    assert np.allclose(data["rotation_vector_deg"], r.as_rotvec(degrees=True), atol=1e-12)
+    assert np.allclose(data["angles_deg"], r.as_euler("ZYX", degrees=True), atol=1e-12)
+    assert data["angle_deg"] == pytest.approx(np.degrees(r.magnitude()), abs=1e-12)
+    assert data["sequence"] == "ZYX" and data["intrinsic"] is True
+
+
+def test_json_axis_is_null_at_angle_zero():
+    assert json.loads(render(Orientation.identity(), "json"))["axis"] is None
+
+
+def test_csv_header_names_the_columns_of_the_row():
+    o = from_scipy(Rotation.from_euler("ZYX", [30, 20, 10], degrees=True))
+    for rep in REPRESENTATIONS:
+        header = csv_header({"representation": rep}).strip().split(",")
+        row = render(o, "csv", {"representation": rep}).strip().split(",")
+        assert len(header) == len(row)
+    assert csv_header({"representation": "quaternion"}) == "qw,qx,qy,qz\n"
+    assert csv_header({"representation": "angles"}) == "yaw_deg,pitch_deg,roll_deg\n"
+    # header and row together also decode, read by the column names
+    text = csv_header({"representation": "quaternion", "scalar_last": True}) + \
+        render(o, "csv", {"representation": "quaternion", "scalar_last": True})
+    assert decode(text)[0].orientation.angle_to(o) < 1e-12
+
+
+def test_code_formats_are_valid_in_their_language_where_we_can_check():
+    o = from_scipy(Rotation.from_euler("ZYX", [30, 20, 10], degrees=True))
+    for rep in REPRESENTATIONS:
+        namespace = {}
+        exec(render(o, "python", {"representation": rep}), namespace)      # noqa: S102 - our own output
+        arrays = [v for k, v in namespace.items() if isinstance(v, np.ndarray)]
+        assert len(arrays) == 1
+    c = render(o, "c")
+    assert c.count("{") == c.count("}") == 4 and c.rstrip().endswith("};")
+    m = render(o, "matlab")
+    assert m.startswith("% ") and m.rstrip().endswith("];")
+
+
+def test_report_has_every_representation_conventions_time_and_the_caution():
+    o = from_scipy(Rotation.from_euler("ZYX", [30, 20, 10], degrees=True))
+    text = render(o, "report", {"timestamp": datetime(2026, 12, 1, 9, 30), "name": "Camera bracket B"})
+    for words in ("Quaternion (w, x, y, z)", "Rotation matrix, body -> reference", "Axis and angle",
+                  "Rotation vector", "Angles Z-Y'-X'' intrinsic", "X-Y-Z extrinsic", "Gimbal margin",
+                  "Conventions:", "2026-12-01 09:30:00", "Camera bracket B", SAFETY_CAUTION):
+        assert words in text, words
+    assert "not given" in render(o, "report")
+
+
+def test_unknown_format_or_representation_is_refused():
+    from core.errors import FramewrightError
+    with pytest.raises(FramewrightError):
+        render(Orientation.identity(), "xml")
+    with pytest.raises(FramewrightError):
+        render(Orientation.identity(), "text", {"representation": "spinor"})
+
+
+def test_check_every_format_reports_each_error():
+    o = from_scipy(Rotation.random(random_state=3))
+    errors = formats.check_every_format(o)
+    assert set(errors) == set(FORMAT_NAMES)
+    assert all(e <= max(1e-12, printed_precision_deg(f)) for f, e in errors.items())
