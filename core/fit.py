@@ -12,7 +12,10 @@ R = U diag(1, 1, d) Vᵀ, d = ±1 making det R = +1.
 - Flagged points: the modified z-score rule of Iglewicz & Hoaglin (1993, from memory) on the residual
   distances, z = 0.6745 (d − median) / MAD; a point is flagged when z > 3.5 (only large residuals count),
   and its residual is also above a floor of 1e-9 of the point set's size (so round-off is never flagged).
-  At least FLAG_MIN_POINTS points are needed; with fewer, the fit absorbs any one bad point.
+  At least FLAG_MIN_POINTS points are needed; with fewer, the fit absorbs any one bad point. On clean
+  Gaussian noise the rule flags about 0.3 % of points (residual distances have a long upper tail), so a
+  flag is a point to look at again, not a verdict; no point is dropped from the fit automatically (give it
+  weight 0 to leave it out).
 
 Three datum points (`frame_from_three_points`, the "3-2-1" construction): the body origin, a point on
 the body +X axis, and a point in the body XY plane on the +Y side, all measured in the reference frame.

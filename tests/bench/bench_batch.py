@@ -5,7 +5,6 @@ Prints our time, SciPy's and the ratio (ours / SciPy; below 1 is faster). Timing
 passes or fails."""
 
 import sys
-import time
 from pathlib import Path
 
 import numpy as np
@@ -16,20 +15,10 @@ sys.path.insert(0, str(Path(__file__).resolve().parents[2]))
 
 from core.batch import compute_deviations, read_mounts, run_batch, write_results  # noqa: E402
 from core.check import CheckSettings  # noqa: E402
+from tests.bench.bench_core import REPEATS, best_time  # noqa: E402
 
 ROWS = 100_000
-REPEATS = 3
 GOAL_SECONDS = 2.0
-
-
-def best_time(function):
-    """Best of a few runs: the least disturbed by the rest of the machine."""
-    times = []
-    for _ in range(REPEATS):
-        start = time.perf_counter()
-        function()
-        times.append(time.perf_counter() - start)
-    return min(times)
 
 
 def batch_text():
