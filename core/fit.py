@@ -115,6 +115,20 @@ class PointFit:
     spread_ratio: float
     notes: tuple = ()
 
+    def summary(self, unit="mm"):
+        """A few lines for a person: the fit, its residuals and any flagged points (1-based numbers)."""
+        axis, angle = self.orientation.as_axis_angle()
+        t = self.translation
+        lines = [f"best fit of {len(self.distances)} points: {angle:.4f}° about "
+                 f"[{axis[0]:.5f}, {axis[1]:.5f}, {axis[2]:.5f}], translation "
+                 f"[{t[0]:.4f}, {t[1]:.4f}, {t[2]:.4f}] {unit}",
+                 f"RMS residual {self.rms:.4g} {unit}; worst point {self.worst_index + 1} at "
+                 f"{self.distances[self.worst_index]:.4g} {unit}"]
+        if self.flagged:
+            lines.append(f"flagged (residual above {self.flag_threshold:.4g} {unit}): point(s) "
+                         + ", ".join(str(i + 1) for i in self.flagged))
+        return "\n".join(lines + list(self.notes))
+
     @property
     def flag_rule(self):
         return (f"flagged when 0.6745·(d − median)/MAD > {FLAG_Z:g} "
@@ -274,6 +288,13 @@ class DirectionFit:
     mismatch_deg: float
     method: str
     notes: tuple = ()
+
+    def summary(self):
+        axis, angle = self.orientation.as_axis_angle()
+        residuals = ", ".join(f"{r:.4f}°" for r in self.residual_angles_deg)
+        return "\n".join([f"{self.method}: {angle:.4f}° about [{axis[0]:.5f}, {axis[1]:.5f}, {axis[2]:.5f}]",
+                          f"directions {self.pair_angle_deg:.2f}° apart (measured {self.reference_pair_angle_deg:.2f}°, "
+                          f"mismatch {self.mismatch_deg:.4f}°); residuals {residuals}"] + list(self.notes))
 
 
 def _directions(values, what):

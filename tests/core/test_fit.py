@@ -231,3 +231,14 @@ def test_pair_angle_quality_figure():
     # λ1 − λ2 = √(1 − 4/18) = √7/3 and the figure is arccos(√7/3) = 28.1255°.
     assert fit_directions(three, three).pair_angle_deg == pytest.approx(np.degrees(np.arccos(np.sqrt(7) / 3)),
                                                                        abs=1e-12)
+
+
+def test_summaries_name_the_figures():
+    _, _, nominal, measured = random_case(12, 0.01, 13)
+    measured[5] += np.array([0.6, -0.5, 0.4])
+    text = fit_points(nominal, measured).summary()
+    assert "best fit of 12 points" in text and "worst point 6" in text and "point(s) 6" in text
+    c = np.sqrt(3) / 2
+    text = triad((0, 0, 1), (1, 0, 0), (0, -0.5, c), (1, 0, 0)).summary()
+    assert text.startswith("TRIAD: 30.0000° about [1.00000, 0.00000, 0.00000]")
+    assert "90.00° apart" in text
