@@ -1,0 +1,1 @@
+"""Command-line tests: run without Qt or a display."""
