@@ -172,6 +172,15 @@ def _report(progress, done, total, stage):
 
 # --- header -----------------------------------------------------------------------------------------
 
+def _convention_words(key, value):
+    """How a convention is written in a header: 'extrinsic', 'rad', 'ZYX', 'reference_to_body'."""
+    if key == "intrinsic":
+        return "intrinsic" if value else "extrinsic"
+    if key == "degrees":
+        return "deg" if value else "rad"
+    return str(value)
+
+
 def _read_tags(text, column):
     found = {}
     for word in text.replace(";", " ").split():
@@ -229,8 +238,8 @@ def _column_set(role, fields, passed):
                                     f"{', '.join(MATRIX_MEANINGS)}")
         if key in values and outside is not None and outside != values[key][0]:
             raise BatchFileError(
-                f"line 1, column {values[key][1]!r}: the header says {key.replace('_', ' ')} "
-                f"{values[key][0]!r} but {outside!r} was passed in; expected them to agree", line=1,
+                f"line 1, column {values[key][1]!r}: the header says {_convention_words(key, values[key][0])} "
+                f"but {_convention_words(key, outside)} was passed in; expected them to agree", line=1,
                 column=values[key][1])
         resolved[key] = values[key][0] if key in values else outside
     if representation == "angles" and (resolved["sequence"] is None or resolved["intrinsic"] is None):

@@ -136,7 +136,7 @@ def test_conventions_passed_in_for_a_plain_header_and_contradictions_refused():
     result, _ = run_batch(text, measured=conventions)
     np.testing.assert_allclose(result.total_deg, scipy_figures(nominal, measured)[0], atol=1e-9)
     tagged = text.replace("measured_angle1", "measured_angle1[ZXZ extrinsic]", 1)
-    with pytest.raises(BatchFileError, match="the header says intrinsic False but True was passed in"):
+    with pytest.raises(BatchFileError, match="the header says extrinsic but intrinsic was passed in"):
         read_mounts(tagged, measured=conventions)
 
 
