@@ -107,7 +107,7 @@ def box_mesh(size) -> tuple[np.ndarray, np.ndarray, list[str]]:
     for name in FACE_NAMES:
         normal = FACE_NORMALS[name]
         k = int(np.argmax(np.abs(normal)))
-        u_axis, v_axis = [i for i in range(3) if i != k]
+        u_axis, v_axis = (k + 1) % 3, (k + 2) % 3  # cyclic, so u × v = +e_k
         if normal[k] < 0:  # keep every face wound counter-clockwise seen from outside
             u_axis, v_axis = v_axis, u_axis
         start = len(verts)

@@ -42,6 +42,9 @@ class LabelLayer(GLGraphicsItem):
         self.setDepthValue(10_000)  # drawn after every 3D item
         self._fonts = {}
         self._panel_rects = []
+        self._label_box = QtGui.QColor(*palette.LABEL_BOX_RGBA)
+        self._panel_box = QtGui.QColor(*palette.OVERLAY_BOX_RGBA)
+        self._device = None
 
     # --- state --------------------------------------------------------------------------------------
     def set_label(self, key, pos=None, text=None, rgb=None, bold=None, visible=None, normal=None):
@@ -81,8 +84,10 @@ class LabelLayer(GLGraphicsItem):
         if width <= 0 or height <= 0:
             return
         scale = max(0.85, min(3.0, height / _BASE_HEIGHT))
-        device = QOpenGLPaintDevice(QtCore.QSize(width, height))
-        painter = QtGui.QPainter(device)
+        if self._device is None:
+            self._device = QOpenGLPaintDevice()
+        self._device.setSize(QtCore.QSize(width, height))
+        painter = QtGui.QPainter(self._device)
         try:
             painter.setRenderHints(QtGui.QPainter.RenderHint.Antialiasing | QtGui.QPainter.RenderHint.TextAntialiasing)
             self._paint_panels(painter, width, height, scale)
@@ -113,9 +118,7 @@ class LabelLayer(GLGraphicsItem):
             w, h = rect.width() + 2 * pad, metrics.height() + 2 * pad
             box = _free_spot(x, y, w, h, width, height, placed)
             placed.append(box)
-            painter.setPen(QtCore.Qt.PenStyle.NoPen)
-            painter.setBrush(QtGui.QColor(*palette.LABEL_BOX_RGBA))
-            painter.drawRoundedRect(box, 3 * scale, 3 * scale)
+            painter.fillRect(box, self._label_box)  # square boxes: far cheaper than rounded paths on GL
             painter.setFont(font)
             painter.setPen(QtGui.QColor(*lab.rgb))
             painter.drawText(box, QtCore.Qt.AlignmentFlag.AlignCenter, lab.text)
@@ -133,9 +136,7 @@ class LabelLayer(GLGraphicsItem):
             h = line_h * len(panel.lines) + 2 * pad
             left = margin if "left" in panel.corner else width - w - margin
             top = margin if "top" in panel.corner else height - h - margin
-            painter.setPen(QtCore.Qt.PenStyle.NoPen)
-            painter.setBrush(QtGui.QColor(*palette.OVERLAY_BOX_RGBA))
-            painter.drawRoundedRect(QtCore.QRectF(left, top, w, h), 4 * scale, 4 * scale)
+            painter.fillRect(QtCore.QRectF(left, top, w, h), self._panel_box)
             self._panel_rects.append(QtCore.QRectF(left, top, w, h))
             for i, (text, rgb) in enumerate(panel.lines):
                 painter.setPen(QtGui.QColor(*rgb))

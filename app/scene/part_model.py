@@ -4,6 +4,7 @@ labelled (+X … −Z and the user's own names) and one face is marked as the bo
 from __future__ import annotations
 
 import numpy as np
+from OpenGL import GL
 
 from app.scene import gl_helpers, palette
 from app.scene.geometry import FACE_NAMES, FACE_NORMALS, box_edges, box_mesh, boresight_mark, face_centres
@@ -14,6 +15,7 @@ DEFAULT_SIZE = (120.0, 80.0, 50.0)
 DEFAULT_BORESIGHT = "+Z"
 _FACE_ALPHA = 0.42
 _BORESIGHT_ALPHA = 0.70
+_FRONT_FACES_ONLY = {**gl_helpers.SEE_THROUGH, GL.GL_CULL_FACE: True}
 
 
 def normalise_face_name(name: str) -> str:
@@ -52,6 +54,7 @@ class PartModel:
         self.scale = DRAWN_HALF_EXTENT / float(np.max(0.5 * size))
         verts, faces, owners = box_mesh(size)
         colours = np.array([self._face_rgba(name) for name in owners], dtype=float)
+        self.faces.setGLOptions(_FRONT_FACES_ONLY)  # the box is wound outward: half the fill work
         self.faces.setMeshData(vertexes=verts, faces=faces, faceColors=colours)
         self.edges.setData(pos=box_edges(size))
         self.mark.setData(pos=boresight_mark(size, self.boresight_face))
@@ -75,6 +78,7 @@ class PartModel:
         colours = np.where(facing[:, None], self._face_rgba(self.boresight_face),
                            self._face_rgba("none")).astype(float)
         # without an index array pyqtgraph takes face colours per corner: (N, 3, 4)
+        self.faces.setGLOptions(gl_helpers.SEE_THROUGH)  # an STL's winding is not to be trusted
         self.faces.setMeshData(vertexes=triangles, faceColors=np.repeat(colours[:, None, :], 3, axis=1))
         bbox = box_edges(self.upper - self.lower) + 0.5 * (self.upper + self.lower)
         self.edges.setData(pos=bbox)  # the bounding box, so the STL's extent along each axis is readable

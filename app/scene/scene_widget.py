@@ -20,6 +20,7 @@ from app.scene.label_layer import LabelLayer
 from app.scene.part_model import PartModel, normalise_face_name
 from app.scene.rotation_construction import RotationConstruction
 from app.scene.scene_toolbar import SceneToolbar
+from app.scene.scene_view import SceneView
 from app.scene.stl_reader import StlError
 from core import describe
 from core.orientation import Orientation
@@ -46,7 +47,7 @@ class SceneWidget(QtWidgets.QWidget):
 
     def __init__(self, parent=None):
         super().__init__(parent)
-        self.view = gl.GLViewWidget()
+        self.view = SceneView()
         self.view.setBackgroundColor(palette.BACKGROUND)
         self.view.opts["fov"] = camera.FIELD_OF_VIEW
         self.view.setMinimumSize(320, 240)
@@ -80,7 +81,7 @@ class SceneWidget(QtWidgets.QWidget):
     # --- construction -------------------------------------------------------------------------------
     def _build_items(self):
         v = self.view
-        self.grid = gl.GLGridItem(color=palette.GRID_RGBA)
+        self.grid = gl.GLGridItem(color=palette.GRID_RGBA, antialias=False)  # faint: smoothing buys nothing
         self.grid.setSize(3.0, 3.0)
         self.grid.setSpacing(0.25, 0.25)
         self.grid.setDepthValue(-10)
