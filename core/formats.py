@@ -35,6 +35,7 @@ FORMATS = (
 )
 FORMAT_NAMES = tuple(name for name, _ in FORMATS)
 REPRESENTATIONS = ("matrix", "quaternion", "axis-angle", "rotation-vector", "angles")
+REPORT_DECIMALS = 10          # the report's numbers for a person (its quaternion line is always exact)
 SAFETY_CAUTION = ("verify against the governing drawing and procedure; this tool does not replace inspection "
                   "by qualified personnel; local codes and licensed practice govern")
 JSON_KEYS = ("format", "matrix", "quaternion_wxyz", "axis", "angle_deg", "rotation_vector_deg", "sequence",
@@ -47,7 +48,11 @@ class FormatOptions:
     decimals: None = exact shortest text, or a fixed number of decimals; sequence, intrinsic: for
     angles; degrees: angle units; scalar_last: quaternion order (x, y, z, w); transposed: write the
     matrix reference -> body (rows are the body axes); name: variable name in code, mount name in the
-    report; timestamp: date and time for the report (the caller passes it: text or datetime)."""
+    report; timestamp: date and time for the report (the caller passes it: text or datetime);
+    caution: the report's safety caution (SAFETY_CAUTION unless the caller passes its own wording).
+
+    A dict may also use the window's preference names: angle_units ('deg'/'rad'), quaternion_order
+    ('wxyz'/'xyzw') and matrix_meaning ('body_to_reference'/'reference_to_body')."""
     representation: str = "matrix"
     decimals: int | None = None
     sequence: str = "ZYX"
@@ -58,6 +63,7 @@ class FormatOptions:
     name: str | None = None
     timestamp: object = None
     notes: tuple = ()
+    caution: str | None = None
 
     def checked(self) -> "FormatOptions":
         if self.representation not in REPRESENTATIONS:
@@ -68,11 +74,28 @@ class FormatOptions:
         return replace(self, sequence=parse_sequence(self.sequence))
 
 
+_PREFERENCE_NAMES = {
+    "angle_units": lambda v: {"degrees": str(v).lower().startswith("deg")},
+    "quaternion_order": lambda v: {"scalar_last": str(v).lower() in ("xyzw", "w-last", "scalar-last")},
+    "matrix_meaning": lambda v: {"transposed": str(v).lower().replace("-", "_") == "reference_to_body"},
+}
+
+
 def _options(options) -> FormatOptions:
     if options is None:
         return FormatOptions()
     if isinstance(options, dict):
-        return FormatOptions(**options).checked()
+        fields = dict(options)
+        translated = {}
+        for name, translate in _PREFERENCE_NAMES.items():
+            if name in fields:
+                translated.update(translate(fields.pop(name)))
+        unknown = set(fields) - set(FormatOptions.__dataclass_fields__)
+        if unknown:
+            raise FramewrightError(f"unknown format option(s) {sorted(unknown)}; expected "
+                                   f"{sorted(FormatOptions.__dataclass_fields__)}")
+        # explicit fields win over preference names when both are given
+        return FormatOptions(**{**translated, **fields}).checked()
     return options.checked()
 
 
@@ -288,9 +311,12 @@ def _render_report(orientation, o: FormatOptions) -> str:
     lines.append(f"Date and time: {when if when else 'not given'}")
     lines.append("Conventions: v_ref = R v_body (the columns of R are the body axes in reference coordinates);"
                  " Hamilton quaternion, w first, w not negative; angles in degrees;"
+                 f" the quaternion is printed exactly, other numbers to {d} decimals." if o.decimals is None else
+                 " Hamilton quaternion, w first, w not negative; angles in degrees;"
                  f" numbers printed to {d} decimals.")
     lines.append("")
-    lines.append(f"Quaternion (w, x, y, z): {', '.join(n(v) for v in s['quaternion_wxyz'])}")
+    exact = format_number if o.decimals is None else n      # the quaternion line reads back exactly
+    lines.append(f"Quaternion (w, x, y, z): {', '.join(exact(v) for v in s['quaternion_wxyz'])}")
     lines.append("Rotation matrix, body -> reference:")
     lines.extend("    " + "  ".join(n(v).rjust(d + 3) for v in row) for row in s["matrix"])
     if s["axis"] is None:
@@ -311,7 +337,7 @@ def _render_report(orientation, o: FormatOptions) -> str:
     for note in tuple(o.notes) + tuple(orientation.notes):
         lines.append(f"Note: {note}")
     lines.append("")
-    lines.append(f"Caution: {SAFETY_CAUTION}.")
+    lines.append(f"Caution: {(o.caution or SAFETY_CAUTION).rstrip('.')}.")
     return "\n".join(lines) + "\n"
 
 
@@ -350,18 +376,15 @@ def round_trip_error(orientation, text: str, fmt: str, options=None) -> float:
     return orientation.angle_to(readings[0].orientation)
 
 
-REPORT_DECIMALS = 10
-
-
 def printed_precision_deg(fmt: str, options=None) -> float:
     """How far a round trip may be off because of the printed decimals (0 when printed exactly).
 
     A unit quantity printed to d decimals is off by at most 0.5e-d per number; the orientation then by
     at most a few times that (in radians). Angles printed in degrees are off by 0.5e-d degrees each.
-    The report prints REPORT_DECIMALS decimals unless told otherwise; JSON and the report give the
-    quaternion, so their bound is the quaternion's."""
+    The report prints its quaternion exactly and the rest to REPORT_DECIMALS decimals unless told
+    otherwise; JSON and the report decode by their quaternion, so their bound is the quaternion's."""
     o = _options(options)
-    decimals = o.decimals if o.decimals is not None or fmt != "report" else REPORT_DECIMALS
+    decimals = o.decimals
     if decimals is None:
         return 0.0
     step = 0.5 * 10.0 ** -decimals
