@@ -199,3 +199,14 @@ def test_export_png_has_the_chosen_size(scene, tmp_path):
     scene.export_png(path, 640, 400)
     image = QImage(str(path))
     assert (image.width(), image.height()) == (640, 400)
+
+
+def test_play_replays_the_sweep_from_the_reference_and_stops_at_the_current_orientation(scene, qtbot):
+    scene.set_orientation(Orientation.from_axis_angle((0, 0, 1), 90))
+    seen = []
+    scene.sweep_changed.connect(seen.append)
+    scene.toolbar.play.setChecked(True)
+    qtbot.waitUntil(lambda: not scene.toolbar.play.isChecked(), timeout=10_000)
+    assert seen[0] == 0.0 and seen[-1] == 1.0
+    assert all(a <= b for a, b in zip(seen, seen[1:]))
+    assert scene.sweep() == 1.0
