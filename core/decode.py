@@ -195,7 +195,9 @@ def parse_numbers(text: str) -> ParsedNumbers:
             start = max(0, expression.start() - 6)
             raise DecodeError(f"line {line_no} holds an expression ('{line[start:expression.end() + 6].strip()}');"
                               " Framewright reads plain numbers only: paste decimal values")
-        keys = [(m.start(), m.end(), m.group("key").lower()) for m in _KEY.finditer(line)]
+        keys = [(m.end(), m.group("key").lower()) for m in _KEY.finditer(line)]
+        next_key = 0
+        label = None
         found_here: list[FoundNumber] = []
         covered: list[tuple[int, int]] = []
         last_end = 0
@@ -233,10 +235,9 @@ def parse_numbers(text: str) -> ParsedNumbers:
             # a row ends at a newline (new line), ';', '\\' or a closing bracket between two numbers
             if found_here and re.search(r"[;\])}]|\\\\", line[last_end:m.start()]):
                 row += 1
-            label = None
-            for _k_start, k_end, key in keys:
-                if k_end <= m.start():
-                    label = key
+            while next_key < len(keys) and keys[next_key][0] <= m.start():   # the last key before it
+                label = keys[next_key][1]
+                next_key += 1
             # a new label on the same line starts a new row ("X: 1 0 0  Y: 0 1 0")
             if found_here and label is not None and label != found_here[-1].label:
                 row += 1
@@ -248,9 +249,11 @@ def parse_numbers(text: str) -> ParsedNumbers:
             last_end = end
             pos = end
         # What was set aside on this line, for notes and hints
-        rest = line
-        for a, b in reversed(covered):
-            rest = rest[:a] + " " * (b - a) + rest[b:]
+        pieces, previous_end = [], 0
+        for a, b in covered:
+            pieces += [line[previous_end:a], " " * (b - a)]
+            previous_end = b
+        rest = "".join(pieces) + line[previous_end:]
         words.append(rest.lower())
         if found_here:
             captions.append((line_no, line[:found_here[0].column - 1].strip().lower()))
@@ -892,10 +895,6 @@ def readings_from_numbers(parsed: ParsedNumbers, hints=None) -> list[Reading]:
                            label=c.label, numbers=tuple(float(x) for x in values),
                            orthogonality_error=c.orthogonality_error))
     return out
-
-
-def decode_best(text: str, hints=None) -> Reading:
-    return decode(text, hints)[0]
 
 
 def _gimbal_notes(orientation, c: _Candidate) -> list[str]:

@@ -8,10 +8,6 @@ from scipy.spatial.transform import Rotation
 from core.decode import DecodeError, DecodeHints, decode
 
 
-def kinds_and_conventions(readings):
-    return [(r.kind, r.conventions) for r in readings]
-
-
 # --- quaternion order ---------------------------------------------------------------------------------
 def test_unit_four_tuple_with_largest_first_is_w_first_and_largest_last_is_w_last():
     first = decode("0.9238795 0.3826834 0 0")
