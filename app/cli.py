@@ -10,7 +10,7 @@ stderr saying what is wrong and where, and nothing on stdout.
 from __future__ import annotations
 
 import argparse
-import json
+import re
 import sys
 
 from core import formats
@@ -128,7 +128,7 @@ def run_decode(args, stdin, stdout) -> int:
         data = reading_object(readings[0], args)
         if args.all:
             data["readings"] = [reading_object(r, args) for r in readings]
-        stdout.write(json.dumps(data, indent=2) + "\n")
+        stdout.write(formats.json_object_text(data))
         return EXIT_OK
     shown = readings if args.all else readings[:1]
     stdout.write("\n\n".join(reading_text(r, args, i, len(readings)) for i, r in enumerate(shown, 1)) + "\n")
@@ -173,7 +173,7 @@ def run_compare(args, stdin, stdout) -> int:
                 "margin_deg": None if args.tolerance is None else args.tolerance - angle,
                 "warnings": warnings, "nominal": reading_object(nominal, args),
                 "measured": reading_object(measured, args)}
-        stdout.write(json.dumps(data, indent=2) + "\n")
+        stdout.write(formats.json_object_text(data))
     else:
         where = "no rotation" if angle == 0 else f"about ({', '.join(_n(v) for v in axis)}) in nominal body axes"
         lines = [f"deviation: {_n(angle)} deg {where}"]
@@ -211,6 +211,10 @@ def build_parser() -> argparse.ArgumentParser:
 
 def main(argv=None, stdin=None, stdout=None, stderr=None) -> int:
     stdin, stdout, stderr = stdin or sys.stdin, stdout or sys.stdout, stderr or sys.stderr
+    argv = sys.argv[1:] if argv is None else list(argv)
+    # Pasted text such as "-0.5,0,0,0.866" would look like an option to argparse: a leading space keeps
+    # it text (the decoder ignores the space).
+    argv = [" " + a if re.match(r"-\.?\d", a) else a for a in argv]
     args = build_parser().parse_args(argv)
     try:
         return args.run(args, stdin, stdout)

@@ -181,3 +181,12 @@ def test_verbs_are_one_function_pair_each():
     for name, (help_text, add_arguments, run) in cli.VERBS.items():
         assert callable(add_arguments) and callable(run) and help_text
         assert add_arguments.__name__ == f"add_{name}_arguments" and run.__name__ == f"run_{name}"
+
+
+def test_text_that_starts_with_a_minus_is_text_not_an_option():
+    result = framewright("decode", "-0.5,0,0,0.8660254", "--kind", "quaternion", "--scalar-first", "--json")
+    assert result.returncode == 0, result.stderr
+    # SciPy, w first
+    expected = Rotation.from_quat([-0.5, 0, 0, 0.8660254], scalar_first=True)
+    assert np.allclose(json.loads(result.stdout)["matrix"], expected.as_matrix(), atol=1e-12)
+    assert framewright("compare", "-30 20 10", "-30 20 10.1", "--tolerance", "1").returncode == 0
