@@ -134,36 +134,6 @@ def measure():
                             "edit -> on screen": screen, "edit -> 1280x800 readback": readback}, floor, floor_screen
 
 
-def _none_refcount_guard():
-    """PySide6 6.12.0 on Python 3.11 drops a reference to None on every call of a C++ method that returns
-    nothing; after a few tens of thousands of calls None is 'deallocated' and the interpreter aborts. If
-    this PySide6 does that, lend None a large reserve now and return a function that settles the account at
-    the end, so the benchmark (and `make bench` around it) finishes. Other versions: nothing is done."""
-    import ctypes
-
-    from PySide6 import QtCore
-
-    probe = QtCore.QObject()
-    before = sys.getrefcount(None)
-    for _ in range(100):
-        probe.blockSignals(False)  # returns bool: not affected; the setter below returns void
-        probe.setObjectName("probe")
-    if sys.getrefcount(None) >= before - 50:
-        return lambda: None
-    reserve = 10_000_000
-    refcount = ctypes.c_ssize_t.from_address(id(None))  # ob_refcnt, the first field of every object
-    refcount.value += reserve
-    start = sys.getrefcount(None)
-
-    def settle():
-        # The reserve stays lent: the interpreter's own shutdown calls more of those methods.
-        lost = start - sys.getrefcount(None)
-        print(f"  note: this PySide6 drops references to None ({lost} during the run); "
-              "recommend PySide6 != 6.12.0")
-
-    return settle
-
-
 def main():
     display = None
     if not os.environ.get("DISPLAY"):
@@ -172,7 +142,6 @@ def main():
         display = Display(visible=False, size=(1600, 1000), color_depth=24,
                           extra_args=["+extension", "GLX", "+render"])
         display.start()
-    settle = _none_refcount_guard()
     try:
         renderer, size, timings, floor, floor_screen = measure()
     finally:
@@ -194,7 +163,6 @@ def main():
     med, p95 = _stats(timings["edit -> frame"])
     verdict = "met" if p95 <= BUDGET_MS else "NOT met"
     print(f"  goal edit -> frame p95 <= {BUDGET_MS:.0f} ms: {verdict} ({p95:.2f} ms)")
-    settle()
 
 
 if __name__ == "__main__":
