@@ -562,7 +562,7 @@ def _keyed(parsed: ParsedNumbers) -> _Keyed | None:
             return _Keyed([by["x"], by["y"], by["z"]], "rotation-vector", units=unit,
                           note="read by their names as a rotation vector")
     if n == 9:
-        element = [re.fullmatch(r"[rmc]_?([0-3])([0-3])", k or "") for k in keys]
+        element = [re.fullmatch(r"(?:[rmc]|dcm)_?([0-3])([0-3])", k or "") for k in keys]
         if all(element):
             idx = [(int(e.group(1)), int(e.group(2))) for e in element]
             base = 0 if min(min(i) for i in idx) == 0 else 1
@@ -766,6 +766,10 @@ def _three_candidates(values, parsed, hints, clues, keyed):
     out = []
     fixed_units = keyed.units if keyed else None
     if keyed and keyed.kind == "angles":
+        if (hints.sequence and hints.sequence != keyed.sequence) or \
+                (hints.intrinsic is not None and hints.intrinsic != keyed.intrinsic):
+            raise DecodeError("the text names yaw, pitch and roll (intrinsic Z-Y'-X''), which the sequence"
+                              " options contradict; drop the options or the names")
         sequences = [(keyed.sequence, keyed.intrinsic, 1.0, keyed.note)]
     elif hints.sequence or clues.sequence:
         sequence = hints.sequence or clues.sequence

@@ -234,7 +234,8 @@ def csv_header(options=None) -> str:
     o = _options(options)
     u = _unit(o)
     names = {
-        "matrix": [f"{'c' if o.transposed else 'r'}{r}{c}" for r in (1, 2, 3) for c in (1, 2, 3)],
+        # dcm11…: the direction cosine matrix, reference -> body; r11…: body -> reference
+        "matrix": [f"{'dcm' if o.transposed else 'r'}{r}{c}" for r in (1, 2, 3) for c in (1, 2, 3)],
         "quaternion": ["qx", "qy", "qz", "qw"] if o.scalar_last else ["qw", "qx", "qy", "qz"],
         "axis-angle": ["axis_x", "axis_y", "axis_z", f"angle_{u}"],
         "rotation-vector": [f"rotvec_x_{u}", f"rotvec_y_{u}", f"rotvec_z_{u}"],

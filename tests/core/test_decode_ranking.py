@@ -186,3 +186,8 @@ def test_a_block_with_several_representations_reads_its_quaternion_line():
     best = decode(text)[0]
     assert best.kind == "quaternion" and best.conventions["order"] == "wxyz"
     assert any("read the quaternion on line 2" in note for note in best.notes)
+
+
+def test_named_angles_and_contradicting_sequence_options_are_refused():
+    with pytest.raises(DecodeError, match="contradict"):
+        decode("yaw: 10, pitch: 20, roll: 30", {"sequence": "XYZ"})

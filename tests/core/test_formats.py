@@ -164,3 +164,17 @@ def test_the_windows_preference_names_are_understood():
     assert "Caution: Our own caution." in render(o, "report", options)
     with pytest.raises(Exception, match="unknown format option"):
         render(o, "text", {"representation": "matrix", "colour": "red"})
+
+
+@pytest.mark.parametrize("fmt", FORMAT_NAMES)
+@pytest.mark.parametrize("rep", REPRESENTATIONS)
+@pytest.mark.parametrize("extra", [{}, {"scalar_last": True, "degrees": False, "sequence": "XYZ",
+                                        "intrinsic": False, "transposed": True}])
+def test_a_copy_pasted_back_without_hints_reads_first_as_what_was_copied(fmt, rep, extra):
+    # the words each format writes beside its numbers are the ones the decoder reads as clues
+    o = from_scipy(Rotation.from_rotvec([0.3, -2.1, 2.2]))
+    options = {"representation": rep, **extra}
+    text = render(o, fmt, options)
+    if fmt == "csv":
+        text = csv_header(options) + text
+    assert decode(text)[0].orientation.angle_to(o) < 1e-12
