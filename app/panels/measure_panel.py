@@ -1,0 +1,307 @@
+"""Measure panel: turn what the bench measured into an orientation — a best fit of point pairs, the body
+frame from three datum points (3-2-1), or two or more directions — and make it a Mount (undoable).
+
+A made Mount is what the Check panel uses as its measured side. The last fit (points, fitted points,
+residual vectors) goes out through ``fit_changed`` for a view that draws it; None when there is none.
+"""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+from PySide6.QtCore import Signal
+from PySide6.QtGui import QFontDatabase, QGuiApplication
+from PySide6.QtWidgets import (QComboBox, QFileDialog, QHBoxLayout, QLabel, QLineEdit, QPlainTextEdit,
+                               QPushButton, QStackedWidget, QVBoxLayout, QWidget)
+
+from app.model import MOUNTS, PREFERENCES, Change, SessionModel
+from app.panels.measure_fit import (DIRECTIONS, POINTS, THREE_POINTS, MeasuredFit, fit_direction_rows,
+                                    fit_point_rows, fit_three_points, result_lines, row_outputs)
+from app.panels.measure_rows import Column, RowsError, rows_from_csv
+from app.panels.measure_table import MeasureTable, TableInputError
+from core.errors import FramewrightError
+
+ERROR_STYLE = "color:#c62828"
+_DECIMAL = "'.' is the decimal point."
+
+
+def _coordinate_columns(title: str, what: str, keys: tuple) -> list[Column]:
+    return [Column(f"{title} {axis}", f"{what}, {axis} coordinate. {_DECIMAL}",
+                   tuple(f"{k}_{axis}" for k in keys) + tuple(f"{k}{axis}" for k in keys if len(k) == 1),
+                   "input") for axis in "xyz"]
+
+
+WEIGHT = Column("Weight", "How much this row counts in the fit: a number of 0 or more (blank = 1; 0 leaves the "
+                "row out). " + _DECIMAL, ("weight", "w"), "weight")
+
+POINT_COLUMNS = (
+    _coordinate_columns("Nominal", "Nominal point in the body frame (from the drawing), in the "
+                        "length unit chosen above", ("nominal", "nom", "n"))
+    + _coordinate_columns("Measured", "Measured point in the reference frame (arm, tracker), "
+                          "in the length unit chosen above", ("measured", "meas", "m"))
+    + [WEIGHT,
+       Column("Residual", "Distance from the measured point to the fitted nominal point (R · nominal + t), "
+              "in the length unit; filled by Fit.", kind="output"),
+       Column("Flag", "'flagged': this point's residual stands far above the others (look at it again); "
+              "'worst': the largest residual.", kind="output")])
+
+THREE_POINT_COLUMNS = [
+    Column(f"Measured {axis}", f"Measured datum point in the reference frame, {axis} coordinate, in the length "
+           f"unit chosen above. {_DECIMAL}", (axis, f"measured_{axis}", f"meas_{axis}", f"m{axis}"), "input")
+    for axis in "xyz"]
+THREE_POINT_ROWS = ["Origin", "On +X axis", "In XY plane (+Y side)"]
+
+DIRECTION_COLUMNS = (
+    _coordinate_columns("Body", "Direction in the body frame (e.g. the part's boresight axis, or "
+                        "'down' as the part sees it); any length, only the direction counts", ("body", "b"))
+    + _coordinate_columns("Measured", "The same direction measured in the reference frame "
+                          "(e.g. gravity from a level, a boresight from a sight); any length",
+                          ("measured", "reference", "ref", "m", "r"))
+    + [WEIGHT,
+       Column("Residual (°)", "Angle between the measured direction and the fitted body direction "
+              "(R · body), in degrees; filled by Fit.", kind="output")])
+
+METHODS = [
+    (POINTS, "Best fit from point pairs",
+     "Nominal points in the body frame (from the drawing) and the same points measured in the reference "
+     "frame. At least 3 pairs, not all on one line; 5 or more to flag a bad point."),
+    (THREE_POINTS, "Three datum points (3-2-1)",
+     "Three points measured in the reference frame: the body origin, a point on the body +X axis, and a "
+     "point in the body XY plane on the +Y side."),
+    (DIRECTIONS, "Two or more directions",
+     "Directions known in the body frame and measured in the reference frame (gravity from a level, a "
+     "boresight from a sight). Two: TRIAD, the first row matched exactly; more: least squares."),
+]
+
+
+class MeasurePanel(QWidget):
+    fit_changed = Signal(object)  # a MeasuredFit, or None when there is no valid fit
+
+    def __init__(self, model: SessionModel, parent=None):
+        super().__init__(parent)
+        self.model = model
+        self.last_fit: MeasuredFit | None = None
+
+        self.method = QComboBox()
+        for key, label, help_text in METHODS:
+            self.method.addItem(label, key)
+        self.method.setToolTip("How the orientation is found from the measurements.")
+        self.unit = QComboBox()
+        self.unit.addItems(["mm", "in", "m"])
+        self.unit.setToolTip("The length unit of every point (nominal and measured alike). It only labels "
+                             "the residuals: the orientation does not depend on it.")
+        self.help = QLabel()
+        self.help.setWordWrap(True)
+
+        self.tables = {POINTS: MeasureTable(POINT_COLUMNS, rows=6),
+                       THREE_POINTS: MeasureTable(THREE_POINT_COLUMNS, row_labels=THREE_POINT_ROWS),
+                       DIRECTIONS: MeasureTable(DIRECTION_COLUMNS, rows=2)}
+        self.stack = QStackedWidget()
+        for table in self.tables.values():
+            self.stack.addWidget(table)
+            table.inputs_edited.connect(self._inputs_edited)
+            table.problem.connect(self._show_problem)
+
+        self.add_button = QPushButton("Add row")
+        self.add_button.setToolTip("Add an empty row at the end of the table.")
+        self.remove_button = QPushButton("Remove rows")
+        self.remove_button.setToolTip("Remove the selected rows.")
+        self.paste_button = QPushButton("Paste rows")
+        self.paste_button.setToolTip("Paste rows copied from a spreadsheet (tab-, comma- or space-separated, "
+                                     "one row per line) at the current cell; Ctrl+V in the table does the same.")
+        self.import_button = QPushButton("Import CSV…")
+        self.import_button.setToolTip("Replace the table with the rows of a CSV file whose first row names "
+                                      "the columns (hover the column titles for the names accepted).")
+        self.clear_button = QPushButton("Clear")
+        self.clear_button.setToolTip("Empty every cell of this table.")
+        self.fit_button = QPushButton("Fit")
+        self.fit_button.setToolTip("Find the orientation from the rows of this table.")
+        self.fit_button.setDefault(True)
+
+        self.message = QLabel()
+        self.message.setWordWrap(True)
+        self.result_text = QPlainTextEdit()
+        self.result_text.setReadOnly(True)
+        self.result_text.setFont(QFontDatabase.systemFont(QFontDatabase.SystemFont.FixedFont))
+        self.result_text.setToolTip("The fitted orientation (body → reference), its quality figures and "
+                                    "notes. Angles in degrees.")
+        self.result_text.setMinimumHeight(self.fontMetrics().height() * 12)
+        self.mount_name = QLineEdit()
+        self.mount_name.setToolTip("Name of the new mount (blank: the suggested name).")
+        self.make_mount_button = QPushButton("Make mount")
+        self.make_mount_button.setToolTip("Add the fitted orientation to the session as a new mount "
+                                          "(undoable). The Check panel can use it as the measured side.")
+        self.make_mount_button.setEnabled(False)
+
+        layout = QVBoxLayout(self)
+        top = QHBoxLayout()
+        top.addWidget(QLabel("Method:"))
+        top.addWidget(self.method, 1)
+        top.addWidget(QLabel("Length unit:"))
+        top.addWidget(self.unit)
+        layout.addLayout(top)
+        layout.addWidget(self.help)
+        layout.addWidget(self.stack, 2)
+        buttons = QHBoxLayout()
+        for button in (self.add_button, self.remove_button, self.paste_button, self.import_button,
+                       self.clear_button):
+            buttons.addWidget(button)
+        buttons.addStretch(1)
+        buttons.addWidget(self.fit_button)
+        layout.addLayout(buttons)
+        layout.addWidget(self.message)
+        layout.addWidget(self.result_text, 1)
+        bottom = QHBoxLayout()
+        bottom.addWidget(QLabel("Mount name:"))
+        bottom.addWidget(self.mount_name, 1)
+        bottom.addWidget(self.make_mount_button)
+        layout.addLayout(bottom)
+
+        self.method.currentIndexChanged.connect(self._method_changed)
+        self.unit.currentIndexChanged.connect(self._inputs_edited)
+        self.add_button.clicked.connect(lambda: self.current_table().add_rows(1))
+        self.remove_button.clicked.connect(lambda: self.current_table().remove_selected_rows())
+        self.paste_button.clicked.connect(self.paste_rows)
+        self.import_button.clicked.connect(lambda: self.import_csv())
+        self.clear_button.clicked.connect(lambda: self.current_table().clear_inputs())
+        self.fit_button.clicked.connect(self.fit)
+        self.make_mount_button.clicked.connect(self.make_mount)
+        self.model.changed.connect(self._model_changed)
+        self._method_changed()
+        self._suggest_name()
+
+    # ---- reading the panel ------------------------------------------------------------------------
+    def current_method(self) -> str:
+        return self.method.currentData()
+
+    def current_table(self) -> MeasureTable:
+        return self.tables[self.current_method()]
+
+    def set_method(self, method: str) -> None:
+        self.method.setCurrentIndex(self.method.findData(method))
+
+    # ---- actions ----------------------------------------------------------------------------------
+    def paste_rows(self) -> None:
+        table = self.current_table()
+        try:
+            rows = table.paste_text(QGuiApplication.clipboard().text())
+        except RowsError as exc:
+            self._show_problem(f"Paste refused, the table is unchanged: {exc}")
+            return
+        self._show_info(f"Pasted {len(rows.values)} row(s)." + "".join(f" {n}." for n in rows.notes[:3]))
+
+    def import_csv(self, path: str | None = None) -> None:
+        if path is None:
+            path, _ = QFileDialog.getOpenFileName(self, "Import rows", "", "CSV files (*.csv *.txt);;All files (*)")
+            if not path:
+                return
+        table = self.current_table()
+        try:
+            text = Path(path).read_text(encoding="utf-8-sig")
+            rows = rows_from_csv(text, [table.columns[c] for c in table.inputs])
+            table.replace_all(rows)
+        except (OSError, UnicodeDecodeError) as exc:
+            self._show_problem(f"Cannot read {Path(path).name}: {exc}")
+            return
+        except RowsError as exc:
+            self._show_problem(f"{Path(path).name} refused, the table is unchanged: {exc}")
+            return
+        self._show_info(f"Imported {len(rows.values)} row(s) from {Path(path).name}."
+                        + "".join(f" {n}." for n in rows.notes))
+
+    def fit(self) -> None:
+        """Fit the current table; a refusal says why and leaves every typed cell as it was."""
+        method, table, unit = self.current_method(), self.current_table(), self.unit.currentText()
+        table.clear_outputs()
+        try:
+            values, weights, rows = table.values()
+            if method == POINTS:
+                result = fit_point_rows(values, weights, rows, unit)
+            elif method == THREE_POINTS:
+                if len(rows) != 3:
+                    raise TableInputError(f"{3 - len(rows)} of the three datum points are blank; expected all "
+                                          f"three", 0, 0)
+                result = fit_three_points(values, rows, unit)
+            else:
+                result = fit_direction_rows(values, weights, rows)
+        except TableInputError as exc:
+            self._refuse(f"Not fitted: {exc}.")
+            return
+        except FramewrightError as exc:
+            self._refuse(f"Not fitted: {exc}.")
+            return
+        self.last_fit = result
+        texts, marked = row_outputs(result)
+        table.show_outputs(list(result.rows), texts, marked)
+        self._render_result()
+        flagged = len(result.flagged)
+        self._show_info("Fitted." + (f" {flagged} row(s) flagged: look at them again." if flagged else ""))
+        self.make_mount_button.setEnabled(True)
+        self.fit_changed.emit(result)
+
+    def make_mount(self) -> None:
+        if self.last_fit is None:
+            return
+        name = self.mount_name.text().strip() or self.mount_name.placeholderText()
+        self.model.add_mount(self.model.unused_name(name), self.last_fit.orientation, origin=self)
+        self._show_info(f"Mount “{self.model.mounts[-1].name}” made from the fit (Undo takes it back).")
+        self.mount_name.clear()
+
+    # ---- rendering --------------------------------------------------------------------------------
+    def _render_result(self) -> None:
+        if self.last_fit is None:
+            self.result_text.setPlainText("")
+            return
+        prefs = self.model.preferences
+        self.result_text.setPlainText("\n".join(result_lines(self.last_fit, prefs.significant_digits,
+                                                             prefs.sequence, prefs.intrinsic)))
+
+    def _refuse(self, text: str) -> None:
+        self._forget_fit()
+        self._show_problem(text)
+
+    def _forget_fit(self) -> None:
+        had_fit = self.last_fit is not None
+        self.last_fit = None
+        self.result_text.setPlainText("")
+        self.make_mount_button.setEnabled(False)
+        if had_fit:
+            self.fit_changed.emit(None)
+
+    def _show_problem(self, text: str) -> None:
+        self.message.setText(f"<span style='{ERROR_STYLE}'>{_escape(text)}</span>")
+
+    def _show_info(self, text: str) -> None:
+        self.message.setText(_escape(text))
+
+    def _inputs_edited(self, *_):
+        if self.last_fit is not None:
+            self.current_table().clear_outputs()
+            self._forget_fit()
+            self._show_info("The rows changed since the last fit: press Fit again.")
+
+    def _method_changed(self, *_):
+        key = self.current_method()
+        self.stack.setCurrentWidget(self.tables[key])
+        self.help.setText(next(h for k, _, h in METHODS if k == key))
+        fixed = self.tables[key].fixed_rows
+        self.add_button.setEnabled(not fixed)
+        self.remove_button.setEnabled(not fixed)
+        self.unit.setEnabled(key != DIRECTIONS)
+        for table in self.tables.values():
+            table.clear_outputs()
+        self._forget_fit()
+        self.message.setText("")
+
+    def _suggest_name(self) -> None:
+        self.mount_name.setPlaceholderText(self.model.unused_name("Measured"))
+
+    def _model_changed(self, change: Change) -> None:
+        if change.touches(MOUNTS):
+            self._suggest_name()
+        if change.touches(PREFERENCES):
+            self._render_result()
+
+
+def _escape(text: str) -> str:
+    return text.replace("&", "&amp;").replace("<", "&lt;").replace(">", "&gt;")
