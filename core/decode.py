@@ -100,6 +100,7 @@ class ParsedNumbers:
     captions: tuple[tuple[int, str], ...] = ()   # (line, text before its first number) per data line
     headers: tuple[tuple[int, str], ...] = ()    # (data line, the numberless line just above it): CSV headers
     decimal_commas: bool = False                 # '0,7071' seen: maybe decimal commas (read as separators)
+    line_words: tuple[tuple[int, str], ...] = ()  # (data line, its text with the numbers blanked out)
 
     @property
     def values(self) -> np.ndarray:
@@ -184,6 +185,7 @@ def parse_numbers(text: str) -> ParsedNumbers:
     words: list[str] = [comment_words]
     captions: list[tuple[int, str]] = []
     headers: list[tuple[int, str]] = []
+    line_words: list[tuple[int, str]] = []
     row = 0
     skipped_titles = 0
     previous_text = None
@@ -257,6 +259,7 @@ def parse_numbers(text: str) -> ParsedNumbers:
         words.append(rest.lower())
         if found_here:
             captions.append((line_no, line[:found_here[0].column - 1].strip().lower()))
+            line_words.append((line_no, rest.strip()))
             odd = [w for w in _WORD_WITH_DIGIT.findall(rest) if w.strip("'\"^°+-*x×·")]
             if odd:
                 notes.add(f"line {line_no}: ignored {', '.join(repr(w) for w in odd[:3])} (not a number)")
@@ -273,7 +276,7 @@ def parse_numbers(text: str) -> ParsedNumbers:
     if skipped_titles > 3:
         notes.add(f"{skipped_titles - 3} more lines without numbers were ignored")
     return ParsedNumbers(tuple(numbers), tuple(notes), " ".join(words), tuple(captions), tuple(headers),
-                         bool(re.search(r"\d,\d", clean)))
+                         bool(re.search(r"\d,\d", clean)), tuple(line_words))
 
 
 def _shorten(text: str, width: int = 40) -> str:
@@ -742,7 +745,7 @@ def _four_candidates(values, parsed, hints, clues, keyed):
             if abs(axis_length - 1.0) < 1e-3:
                 c.plus(1.0, "the first three numbers have unit length, as an axis has")
             else:
-                c.plus(-1.5, f"the axis has length {axis_length:.6g}, not 1")
+                c.plus(-1.5 if 0.5 < axis_length < 2 else -2.5, f"the axis has length {axis_length:.6g}, not 1")
             if abs(angle) > 1.0 + 1e-9:
                 c.plus(2.5, f"the last number ({angle:g}) is beyond ±1: an angle, not a quaternion part")
             elif unit_like:
@@ -839,8 +842,32 @@ def decode(text: str, hints=None) -> list[Reading]:
 
 
 def readings_from_numbers(parsed: ParsedNumbers, hints=None) -> list[Reading]:
-    """The readings of numbers already found (see decode)."""
+    """The readings of numbers already found (see decode). A first or last line that looks like a title
+    holding a number ('Mount 7 rotation:') is also tried without it, and both sets are ranked together."""
     hints = DecodeHints.coerce(hints)
+    untitled = _without_title_line(parsed)
+    from dataclasses import replace
+    try:
+        readings = _readings(parsed, hints)
+    except DecodeError:
+        if untitled is None:
+            raise
+        readings = _readings(untitled, hints)
+    else:
+        if untitled is not None:
+            try:
+                others = _readings(untitled, hints)
+            except DecodeError:
+                others = []
+            others = [replace(r, score=round(r.score - 0.5, 6), why=f"{r.why}; reads the text without its title"
+                              " line") for r in others]
+            readings = sorted(readings + others, key=lambda r: -r.score)
+    if len(readings) == 1:
+        readings = [replace(readings[0], why=f"the only reading: {readings[0].why}")]
+    return readings
+
+
+def _readings(parsed: ParsedNumbers, hints: DecodeHints) -> list[Reading]:
     clues = _read_clues(parsed)
     notes = list(parsed.notes) + clues.notes
     keyed = _keyed(parsed)
@@ -891,9 +918,7 @@ def readings_from_numbers(parsed: ParsedNumbers, hints=None) -> list[Reading]:
     readings.sort(key=lambda r: -r[0].score)
     out = []
     for rank, (c, orientation, reading_notes) in enumerate(readings, start=1):
-        why = "; ".join(c.reasons) if c.reasons else "the only reading"
-        if len(readings) == 1:
-            why = "the only reading" + (f": {why}" if c.reasons else "")
+        why = "; ".join(c.reasons) if c.reasons else "no other clue"
         out.append(Reading(kind=c.kind, conventions=dict(c.conventions), orientation=orientation,
                            notes=tuple(dict.fromkeys(reading_notes)), why=why, score=round(c.score, 6),
                            label=c.label, numbers=tuple(float(x) for x in values),
@@ -927,6 +952,38 @@ def _count_message(parsed: ParsedNumbers, hints: DecodeHints) -> str:
     if parsed.decimal_commas:
         message += " (commas are read as separators: if they are decimal commas, write decimal points)"
     return message
+
+
+_DATA_WORDS = re.compile(r"(?<![a-z])(?:deg\w*|rad\w*|yaw|pitch|roll|heading|bank|axis|angle|rotvec|scalar|"
+                         r"array|matrix|quaternion)(?![a-z])")
+
+
+def _without_title_line(parsed: ParsedNumbers) -> ParsedNumbers | None:
+    """'Mount 7 rotation:' above a 3x3 block makes ten numbers. When exactly one first or last line holds
+    one or two numbers among words, and without it the count is one we read, set it aside (with a note)."""
+    if not parsed.line_words:
+        return None
+    per_line: dict[int, int] = {}
+    for n in parsed.numbers:
+        per_line[n.line] = per_line.get(n.line, 0) + 1
+    ends = {parsed.line_words[0], parsed.line_words[-1]}
+    candidates = []
+    for line, text in ends:
+        words = re.findall(r"[a-z]{3,}", _DATA_WORDS.sub(" ", text.lower()))
+        if words and per_line[line] <= 2 and len(parsed.numbers) - per_line[line] in _COUNT_KINDS:
+            candidates.append((line, text))
+    if len(candidates) != 1 or len(per_line) < 2:
+        return None
+    line, text = candidates[0]
+    from dataclasses import replace
+    dropped = [n.text for n in parsed.numbers if n.line == line]
+    text = " ".join(text.split())
+    note = (f"line {line} ('{_shorten(text)}') was taken for a title: its {'numbers' if len(dropped) > 1 else 'number'}"
+            f" {', '.join(dropped)} {'were' if len(dropped) > 1 else 'was'} not read")
+    return replace(parsed, numbers=tuple(n for n in parsed.numbers if n.line != line),
+                   notes=parsed.notes + (note,),
+                   captions=tuple(c for c in parsed.captions if c[0] != line),
+                   line_words=tuple(w for w in parsed.line_words if w[0] != line))
 
 
 def _labelled_quaternion_line(parsed: ParsedNumbers):

@@ -191,3 +191,20 @@ def test_a_block_with_several_representations_reads_its_quaternion_line():
 def test_named_angles_and_contradicting_sequence_options_are_refused():
     with pytest.raises(DecodeError, match="contradict"):
         decode("yaw: 10, pitch: 20, roll: 30", {"sequence": "XYZ"})
+
+
+def test_a_title_line_holding_a_number_is_set_aside_with_a_note():
+    best = decode("Mount 7 rotation:\n0 -1 0\n1 0 0\n0 0 1")[0]
+    assert best.kind == "matrix"
+    assert any("title" in note and "7" in note for note in best.notes)
+    # 90° about z (common practice), SciPy from_rotvec
+    assert np.allclose(best.orientation.as_matrix(), Rotation.from_rotvec([0, 0, np.pi / 2]).as_matrix(), atol=1e-12)
+
+
+def test_a_title_that_makes_a_valid_count_is_ranked_against_the_text_without_it():
+    readings = decode("Drawing 4711 rev B\nyaw 30 pitch 20 roll 10")
+    assert readings[0].kind == "angles" and "title" in readings[0].why
+    # SciPy, intrinsic ZYX
+    assert np.allclose(readings[0].orientation.as_matrix(),
+                       Rotation.from_euler("ZYX", [30, 20, 10], degrees=True).as_matrix(), atol=1e-12)
+    assert any(r.kind == "axis-angle" for r in readings)     # the reading with 4711 is still offered
