@@ -350,6 +350,9 @@ class DecodeHints:
                 sequence = parse_sequence(sequence)
             except FramewrightError as error:
                 raise DecodeError(f"sequence hint: {error}") from None
+        for name in ("intrinsic", "transposed"):
+            if getattr(self, name) not in (None, True, False):
+                raise DecodeError(f"the {name} hint must be true, false or not given; got {getattr(self, name)!r}")
         return DecodeHints(kind, sequence, self.intrinsic, order, units, self.transposed)
 
 

@@ -163,6 +163,10 @@ def test_unknown_hints_are_refused():
         decode("1 0 0 0", {"kind": "spinor"})
     with pytest.raises(DecodeError):
         decode("1 2 3", {"sequence": "XXY"})
+    with pytest.raises(DecodeError):
+        decode("1 2 3", {"intrinsic": "yes"})
+    with pytest.raises(DecodeError):
+        decode("1 2 3", {"colour": "red"})
 
 
 def test_mixed_unit_marks_are_refused():
