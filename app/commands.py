@@ -6,6 +6,8 @@ from __future__ import annotations
 from PySide6.QtGui import QUndoCommand
 
 SET_ORIENTATION_ID = 1001
+# A run that ends this close to where it started (radians) has returned to its start.
+RETURNED_TO_START_RAD = 1e-13
 
 
 class SetOrientationCommand(QUndoCommand):
@@ -33,6 +35,11 @@ class SetOrientationCommand(QUndoCommand):
             return False
         self.new = other.new
         if self.new == self.old:
+            self.setObsolete(True)
+        elif self.new.isclose(self.old, atol=RETURNED_TO_START_RAD):
+            # Back where the run began but for the last digit of rounding: restore the start exactly,
+            # so the step disappears and nothing is left slightly off.
+            self._model._apply_orientation(self.index, self.old, None)
             self.setObsolete(True)
         return True
 

@@ -55,6 +55,8 @@ class MainWindow(QMainWindow):
     def __init__(self, model: SessionModel, parent=None):
         super().__init__(parent)
         self.model = model
+        if model.parent() is None:
+            model.setParent(self)  # lives and dies with the window
         self.setWindowTitle("Framewright")
         self._settings = settings.open_settings()
         self.last_copy_format = settings.load_text("copy/last_format", "json", self._settings)
@@ -112,7 +114,7 @@ class MainWindow(QMainWindow):
         self.statusBar().showMessage("Ready. Safety: verify against the governing drawing and procedure.")
 
         model.changed.connect(self._on_model_changed)
-        model.undo_stack.cleanChanged.connect(lambda _: self._update_title())
+        model.undo_stack.cleanChanged.connect(self._update_title)
         QApplication.instance().focusChanged.connect(self._track_editor)
         self._update_title()
 
@@ -173,8 +175,8 @@ class MainWindow(QMainWindow):
         self.redo_action = self._action("&Redo", self.model.redo, keys.Redo)
         self.model.undo_stack.canUndoChanged.connect(self.undo_action.setEnabled)
         self.model.undo_stack.canRedoChanged.connect(self.redo_action.setEnabled)
-        self.model.undo_stack.undoTextChanged.connect(lambda t: self.undo_action.setText(f"&Undo {t}".strip()))
-        self.model.undo_stack.redoTextChanged.connect(lambda t: self.redo_action.setText(f"&Redo {t}".strip()))
+        self.model.undo_stack.undoTextChanged.connect(self._show_undo_text)
+        self.model.undo_stack.redoTextChanged.connect(self._show_redo_text)
         self.undo_action.setEnabled(False)
         self.redo_action.setEnabled(False)
         self.copy_action = self._action("&Copy", self.copy_default, keys.Copy,
@@ -204,6 +206,12 @@ class MainWindow(QMainWindow):
         self.about_action = self._action("&About Framewright", lambda: about.show_about(self))
         help_menu.addAction(self.about_action)
 
+    def _show_undo_text(self, text: str) -> None:
+        self.undo_action.setText(f"&Undo {text}".strip())
+
+    def _show_redo_text(self, text: str) -> None:
+        self.redo_action.setText(f"&Redo {text}".strip())
+
     # ---- model -> window -----------------------------------------------------------------------
     def _on_model_changed(self, change: Change) -> None:
         if change.touches(PREFERENCES):
@@ -218,7 +226,7 @@ class MainWindow(QMainWindow):
         self.digits_box.setValue(prefs.significant_digits)
         self.digits_box.blockSignals(False)
 
-    def _update_title(self) -> None:
+    def _update_title(self, *_) -> None:
         name = Path(self.model.file_path).name if self.model.file_path else "demo session"
         dirty = "" if self.model.undo_stack.isClean() else " (changed)"
         self.setWindowTitle(f"Framewright — {name}{dirty}")

@@ -157,5 +157,7 @@ class AnglesEditor(EditorBase):
             self.push(o, f"step-{self.fields.index(field)}")
 
     def _on_committed(self) -> None:
+        if not self._editing:  # Enter in a spin box reports itself twice
+            return
         if self._read() is not None:
             self.finish_editing()

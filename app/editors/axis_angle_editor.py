@@ -149,6 +149,8 @@ class AxisAngleEditor(EditorBase):
                 self._set_slider(o.angle)
 
     def _on_committed(self) -> None:
+        if not self._editing:  # Enter in a spin box reports itself twice
+            return
         if self._orientation_from_fields() is not None:
             self.finish_editing()
 

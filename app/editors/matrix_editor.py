@@ -159,6 +159,8 @@ class MatrixEditor(EditorBase):
             self.push(o, "typing")
 
     def _on_committed(self) -> None:
+        if not self._editing:  # Enter in a spin box reports itself twice
+            return
         if self._read() is not None:
             note = self.note.text()
             self.finish_editing()

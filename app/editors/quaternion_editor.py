@@ -109,6 +109,8 @@ class QuaternionEditor(EditorBase):
             self.push(o, f"step-{self.fields.index(field)}")
 
     def _on_committed(self) -> None:
+        if not self._editing:  # Enter in a spin box reports itself twice
+            return
         _, o = self._read()
         if o is not None:
             self.finish_editing()

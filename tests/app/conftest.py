@@ -30,8 +30,9 @@ def model(demo_session):
 @pytest.fixture
 def window(qtbot, isolated_settings):
     win = window_module.make_window()
-    qtbot.addWidget(win)
     win.show()
     qtbot.waitExposed(win)
     yield win
     win.model.undo_stack.setClean()  # no "save changes?" question when the test closes it
+    win.close()
+    win.deleteLater()
