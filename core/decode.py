@@ -197,6 +197,7 @@ def parse_numbers(text: str) -> ParsedNumbers:
             start = max(0, expression.start() - 6)
             raise DecodeError(f"line {line_no} holds an expression ('{line[start:expression.end() + 6].strip()}');"
                               " Framewright reads plain numbers only: paste decimal values")
+        _refuse_empty_cells(line, line_no)
         keys = [(m.end(), m.group("key").lower()) for m in _KEY.finditer(line)]
         next_key = 0
         label = None
@@ -277,6 +278,18 @@ def parse_numbers(text: str) -> ParsedNumbers:
         notes.add(f"{skipped_titles - 3} more lines without numbers were ignored")
     return ParsedNumbers(tuple(numbers), tuple(notes), " ".join(words), tuple(captions), tuple(headers),
                          bool(re.search(r"\d,\d", clean)), tuple(line_words))
+
+
+_EMPTY_CELL = re.compile(r"\d[^\d\n]*?(,[ ]*,|;[ ]*;|\|[ ]*\|)(?=[^\d\n]*?\d)")
+
+
+def _refuse_empty_cells(line: str, line_no: int) -> None:
+    """'0.7071, , 0' or '| 1 | | 0 |': a number is missing between two others; reading on would shift
+    every later number into the wrong place."""
+    m = _EMPTY_CELL.search(line)
+    if m:
+        raise DecodeError(f"line {line_no}, column {m.start(1) + 1}: an empty place between numbers"
+                          f" ('{m.group(1)}'): a number seems to be missing")
 
 
 def _shorten(text: str, width: int = 40) -> str:
@@ -907,6 +920,10 @@ def _readings(parsed: ParsedNumbers, hints: DecodeHints) -> list[Reading]:
                       c.conventions["matrix"] == ("reference-to-body" if hints.transposed else "body-to-reference")]
     readings, failures = [], []
     for c in candidates:
+        implausible = _implausible_angle(c, values)
+        if implausible:
+            failures.append(implausible)
+            continue
         try:
             orientation = c.make()
         except FramewrightError as error:
@@ -927,6 +944,22 @@ def _readings(parsed: ParsedNumbers, hints: DecodeHints) -> list[Reading]:
                            label=c.label, numbers=tuple(float(x) for x in values),
                            orthogonality_error=c.orthogonality_error))
     return out
+
+
+_MAX_TURNS_DEG = 3600.0     # ten turns: an angle beyond this is a typo (a lost decimal point), not a mount
+
+
+def _implausible_angle(c: _Candidate, values) -> str | None:
+    units = c.conventions.get("units")
+    if units is None:
+        return None
+    angles = {"axis-angle": values[3:], "rotation-vector": [float(np.linalg.norm(values))]}.get(c.kind, values)
+    worst = max(abs(float(a)) for a in angles)
+    worst_deg = worst if units == "deg" else math.degrees(worst)
+    if worst_deg > _MAX_TURNS_DEG:
+        return (f"{c.label}: an angle of {worst:.6g} {'degrees' if units == 'deg' else 'radians'} is more than"
+                " ten turns (a lost decimal point?)")
+    return None
 
 
 def _gimbal_notes(orientation, c: _Candidate) -> list[str]:

@@ -212,3 +212,19 @@ def test_a_title_that_makes_a_valid_count_is_ranked_against_the_text_without_it(
     assert np.allclose(readings[0].orientation.as_matrix(),
                        Rotation.from_euler("ZYX", [30, 20, 10], degrees=True).as_matrix(), atol=1e-12)
     assert any(r.kind == "axis-angle" for r in readings)     # the reading with 4711 is still offered
+
+
+@pytest.mark.parametrize("text", ["q = [0.7071068, 0.7071068, , 0]", "1;0;;0", "| 1 | | 0 | 0 |"])
+def test_an_empty_place_between_numbers_is_refused(text):
+    with pytest.raises(DecodeError, match="missing"):
+        decode(text)
+
+
+def test_an_angle_of_more_than_ten_turns_is_refused():
+    # '07071068' is '0.7071068' with its point lost; 7 million degrees is no mounting angle
+    with pytest.raises(DecodeError, match="ten turns"):
+        decode("07071068 0.7071068 0")
+    # a few turns still decode (SciPy from_euler wraps them the same way)
+    best = decode("yaw: 725, pitch: 0, roll: 0")[0]
+    assert np.allclose(best.orientation.as_matrix(), Rotation.from_euler("ZYX", [725, 0, 0], degrees=True).as_matrix(),
+                       atol=1e-12)
