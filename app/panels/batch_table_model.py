@@ -167,8 +167,9 @@ class BatchFilterProxy(QSortFilterProxyModel):
 
     def set_only_failed(self, on: bool) -> None:
         if on != self.only_failed:
+            self.beginFilterChange()   # Qt 6.10: begin/endFilterChange replace invalidate*Filter
             self.only_failed = on
-            self.invalidateRowsFilter()
+            self.endFilterChange(QSortFilterProxyModel.Direction.Rows)
 
     def filterAcceptsRow(self, source_row, source_parent):
         return not self.only_failed or not self.sourceModel().passed_at(source_row)
