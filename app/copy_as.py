@@ -10,7 +10,6 @@ from datetime import datetime
 from PySide6.QtCore import QMimeData
 from PySide6.QtGui import QGuiApplication
 
-from app.about import CAUTION
 
 FORMATS = {
     "text": "Plain text (editor in use)",
@@ -52,7 +51,6 @@ def _options(model, editor) -> dict:
         "sequence": prefs.sequence,
         "intrinsic": prefs.intrinsic,
         "name": model.current_mount().name,
-        "caution": CAUTION,
         "timestamp": datetime.now().astimezone().isoformat(timespec="seconds"),
     }
 

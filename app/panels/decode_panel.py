@@ -68,7 +68,8 @@ class DecodePanel(QWidget):
         self.read_button.clicked.connect(self.read)
         self.paste_button.clicked.connect(self.paste_from_clipboard)
         self.apply_button.clicked.connect(self.apply_selected)
-        self.list.itemActivated.connect(lambda *_: self.apply_selected())
+        self.list.itemActivated.connect(lambda *_: self.apply_selected())  # Enter
+        self.list.itemDoubleClicked.connect(lambda *_: self.apply_selected())
         self.list.currentItemChanged.connect(lambda *_: self.apply_button.setEnabled(self.list.currentItem() is not None))
 
     def paste_from_clipboard(self) -> None:
