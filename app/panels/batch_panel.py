@@ -76,7 +76,7 @@ class BatchPanel(QWidget):
         self.view.setSortingEnabled(True)
         self.view.horizontalHeader().setSortIndicatorShown(True)
         self.view.horizontalHeader().setSectionResizeMode(QHeaderView.ResizeMode.Interactive)
-        self.view.horizontalHeader().setStretchLastSection(True)
+        self.view.horizontalHeader().setStretchLastSection(False)
         self.view.verticalHeader().setDefaultSectionSize(self.fontMetrics().height() + 6)
         self.view.setSelectionBehavior(QAbstractItemView.SelectionBehavior.SelectRows)
         self.view.setToolTip("One row per mount; out-of-tolerance rows are flagged. Click a column title "
@@ -174,17 +174,17 @@ class BatchPanel(QWidget):
             finally:
                 self._end_progress()
         except BatchCancelledError:
-            self._problem(f"Reading {name} was cancelled. Nothing changed.")
+            self._problem(f"Reading “{name}” was cancelled. Nothing changed.")
             return False
         except BatchFileError as exc:
             where = ", ".join(part for part in (f"row {exc.row}" if exc.row else "",
                                                 f"column {exc.column}" if exc.column else "") if part)
             hint = (" Choose them with Conventions… (the file is read again)."
                     if "need a sequence" in str(exc) else "")
-            self._problem(f"{name} refused{' at ' + where if where else ''}. Nothing changed.\n{exc}{hint}")
+            self._problem(f"“{name}” refused{' at ' + where if where else ''}. Nothing changed.\n{exc}{hint}")
             return False
         except FramewrightError as exc:
-            self._problem(f"{name} refused. Nothing changed.\n{exc}")
+            self._problem(f"“{name}” refused. Nothing changed.\n{exc}")
             return False
         self.table, self.file_path = table, path
         self.file_label.setText(f"{name}: {len(table.names)} mounts. "
@@ -232,6 +232,9 @@ class BatchPanel(QWidget):
             f"{failed} out of tolerance. Largest deviation {result.total_deg[worst]:.4f}° "
             f"({result.names[worst]}, row {worst + 1}).")
         self.view.resizeColumnsToContents()
+        header = self.view.horizontalHeader()
+        for column in range(header.count()):   # room for the sort arrow beside each title
+            header.resizeSection(column, max(header.sectionSize(column), header.sectionSizeHint(column) + 16))
         self.results_changed.emit(result)
 
     def _problem(self, text: str) -> None:

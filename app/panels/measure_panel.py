@@ -125,7 +125,7 @@ class MeasurePanel(QWidget):
         self.result_text.setFont(QFontDatabase.systemFont(QFontDatabase.SystemFont.FixedFont))
         self.result_text.setToolTip("The fitted orientation (body → reference), its quality figures and "
                                     "notes. Angles in degrees.")
-        self.result_text.setMinimumHeight(self.fontMetrics().height() * 12)
+        self.result_text.setMinimumHeight(self.fontMetrics().height() * 15)
         self.mount_name = QLineEdit()
         self.mount_name.setToolTip("Name of the new mount (blank: the suggested name).")
         self.make_mount_button = QPushButton("Make mount")
@@ -141,7 +141,7 @@ class MeasurePanel(QWidget):
         top.addWidget(self.unit)
         layout.addLayout(top)
         layout.addWidget(self.help)
-        layout.addWidget(self.stack, 2)
+        layout.addWidget(self.stack, 1)
         buttons = QHBoxLayout()
         for button in (self.add_button, self.remove_button, self.paste_button, self.import_button,
                        self.clear_button):

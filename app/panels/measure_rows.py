@@ -39,10 +39,12 @@ class Column:
 
 @dataclass(frozen=True)
 class Rows:
-    """Rows of numbers (None where a line gave no number for a column), with notes on what was set aside."""
+    """Rows of numbers (None where a line gave no number for a column), with notes on what was set aside;
+    texts: the numbers as written (after character clean-up), when they read back to the same value."""
 
     values: tuple
     notes: tuple = ()
+    texts: tuple | None = None
 
 
 _DECIMAL_COMMA = re.compile(r"\d,\d")
@@ -63,15 +65,29 @@ def rows_from_paste(text: str, width: int) -> Rows:
     except FramewrightError as exc:
         raise RowsError(str(exc)) from None
     by_line: dict[int, list[float]] = {}
+    texts: dict[int, list[str]] = {}
     for number in parsed.numbers:
         by_line.setdefault(number.line, []).append(number.value)
+        texts.setdefault(number.line, []).append(_as_written(number.text, number.value))
     if not by_line:
         raise RowsError("the pasted text holds no numbers; expected one row of numbers per line")
     for line_no, values in by_line.items():
         if len(values) > width:
             raise RowsError(f"line {line_no} has {len(values)} numbers; expected at most {width} here "
                             f"(one per column from the paste point on)")
-    return Rows(tuple(tuple(v) for _, v in sorted(by_line.items())), tuple(parsed.notes))
+    return Rows(tuple(tuple(v) for _, v in sorted(by_line.items())), tuple(parsed.notes),
+                tuple(tuple(t) for _, t in sorted(texts.items())))
+
+
+def _as_written(text: str, value: float) -> str:
+    """The number as the sheet wrote it ('0.000', '-1.5'), or its exact value when that text would not read
+    back the same in a cell (a unit mark, an exponent written as ×10^)."""
+    try:
+        if parse_number(text) == value:
+            return text
+    except ValueError:
+        pass
+    return repr(float(value))
 
 
 def header_key(cell: str) -> str:

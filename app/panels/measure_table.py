@@ -107,7 +107,12 @@ class MeasureTable(QTableWidget):
             for offset, values in enumerate(rows.values):
                 for k, value in enumerate(values):
                     item = self.item(start_row + offset, self.inputs[start_input + k])
-                    item.setText("" if value is None else repr(float(value)))
+                    if value is None:
+                        item.setText("")
+                    elif rows.texts is not None:
+                        item.setText(rows.texts[offset][k])
+                    else:
+                        item.setText(repr(float(value)))
                     item.setBackground(QBrush())
         finally:
             self._filling = False

@@ -138,7 +138,7 @@ def test_a_malformed_file_names_row_and_column_and_changes_nothing(qtbot, panel,
     bad.write_text("\n".join(lines) + "\n", encoding="utf-8")
     open_through_button(qtbot, panel, monkeypatch, bad)
     message = panel.message.text()
-    assert "typo.csv refused at row 5, column measured_pitch" in message
+    assert "“typo.csv” refused at row 5, column measured_pitch" in message
     assert "'12.5.3' is not a number" in message and "Nothing changed" in message
     assert panel.result is shown_before and panel.file_label.text() == label_before
     assert panel.proxy.rowCount() == ROWS
