@@ -1,0 +1,129 @@
+"""Window benchmark: one edit -> every editor and the gimbal margin meter re-rendered, and start-up time to
+the window first shown. Goals from the issue: p95 <= 5 ms per edit, start-up <= 1.5 s.
+
+The reference in the same run: SciPy's Rotation computing the same representations the editors show
+(matrix, quaternion, rotation vector, Euler angles) for the same orientations, printed as a ratio."""
+
+from __future__ import annotations
+
+import os
+import statistics
+import subprocess
+import sys
+import tempfile
+import time
+from pathlib import Path
+
+import numpy as np
+
+ROOT = Path(__file__).resolve().parents[2]
+EDITS = 500
+
+# Run in a fresh interpreter: the time from process start to the window's first paint on screen.
+_STARTUP_SCRIPT = r"""
+import time
+t0 = time.perf_counter()
+import sys, tempfile
+from PySide6.QtCore import QEvent, QObject, QSettings, QTimer
+from PySide6.QtWidgets import QApplication
+app = QApplication(sys.argv)
+QSettings.setPath(QSettings.Format.IniFormat, QSettings.Scope.UserScope, tempfile.mkdtemp())
+from app.window import make_window
+window = make_window()
+
+class FirstPaint(QObject):
+    def eventFilter(self, obj, event):
+        if event.type() == QEvent.Type.Paint:
+            print(f"{time.perf_counter() - t0:.4f}", flush=True)
+            QTimer.singleShot(0, app.quit)
+            obj.removeEventFilter(self)
+        return False
+
+watcher = FirstPaint()
+window.installEventFilter(watcher)
+window.show()
+app.exec()
+window.model.undo_stack.setClean()
+"""
+
+
+def _percentile(values, q):
+    return float(np.percentile(np.asarray(values), q))
+
+
+def startup_seconds(runs: int = 3) -> list[float]:
+    env = dict(os.environ, PYTHONPATH=str(ROOT))
+    out = []
+    for _ in range(runs):
+        start = time.perf_counter()
+        result = subprocess.run([sys.executable, "-c", _STARTUP_SCRIPT], capture_output=True, text=True,
+                                cwd=ROOT, env=env, timeout=60)
+        wall = time.perf_counter() - start
+        lines = [line for line in result.stdout.splitlines() if line.strip()]
+        if result.returncode != 0 or not lines:
+            print(f"  start-up run failed: {result.stderr.strip()[-300:]}")
+            continue
+        out.append((float(lines[-1]), wall))
+    return out
+
+
+def edit_times():
+    from PySide6.QtCore import QSettings
+    from PySide6.QtWidgets import QApplication
+    from scipy.spatial.transform import Rotation
+
+    app = QApplication.instance() or QApplication(sys.argv)
+    QSettings.setPath(QSettings.Format.IniFormat, QSettings.Scope.UserScope, tempfile.mkdtemp())
+    from app.window import make_window
+    from core.orientation import Orientation
+
+    window = make_window()
+    window.show()
+    app.processEvents()
+    rng = np.random.default_rng(11)
+    rotations = Rotation.random(EDITS, rng=rng)
+    quats = rotations.as_quat(scalar_first=True)
+    orientations = [Orientation.from_quaternion(q) for q in quats]
+    times, painted = [], []
+    for o in orientations:
+        start = time.perf_counter()
+        window.model.set_orientation(o)  # signal -> four editors + meter re-render, synchronously
+        times.append(time.perf_counter() - start)
+        window.repaint()  # and the pixels: paint the whole window now, on this thread
+        painted.append(time.perf_counter() - start)
+        app.processEvents()
+    # The same representations by the reference library, one orientation at a time.
+    ref = []
+    for q in quats:
+        start = time.perf_counter()
+        r = Rotation.from_quat(q, scalar_first=True)
+        r.as_matrix(), r.as_quat(), r.as_rotvec(), r.as_euler("ZYX")
+        ref.append(time.perf_counter() - start)
+    # Check the last edit really reached every editor.
+    shown = float(window.quaternion.fields[0].text())
+    assert abs(shown - orientations[-1].as_quaternion()[0]) < 1e-6
+    window.model.undo_stack.setClean()
+    window.close()
+    return times, painted, ref
+
+
+def main():
+    times, painted, ref = edit_times()
+    med, p95 = statistics.median(times) * 1e3, _percentile(times, 95) * 1e3
+    ref_med = statistics.median(ref) * 1e3
+    print(f"edit -> every editor and the meter updated, {EDITS} programmatic edits:")
+    print(f"  median {med:.2f} ms, p95 {p95:.2f} ms, max {max(times) * 1e3:.2f} ms   (goal p95 <= 5 ms)")
+    print(f"  including repainting the whole window: median {statistics.median(painted) * 1e3:.2f} ms, "
+          f"p95 {_percentile(painted, 95) * 1e3:.2f} ms")
+    print(f"  SciPy Rotation computing the same representations: median {ref_med:.3f} ms "
+          f"(ratio window/SciPy {med / ref_med:.0f}x: the rest is Qt setting text and layout)")
+    runs = startup_seconds()
+    if runs:
+        first = [s for s, _ in runs]
+        print(f"start-up to the window first painted: median {statistics.median(first):.2f} s over {len(runs)} runs "
+              f"(process wall time {statistics.median([w for _, w in runs]):.2f} s)   (goal <= 1.5 s)")
+
+
+if __name__ == "__main__":
+    sys.path.insert(0, str(ROOT))
+    main()
