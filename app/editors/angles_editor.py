@@ -118,7 +118,7 @@ class AnglesEditor(EditorBase):
             field.set_text(self.fmt(value))
         self._show_other(angle_set.angles)
         self.note.setText(
-            f"Gimbal lock: only θ1 and θ3 together are determined; θ3 is set to 0 and θ1 carries the turn."
+            "Gimbal lock: θ1 and θ3 are coupled (see Gimbal margin); θ3 is shown as 0."
             if angle_set.locked else "")
 
     def _show_other(self, angles) -> None:

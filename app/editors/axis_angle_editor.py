@@ -89,7 +89,7 @@ class AxisAngleEditor(EditorBase):
         axis, angle = o.as_axis_angle(degrees=self.degrees)
         if angle == 0:
             axis = self._last_axis
-            self.note.setText("Angle 0: no rotation, so the axis is undefined (the last axis is kept).")
+            self.note.setText("Angle 0: the axis is undefined (last axis kept).")
         else:
             self._last_axis = axis
             self.note.setText("")
@@ -121,10 +121,9 @@ class AxisAngleEditor(EditorBase):
         if self.showing_rotation_vector:
             return o
         if values[3] == 0:
-            self.note.setText("Angle 0: no rotation, so the axis is undefined (the axis typed is kept).")
+            self.note.setText("Angle 0: the axis is undefined (axis typed kept).")
         elif o.notes:
-            self.note.setText(f"The axis was not unit length (length {length:.6g}); "
-                              "it is normalised when you commit.")
+            self.note.setText(f"Axis length {length:.6g}, not unit length: normalised on commit.")
         else:
             self.note.setText("")
         if length > 0:
@@ -158,7 +157,7 @@ class AxisAngleEditor(EditorBase):
         length = self._pending_length
         super().finish_editing()
         if length is not None and not self.showing_rotation_vector:
-            self.note.setText(f"Axis normalised (it had length {length:.6g}).")
+            self.note.setText(f"Axis normalised (its length was {length:.6g}).")
 
     def _on_slider(self, tenths: int) -> None:
         axis = self._last_axis

@@ -3,6 +3,7 @@ user's spelling until focus leaves the editor, then show the canonical form."""
 
 from __future__ import annotations
 
+from PySide6.QtCore import Qt
 from PySide6.QtWidgets import QApplication, QGroupBox, QLabel, QWidget
 
 from app.editors.number_field import NumberField, format_number, parse_number
@@ -83,9 +84,13 @@ class EditorBase(QGroupBox):
         return values if good else None
 
     @staticmethod
-    def note_label() -> QLabel:
+    def note_label(lines: int = 2) -> QLabel:
+        """A wrapped line of notes under the fields, with room kept for `lines` lines so a note never
+        arrives clipped and the layout does not jump when one appears."""
         label = QLabel("")
         label.setWordWrap(True)
         label.setObjectName("EditorNote")
         label.setStyleSheet("color: #444;")
+        label.setMinimumHeight(label.fontMetrics().lineSpacing() * lines + 4)
+        label.setAlignment(Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignTop)
         return label

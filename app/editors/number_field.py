@@ -8,8 +8,8 @@ from __future__ import annotations
 
 import math
 
-from PySide6.QtCore import Qt, Signal
-from PySide6.QtGui import QValidator
+from PySide6.QtCore import QRectF, Qt, Signal
+from PySide6.QtGui import QColor, QPainter, QPen, QValidator
 from PySide6.QtWidgets import QAbstractSpinBox
 
 # Characters people paste in place of a plain minus sign or space.
@@ -43,6 +43,9 @@ def format_number(value: float, digits: int) -> str:
     if text in ("-0", "-0.0"):
         text = "0"
     return text
+
+
+INVALID_COLOUR = QColor("#c62828")
 
 
 class NumberField(QAbstractSpinBox):
@@ -100,10 +103,9 @@ class NumberField(QAbstractSpinBox):
         self.setProperty("invalid", problem is not None)
         if problem is None:
             self.setToolTip(self._base_tooltip)
-            self.setStyleSheet("")
         else:
             self.setToolTip(f"Not used: {problem}\n\n{self._base_tooltip}")
-            self.setStyleSheet("NumberField { border: 2px solid #c62828; border-radius: 2px; }")
+        self.update()  # the red frame is painted in paintEvent
 
     @property
     def problem(self) -> str | None:
@@ -115,6 +117,15 @@ class NumberField(QAbstractSpinBox):
             self.setToolTip(text)
         else:
             self.setToolTip(f"Not used: {self._problem}\n\n{text}")
+
+    def paintEvent(self, event) -> None:
+        super().paintEvent(event)
+        if self._problem is not None:
+            # Painted, not a style sheet: a style sheet on a spin box upsets the layout of its parts.
+            painter = QPainter(self)
+            painter.setPen(QPen(INVALID_COLOUR, 2))
+            painter.drawRect(QRectF(self.rect()).adjusted(1, 1, -1, -1))
+            painter.end()
 
     # ---- QAbstractSpinBox hooks -----------------------------------------------------------------
     def validate(self, text, pos):

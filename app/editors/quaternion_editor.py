@@ -92,8 +92,8 @@ class QuaternionEditor(EditorBase):
             for field in self.fields:
                 field.set_problem(str(exc))
             return values, None
-        self.note.setText("" if abs(norm - 1) <= 1e-9 else f"Norm {norm:.6g} is not 1: the unit quaternion "
-                          "in the same direction is used (Normalise writes it here).")
+        self.note.setText("" if abs(norm - 1) <= 1e-9 else "Norm is not 1: the unit quaternion in the same "
+                          "direction is used.")
         return values, o
 
     def _on_typed(self, _text: str = "") -> None:

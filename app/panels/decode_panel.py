@@ -22,6 +22,14 @@ def _words(value) -> str:
     return "; ".join(str(v) for v in value)
 
 
+def _conventions(reading) -> str:
+    """The reading's conventions without repeating its kind ("matrix: body-to-reference", not twice)."""
+    conventions = reading.conventions
+    if isinstance(conventions, dict):
+        return ", ".join(str(v) if k == reading.kind else f"{k} {v}" for k, v in conventions.items())
+    return _words(conventions)
+
+
 class DecodePanel(QWidget):
     def __init__(self, model: SessionModel, parent=None):
         super().__init__(parent)
@@ -101,7 +109,7 @@ class DecodePanel(QWidget):
         self.message.setText(f"{len(self.readings)} reading{'s' if len(self.readings) != 1 else ''}, "
                              "most plausible first.")
         for rank, reading in enumerate(self.readings, start=1):
-            lines = [f"{rank}. {reading.kind}: {_words(reading.conventions)}"]
+            lines = [f"{rank}. {reading.kind}: {_conventions(reading)}"]
             if _words(reading.notes):
                 lines.append(f"    {_words(reading.notes)}")
             item = QListWidgetItem("\n".join(lines))
@@ -119,4 +127,4 @@ class DecodePanel(QWidget):
         reading = self.readings[self.list.row(item)]
         self.model.set_orientation(reading.orientation, origin=self,
                                    text=f"Apply decoded reading ({reading.kind})")
-        self.message.setText(f"Applied: {reading.kind}, {_words(reading.conventions)}.")
+        self.message.setText(f"Applied: {reading.kind}, {_conventions(reading)}.")

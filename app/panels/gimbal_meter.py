@@ -168,7 +168,7 @@ class GimbalMeter(QGroupBox):
         else:
             self.best_label.setText(f"Best-conditioned here: {spelled_sequence(best.sequence, intr)} "
                                     f"({best.margin_deg:.3g}° from lock).")
-            self.switch_button.setText(f"Use {'-'.join(best.sequence)}")
+            self.switch_button.setText(f"Show the angles in {'-'.join(best.sequence)}")
             self.switch_button.setEnabled(True)
 
     def _switch(self) -> None:
