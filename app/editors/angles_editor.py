@@ -76,10 +76,7 @@ class AnglesEditor(EditorBase):
         grid.setColumnStretch(1, 1)
         grid.setRowStretch(7, 1)
 
-        for i, field in enumerate(self.fields):
-            field.edited.connect(self._on_typed)
-            field.committed.connect(self._on_committed)
-            field.stepped.connect(lambda value, f=field: self._on_stepped(f, value))
+        self.connect_fields(self.fields)
         self.sequence_box.activated.connect(
             lambda i: self.model.set_preferences(origin=self, sequence=self.sequence_box.itemData(i)))
         self.kind_box.activated.connect(
@@ -131,7 +128,7 @@ class AnglesEditor(EditorBase):
             f"Same orientation: {'intrinsic' if other_intr else 'extrinsic'} "
             f"{spelled_sequence(other_seq, other_intr)}{named} = ({values}) {self.angle_unit}")
 
-    def _read(self) -> Orientation | None:
+    def read_orientation(self) -> Orientation | None:
         values = self.read_fields(self.fields)
         if values is None:
             return None
@@ -143,21 +140,3 @@ class AnglesEditor(EditorBase):
             return None
         self._show_other(np.asarray(values))
         return o
-
-    def _on_typed(self, _text: str = "") -> None:
-        o = self._read()
-        self._editing = True
-        if o is not None:
-            self.push(o, "typing")
-
-    def _on_stepped(self, field: NumberField, value: float) -> None:
-        field.set_text(self.fmt(value))
-        o = self._read()
-        if o is not None:
-            self.push(o, f"step-{self.fields.index(field)}")
-
-    def _on_committed(self) -> None:
-        if not self._editing:  # Enter in a spin box reports itself twice
-            return
-        if self._read() is not None:
-            self.finish_editing()

@@ -48,10 +48,7 @@ class AxisAngleEditor(EditorBase):
         grid.setColumnStretch(1, 1)
         grid.setRowStretch(7, 1)
 
-        for i, field in enumerate(self.axis_fields + [self.angle_field]):
-            field.edited.connect(self._on_typed)
-            field.committed.connect(self._on_committed)
-            field.stepped.connect(lambda value, f=field: self._on_stepped(f, value))
+        self.connect_fields(self.axis_fields + [self.angle_field])
         self.slider.valueChanged.connect(self._on_slider)
         self.slider.sliderReleased.connect(self.model.end_continuous)
         self.rotvec_toggle.toggled.connect(lambda _: self.render())
@@ -104,7 +101,7 @@ class AxisAngleEditor(EditorBase):
         self.slider.blockSignals(False)
 
     # ---- fields -> model ------------------------------------------------------------------------
-    def _orientation_from_fields(self) -> Orientation | None:
+    def read_orientation(self) -> Orientation | None:
         values = self.read_fields(self.fields)
         if values is None:
             return None
@@ -130,28 +127,9 @@ class AxisAngleEditor(EditorBase):
             self._last_axis = np.asarray(values[:3]) / length
         return o
 
-    def _on_typed(self, _text: str = "") -> None:
-        o = self._orientation_from_fields()
-        if o is not None:
-            self.push(o, "typing")
-            if not self.showing_rotation_vector:
-                self._set_slider(o.angle)
-        else:
-            self._editing = True
-
-    def _on_stepped(self, field: NumberField, value: float) -> None:
-        field.set_text(self.fmt(value))
-        o = self._orientation_from_fields()
-        if o is not None:
-            self.push(o, f"step-{self.axis_fields.index(field) if field in self.axis_fields else 3}")
-            if not self.showing_rotation_vector:
-                self._set_slider(o.angle)
-
-    def _on_committed(self) -> None:
-        if not self._editing:  # Enter in a spin box reports itself twice
-            return
-        if self._orientation_from_fields() is not None:
-            self.finish_editing()
+    def after_edit(self, orientation) -> None:
+        if not self.showing_rotation_vector:
+            self._set_slider(orientation.angle)
 
     def finish_editing(self) -> None:
         length = self._pending_length

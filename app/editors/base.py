@@ -25,6 +25,41 @@ class EditorBase(QGroupBox):
         """Show the model's current orientation in this editor's canonical spelling."""
         raise NotImplementedError
 
+    def read_orientation(self):
+        """The orientation the fields spell now, marking bad fields; None when they spell none."""
+        raise NotImplementedError
+
+    def after_edit(self, orientation) -> None:
+        """Hook: something of the editor's own to update after an edit it sent (e.g. a slider)."""
+
+    # ---- edits from the fields ----------------------------------------------------------------
+    def connect_fields(self, fields: list[NumberField]) -> None:
+        for field in fields:
+            field.edited.connect(self._on_typed)
+            field.committed.connect(self._on_committed)
+            field.stepped.connect(lambda value, f=field: self._on_stepped(f, value))
+
+    def _on_typed(self, _text: str = "") -> None:
+        self._editing = True
+        o = self.read_orientation()
+        if o is not None:
+            self.push(o, "typing")
+            self.after_edit(o)
+
+    def _on_stepped(self, field: NumberField, value: float) -> None:
+        field.set_text(self.fmt(value))
+        self._editing = True
+        o = self.read_orientation()
+        if o is not None:
+            self.push(o, f"step-{id(field)}")  # one undo step per run of steps on one field
+            self.after_edit(o)
+
+    def _on_committed(self) -> None:
+        if not self._editing:  # Enter in a spin box reports itself twice
+            return
+        if self.read_orientation() is not None:
+            self.finish_editing()
+
     # ---- shared behaviour -----------------------------------------------------------------------
     @property
     def digits(self) -> int:

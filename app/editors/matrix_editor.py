@@ -77,13 +77,12 @@ class MatrixEditor(EditorBase):
         for i in range(3):
             grid.addWidget(self.column_labels[i], 0, i + 1)
             grid.addWidget(self.row_labels[i], i + 1, 0)
+        self.connect_fields(self.flat_cells())
         catcher = _PasteCatcher(self)
         for r in range(3):
             for c in range(3):
                 cell = self.cells[r][c]
                 grid.addWidget(cell, r + 1, c + 1)
-                cell.edited.connect(self._on_typed)
-                cell.committed.connect(self._on_committed)
                 cell.lineEdit().installEventFilter(catcher)
         readouts = QHBoxLayout()
         readouts.addWidget(self.error_label)
@@ -129,7 +128,7 @@ class MatrixEditor(EditorBase):
         self.det_label.setText(f"Determinant {self.fmt(report.det)}")
         return report
 
-    def _read(self) -> Orientation | None:
+    def read_orientation(self) -> Orientation | None:
         values = self.read_fields(self.flat_cells())
         if values is None:
             self.error_label.setText("Orthogonality error –")
@@ -152,16 +151,10 @@ class MatrixEditor(EditorBase):
         self.note.setText("" if report.band == "exact" else report.message)
         return o
 
-    def _on_typed(self, _text: str = "") -> None:
-        o = self._read()
-        self._editing = True
-        if o is not None:
-            self.push(o, "typing")
-
     def _on_committed(self) -> None:
         if not self._editing:  # Enter in a spin box reports itself twice
             return
-        if self._read() is not None:
+        if self.read_orientation() is not None:
             note = self.note.text()
             self.finish_editing()
             if note:

@@ -52,10 +52,7 @@ class QuaternionEditor(EditorBase):
         grid.setColumnStretch(1, 1)
         grid.setRowStretch(7, 1)
 
-        for field in self.fields:
-            field.edited.connect(self._on_typed)
-            field.committed.connect(self._on_committed)
-            field.stepped.connect(lambda value, f=field: self._on_stepped(f, value))
+        self.connect_fields(self.fields)
         self.order_box.activated.connect(self._on_order_chosen)
         self.normalise_button.clicked.connect(self._on_normalise)
         self.render()
@@ -96,24 +93,8 @@ class QuaternionEditor(EditorBase):
                           "direction is used.")
         return values, o
 
-    def _on_typed(self, _text: str = "") -> None:
-        _, o = self._read()
-        self._editing = True
-        if o is not None:
-            self.push(o, "typing")
-
-    def _on_stepped(self, field: NumberField, value: float) -> None:
-        field.set_text(self.fmt(value))
-        _, o = self._read()
-        if o is not None:
-            self.push(o, f"step-{self.fields.index(field)}")
-
-    def _on_committed(self) -> None:
-        if not self._editing:  # Enter in a spin box reports itself twice
-            return
-        _, o = self._read()
-        if o is not None:
-            self.finish_editing()
+    def read_orientation(self) -> Orientation | None:
+        return self._read()[1]
 
     def _on_normalise(self) -> None:
         values, o = self._read()
