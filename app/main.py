@@ -17,18 +17,8 @@ def main(argv=None) -> int:
 
 
 def _open_window() -> int:
-    try:
-        from app import window
-    except ModuleNotFoundError as error:
-        if error.name != "app.window":
-            print(f"framewright: the window cannot start: {error}", file=sys.stderr)
-            return 1
-        window = None
-    run_window = getattr(window, "run_window", None)
-    if run_window is None:
-        print("framewright: the window is not built yet; commands work: framewright decode --help")
-        return 0
-    status = run_window()
+    from app import window   # imported only here: the command line never loads Qt
+    status = window.run_window()
     return status if isinstance(status, int) else 0
 
 

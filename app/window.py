@@ -1,6 +1,5 @@
-"""The main window: Mounts, the Scene's place, the four editors, the Gimbal margin meter and a side area
-of panels (Decode now; Chain, Check, Measure and Batch join it as tabs), with menus, shortcuts and the
-status bar. The window holds no state of its own: everything is in the SessionModel."""
+"""The main window: Mounts, the Scene, the four editors, the Gimbal margin meter and a side area of
+panels (Decode, Measure, Batch, ...) as tabs, with menus, shortcuts and the status bar. The window holds no state of its own: everything is in the SessionModel."""
 
 from __future__ import annotations
 
@@ -12,7 +11,7 @@ from PySide6.QtCore import QLocale, Qt, QTimer
 from PySide6.QtGui import QAction, QKeySequence
 from PySide6.QtWidgets import (QAbstractSpinBox, QApplication, QComboBox, QFileDialog, QFrame, QGridLayout,
                                QHBoxLayout, QLabel, QLineEdit, QMainWindow, QMessageBox, QPlainTextEdit,
-                               QSpinBox, QSplitter, QTabWidget, QTextEdit, QVBoxLayout, QWidget)
+                               QScrollArea, QSpinBox, QSplitter, QTabWidget, QTextEdit, QVBoxLayout, QWidget)
 
 from app import about, copy_as, settings
 from app.editors.angles_editor import AnglesEditor
@@ -21,10 +20,14 @@ from app.editors.base import EditorBase
 from app.editors.matrix_editor import MatrixEditor
 from app.editors.quaternion_editor import QuaternionEditor
 from app.model import PREFERENCES, Change, SessionModel
+from app.panels.batch_panel import BatchPanel
 from app.panels.decode_panel import DecodePanel
 from app.panels.gimbal_meter import GimbalMeter
+from app.panels.measure_panel import MeasurePanel
 from app.panels.mounts_list import MountsList
 from app.preferences_dialog import PreferencesDialog
+from app.scene.model_binding import bind_scene_to_model
+from app.scene.scene_widget import SceneWidget
 from core.errors import FramewrightError
 from core.session import FILE_SUFFIX, Session, load_session, save_session
 
@@ -33,18 +36,14 @@ DEMO_SESSION = RESOURCES / "demo.fwsession.json"
 FILE_FILTER = f"Framewright sessions (*{FILE_SUFFIX});;All files (*)"
 
 
-def scene_placeholder() -> QWidget:
-    """The Scene's place in the layout until the 3D view lands."""
-    frame = QFrame()
-    frame.setObjectName("ScenePlaceholder")
-    frame.setFrameShape(QFrame.Shape.StyledPanel)
-    frame.setMinimumHeight(240)
-    label = QLabel("Scene\n(the 3D view of the part, its frames and the rotation axis goes here)")
-    label.setAlignment(Qt.AlignmentFlag.AlignCenter)
-    label.setStyleSheet("color: #666;")
-    layout = QVBoxLayout(frame)
-    layout.addWidget(label)
-    return frame
+def _scrollable(panel: QWidget) -> QScrollArea:
+    """A wide panel in a scroll area, so the side area can stay narrow on a small screen."""
+    area = QScrollArea()
+    area.setWidget(panel)
+    area.setWidgetResizable(True)
+    area.setFrameShape(QFrame.Shape.NoFrame)
+    area.setMinimumWidth(320)
+    return area
 
 
 def _is_text_entry(widget) -> bool:
@@ -74,7 +73,11 @@ class MainWindow(QMainWindow):
         self.angles = AnglesEditor(model)
         self.meter = GimbalMeter(model)
         self.decode_panel = DecodePanel(model)
-        self.scene = scene_placeholder()
+        self.measure_panel = MeasurePanel(model)
+        self.batch_panel = BatchPanel(model)
+        self.scene = SceneWidget()
+        self.scene.setMinimumHeight(320)
+        self._scene_binding = bind_scene_to_model(self.scene, model)
         self.editors: list[EditorBase] = [self.axis_angle, self.quaternion, self.matrix, self.angles]
         self.current_editor: EditorBase = self.axis_angle
 
@@ -93,9 +96,11 @@ class MainWindow(QMainWindow):
         centre.setStretchFactor(1, 0)
         centre.setChildrenCollapsible(False)
 
-        # Side area: Decode now; the Chain, Check, Measure and Batch panels are added as tabs here.
+        # Side area: one tab per panel.
         self.side_tabs = QTabWidget()
         self.side_tabs.addTab(self.decode_panel, "Decode")
+        self.side_tabs.addTab(_scrollable(self.measure_panel), "Measure")
+        self.side_tabs.addTab(_scrollable(self.batch_panel), "Batch")
 
         splitter = QSplitter(Qt.Orientation.Horizontal)
         splitter.addWidget(self.mounts)

@@ -43,10 +43,11 @@ def main(argv: list[str]) -> int:
         from PySide6.QtCore import QSettings
         from PySide6.QtWidgets import QApplication
 
+        from app.window import make_window  # before the QApplication: the Scene sets a GL sharing flag
+
         app = QApplication.instance() or QApplication(sys.argv)
         settings_dir = tempfile.mkdtemp(prefix="framewright-shot-settings-")
         QSettings.setPath(QSettings.Format.IniFormat, QSettings.Scope.UserScope, settings_dir)
-        from app.window import make_window
 
         window = make_window()
         window.resize(1600, 1000)
