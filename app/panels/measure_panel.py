@@ -17,50 +17,12 @@ from PySide6.QtWidgets import (QComboBox, QFileDialog, QHBoxLayout, QLabel, QLin
 from app.model import MOUNTS, PREFERENCES, Change, SessionModel
 from app.panels.measure_fit import (DIRECTIONS, POINTS, THREE_POINTS, MeasuredFit, fit_direction_rows,
                                     fit_point_rows, fit_three_points, result_lines, row_outputs)
-from app.panels.measure_rows import Column, RowsError, rows_from_csv
+from app.panels.measure_rows import RowsError, rows_from_csv
 from app.panels.measure_table import MeasureTable, TableInputError
 from core.errors import FramewrightError
+from core.point_rows import DIRECTION_COLUMNS, POINT_COLUMNS, THREE_POINT_COLUMNS, THREE_POINT_ROWS
 
 ERROR_STYLE = "color:#c62828"
-_DECIMAL = "'.' is the decimal point."
-
-
-def _coordinate_columns(title: str, what: str, keys: tuple) -> list[Column]:
-    return [Column(f"{title} {axis}", f"{what}, {axis} coordinate. {_DECIMAL}",
-                   tuple(f"{k}_{axis}" for k in keys) + tuple(f"{k}{axis}" for k in keys if len(k) == 1),
-                   "input") for axis in "xyz"]
-
-
-WEIGHT = Column("Weight", "How much this row counts in the fit: a number of 0 or more (blank = 1; 0 leaves the "
-                "row out). " + _DECIMAL, ("weight", "w"), "weight")
-
-POINT_COLUMNS = (
-    _coordinate_columns("Nominal", "Nominal point in the body frame (from the drawing), in the "
-                        "length unit chosen above", ("nominal", "nom", "n"))
-    + _coordinate_columns("Measured", "Measured point in the reference frame (arm, tracker), "
-                          "in the length unit chosen above", ("measured", "meas", "m"))
-    + [WEIGHT,
-       Column("Residual", "Distance from the measured point to the fitted nominal point (R · nominal + t), "
-              "in the length unit; filled by Fit.", kind="output"),
-       Column("Flag", "'flagged': this point's residual stands far above the others (look at it again); "
-              "'worst': the largest residual.", kind="output")])
-
-THREE_POINT_COLUMNS = [
-    Column(f"Measured {axis}", f"Measured datum point in the reference frame, {axis} coordinate, in the length "
-           f"unit chosen above. {_DECIMAL}", (axis, f"measured_{axis}", f"meas_{axis}", f"m{axis}"), "input")
-    for axis in "xyz"]
-THREE_POINT_ROWS = ["Origin", "On +X axis", "In XY plane (+Y side)"]
-
-DIRECTION_COLUMNS = (
-    _coordinate_columns("Body", "Direction in the body frame (e.g. the part's boresight axis, or "
-                        "'down' as the part sees it); any length, only the direction counts", ("body", "b"))
-    + _coordinate_columns("Measured", "The same direction measured in the reference frame "
-                          "(e.g. gravity from a level, a boresight from a sight); any length",
-                          ("measured", "reference", "ref", "m", "r"))
-    + [WEIGHT,
-       Column("Residual (°)", "Angle between the measured direction and the fitted body direction "
-              "(R · body), in degrees; filled by Fit.", kind="output")])
-
 METHODS = [
     (POINTS, "Best fit from point pairs",
      "Nominal points in the body frame (from the drawing) and the same points measured in the reference "

@@ -6,46 +6,17 @@ with a note. One pasted line is one table row. '.' is the decimal point whatever
 that separates cells with tabs or ';' and also holds '1,5' is refused as a likely decimal comma rather
 than read as two numbers.
 
-A CSV file has a header row naming its columns; each table column accepts a few header names (see
-`Column.keys`), compared without case, spaces, '-' or a trailing unit in brackets ("Measured X [mm]").
-Other columns (a point name, a note) are ignored and named in the notes.
+A CSV file is read by `core.point_rows.rows_from_csv` (re-exported here), which the command line
+shares; the columns of each table and the header names they accept are defined there too.
 """
 
 from __future__ import annotations
 
-import csv
-import io
 import re
-from dataclasses import dataclass
 
-from app.editors.number_field import parse_number
 from core.errors import FramewrightError
-
-
-class RowsError(ValueError):
-    """Text that cannot become table rows; the message points at the line (and column)."""
-
-
-@dataclass(frozen=True)
-class Column:
-    """One table column: its title, the tooltip stating its frame and unit, the CSV header names it
-    accepts, and its kind: 'input' (a coordinate), 'weight' (optional input, blank = 1) or 'output'."""
-
-    title: str
-    tooltip: str
-    keys: tuple = ()
-    kind: str = "input"
-
-
-@dataclass(frozen=True)
-class Rows:
-    """Rows of numbers (None where a line gave no number for a column), with notes on what was set aside;
-    texts: the numbers as written (after character clean-up), when they read back to the same value."""
-
-    values: tuple
-    notes: tuple = ()
-    texts: tuple | None = None
-
+from core.number_text import parse_number
+from core.point_rows import Column, Rows, RowsError, header_key, rows_from_csv  # noqa: F401  (re-exported)
 
 _DECIMAL_COMMA = re.compile(r"\d,\d")
 
@@ -88,62 +59,3 @@ def _as_written(text: str, value: float) -> str:
     except ValueError:
         pass
     return repr(float(value))
-
-
-def header_key(cell: str) -> str:
-    """'Measured X [mm]' -> 'measured_x'."""
-    cell = re.sub(r"[\[(].*?[\])]", "", cell.lstrip("\ufeff")).strip().lower()
-    return re.sub(r"[\s\-]+", "_", cell)
-
-
-def _delimiter(header_line: str) -> str:
-    if "\t" in header_line:
-        return "\t"
-    if ";" in header_line and "," not in header_line:
-        return ";"
-    return ","
-
-
-def rows_from_csv(text: str, columns: list[Column]) -> Rows:
-    """Rows for the given input columns (input and weight kinds, in table order) from CSV text."""
-    text = text.lstrip("\ufeff")
-    lines = text.splitlines()
-    if not lines or not lines[0].strip():
-        raise RowsError("line 1: the file is empty; expected a header row naming the columns")
-    reader = csv.reader(io.StringIO(text), delimiter=_delimiter(lines[0]))
-    header = next(reader)
-    keys = [header_key(c) for c in header]
-    where: list[int | None] = []
-    for column in columns:
-        found = [i for i, k in enumerate(keys) if k in column.keys]
-        if len(found) > 1:
-            raise RowsError(f"line 1: columns {', '.join(repr(header[i]) for i in found)} all name "
-                            f"{column.title}; expected one")
-        if not found and column.kind == "input":
-            raise RowsError(f"line 1: no column for {column.title}; expected one headed "
-                            + " or ".join(repr(k) for k in column.keys[:2]))
-        where.append(found[0] if found else None)
-    used = {i for i in where if i is not None}
-    ignored = [header[i] for i in range(len(header)) if i not in used and header[i].strip()]
-    values = []
-    for cells in reader:
-        if not any(c.strip() for c in cells):
-            continue
-        line_no = reader.line_num
-        row = []
-        for column, index in zip(columns, where):
-            cell = cells[index] if index is not None and index < len(cells) else ""
-            if not cell.strip():
-                if column.kind == "input":
-                    raise RowsError(f"line {line_no}, column {header[index]!r}: empty; expected a number")
-                row.append(None)
-                continue
-            try:
-                row.append(parse_number(cell))
-            except ValueError as exc:
-                raise RowsError(f"line {line_no}, column {header[index]!r}: {exc}") from None
-        values.append(tuple(row))
-    if not values:
-        raise RowsError("the file has a header but no rows; expected one row per point")
-    notes = (f"ignored column(s): {', '.join(ignored)}",) if ignored else ()
-    return Rows(tuple(values), notes)
