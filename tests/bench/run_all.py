@@ -23,7 +23,7 @@ def start_display():
     for number in range(90, 110):
         if Path(f"/tmp/.X{number}-lock").exists():
             continue
-        server = subprocess.Popen(["Xvfb", f":{number}", "-screen", "0", "1600x1000x24", "-ac",
+        server = subprocess.Popen(["Xvfb", f":{number}", "-screen", "0", "2560x1600x24", "-ac",
                                    "+extension", "GLX", "+render", "-noreset"],
                                   stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL)
         time.sleep(1.0)
@@ -35,6 +35,9 @@ def start_display():
 
 def main():
     server = start_display()
+    # The Scene asks Qt to share GL contexts, which only works before any QApplication exists; the window
+    # and scene benchmarks each make windows, so set it up first.
+    import app.scene  # noqa: F401
     print(f"Framewright benchmarks, {time.strftime('%Y-%m-%d')}, {os.cpu_count()} cores, "
           f"Python {sys.version.split()[0]}")
     try:
@@ -49,8 +52,11 @@ def main():
             module.main()
             sys.stdout.flush()
     finally:
+        sys.stdout.flush()
         if server is not None:
+            # Qt would talk to the display again while the interpreter shuts down; end here instead.
             server.terminate()
+            os._exit(0)
 
 
 if __name__ == "__main__":
