@@ -1,15 +1,17 @@
-"""The command line over the core: `framewright decode` and `framewright compare`. Imports no Qt.
+"""The command line over the core: `framewright decode`, `compare`, `fit`, `batch` and `open`. Imports no
+Qt (`open` hands over to the window through app/main.py, which loads Qt only then).
 
 Each verb is one pair of functions, `add_<verb>_arguments(parser)` and `run_<verb>(args) -> exit status`,
-listed once in VERBS; adding `fit`, `batch` or `open` later is one more pair and one more line.
+listed once in VERBS.
 
-Exit status: 0 decoded (or within tolerance), 1 outside the tolerance, 2 refused input, with one line on
+Exit status: 0 done (and within tolerance), 1 outside the tolerance, 2 refused input, with one line on
 stderr saying what is wrong and where, and nothing on stdout.
 """
 
 from __future__ import annotations
 
 import argparse
+import os
 import re
 import sys
 
@@ -90,11 +92,10 @@ def _n(value: float) -> str:
     return "0" if text == "-0" else text
 
 
-def reading_text(reading, args, rank: int, total: int) -> str:
-    data = reading_object(reading, args)
+def orientation_lines(data: dict) -> list[str]:
+    """Every representation of a `formats.summary` dict, one indented line (or block) each."""
     kind = "intrinsic" if data["intrinsic"] else "extrinsic"
-    lines = [f"Reading {rank} of {total}: {reading.label}",
-             f"  quaternion (w, x, y, z): {', '.join(_n(v) for v in data['quaternion_wxyz'])}",
+    lines = [f"  quaternion (w, x, y, z): {', '.join(_n(v) for v in data['quaternion_wxyz'])}",
              "  matrix (body -> reference):"]
     lines += ["      " + "  ".join(_n(v).rjust(13) for v in row) for row in data["matrix"]]
     if data["axis"] is None:
@@ -104,6 +105,18 @@ def reading_text(reading, args, rank: int, total: int) -> str:
     lines.append(f"  rotation vector (deg): {', '.join(_n(v) for v in data['rotation_vector_deg'])}")
     lines.append(f"  angles {formats.spelled_sequence(data['sequence'], data['intrinsic'])} {kind} (deg): "
                  f"{', '.join(_n(v) for v in data['angles_deg'])}; gimbal margin {_n(data['gimbal_margin_deg'])} deg")
+    return lines
+
+
+def _n4(value: float) -> str:
+    """Four significant digits, for residuals (their own uncertainty makes more digits noise)."""
+    text = f"{float(value) + 0.0:.4g}"
+    return "0" if text == "-0" else text
+
+
+def reading_text(reading, args, rank: int, total: int) -> str:
+    data = reading_object(reading, args)
+    lines = [f"Reading {rank} of {total}: {reading.label}"] + orientation_lines(data)
     if data["orthogonality_error"] is not None:
         lines.append(f"  orthogonality error of the numbers as given: {data['orthogonality_error']:.2g}")
     lines.append(f"  why: {reading.why}")
@@ -188,11 +201,166 @@ def run_compare(args, stdin, stdout) -> int:
 
 
 # ---------------------------------------------------------------------------------------------------
+# Files
+# ---------------------------------------------------------------------------------------------------
+def read_file_text(path: str) -> str:
+    """The text of a CSV file (UTF-8, a leading byte-order mark allowed), or a refusal naming the file."""
+    try:
+        with open(path, encoding="utf-8-sig", newline="") as handle:
+            return handle.read()
+    except OSError as error:
+        raise _Refused(f"{path}: cannot be read ({error.strerror or error})") from None
+    except UnicodeDecodeError as error:
+        raise _Refused(f"{path}: not a text file in UTF-8 (byte {error.start}); expected a CSV file") from None
+
+
+def add_orientation_options(parser: argparse.ArgumentParser) -> None:
+    parser.add_argument("--sequence", default="ZYX", metavar="ZYX", help="angle sequence to show (default ZYX)")
+    turn = parser.add_mutually_exclusive_group()
+    turn.add_argument("--intrinsic", dest="intrinsic", action="store_const", const=True, default=True,
+                      help="angles about the moving body axes (default)")
+    turn.add_argument("--extrinsic", dest="intrinsic", action="store_const", const=False,
+                      help="angles about the fixed reference axes")
+
+
+def orientation_summary(orientation, args) -> dict:
+    try:
+        return formats.summary(orientation, args.sequence, args.intrinsic)
+    except FramewrightError as error:
+        raise _Refused(f"--sequence: {error}") from None
+
+
+# ---------------------------------------------------------------------------------------------------
+# fit
+# ---------------------------------------------------------------------------------------------------
+def add_fit_arguments(parser: argparse.ArgumentParser) -> None:
+    parser.add_argument("points", metavar="POINTS.csv",
+                        help="CSV with a header row: nominal_x, nominal_y, nominal_z (body frame, from the "
+                             "drawing), measured_x, measured_y, measured_z (reference frame), optional weight; "
+                             "the same headers the Measure panel imports")
+    parser.add_argument("--unit", default="mm", help="length unit of the points, for the printout (default mm)")
+    add_orientation_options(parser)
+    parser.add_argument("--json", action="store_true", help="print one JSON object")
+
+
+def run_fit(args, stdin, stdout) -> int:
+    from core.fit import fit_points
+    from core.point_rows import RowsError, read_point_pairs
+
+    text = read_file_text(args.points)
+    try:
+        pairs = read_point_pairs(text)
+        fit = fit_points(pairs.nominal, pairs.measured, pairs.weights)
+    except RowsError as error:
+        raise _Refused(f"{args.points}: {error}") from None
+    except FramewrightError as error:
+        raise _Refused(f"{args.points}: not fitted: {error}") from None
+    summary = orientation_summary(fit.orientation, args)
+    flagged = set(fit.flagged)
+    worst = fit.worst_index
+    points = [{"row": i + 1, "distance": float(fit.distances[i]), "residual": [float(v) for v in fit.residuals[i]],
+               "flagged": i in flagged} for i in range(len(fit.distances))]
+    if args.json:
+        data = {"points": len(points), "unit": args.unit, **summary,
+                "translation": [float(v) for v in fit.translation], "rms": fit.rms,
+                "worst_row": worst + 1, "flag_threshold": fit.flag_threshold,
+                "flagged_rows": [i + 1 for i in fit.flagged], "residuals": points,
+                "residual_meaning": "measured - (R nominal + t), reference frame",
+                "notes": list(pairs.notes) + list(fit.notes)}
+        stdout.write(formats.json_object_text(data))
+        return EXIT_OK
+    unit = args.unit
+    lines = [f"best fit of {len(points)} point pairs (measured = R nominal + t)"] + orientation_lines(summary)
+    lines.append(f"  translation t (reference frame, {unit}): {', '.join(_n(v) for v in fit.translation)}")
+    lines.append(f"  RMS residual {_n4(fit.rms)} {unit}; worst: row {worst + 1} at {_n4(fit.distances[worst])} {unit}")
+    if fit.flag_threshold is not None:
+        lines.append(f"  flagged (residual above {_n4(fit.flag_threshold)} {unit}): "
+                     + (", ".join(f"row {i + 1}" for i in fit.flagged) or "none"))
+    lines.append(f"residuals (measured - fitted, reference frame, {unit}; row 1 is the line after the header):")
+    lines.append("   row   distance         dx         dy         dz")
+    for point in points:
+        mark = "  flagged" if point["flagged"] else ("  worst" if point["row"] == worst + 1 else "")
+        lines.append(f"  {point['row']:>4}" + "".join(f"{_n4(v):>11}" for v in [point["distance"], *point["residual"]])
+                     + mark)
+    lines += [f"note: {note}" for note in (*pairs.notes, *fit.notes)]
+    stdout.write("\n".join(lines) + "\n")
+    return EXIT_OK
+
+
+# ---------------------------------------------------------------------------------------------------
+# batch
+# ---------------------------------------------------------------------------------------------------
+def add_batch_arguments(parser: argparse.ArgumentParser) -> None:
+    parser.add_argument("file", metavar="FILE.csv",
+                        help="CSV of mounts: name, then nominal_... and measured_... column sets "
+                             "(e.g. nominal_qw..qz, measured_yaw/pitch/roll[deg]; see the README)")
+    parser.add_argument("--tolerance", type=float, required=True, metavar="DEG",
+                        help="allowed total deviation of each mount, in degrees")
+    parser.add_argument("--out", metavar="RESULT.csv", help="also write the table of deviations as CSV")
+
+
+def run_batch(args, stdin, stdout) -> int:
+    from core.batch import run_batch as batch_check
+    from core.check import CheckSettings
+
+    try:
+        settings = CheckSettings(total_tolerance_deg=args.tolerance)
+    except FramewrightError as error:
+        raise _Refused(f"--tolerance: {error}") from None
+    text = read_file_text(args.file)
+    try:
+        result, table = batch_check(text, settings)
+    except FramewrightError as error:
+        raise _Refused(f"{args.file}: {error}") from None
+    if args.out:
+        if os.path.abspath(args.out) == os.path.abspath(args.file):
+            raise _Refused(f"--out {args.out}: that is the input file; expected another file name")
+        try:
+            with open(args.out, "w", encoding="utf-8", newline="") as handle:
+                handle.write(table)
+        except OSError as error:
+            raise _Refused(f"--out {args.out}: cannot be written ({error.strerror or error})") from None
+    width = max(len("mount"), *(len(name) for name in result.names))
+    lines = [f"{'mount'.ljust(width)}  deviation (deg)  result   margin (deg)"]
+    for name, total, passed, margin in zip(result.names, result.total_deg, result.passed, result.margin_deg):
+        lines.append(f"{name.ljust(width)}  {total:15.4f}  {'pass' if passed else 'FAIL':<6} {margin + 0.0:13.4f}")
+    failed = result.failed_count
+    lines.append(f"{len(result.names)} mounts, {failed} outside the tolerance of {_n(args.tolerance)} deg"
+                 + (f"; results written to {args.out}" if args.out else ""))
+    lines += [f"note: {note}" for note in result.notes]
+    stdout.write("\n".join(lines) + "\n")
+    return EXIT_OUTSIDE if failed else EXIT_OK
+
+
+# ---------------------------------------------------------------------------------------------------
+# open
+# ---------------------------------------------------------------------------------------------------
+def add_open_arguments(parser: argparse.ArgumentParser) -> None:
+    parser.add_argument("session", metavar="FILE", help="a session file (*.fwsession.json) to open in the window")
+
+
+def run_open(args, stdin, stdout) -> int:
+    """Read the file here first, so a damaged one is one line on stderr and no window; then hand over to
+    the window (the only verb that loads Qt, and only at this point)."""
+    from core.session import load_session
+
+    try:
+        load_session(args.session)
+    except FramewrightError as error:
+        raise _Refused(str(error)) from None
+    from app.main import open_window
+    return open_window(args.session)
+
+
+# ---------------------------------------------------------------------------------------------------
 # The verbs and the entry point
 # ---------------------------------------------------------------------------------------------------
 VERBS = {
     "decode": ("read pasted text as an orientation and show its readings", add_decode_arguments, run_decode),
     "compare": ("deviation of a measured orientation from the nominal", add_compare_arguments, run_compare),
+    "fit": ("best-fit orientation from point pairs in a CSV file, with residuals", add_fit_arguments, run_fit),
+    "batch": ("deviations of many mounts in a CSV file against a tolerance", add_batch_arguments, run_batch),
+    "open": ("open a session file in the window", add_open_arguments, run_open),
 }
 
 

@@ -1,7 +1,7 @@
 """Entry point of the `framewright` console script and of `python -m app.main`.
 
-No arguments: open the window. A command (decode, compare, ...): hand over to app/cli.py, which never
-imports Qt."""
+No arguments: open the window. A command (decode, compare, fit, batch, open FILE): hand over to
+app/cli.py, which never imports Qt; `open` comes back here through open_window once the file has read."""
 
 from __future__ import annotations
 
@@ -13,12 +13,13 @@ def main(argv=None) -> int:
     if argv:
         from app import cli
         return cli.main(argv)
-    return _open_window()
+    return open_window()
 
 
-def _open_window() -> int:
+def open_window(path: str | None = None) -> int:
+    """Run the window (on the session file `path`, or the demo session) until it closes."""
     from app import window   # imported only here: the command line never loads Qt
-    status = window.run_window()
+    status = window.run_window() if path is None else window.run_window(path)
     return status if isinstance(status, int) else 0
 
 
