@@ -17,6 +17,7 @@ from app.scene import camera, gl_helpers, overlay_text, palette
 from app.scene.frame_triad import FrameTriad
 from app.scene.geometry import FACE_NAMES, FACE_NORMALS
 from app.scene.label_layer import LabelLayer
+from app.scene.measured_points import MeasuredPoints
 from app.scene.part_model import PartModel, normalise_face_name
 from app.scene.rotation_construction import RotationConstruction
 from app.scene.scene_toolbar import SceneToolbar
@@ -112,6 +113,7 @@ class SceneWidget(QtWidgets.QWidget):
         for key in ("body0", "body1", "body2", "r", "n", "phi", "alpha", *(f"face{f}" for f in FACE_NAMES),
                     "ref0", "ref1", "ref2", "ghost"):
             self.labels.set_label(key, visible=False)
+        self.measured_points = MeasuredPoints(v, self.labels)
         self._sync_ghost_outline()
 
     def _wire_toolbar(self):
@@ -142,6 +144,12 @@ class SceneWidget(QtWidgets.QWidget):
         self._ghost_label = label or ""
         self._refresh()
 
+    def set_measured_points(self, fit):
+        """The Measure panel's last fit (a MeasuredFit: points, fitted points, residuals), drawn in the
+        part's scale around the fitted body origin (measured_points.py says how); None hides it."""
+        self.measured_points.show(fit, self.part.scale)
+        self.view.update()
+
     def set_ghost_visible(self, visible):
         self._ghost_enabled = bool(visible)
         self._refresh()
@@ -160,6 +168,7 @@ class SceneWidget(QtWidgets.QWidget):
         return count
 
     def _after_part_change(self):
+        self.measured_points.show(self.measured_points.fit, self.part.scale)  # points follow the part's scale
         if self._tracked_name == "boresight":
             self._tracked_body = FACE_NORMALS[self.part.boresight_face].copy()
         self._sync_ghost_outline()
