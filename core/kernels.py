@@ -50,13 +50,16 @@ def _in_slices(*trailing_ndims, fills=None):
 
         @functools.wraps(kernel)
         def run(*args, **kwargs):
-            arrays = [np.asarray(a, dtype=np.float64) for a in args[:count]]
-            rest = args[count:]
-            first = arrays[0]
+            first = args[0]
+            if type(first) is not np.ndarray:
+                first = np.asarray(first, dtype=np.float64)
             lead = first.shape[:first.ndim - trailing_ndims[0]]
             n = math.prod(lead)
-            if n <= _CHUNK or any(a.shape[:a.ndim - t] != lead
-                                  for a, t in zip(arrays[1:], trailing_ndims[1:])):
+            if n <= _CHUNK:   # the common case of one orientation: straight through, nothing to slice
+                return kernel(first, *args[1:], **kwargs)
+            arrays = [first] + [np.asarray(a, dtype=np.float64) for a in args[1:count]]
+            rest = args[count:]
+            if any(a.shape[:a.ndim - t] != lead for a, t in zip(arrays[1:], trailing_ndims[1:])):
                 return kernel(*arrays, *rest, **kwargs)
             flat = [a.reshape((n,) + a.shape[a.ndim - t:]) for a, t in zip(arrays, trailing_ndims)]
             if fills is not None:
@@ -109,6 +112,15 @@ def check_sequence_name(sequence):
     return sequence
 
 
+def _parts(a):
+    """The components along the last axis: views for a batch, numpy scalars for a single value. Same
+    arithmetic either way; scalar arithmetic just costs a tenth of 0-d array arithmetic, which matters on
+    the path of every edit."""
+    if a.ndim == 1:
+        return tuple(a)
+    return tuple(a[..., i] for i in range(a.shape[-1]))
+
+
 # --- quaternion algebra -----------------------------------------------------------------------------
 
 @_in_slices(1,)
@@ -125,16 +137,17 @@ def normalize_quaternions(q):
 def canonical_quaternions(q):
     """The sign of q that CONVENTIONS.md calls canonical: w > 0, or w = 0 and the first non-zero of
     x, y, z positive. q and -q are the same orientation; this picks one spelling."""
-    q = np.array(q, dtype=np.float64)
-    w, x, y, z = q[..., 0], q[..., 1], q[..., 2], q[..., 3]
+    q = np.asarray(q, dtype=np.float64)
+    w, x, y, z = _parts(q)
     # A half turn computed in floating point leaves w at about 1e-16 (cos(pi/2) is not 0): treat that as
-    # the half turn it is, so its axis gets the canonical sign. Moves the orientation by < 3e-15 rad.
+    # the half turn it is (w = 0), so its axis gets the canonical sign. Moves it by < 3e-15 rad.
     half_turn = np.abs(w) <= _HALF_TURN_W
-    w[half_turn] = 0.0
     first_vector = np.where(x != 0, x, np.where(y != 0, y, z))
-    flip = (w < 0) | (half_turn & (first_vector < 0))
+    flip = np.where(half_turn, first_vector < 0, w < 0)
+    out = np.where(flip[..., None], -q, q)
+    out[..., 0] = np.where(half_turn, 0.0, out[..., 0])
     # Adding 0.0 turns any -0.0 into +0.0, so no "-0" ever reaches a screen.
-    return np.where(flip[..., None], -q, q) + 0.0
+    return out + 0.0
 
 
 @_in_slices(1, 1)
@@ -142,8 +155,8 @@ def multiply_quaternions(p, q):
     """Hamilton product p ⊗ q: the rotation q followed by p, i.e. matrix(p) @ matrix(q)."""
     p = np.asarray(p, dtype=np.float64)
     q = np.asarray(q, dtype=np.float64)
-    pw, px, py, pz = p[..., 0], p[..., 1], p[..., 2], p[..., 3]
-    qw, qx, qy, qz = q[..., 0], q[..., 1], q[..., 2], q[..., 3]
+    pw, px, py, pz = _parts(p)
+    qw, qx, qy, qz = _parts(q)
     shape = np.broadcast_shapes(p.shape, q.shape)
     out = np.empty(shape, dtype=np.float64)
     out[..., 0] = pw * qw - px * qx - py * qy - pz * qz
@@ -188,7 +201,7 @@ def quaternions_to_matrices(q, out=None):
     """Rotation matrices (body -> reference) of quaternions. Any non-zero length is accepted: the
     normalisation is folded into the factor s = 2 / |q|² (Shoemake's form), with no square root."""
     q = np.asarray(q, dtype=np.float64)
-    w, x, y, z = q[..., 0], q[..., 1], q[..., 2], q[..., 3]
+    w, x, y, z = _parts(q)
     s = 2.0 / (w * w + x * x + y * y + z * z)
     xs, ys, zs = x * s, y * s, z * s
     wx, wy, wz = w * xs, w * ys, w * zs
@@ -230,8 +243,7 @@ def matrices_to_quaternions(m):
 
 def _entries(m):
     """The nine entries of each 3x3 matrix, row by row, as separate arrays (views, no copy)."""
-    flat = m.reshape(m.shape[:-2] + (9,))
-    return tuple(flat[..., i] for i in range(9))
+    return _parts(m.reshape(m.shape[:-2] + (9,)))
 
 
 def _gram(e):
@@ -328,13 +340,14 @@ def nearest_rotations(m):
 # --- rotation vectors and axis-angle ------------------------------------------------------------------
 
 @_in_slices(1,)
-def quaternions_to_axis_angles(q):
-    """Unit axis and angle in [0, pi] (radians) of canonical quaternions. The axis is (0, 0, 0) where the
-    angle is exactly zero, because there it is undefined; at pi the canonical sign of q gives the axis
-    whose first non-zero component is positive."""
-    q = canonical_quaternions(q)
+def quaternions_to_axis_angles(q, assume_canonical=False):
+    """Unit axis and angle in [0, pi] (radians) of quaternions. The axis is (0, 0, 0) where the angle is
+    exactly zero, because there it is undefined; at pi the canonical sign of q gives the axis whose first
+    non-zero component is positive. assume_canonical=True skips that sign step for input that already
+    has it (an Orientation's own quaternion)."""
+    q = np.asarray(q, dtype=np.float64) if assume_canonical else canonical_quaternions(q)
     v = q[..., 1:]
-    s = np.linalg.norm(v, axis=-1)
+    s = np.sqrt(np.einsum("...i,...i->...", v, v))
     angle = 2.0 * np.arctan2(s, q[..., 0])
     safe = np.where(s > 0, s, 1.0)
     axis = np.where((s > 0)[..., None], v / safe[..., None], 0.0)
@@ -359,11 +372,12 @@ def axis_angles_to_quaternions(axis, angle):
 
 
 @_in_slices(1,)
-def quaternions_to_rotation_vectors(q):
-    """Rotation vectors phi·n (radians) of quaternions, with phi in [0, pi]."""
-    q = canonical_quaternions(q)
+def quaternions_to_rotation_vectors(q, assume_canonical=False):
+    """Rotation vectors phi·n (radians) of quaternions, with phi in [0, pi] (assume_canonical: as for
+    quaternions_to_axis_angles)."""
+    q = np.asarray(q, dtype=np.float64) if assume_canonical else canonical_quaternions(q)
     v = q[..., 1:]
-    s = np.linalg.norm(v, axis=-1)
+    s = np.sqrt(np.einsum("...i,...i->...", v, v))
     angle = 2.0 * np.arctan2(s, q[..., 0])
     # angle / s tends to 2 / w as s -> 0; atan2 keeps the ratio exact right down to the last bit.
     has_axis = s > 0
@@ -424,7 +438,8 @@ def _sequence_terms(q, sequence, intrinsic):
     if proper:
         k = 3 - i - j
     sign = (i - j) * (j - k) * (k - i) // 2
-    w, qi, qj, qk = q[..., 0], q[..., 1 + i], q[..., 1 + j], q[..., 1 + k] * sign
+    parts = _parts(q)
+    w, qi, qj, qk = parts[0], parts[1 + i], parts[1 + j], parts[1 + k] * sign
     if proper:
         return w, qi, qj, qk, proper, sign
     return w - qj, qi + qk, qj + w, qk - qi, proper, sign

@@ -156,7 +156,7 @@ class Orientation:
 
     def as_axis_angle(self, degrees=True):
         """(unit axis, angle) with the angle in [0, 180] degrees; the axis is (0, 0, 0) at angle 0."""
-        axis, angle = kernels.quaternions_to_axis_angles(self._q)
+        axis, angle = kernels.quaternions_to_axis_angles(self._q, assume_canonical=True)
         return axis, float(_angle_out(angle, degrees))
 
     @classmethod
@@ -167,7 +167,7 @@ class Orientation:
         return cls._from_kernel(kernels.rotation_vectors_to_quaternions(_angle_in(rv, degrees)))
 
     def as_rotation_vector(self, degrees=True):
-        return _angle_out(kernels.quaternions_to_rotation_vectors(self._q), degrees)
+        return _angle_out(kernels.quaternions_to_rotation_vectors(self._q, assume_canonical=True), degrees)
 
     # --- angle sequences ----------------------------------------------------------------------------
 
