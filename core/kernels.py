@@ -388,12 +388,14 @@ def quaternions_to_rotation_vectors(q, assume_canonical=False):
 @_in_slices(1,)
 def rotation_vectors_to_quaternions(rv):
     """Quaternions of rotation vectors (radians). sin(phi/2)/phi is taken through numpy's sinc so the
-    zero vector needs no special case."""
+    zero vector needs no special case. For angles of many turns cos and sinc are evaluated at arguments
+    that have lost low bits, so the result is normalised once more (it stays unit to rounding)."""
     rv = np.asarray(rv, dtype=np.float64)
     angle = np.linalg.norm(rv, axis=-1)
     q = np.empty(rv.shape[:-1] + (4,), dtype=np.float64)
     q[..., 0] = np.cos(0.5 * angle)
     q[..., 1:] = (0.5 * np.sinc(angle / (2.0 * np.pi)))[..., None] * rv
+    q /= np.sqrt(np.einsum("...i,...i->...", q, q))[..., None]
     return canonical_quaternions(q)
 
 

@@ -57,3 +57,10 @@ def test_orientation_is_immutable():
         o.anything = 1
     with pytest.raises(ValueError):
         o.quaternion[0] = 2.0
+
+
+def test_rotation_vector_of_many_turns_gives_a_unit_quaternion():
+    # 7e6 degrees is about 19,444 turns: cos and sinc see arguments that have lost low bits.
+    import numpy as np
+    o = Orientation.from_rotation_vector([7e6, -3e6, 2e6])
+    assert abs(np.linalg.norm(o.quaternion) - 1.0) <= 4e-16
