@@ -237,4 +237,5 @@ class Orientation:
         axis, angle = self.as_axis_angle()
         if angle == 0:
             return "Orientation(identity)"
-        return f"Orientation({angle:.6g}° about [{axis[0]:.6g}, {axis[1]:.6g}, {axis[2]:.6g}])"
+        shown = np.where(np.abs(axis) < 1e-12, 0.0, axis) + 0.0   # rounding dust reads as 0 here
+        return f"Orientation({angle:.6g}° about [{shown[0]:.6g}, {shown[1]:.6g}, {shown[2]:.6g}])"
