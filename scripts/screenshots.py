@@ -58,6 +58,17 @@ def main(argv: list[str]) -> int:
         window.decode_panel.set_text(DRAWING_PASTE)
         for _ in range(5):
             app.processEvents()
+        # The Scene alone for two demo mounts, at a size that reads well in the README.
+        for index, slug in ((0, "scene-masthead-camera"), (3, "scene-radar-antenna")):
+            window.model.select(index)
+            for _ in range(5):
+                app.processEvents()
+            scene_path = out_dir / f"{slug}.png"
+            window.scene.export_png(str(scene_path), 1200, 750)
+            print(f"wrote {scene_path} ({window.model.current_mount().name})")
+        window.model.select(2)
+        for _ in range(5):
+            app.processEvents()
         path = out_dir / "window.png"
         if not window.grab().save(str(path)):
             print(f"could not write {path}", file=sys.stderr)
