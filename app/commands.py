@@ -67,3 +67,23 @@ class ReplaceMountsCommand(QUndoCommand):
 
     def undo(self) -> None:
         self._model._apply_mounts(*self.old, None)
+
+
+class ReplaceValueCommand(QUndoCommand):
+    """Replace one immutable piece of session state (the chains, the checks) as a whole, before and
+    after; the model says what the key means."""
+
+    def __init__(self, model, key, old, new, text, origin):
+        super().__init__(text)
+        self._model = model
+        self.key = key
+        self.old = old
+        self.new = new
+        self._first_origin = origin
+
+    def redo(self) -> None:
+        origin, self._first_origin = self._first_origin, None
+        self._model._apply_value(self.key, self.new, origin)
+
+    def undo(self) -> None:
+        self._model._apply_value(self.key, self.old, None)

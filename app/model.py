@@ -4,6 +4,12 @@ It holds the session's mounts, the selected one, the display preferences and the
 to the mounts goes through an undo command (app/commands.py); every change of any kind is announced by the
 one ``changed`` signal, carrying a ``Change`` that says what changed and who made it (the origin), so the
 editor that made an edit can ignore it and keep the user's own spelling.
+
+It also holds the session's mount chain (Chain panel) and check (Check panel: which mount is nominal,
+which is measured, and the CheckSettings), each replaced as a whole through an undo command. The ghost
+rule: the scene's ghost is the check's nominal mount exactly when a nominal and a measured mount are both
+chosen, they are different mounts, and the selected mount is the measured one; otherwise there is no
+second orientation (the scene then shows the reference).
 """
 
 from __future__ import annotations
@@ -14,14 +20,20 @@ from PySide6.QtCore import QObject, QTimer, Signal
 from PySide6.QtGui import QUndoStack
 
 from app import commands
+from core import describe
+from core.chain import Chain
 from core.orientation import Orientation
-from core.session import Mount, Preferences, Session
+from core.session import (Mount, Preferences, SavedCheck, Session, read_chains, read_checks,
+                          with_chains_and_checks)
 
 # What a change can touch.
 ORIENTATION = "orientation"  # the selected mount's orientation
 MOUNTS = "mounts"  # the list of mounts: count, names, order, properties
 SELECTION = "selection"  # which mount is selected (so the current orientation changed too)
 PREFERENCES = "preferences"  # how numbers are shown
+CHAIN = "chain"  # the mount chain: its steps, or whether the scene shows its frames
+CHECK = "check"  # the check: nominal and measured mounts, mode, axis, tolerances
+WORDS = "words"  # which names the reference directions get in words ("down", "north")
 
 # Continuous edits (typing, spin arrows, wheel, slider) merge while they keep coming; a pause this long
 # ends the run, as does committing a field, leaving the editor, or undo/redo.
@@ -55,6 +67,10 @@ class SessionModel(QObject):
         self._mounts: tuple[Mount, ...] = self._session.mounts
         self._selected = self._session.selected
         self._preferences = self._session.preferences
+        self._chains: tuple[Chain, ...] = read_chains(self._session)
+        self._checks: tuple[SavedCheck, ...] = read_checks(self._session)
+        self._show_chain_frames = True
+        self._words_preset = describe.DEFAULT_PRESET
         self.file_path: str | None = None
 
     # ---- reading --------------------------------------------------------------------------------
@@ -77,13 +93,64 @@ class SessionModel(QObject):
         return self._mounts[self._selected].orientation
 
     def ghost_orientation(self) -> Orientation | None:
-        """A second orientation the scene may draw faintly (e.g. a nominal); none yet."""
-        return None
+        """The check's nominal orientation while its measured mount is selected (the rule above); else None."""
+        nominal = self._ghost_mount()
+        return None if nominal is None else nominal.orientation
+
+    def ghost_label(self) -> str | None:
+        nominal = self._ghost_mount()
+        return None if nominal is None else f"nominal, {nominal.name}"
+
+    def _ghost_mount(self) -> Mount | None:
+        nominal, measured = self.check_mount_indices()
+        if nominal is None or measured is None or nominal == measured or measured != self._selected:
+            return None
+        return self._mounts[nominal]
+
+    # chain
+    @property
+    def chains(self) -> tuple[Chain, ...]:
+        return self._chains
+
+    @property
+    def chain(self) -> Chain:
+        """The chain the Chain panel edits (the session's first; an empty one when it has none)."""
+        return self._chains[0] if self._chains else Chain()
+
+    @property
+    def show_chain_frames(self) -> bool:
+        return self._show_chain_frames
+
+    def scene_frames(self) -> list[tuple[Orientation, str]]:
+        """The chain's intermediate frames for the scene, as (orientation, label), reference side first;
+        the last one is the product. Empty when the frames are switched off."""
+        if not self._show_chain_frames:
+            return []
+        frames = self.chain.frames()
+        out = []
+        for k, frame in enumerate(frames, start=1):
+            label = f"{k} {frame.name}" if frame.name else f"{k}"
+            out.append((frame.orientation, label + (" = product" if k == len(frames) else "")))
+        return out
+
+    # check
+    @property
+    def check(self) -> SavedCheck:
+        """The check the Check panel shows (the session's first; an empty one when it has none)."""
+        return self._checks[0] if self._checks else SavedCheck()
+
+    def check_mount_indices(self) -> tuple[int | None, int | None]:
+        """(nominal, measured) mount indices of the check; None where not chosen or no mount has the name
+        (the first mount of that name when several share it)."""
+        names = [m.name for m in self._mounts]
+        check = self.check
+        return tuple(names.index(n) if n in names else None for n in (check.nominal, check.measured))
 
     def session(self) -> Session:
         """The state as plain data, ready to save."""
-        return replace(self._session, mounts=self._mounts, selected=self._selected,
-                       preferences=self._preferences)
+        session = replace(self._session, mounts=self._mounts, selected=self._selected,
+                          preferences=self._preferences)
+        return with_chains_and_checks(session, self._chains, self._checks)
 
     # ---- whole-session changes (not undoable: they start a new history) ------------------------
     def load_session(self, session: Session, file_path: str | None = None, keep_preferences: bool = True) -> None:
@@ -93,11 +160,13 @@ class SessionModel(QObject):
         self._session = session
         self._mounts = session.mounts
         self._selected = session.selected
+        self._chains = read_chains(session)
+        self._checks = read_checks(session)
         if not keep_preferences:
             self._preferences = session.preferences
         self.file_path = file_path
         self.undo_stack.setClean()
-        self._emit({ORIENTATION, MOUNTS, SELECTION, PREFERENCES}, None)
+        self._emit({ORIENTATION, MOUNTS, SELECTION, PREFERENCES, CHAIN, CHECK}, None)
 
     # ---- view state (not undoable: it changes no data) -----------------------------------------
     def select(self, index: int, origin: object | None = None) -> None:
@@ -116,6 +185,24 @@ class SessionModel(QObject):
             return
         self._preferences = new
         self._emit({PREFERENCES}, origin)
+
+    @property
+    def words_preset(self) -> str:
+        """The frame preset (core/describe.py) whose names the panels use for reference directions."""
+        return self._words_preset
+
+    def set_words_preset(self, key: str, origin: object | None = None) -> None:
+        """Name the reference directions after a frame preset (a view choice: it never changes R)."""
+        key = describe.frame_preset(key).key  # validates
+        if key != self._words_preset:
+            self._words_preset = key
+            self._emit({WORDS}, origin)
+
+    def set_show_chain_frames(self, shown: bool, origin: object | None = None) -> None:
+        """Whether the scene draws the chain's intermediate frames (a view choice, not saved)."""
+        if bool(shown) != self._show_chain_frames:
+            self._show_chain_frames = bool(shown)
+            self._emit({CHAIN}, origin)
 
     # ---- data edits: every one through an undo command -----------------------------------------
     def set_orientation(self, orientation: Orientation, origin: object | None = None, *,
@@ -162,10 +249,22 @@ class SessionModel(QObject):
         name = name.strip()
         if not name:
             raise ValueError("a mount needs a name; the old one is kept")
-        if name == self._mounts[index].name:
+        old_name = self._mounts[index].name
+        if name == old_name:
             return
         mounts = self._mounts[:index] + (self._mounts[index].renamed(name),) + self._mounts[index + 1:]
-        self._push_mounts(mounts, self._selected, f"Rename mount to “{name}”", origin)
+        text = f"Rename mount to “{name}”"
+        check = self.check
+        if old_name not in (check.nominal, check.measured):
+            self._push_mounts(mounts, self._selected, text, origin)
+            return
+        # The check names its mounts: rename them there too, in the same undo step.
+        self.undo_stack.beginMacro(text)
+        self._push_mounts(mounts, self._selected, text, origin)
+        self.set_check(replace(check, nominal=name if check.nominal == old_name else check.nominal,
+                               measured=name if check.measured == old_name else check.measured),
+                       origin=origin, text=text)
+        self.undo_stack.endMacro()
 
     def delete_mount(self, index: int | None = None, origin: object | None = None) -> None:
         index = self._selected if index is None else index
@@ -180,6 +279,37 @@ class SessionModel(QObject):
         else:
             selected = min(index, len(mounts) - 1)
         self._push_mounts(mounts, selected, f"Delete mount “{name}”", origin)
+
+    def set_chain(self, chain: Chain, origin: object | None = None, text: str = "Edit chain") -> None:
+        """Replace the chain the Chain panel edits (one undo step)."""
+        if not isinstance(chain, Chain):
+            raise TypeError("set_chain needs a Chain")
+        if chain == self.chain and self._chains:
+            return
+        chains = (chain,) + self._chains[1:]
+        self._push_value("chains", self._chains, chains, text, origin)
+
+    def set_check(self, check: SavedCheck, origin: object | None = None, text: str = "Edit check") -> None:
+        """Replace the check the Check panel shows (one undo step)."""
+        if not isinstance(check, SavedCheck):
+            raise TypeError("set_check needs a SavedCheck")
+        if check == self.check and self._checks:
+            return
+        checks = (check,) + self._checks[1:]
+        self._push_value("checks", self._checks, checks, text, origin)
+
+    def make_chain_mount(self, origin: object | None = None) -> None:
+        """Add the chain's product as a new mount, named after the chain, and select it (one undo step)."""
+        chain = self.chain
+        base = chain.name if chain.name and chain.name != "chain" else "Chain"
+        self.add_mount(self.unused_name(f"{base} product"), chain.product(), origin=origin)
+
+    def snap_to_right_angle(self, origin: object | None = None) -> None:
+        """Set the selected mount to the nearest of the 24 right-angle orientations (one undo step)."""
+        near = describe.nearest_right_angle(self.current_orientation())
+        target = Orientation.from_matrix(near.right_angle.matrix)
+        self.set_orientation(target, origin=origin,
+                             text=f"Snap to nearest right angle ({near.right_angle.rotation_words})")
 
     def unused_name(self, base: str) -> str:
         names = {m.name for m in self._mounts}
@@ -203,6 +333,20 @@ class SessionModel(QObject):
         self.end_continuous()
         self.undo_stack.push(commands.ReplaceMountsCommand(self, self._mounts, self._selected,
                                                            tuple(mounts), selected, text, origin))
+
+    def _push_value(self, key, old, new, text, origin) -> None:
+        self.end_continuous()
+        self.undo_stack.push(commands.ReplaceValueCommand(self, key, old, tuple(new), text, origin))
+
+    def _apply_value(self, key: str, value, origin: object | None) -> None:
+        if key == "chains":
+            self._chains = value
+            self._emit({CHAIN}, origin)
+        elif key == "checks":
+            self._checks = value
+            self._emit({CHECK}, origin)
+        else:
+            raise KeyError(f"unknown session value {key!r}")
 
     def _apply_orientation(self, index: int, orientation: Orientation, origin: object | None) -> None:
         what = {ORIENTATION}

@@ -49,7 +49,10 @@ class FormatOptions:
     angles; degrees: angle units; scalar_last: quaternion order (x, y, z, w); transposed: write the
     matrix reference -> body (rows are the body axes); name: variable name in code, mount name in the
     report; timestamp: date and time for the report (the caller passes it: text or datetime);
-    caution: the report's safety caution (SAFETY_CAUTION unless the caller passes its own wording).
+    caution: the report's safety caution (SAFETY_CAUTION unless the caller passes its own wording);
+    words_preset: the frame preset (core/describe.py) naming the reference directions in the report's
+    words (ENU unless given); gravity_down: the reference direction gravity points along for the report's
+    level readings ((0, 0, -1), the reference Z up, unless given; (0, 0, 1) for NED).
 
     A dict may also use the window's preference names: angle_units ('deg'/'rad'), quaternion_order
     ('wxyz'/'xyzw') and matrix_meaning ('body_to_reference'/'reference_to_body')."""
@@ -64,6 +67,8 @@ class FormatOptions:
     timestamp: object = None
     notes: tuple = ()
     caution: str | None = None
+    words_preset: str | None = None
+    gravity_down: tuple | None = None
 
     def checked(self) -> "FormatOptions":
         if self.representation not in REPRESENTATIONS:
@@ -338,8 +343,43 @@ def _render_report(orientation, o: FormatOptions) -> str:
     for note in tuple(o.notes) + tuple(orientation.notes):
         lines.append(f"Note: {note}")
     lines.append("")
+    lines.extend(_report_words(orientation, o))
+    lines.append("")
+    lines.extend(_report_level(orientation, o))
+    lines.append("")
     lines.append(f"Caution: {(o.caution or SAFETY_CAUTION).rstrip('.')}.")
     return "\n".join(lines) + "\n"
+
+
+def _report_words(orientation, o: FormatOptions) -> list[str]:
+    """Where each body axis points and the nearest right-angle orientation (core/describe.py)."""
+    from core import describe
+
+    preset = describe.frame_preset(o.words_preset)
+    return ([f"Where the body axes point (reference directions named as {preset.title}):"]
+            + ["    " + line for line in describe.describe_orientation(orientation, preset)])
+
+
+def _report_level(orientation, o: FormatOptions) -> list[str]:
+    """What a level would read on each face and each body axis's elevation (core/level.py)."""
+    from core import describe, level
+
+    down = level.DOWN_Z_UP if o.gravity_down is None else o.gravity_down
+    report = level.level_readings(orientation, down)
+    axes = {tuple(v): name for name, v in (("-Z (Z up)", (0.0, 0.0, -1.0)), ("+Z (Z down)", (0.0, 0.0, 1.0)),
+                                            ("+X", (1.0, 0.0, 0.0)), ("-X", (-1.0, 0.0, 0.0)),
+                                            ("+Y", (0.0, 1.0, 0.0)), ("-Y", (0.0, -1.0, 0.0)))}
+    name = axes.get(tuple(float(c) + 0.0 for c in report.down))
+    where = f"reference {name}" if name else f"reference ({', '.join(f'{c:.6g}' for c in report.down)})"
+    m = lambda text: text.replace("-", describe.MINUS)          # noqa: E731 - signs as printed elsewhere
+    lines = [f"Level readings, gravity along {m(where)}; degrees to three decimals:"]
+    for r in report.faces:
+        lines.append(f"    face {m(r.face)}: tilt from level {r.tilt_deg:.3f}, off plumb {r.off_plumb_deg:.3f}, "
+                     f"normal {r.from_up_deg:.3f} from straight up, facing {r.facing}")
+    lines.append(f"    up: face {m(report.up_face)}; down: face {m(report.down_face)}")
+    lines.append("    elevation above the horizontal: " + ", ".join(
+        f"{m(a.axis)} {m(f'{a.elevation_deg + 0.0:.3f}')}" for a in report.axes))
+    return lines
 
 
 _RENDERERS = {"text": _render_text, "json": _render_json, "csv": _render_csv, "python": _render_python,

@@ -16,9 +16,17 @@ File layout (version 1)::
                   "boresight": "+Z"},
          "notes": "..."}
       ],
-      "chains": [...],                   # reserved: chain settings (added by the chain work)
-      "checks": [...]                    # reserved: check settings (added by the check work)
+      "chains": [...],                   # Chain.to_dict() each (core/chain.py)
+      "checks": [                        # SavedCheck.to_dict() each: which mounts a check compares
+        {"name": "check", "nominal": "mount name" or null, "measured": "mount name" or null,
+         "settings": {...}}              # CheckSettings.to_dict() (core/check.py)
+      ]
     }
+
+Chains and checks stay in ``Session.extra`` as read (so a file keeps exactly what it held); they are
+checked when the file is read, and `read_chains` / `read_checks` / `with_chains_and_checks` turn them
+into values and back. A check names its mounts (names survive reordering and deleting; the window
+renames them along with a mount).
 
 Top-level keys this module does not know (the reserved ones above, or keys a newer minor revision adds)
 are kept in ``Session.extra`` and written back unchanged, so saving never drops someone else's data.
@@ -34,6 +42,8 @@ from dataclasses import dataclass, field, fields, replace
 from pathlib import Path
 from typing import Any, Mapping
 
+from core.chain import Chain
+from core.check import CheckSettings
 from core.errors import FramewrightError
 from core.orientation import Orientation
 
@@ -157,6 +167,77 @@ class Session:
     @classmethod
     def single(cls, name: str = "Mount 1") -> "Session":
         return cls(mounts=(Mount(name),))
+
+
+@dataclass(frozen=True)
+class SavedCheck:
+    """A check as the session keeps it: the nominal and measured mounts by name (None: not chosen)."""
+
+    nominal: str | None = None
+    measured: str | None = None
+    settings: CheckSettings = field(default_factory=CheckSettings)
+    name: str = "check"
+
+    def __post_init__(self):
+        for key in ("nominal", "measured"):
+            value = getattr(self, key)
+            if value is not None and not isinstance(value, str):
+                raise FramewrightError(f"check {key}: expected a mount name or null, got {value!r}")
+        if not isinstance(self.settings, CheckSettings):
+            raise FramewrightError("check settings: expected CheckSettings")
+
+    def to_dict(self) -> dict[str, Any]:
+        return {"name": self.name, "nominal": self.nominal, "measured": self.measured,
+                "settings": self.settings.to_dict()}
+
+    @classmethod
+    def from_dict(cls, data: Any) -> "SavedCheck":
+        if not isinstance(data, dict):
+            raise FramewrightError(f"expected a JSON object, got {type(data).__name__}")
+        unknown = sorted(set(data) - {"name", "nominal", "measured", "settings"})
+        if unknown:
+            raise FramewrightError(f"unknown key(s) {', '.join(unknown)}; expected name, nominal, measured, "
+                                   "settings")
+        name = data.get("name", "check")
+        if not isinstance(name, str):
+            raise FramewrightError(f"name: expected text, got {name!r}")
+        return cls(data.get("nominal"), data.get("measured"), CheckSettings.from_dict(data.get("settings", {})),
+                   name)
+
+
+def _read_list(session_or_extra, key: str, read, source: str) -> tuple:
+    extra = session_or_extra.extra if isinstance(session_or_extra, Session) else session_or_extra
+    entries = extra.get(key, [])
+    _require(isinstance(entries, list), f"{source}: {key}", "expected a list")
+    out = []
+    for i, entry in enumerate(entries):
+        try:
+            out.append(read(entry))
+        except SessionFileError:
+            raise
+        except FramewrightError as exc:
+            raise SessionFileError(f"{source}: {key}[{i}]: {exc}") from None
+    return tuple(out)
+
+
+def read_chains(session: "Session", source: str = "session") -> tuple[Chain, ...]:
+    """The session's mount chains (none when the file holds none)."""
+    return _read_list(session, "chains", Chain.from_dict, source)
+
+
+def read_checks(session: "Session", source: str = "session") -> tuple[SavedCheck, ...]:
+    """The session's checks (none when the file holds none)."""
+    return _read_list(session, "checks", SavedCheck.from_dict, source)
+
+
+def with_chains_and_checks(session: "Session", chains, checks) -> "Session":
+    """The session with its chains and checks replaced (a key is left out when it is empty and the
+    session did not hold it before)."""
+    extra = dict(session.extra)
+    for key, values in (("chains", chains), ("checks", checks)):
+        if values or key in extra:
+            extra[key] = [v.to_dict() for v in values]
+    return replace(session, extra=extra)
 
 
 # ---- writing ---------------------------------------------------------------------------------------
@@ -293,6 +374,8 @@ def session_from_dict(data: Any, source: str = "session") -> Session:
     _require(isinstance(description, str), f"{source}: description", "expected text")
     known = {"format", "version", "description", "selected", "preferences", "mounts"}
     extra = {k: v for k, v in data.items() if k not in known}
+    read_chains(extra, source)  # refuse damaged chains and checks now, naming the entry
+    read_checks(extra, source)
     return Session(mounts=mounts, selected=selected, preferences=prefs, description=description, extra=extra)
 
 

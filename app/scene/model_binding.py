@@ -4,7 +4,8 @@ The model is duck-typed. Required: a Qt signal ``changed(change)`` and the metho
 ``current_orientation()`` and ``ghost_orientation()`` (None = no second orientation: the scene then shows
 the reference orientation as its ghost). Used when present: ``ghost_label()``; ``current_mount()`` with
 ``.name`` and ``.part`` (``box_size_mm``, ``face_names``, ``boresight``); ``preferences`` with
-``sequence`` and ``intrinsic`` (the sequence the overlay writes angles in). The scene never writes back.
+``sequence`` and ``intrinsic`` (the sequence the overlay writes angles in); ``scene_frames()`` with
+[(orientation, label), ...] (a mount chain's intermediate frames). The scene never writes back.
 """
 
 from __future__ import annotations
@@ -18,6 +19,7 @@ class SceneBinding:
         self.model = model
         self._part = None
         self._ghost = ()
+        self._frames = []
         model.changed.connect(self.refresh)
         self.refresh()
 
@@ -38,6 +40,10 @@ class SceneBinding:
         if part is not None and part != self._part:
             self._part = part
             scene.set_part(part.box_size_mm, part.face_names, part.boresight)
+        frames = model.scene_frames() if hasattr(model, "scene_frames") else []
+        if frames != self._frames:
+            self._frames = list(frames)
+            scene.set_extra_frames(self._frames)
         prefs = getattr(model, "preferences", None)
         if prefs is not None:
             kind, sequence, intrinsic = scene.overlay_representation()

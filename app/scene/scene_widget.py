@@ -14,6 +14,7 @@ from PySide6 import QtCore, QtGui, QtWidgets
 from PySide6.QtOpenGL import QOpenGLFramebufferObject, QOpenGLFramebufferObjectFormat
 
 from app.scene import camera, gl_helpers, overlay_text, palette
+from app.scene.chain_frames import ChainFrames
 from app.scene.frame_triad import FrameTriad
 from app.scene.geometry import FACE_NAMES, FACE_NORMALS
 from app.scene.label_layer import LabelLayer
@@ -113,6 +114,7 @@ class SceneWidget(QtWidgets.QWidget):
         for key in ("body0", "body1", "body2", "r", "n", "phi", "alpha", *(f"face{f}" for f in FACE_NAMES),
                     "ref0", "ref1", "ref2", "ghost"):
             self.labels.set_label(key, visible=False)
+        self.chain_frames = ChainFrames(v, self.labels)
         self.measured_points = MeasuredPoints(v, self.labels)
         self._sync_ghost_outline()
 
@@ -143,6 +145,12 @@ class SceneWidget(QtWidgets.QWidget):
         self._ghost = None if o is None else _as_orientation(o)
         self._ghost_label = label or ""
         self._refresh()
+
+    def set_extra_frames(self, frames):
+        """Small labelled frames beside the part, e.g. a mount chain's intermediate frames:
+        [(orientation or 3x3 matrix, label), ...]; an empty list hides them."""
+        self.chain_frames.set_frames([(_as_orientation(o).as_matrix(), label) for o, label in frames])
+        self.view.update()
 
     def set_measured_points(self, fit):
         """The Measure panel's last fit (a MeasuredFit: points, fitted points, residuals), drawn in the

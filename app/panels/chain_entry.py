@@ -1,0 +1,115 @@
+"""Where a chain step's orientation comes from: the editors (the selected mount's orientation, entered in
+any representation there) or text pasted from a drawing, read by the same decoder as the Decode panel,
+with every plausible reading offered in a list, most plausible first."""
+
+from __future__ import annotations
+
+from PySide6.QtCore import Signal
+from PySide6.QtWidgets import QComboBox, QLabel, QPlainTextEdit, QVBoxLayout, QWidget
+
+from app.panels.decode_panel import _conventions
+from core import describe
+from core.errors import FramewrightError
+from core.orientation import Orientation
+
+ERROR_STYLE = "color:#c62828"
+
+
+def number(value: float, digits: int = 6) -> str:
+    """Compact, never '-0'."""
+    text = f"{value:.{digits}g}"
+    return "0" if text in ("-0", "-0.0") else text.replace("-", describe.MINUS)
+
+
+def axis_angle_summary(orientation: Orientation) -> str:
+    """'90° about (0, 0, 1)', or 'no turn' (the axis is undefined at angle 0)."""
+    axis, angle = orientation.as_axis_angle()
+    if angle == 0:
+        return "no turn"
+    return f"{number(angle)}° about ({', '.join(number(v, 4) for v in axis)})"
+
+
+def full_tooltip(orientation: Orientation) -> str:
+    """Every representation of a step, for its tooltip."""
+    q = orientation.as_quaternion()
+    m = orientation.as_matrix()
+    rows = "\n".join("    " + "  ".join(number(v, 6).rjust(9) for v in row) for row in m)
+    return (f"Axis and angle: {axis_angle_summary(orientation)}\n"
+            f"Quaternion (w, x, y, z), Hamilton: {', '.join(number(v, 9) for v in q)}\n"
+            f"Rotation matrix, child -> parent (columns are the child axes in the parent):\n{rows}")
+
+
+class PastedOrientation(QWidget):
+    """A paste box and the list of its readings; `orientation()` is the chosen reading's (or None)."""
+
+    reading_changed = Signal()
+
+    def __init__(self, parent=None):
+        super().__init__(parent)
+        self.readings: list = []
+        self.text_box = QPlainTextEdit()
+        self.text_box.setPlaceholderText("Or paste the step's numbers as printed on the drawing: a matrix, a "
+                                         "quaternion, an axis and an angle, or three angles.")
+        self.text_box.setToolTip("Text read by the same decoder as the Decode panel. '.' is the decimal point; "
+                                 "the Unicode minus and en dash are accepted. A matrix is read body -> "
+                                 "reference first: here the step's child frame -> its parent frame.")
+        self.text_box.setMaximumHeight(64)
+        self.reading_box = QComboBox()
+        self.reading_box.setToolTip("Which reading of the pasted text to use, most plausible first (the "
+                                    "conventions of each are named).")
+        self.reading_box.setSizeAdjustPolicy(QComboBox.SizeAdjustPolicy.AdjustToMinimumContentsLengthWithIcon)
+        self.reading_box.setMinimumContentsLength(20)
+        self.message = QLabel("")
+        self.message.setWordWrap(True)
+        layout = QVBoxLayout(self)
+        layout.setContentsMargins(0, 0, 0, 0)
+        layout.addWidget(self.text_box)
+        layout.addWidget(self.reading_box)
+        layout.addWidget(self.message)
+        self.text_box.textChanged.connect(self.read)
+        self.reading_box.currentIndexChanged.connect(lambda *_: self.reading_changed.emit())
+        self.read()
+
+    def set_text(self, text: str) -> None:
+        self.text_box.setPlainText(text)
+
+    def read(self) -> None:
+        from core.decode import decode  # late, as in the Decode panel
+
+        text = self.text_box.toPlainText()
+        self.readings = []
+        self.reading_box.blockSignals(True)
+        self.reading_box.clear()
+        if not text.strip():
+            self.message.setText("")
+        else:
+            try:
+                self.readings = list(decode(text))
+            except FramewrightError as exc:
+                self.message.setText(f"<span style='{ERROR_STYLE}'>Cannot read this: {exc}</span>")
+            else:
+                if not self.readings:
+                    self.message.setText("No reading of this text is a valid orientation.")
+                else:
+                    self.message.setText(f"{len(self.readings)} reading{'s' if len(self.readings) > 1 else ''}; "
+                                         "the first is the most plausible.")
+                for rank, reading in enumerate(self.readings, start=1):
+                    self.reading_box.addItem(f"{rank}. {reading.kind}: {_conventions(reading)}")
+                    self.reading_box.setItemData(rank - 1, f"{full_tooltip(reading.orientation)}",
+                                                 role=3)  # Qt.ToolTipRole
+        self.reading_box.setEnabled(bool(self.readings))
+        self.reading_box.blockSignals(False)
+        self.reading_changed.emit()
+
+    def orientation(self) -> Orientation | None:
+        index = self.reading_box.currentIndex()
+        if not self.readings or index < 0:
+            return None
+        return self.readings[index].orientation
+
+    def reading_words(self) -> str:
+        index = self.reading_box.currentIndex()
+        if not self.readings or index < 0:
+            return ""
+        reading = self.readings[index]
+        return f"{reading.kind}, {_conventions(reading)}"

@@ -1,0 +1,317 @@
+"""Chain panel: a mount chain reference -> bracket -> plate -> ... -> body as an ordered list of steps.
+
+Each step holds the orientation of its child frame in its parent frame (core/chain.py), taken from the
+editors (the selected mount's orientation, typed there in any representation) or from pasted text read
+by the decoder. Steps can be inverted (the value was given parent-in-child), switched off (a part not
+fitted), moved and deleted; every edit is one undo step in the model. The panel shows the product and
+each intermediate frame in words, and "Make the product a mount" adds the product as a new mount.
+"""
+
+from __future__ import annotations
+
+import html
+from dataclasses import replace
+
+from PySide6.QtCore import Qt
+from PySide6.QtWidgets import (QAbstractItemView, QCheckBox, QGridLayout, QGroupBox, QHBoxLayout,
+                               QHeaderView, QLabel, QLineEdit, QPushButton, QTableWidget, QTableWidgetItem,
+                               QVBoxLayout, QWidget)
+
+from app.model import CHAIN, SELECTION, ORIENTATION, WORDS, Change, SessionModel
+from app.panels.chain_entry import PastedOrientation, axis_angle_summary, full_tooltip
+from core import describe
+from core.chain import ChainStep
+
+COLUMNS = ("#", "On", "Step", "Orientation", "Inverted")
+ON_COLUMN, NAME_COLUMN, INVERTED_COLUMN = 1, 2, 4
+
+
+class ChainPanel(QWidget):
+    def __init__(self, model: SessionModel, parent=None):
+        super().__init__(parent)
+        self.model = model
+        self._rendering = False
+
+        self.name_field = QLineEdit()
+        self.name_field.setToolTip("The chain's name; a mount made from its product is named after it.")
+        self.table = QTableWidget(0, len(COLUMNS))
+        self.table.setHorizontalHeaderLabels(COLUMNS)
+        self.table.verticalHeader().setVisible(False)
+        self.table.setSelectionBehavior(QAbstractItemView.SelectionBehavior.SelectRows)
+        self.table.setSelectionMode(QAbstractItemView.SelectionMode.SingleSelection)
+        self.table.setToolTip("The steps from the reference (top) to the body (bottom). Each is the orientation "
+                              "of its part in the part before it (v_parent = R · v_child). Double-click a name "
+                              "to rename; tick On to use a step, Inverted when its value was given the other "
+                              "way round (parent in child).")
+        header = self.table.horizontalHeader()
+        header.setSectionResizeMode(QHeaderView.ResizeMode.ResizeToContents)
+        header.setSectionResizeMode(3, QHeaderView.ResizeMode.Stretch)
+        self.table.setMinimumHeight(150)
+        self.table.setWordWrap(False)
+        self.table.horizontalHeaderItem(3).setToolTip("The step's orientation in its parent (child -> parent), "
+                                                      "as axis and angle; hover a cell for every representation.")
+
+        self.up_button = QPushButton("Move up")
+        self.up_button.setToolTip("Move the step one place towards the reference.")
+        self.down_button = QPushButton("Move down")
+        self.down_button.setToolTip("Move the step one place towards the body.")
+        self.invert_button = QPushButton("Invert")
+        self.invert_button.setToolTip("Use the step's inverse (its value was given parent in child); again to undo.")
+        self.enable_button = QPushButton("Switch off")
+        self.enable_button.setToolTip("Leave the step out of the product (e.g. a spacer not fitted); again to "
+                                      "switch it back on.")
+        self.delete_button = QPushButton("Delete")
+        self.delete_button.setToolTip("Delete the step (undo brings it back).")
+
+        entry = QGroupBox("Step orientation")
+        self.step_name = QLineEdit()
+        self.step_name.setPlaceholderText("bracket")
+        self.step_name.setToolTip("Name of a new step, e.g. the part it stands for (bracket, plate, shim).")
+        self.add_from_editors = QPushButton("Add from the editors")
+        self.add_from_editors.setToolTip("Add a step at the body end holding the orientation the editors show "
+                                         "(the selected mount's), typed there in any representation.")
+        self.set_from_editors = QPushButton("Set from the editors")
+        self.set_from_editors.setToolTip("Give the chosen step the orientation the editors show.")
+        self.pasted = PastedOrientation()
+        self.add_from_text = QPushButton("Add from the text")
+        self.add_from_text.setToolTip("Add a step at the body end holding the chosen reading of the pasted text.")
+        self.set_from_text = QPushButton("Set from the text")
+        self.set_from_text.setToolTip("Give the chosen step the chosen reading of the pasted text.")
+        grid = QGridLayout(entry)
+        name_row = QHBoxLayout()
+        name_row.addWidget(QLabel("New step's name"))
+        name_row.addWidget(self.step_name, 1)
+        grid.addLayout(name_row, 0, 0, 1, 2)
+        grid.addWidget(self.add_from_editors, 1, 0)
+        grid.addWidget(self.set_from_editors, 1, 1)
+        grid.addWidget(self.pasted, 2, 0, 1, 2)
+        grid.addWidget(self.add_from_text, 3, 0)
+        grid.addWidget(self.set_from_text, 3, 1)
+
+        result = QGroupBox("Result")
+        self.product_label = QLabel()
+        self.product_label.setWordWrap(True)
+        self.product_label.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
+        self.product_label.setToolTip("The product body -> reference of every step that is on, R = R1 · R2 · …, "
+                                      "and each intermediate frame: where its axes point in the reference "
+                                      "(names of the directions as chosen in the Level panel).")
+        self.frames_box = QCheckBox("Show the frames in the Scene")
+        self.frames_box.setToolTip("Draw each intermediate frame small and labelled in a row beside the part "
+                                   "(the last one is the product).")
+        self.make_mount_button = QPushButton("Make the product a mount")
+        self.make_mount_button.setToolTip("Add the product to the session as a new mount, named after the chain, "
+                                          "and select it (undo removes it).")
+        result_layout = QVBoxLayout(result)
+        result_layout.addWidget(self.product_label)
+        result_layout.addWidget(self.frames_box)
+        result_layout.addWidget(self.make_mount_button)
+
+        layout = QVBoxLayout(self)
+        name_row = QHBoxLayout()
+        name_row.addWidget(QLabel("Chain"))
+        name_row.addWidget(self.name_field, 1)
+        layout.addLayout(name_row)
+        layout.addWidget(self.table, 1)
+        buttons = QGridLayout()
+        for k, b in enumerate((self.up_button, self.down_button, self.invert_button, self.enable_button,
+                               self.delete_button)):
+            buttons.addWidget(b, k // 3, k % 3)
+        layout.addLayout(buttons)
+        layout.addWidget(entry)
+        layout.addWidget(result)
+
+        self.name_field.editingFinished.connect(self._rename_chain)
+        self.table.itemChanged.connect(self._on_item_changed)
+        self.table.itemSelectionChanged.connect(self._update_buttons)
+        self.up_button.clicked.connect(lambda: self.move_step(-1))
+        self.down_button.clicked.connect(lambda: self.move_step(1))
+        self.invert_button.clicked.connect(self.invert_step)
+        self.enable_button.clicked.connect(self.toggle_step)
+        self.delete_button.clicked.connect(self.delete_step)
+        self.add_from_editors.clicked.connect(lambda: self.add_step(self.model.current_orientation(), "editors"))
+        self.set_from_editors.clicked.connect(lambda: self.set_step(self.model.current_orientation()))
+        self.add_from_text.clicked.connect(lambda: self.add_step(self.pasted.orientation(), "text"))
+        self.set_from_text.clicked.connect(lambda: self.set_step(self.pasted.orientation()))
+        self.pasted.reading_changed.connect(self._update_buttons)
+        self.frames_box.toggled.connect(lambda on: self.model.set_show_chain_frames(on, origin=self))
+        self.make_mount_button.clicked.connect(lambda: self.model.make_chain_mount(origin=self))
+        model.changed.connect(self._on_model_changed)
+        self.render()
+
+    # ---- reading -----------------------------------------------------------------------------------
+    def selected_row(self) -> int | None:
+        rows = self.table.selectionModel().selectedRows()
+        return rows[0].row() if rows else None
+
+    def select_row(self, row: int) -> None:
+        if 0 <= row < self.table.rowCount():
+            self.table.selectRow(row)
+
+    # ---- edits (each one undo step) ------------------------------------------------------------------
+    def add_step(self, orientation, source: str) -> None:
+        if orientation is None:
+            return
+        chain = self.model.chain
+        name = self.step_name.text().strip() or f"step {len(chain) + 1}"
+        self.model.set_chain(chain.with_step(ChainStep(name, orientation)), origin=self,
+                             text=f"Add chain step “{name}”")
+        self.step_name.clear()
+        self.select_row(len(self.model.chain) - 1)
+
+    def set_step(self, orientation) -> None:
+        row = self.selected_row()
+        if orientation is None or row is None:
+            return
+        chain = self.model.chain
+        step = chain.steps[row]
+        self.model.set_chain(chain.with_step_replaced(row, replace(step, orientation=orientation)), origin=self,
+                             text=f"Set chain step “{step.name}”")
+        self.select_row(row)
+
+    def move_step(self, by: int) -> None:
+        row = self.selected_row()
+        chain = self.model.chain
+        if row is None or not 0 <= row + by < len(chain):
+            return
+        self.model.set_chain(chain.moved(row, row + by), origin=self,
+                             text=f"Move chain step “{chain.steps[row].name}” {'up' if by < 0 else 'down'}")
+        self.select_row(row + by)
+
+    def invert_step(self) -> None:
+        row = self.selected_row()
+        if row is not None:
+            self._set_flag(row, "inverted", not self.model.chain.steps[row].inverted)
+
+    def toggle_step(self) -> None:
+        row = self.selected_row()
+        if row is not None:
+            self._set_flag(row, "enabled", not self.model.chain.steps[row].enabled)
+
+    def delete_step(self) -> None:
+        row = self.selected_row()
+        if row is None:
+            return
+        chain = self.model.chain
+        self.model.set_chain(chain.without_step(row), origin=self,
+                             text=f"Delete chain step “{chain.steps[row].name}”")
+        self.select_row(min(row, len(self.model.chain) - 1))
+
+    def _set_flag(self, row: int, flag: str, value: bool) -> None:
+        chain = self.model.chain
+        name = chain.steps[row].name
+        if flag == "inverted":
+            new, text = chain.with_inverted(row, value), f"{'Invert' if value else 'Un-invert'} chain step “{name}”"
+        else:
+            new, text = chain.with_enabled(row, value), f"Switch {'on' if value else 'off'} chain step “{name}”"
+        self.model.set_chain(new, origin=self, text=text)
+        self.select_row(row)
+
+    def _rename_chain(self) -> None:
+        name = self.name_field.text().strip()
+        chain = self.model.chain
+        if not name:
+            self.name_field.setText(chain.name)  # a chain needs a name: keep the old one
+            return
+        if name != chain.name:
+            self.model.set_chain(chain.renamed(name), origin=self, text=f"Rename chain to “{name}”")
+
+    def _on_item_changed(self, item: QTableWidgetItem) -> None:
+        if self._rendering:
+            return
+        row, column = item.row(), item.column()
+        chain = self.model.chain
+        if not 0 <= row < len(chain):
+            return
+        step = chain.steps[row]
+        if column == ON_COLUMN:
+            self._set_flag(row, "enabled", item.checkState() == Qt.CheckState.Checked)
+        elif column == INVERTED_COLUMN:
+            self._set_flag(row, "inverted", item.checkState() == Qt.CheckState.Checked)
+        elif column == NAME_COLUMN:
+            name = item.text().strip()
+            if name and name != step.name:
+                self.model.set_chain(chain.with_step_replaced(row, replace(step, name=name)), origin=self,
+                                     text=f"Rename chain step to “{name}”")
+            else:
+                self.render()  # an empty name: show the kept one
+
+    # ---- model -> view -------------------------------------------------------------------------------
+    def _on_model_changed(self, change: Change) -> None:
+        if change.touches(CHAIN, WORDS):
+            self.render()
+        elif change.touches(SELECTION, ORIENTATION):
+            self._update_buttons()
+
+    def render(self) -> None:
+        chain = self.model.chain
+        row = self.selected_row()
+        self._rendering = True
+        try:
+            if self.name_field.text() != chain.name and not self.name_field.hasFocus():
+                self.name_field.setText(chain.name)
+            self.table.setRowCount(len(chain))
+            for i, step in enumerate(chain.steps):
+                number = QTableWidgetItem(str(i + 1))
+                number.setFlags(Qt.ItemFlag.ItemIsEnabled | Qt.ItemFlag.ItemIsSelectable)
+                on = QTableWidgetItem("")
+                on.setFlags(Qt.ItemFlag.ItemIsEnabled | Qt.ItemFlag.ItemIsSelectable | Qt.ItemFlag.ItemIsUserCheckable)
+                on.setCheckState(Qt.CheckState.Checked if step.enabled else Qt.CheckState.Unchecked)
+                on.setToolTip("Ticked: the step is used in the product. Unticked: left out (identity).")
+                name = QTableWidgetItem(step.name)
+                name.setFlags(Qt.ItemFlag.ItemIsEnabled | Qt.ItemFlag.ItemIsSelectable | Qt.ItemFlag.ItemIsEditable)
+                summary = axis_angle_summary(step.orientation)
+                if step.inverted:
+                    summary += ", used inverted"
+                value = QTableWidgetItem(summary)
+                value.setFlags(Qt.ItemFlag.ItemIsEnabled | Qt.ItemFlag.ItemIsSelectable)
+                value.setToolTip("As entered (child in parent):\n" + full_tooltip(step.orientation))
+                inverted = QTableWidgetItem("")
+                inverted.setFlags(Qt.ItemFlag.ItemIsEnabled | Qt.ItemFlag.ItemIsSelectable
+                                  | Qt.ItemFlag.ItemIsUserCheckable)
+                inverted.setCheckState(Qt.CheckState.Checked if step.inverted else Qt.CheckState.Unchecked)
+                inverted.setToolTip("Ticked: the value was given parent in child; the chain uses its inverse.")
+                for column, item in enumerate((number, on, name, value, inverted)):
+                    if not step.enabled and column != ON_COLUMN:
+                        item.setForeground(Qt.GlobalColor.gray)
+                    self.table.setItem(i, column, item)
+            if row is not None and row < len(chain):
+                self.table.selectRow(row)
+            self.frames_box.setChecked(self.model.show_chain_frames)
+        finally:
+            self._rendering = False
+        self.product_label.setText(self._result_text())
+        self._update_buttons()
+
+    def _result_text(self) -> str:
+        chain = self.model.chain
+        preset = self.model.words_preset
+        frames = chain.frames()
+        if not chain.steps:
+            return "No steps yet. Add the first step (the one fixed to the reference) from the editors or from " \
+                   "pasted text."
+        if not frames:
+            return "Every step is switched off: the product is the identity (the body is the reference)."
+        product = chain.product()
+        lines = [f"<b>Product</b> body {describe.ARROW} reference: {axis_angle_summary(product)}"]
+        lines.extend(f"&nbsp;&nbsp;{w}" for w in describe.describe_orientation(product, preset))
+        for k, frame in enumerate(frames, start=1):
+            lines.append(f"<b>Frame {k}</b>, after “{html.escape(frame.name)}”: {axis_angle_summary(frame.orientation)}")
+            lines.append("&nbsp;&nbsp;" + "; ".join(describe.describe_axes(frame.orientation, preset)))
+        return "<br>".join(lines)
+
+    def _update_buttons(self) -> None:
+        row = self.selected_row()
+        count = len(self.model.chain)
+        has_row = row is not None
+        self.up_button.setEnabled(has_row and row > 0)
+        self.down_button.setEnabled(has_row and row < count - 1)
+        self.invert_button.setEnabled(has_row)
+        self.delete_button.setEnabled(has_row)
+        self.enable_button.setEnabled(has_row)
+        if has_row:
+            self.enable_button.setText("Switch off" if self.model.chain.steps[row].enabled else "Switch on")
+        self.set_from_editors.setEnabled(has_row)
+        has_text = self.pasted.orientation() is not None
+        self.add_from_text.setEnabled(has_text)
+        self.set_from_text.setEnabled(has_text and has_row)
+        self.make_mount_button.setEnabled(count > 0)
