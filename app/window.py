@@ -23,8 +23,11 @@ from app.model import PREFERENCES, Change, SessionModel
 from app.panels.batch_panel import BatchPanel
 from app.panels.chain_panel import ChainPanel
 from app.panels.check_panel import CheckPanel
+from app.panels.chain_panel import ChainPanel
+from app.panels.check_panel import CheckPanel
 from app.panels.decode_panel import DecodePanel
 from app.panels.gimbal_meter import GimbalMeter
+from app.panels.level_panel import LevelPanel
 from app.panels.level_panel import LevelPanel
 from app.panels.measure_panel import MeasurePanel
 from app.panels.mounts_list import MountsList
@@ -81,6 +84,9 @@ class MainWindow(QMainWindow):
         self.chain_panel = ChainPanel(model)
         self.check_panel = CheckPanel(model)
         self.level_panel = LevelPanel(model)
+        self.chain_panel = ChainPanel(model)
+        self.check_panel = CheckPanel(model)
+        self.level_panel = LevelPanel(model)
         self.scene = SceneWidget()
         self.scene.setMinimumHeight(320)
         self._scene_binding = bind_scene_to_model(self.scene, model)
@@ -106,6 +112,9 @@ class MainWindow(QMainWindow):
         # Side area: one tab per panel.
         self.side_tabs = QTabWidget()
         self.side_tabs.addTab(self.decode_panel, "Decode")
+        self.side_tabs.addTab(_scrollable(self.chain_panel), "Chain")
+        self.side_tabs.addTab(_scrollable(self.check_panel), "Check")
+        self.side_tabs.addTab(_scrollable(self.level_panel), "Level")
         self.side_tabs.addTab(_scrollable(self.chain_panel), "Chain")
         self.side_tabs.addTab(_scrollable(self.check_panel), "Check")
         self.side_tabs.addTab(_scrollable(self.level_panel), "Level")
@@ -218,6 +227,12 @@ class MainWindow(QMainWindow):
             self.copy_as_actions[key] = action
         edit_menu.addAction(self.copy_again_action)
         edit_menu.addAction(self.paste_action)
+        edit_menu.addSeparator()
+        self.snap_action = self._action("S&nap to nearest right angle",
+                                        lambda: self.model.snap_to_right_angle(origin=self), None,
+                                        "Set the selected mount to the nearest of the 24 right-angle "
+                                        "orientations (one undo step)")
+        edit_menu.addAction(self.snap_action)
         edit_menu.addSeparator()
         self.snap_action = self._action("S&nap to nearest right angle",
                                         lambda: self.model.snap_to_right_angle(origin=self), None,
