@@ -13,7 +13,7 @@ from PySide6.QtWidgets import (QAbstractSpinBox, QApplication, QComboBox, QFileD
                                QHBoxLayout, QLabel, QLineEdit, QMainWindow, QMessageBox, QPlainTextEdit,
                                QScrollArea, QSpinBox, QSplitter, QTabWidget, QTextEdit, QVBoxLayout, QWidget)
 
-from app import about, copy_as, recent_files, recovery, settings
+from app import about, copy_as, settings
 from app.editors.angles_editor import AnglesEditor
 from app.editors.axis_angle_editor import AxisAngleEditor
 from app.editors.base import EditorBase
@@ -23,11 +23,8 @@ from app.model import PREFERENCES, Change, SessionModel
 from app.panels.batch_panel import BatchPanel
 from app.panels.chain_panel import ChainPanel
 from app.panels.check_panel import CheckPanel
-from app.panels.chain_panel import ChainPanel
-from app.panels.check_panel import CheckPanel
 from app.panels.decode_panel import DecodePanel
 from app.panels.gimbal_meter import GimbalMeter
-from app.panels.level_panel import LevelPanel
 from app.panels.level_panel import LevelPanel
 from app.panels.measure_panel import MeasurePanel
 from app.panels.mounts_list import MountsList
@@ -84,13 +81,9 @@ class MainWindow(QMainWindow):
         self.chain_panel = ChainPanel(model)
         self.check_panel = CheckPanel(model)
         self.level_panel = LevelPanel(model)
-        self.chain_panel = ChainPanel(model)
-        self.check_panel = CheckPanel(model)
-        self.level_panel = LevelPanel(model)
         self.scene = SceneWidget()
         self.scene.setMinimumHeight(320)
         self._scene_binding = bind_scene_to_model(self.scene, model)
-        self.measure_panel.fit_changed.connect(self.scene.set_measured_points)
         self.editors: list[EditorBase] = [self.axis_angle, self.quaternion, self.matrix, self.angles]
         self.current_editor: EditorBase = self.axis_angle
 
@@ -115,9 +108,6 @@ class MainWindow(QMainWindow):
         self.side_tabs.addTab(_scrollable(self.chain_panel), "Chain")
         self.side_tabs.addTab(_scrollable(self.check_panel), "Check")
         self.side_tabs.addTab(_scrollable(self.level_panel), "Level")
-        self.side_tabs.addTab(_scrollable(self.chain_panel), "Chain")
-        self.side_tabs.addTab(_scrollable(self.check_panel), "Check")
-        self.side_tabs.addTab(_scrollable(self.level_panel), "Level")
         self.side_tabs.addTab(_scrollable(self.measure_panel), "Measure")
         self.side_tabs.addTab(_scrollable(self.batch_panel), "Batch")
 
@@ -138,7 +128,6 @@ class MainWindow(QMainWindow):
         self.statusBar().showMessage("Ready. Safety: verify against the governing drawing and procedure.")
 
         model.changed.connect(self._on_model_changed)
-        self.recovery = recovery.Recovery(model, parent=self)  # autosave after edits pause; see recovery.py
         model.undo_stack.cleanChanged.connect(self._update_title)
         QApplication.instance().focusChanged.connect(self._track_editor)
         self._update_title()
@@ -190,11 +179,7 @@ class MainWindow(QMainWindow):
         self.save_action = self._action("&Save", self.save_file, keys.Save)
         self.save_as_action = self._action("Save &as…", self.save_file_as, keys.SaveAs)
         self.quit_action = self._action("&Quit", self.close, keys.Quit)
-        file_menu.addAction(self.open_action)
-        self.recent_menu = file_menu.addMenu("Recent &files")
-        self.recent_menu.setToolTipsVisible(True)
-        self.recent_menu.aboutToShow.connect(self._fill_recent_menu)
-        for action in (self.save_action, self.save_as_action):
+        for action in (self.open_action, self.save_action, self.save_as_action):
             file_menu.addAction(action)
         file_menu.addSeparator()
         file_menu.addAction(self.quit_action)
@@ -227,12 +212,6 @@ class MainWindow(QMainWindow):
             self.copy_as_actions[key] = action
         edit_menu.addAction(self.copy_again_action)
         edit_menu.addAction(self.paste_action)
-        edit_menu.addSeparator()
-        self.snap_action = self._action("S&nap to nearest right angle",
-                                        lambda: self.model.snap_to_right_angle(origin=self), None,
-                                        "Set the selected mount to the nearest of the 24 right-angle "
-                                        "orientations (one undo step)")
-        edit_menu.addAction(self.snap_action)
         edit_menu.addSeparator()
         self.snap_action = self._action("S&nap to nearest right angle",
                                         lambda: self.model.snap_to_right_angle(origin=self), None,
@@ -351,24 +330,8 @@ class MainWindow(QMainWindow):
             self.statusBar().showMessage(f"Not opened: {exc}")
             return False
         self.model.load_session(session, file_path=str(path))
-        recent_files.add_recent(str(path), self._settings)
         self.statusBar().showMessage(f"Opened {path}: {len(session.mounts)} mounts.")
         return True
-
-    def _fill_recent_menu(self) -> None:
-        menu = self.recent_menu
-        menu.clear()
-        paths, dropped = recent_files.load_recent(self._settings)
-        for number, path in enumerate(paths, 1):
-            action = menu.addAction(f"&{number} {Path(path).name}")
-            action.setToolTip(path)
-            action.setStatusTip(path)
-            action.triggered.connect(lambda _=False, p=path: self.open_file(p))
-        if not paths:
-            menu.addAction("(none yet)").setEnabled(False)
-        if dropped:
-            names = ", ".join(Path(p).name for p in dropped)
-            self.statusBar().showMessage(f"Dropped from Recent files (no longer found): {names}")
 
     def save_file(self) -> bool:
         if not self.model.file_path:
@@ -391,8 +354,7 @@ class MainWindow(QMainWindow):
             QMessageBox.warning(self, "Cannot save session", f"{path}: {exc}")
             return False
         self.model.file_path = str(path)
-        self.model.undo_stack.setClean()  # also removes the recovery file
-        recent_files.add_recent(str(path), self._settings)
+        self.model.undo_stack.setClean()
         self._update_title()
         self.statusBar().showMessage(f"Saved {path}.")
         return True
@@ -410,7 +372,6 @@ class MainWindow(QMainWindow):
             return
         settings.save_window_state(self.saveGeometry(), self.saveState(), self._settings)
         settings.save_preferences(self.model.preferences, self._settings)
-        self.recovery.discard()  # a clean close: nothing to recover next time
         event.accept()
 
 
@@ -426,20 +387,15 @@ def make_window(session: Session | None = None) -> MainWindow:
     return MainWindow(model)
 
 
-def run_window(path: str | None = None) -> int:
-    """Show the window on the session file `path` (or the demo session) and run until it closes. A
-    recovery file left by a run that crashed is offered first."""
+def run_window() -> int:
+    """Show the window on the demo session and run until it closes."""
     started = time.perf_counter()
     app = QApplication.instance() or QApplication(sys.argv)
     app.setOrganizationName(settings.ORGANISATION)
     app.setApplicationName(settings.APPLICATION)
     window = make_window()
     window.show()
-    if path is not None and window.open_file(path):
-        message = f"Opened {path} in {time.perf_counter() - started:.2f} s."
-    else:
-        message = f"Demo session (an invented scenario) opened in {time.perf_counter() - started:.2f} s."
     QTimer.singleShot(0, lambda: window.statusBar().showMessage(
-        f"{message} Verify every value against the governing drawing and procedure."))
-    QTimer.singleShot(0, lambda: recovery.offer_recovery(window))
+        f"Demo session (an invented scenario) opened in {time.perf_counter() - started:.2f} s. "
+        "Verify every value against the governing drawing and procedure."))
     return app.exec()
