@@ -13,7 +13,7 @@ from PySide6.QtWidgets import (QAbstractSpinBox, QApplication, QComboBox, QFileD
                                QHBoxLayout, QLabel, QLineEdit, QMainWindow, QMessageBox, QPlainTextEdit,
                                QScrollArea, QSpinBox, QSplitter, QTabWidget, QTextEdit, QVBoxLayout, QWidget)
 
-from app import about, copy_as, settings
+from app import about, copy_as, recent_files, recovery, settings
 from app.editors.angles_editor import AnglesEditor
 from app.editors.axis_angle_editor import AxisAngleEditor
 from app.editors.base import EditorBase
@@ -84,6 +84,7 @@ class MainWindow(QMainWindow):
         self.scene = SceneWidget()
         self.scene.setMinimumHeight(320)
         self._scene_binding = bind_scene_to_model(self.scene, model)
+        self.measure_panel.fit_changed.connect(self.scene.set_measured_points)
         self.editors: list[EditorBase] = [self.axis_angle, self.quaternion, self.matrix, self.angles]
         self.current_editor: EditorBase = self.axis_angle
 
@@ -128,6 +129,7 @@ class MainWindow(QMainWindow):
         self.statusBar().showMessage("Ready. Safety: verify against the governing drawing and procedure.")
 
         model.changed.connect(self._on_model_changed)
+        self.recovery = recovery.Recovery(model, parent=self)  # autosave after edits pause; see recovery.py
         model.undo_stack.cleanChanged.connect(self._update_title)
         QApplication.instance().focusChanged.connect(self._track_editor)
         self._update_title()
@@ -179,7 +181,11 @@ class MainWindow(QMainWindow):
         self.save_action = self._action("&Save", self.save_file, keys.Save)
         self.save_as_action = self._action("Save &as…", self.save_file_as, keys.SaveAs)
         self.quit_action = self._action("&Quit", self.close, keys.Quit)
-        for action in (self.open_action, self.save_action, self.save_as_action):
+        file_menu.addAction(self.open_action)
+        self.recent_menu = file_menu.addMenu("Recent &files")
+        self.recent_menu.setToolTipsVisible(True)
+        self.recent_menu.aboutToShow.connect(self._fill_recent_menu)
+        for action in (self.save_action, self.save_as_action):
             file_menu.addAction(action)
         file_menu.addSeparator()
         file_menu.addAction(self.quit_action)
@@ -330,8 +336,24 @@ class MainWindow(QMainWindow):
             self.statusBar().showMessage(f"Not opened: {exc}")
             return False
         self.model.load_session(session, file_path=str(path))
+        recent_files.add_recent(str(path), self._settings)
         self.statusBar().showMessage(f"Opened {path}: {len(session.mounts)} mounts.")
         return True
+
+    def _fill_recent_menu(self) -> None:
+        menu = self.recent_menu
+        menu.clear()
+        paths, dropped = recent_files.load_recent(self._settings)
+        for number, path in enumerate(paths, 1):
+            action = menu.addAction(f"&{number} {Path(path).name}")
+            action.setToolTip(path)
+            action.setStatusTip(path)
+            action.triggered.connect(lambda _=False, p=path: self.open_file(p))
+        if not paths:
+            menu.addAction("(none yet)").setEnabled(False)
+        if dropped:
+            names = ", ".join(Path(p).name for p in dropped)
+            self.statusBar().showMessage(f"Dropped from Recent files (no longer found): {names}")
 
     def save_file(self) -> bool:
         if not self.model.file_path:
@@ -354,7 +376,8 @@ class MainWindow(QMainWindow):
             QMessageBox.warning(self, "Cannot save session", f"{path}: {exc}")
             return False
         self.model.file_path = str(path)
-        self.model.undo_stack.setClean()
+        self.model.undo_stack.setClean()  # also removes the recovery file
+        recent_files.add_recent(str(path), self._settings)
         self._update_title()
         self.statusBar().showMessage(f"Saved {path}.")
         return True
@@ -372,6 +395,7 @@ class MainWindow(QMainWindow):
             return
         settings.save_window_state(self.saveGeometry(), self.saveState(), self._settings)
         settings.save_preferences(self.model.preferences, self._settings)
+        self.recovery.discard()  # a clean close: nothing to recover next time
         event.accept()
 
 
@@ -387,15 +411,20 @@ def make_window(session: Session | None = None) -> MainWindow:
     return MainWindow(model)
 
 
-def run_window() -> int:
-    """Show the window on the demo session and run until it closes."""
+def run_window(path: str | None = None) -> int:
+    """Show the window on the session file `path` (or the demo session) and run until it closes. A
+    recovery file left by a run that crashed is offered first."""
     started = time.perf_counter()
     app = QApplication.instance() or QApplication(sys.argv)
     app.setOrganizationName(settings.ORGANISATION)
     app.setApplicationName(settings.APPLICATION)
     window = make_window()
     window.show()
+    if path is not None and window.open_file(path):
+        message = f"Opened {path} in {time.perf_counter() - started:.2f} s."
+    else:
+        message = f"Demo session (an invented scenario) opened in {time.perf_counter() - started:.2f} s."
     QTimer.singleShot(0, lambda: window.statusBar().showMessage(
-        f"Demo session (an invented scenario) opened in {time.perf_counter() - started:.2f} s. "
-        "Verify every value against the governing drawing and procedure."))
+        f"{message} Verify every value against the governing drawing and procedure."))
+    QTimer.singleShot(0, lambda: recovery.offer_recovery(window))
     return app.exec()
