@@ -14,6 +14,8 @@ so the fitted nominal points land on the drawn part when they lie on its faces. 
 vectors, no length) are drawn at the tip of a unit axis (s = 1, t = 0). Residuals are a small fraction of
 the part, so each residual vector is drawn `factor` times its length; the factor is a 1-2-5 step chosen
 so the largest residual draws about RESIDUAL_DRAWN long, and the legend says it ("residuals ×200").
+The legend sits in the top-right corner: in the default view the reference axis labels fall in the
+bottom corners, and the top-right one is otherwise used only while a sweep is replayed.
 """
 
 from __future__ import annotations
@@ -96,19 +98,16 @@ class MeasuredPoints:
         if self.fit is None:
             return []
         unit = "" if self.fit.method == "directions" else f" {self.fit.unit}"
-        lines = [("\u25cf  fitted nominal points (R \u00b7 p + t)", FITTED_RGB)]
-        if self.fit.residuals is not None:
-            largest = float(np.max(np.linalg.norm(self.fit.residuals, axis=1)))
-            size = f"{largest:.3g}{unit}" if unit else f"{math.degrees(2 * math.asin(min(largest / 2, 1))):.3g}\u00b0"
-            lines.append((f"\u2014  residuals {factor_text(self.factor)} (largest {size}), "
-                          "measured point at the tip", MEASURED_RGB))
-        else:
-            lines = [("\u25cf  measured points", MEASURED_RGB)]
+        scale = "" if self.fit.method == "directions" else f" (1{unit} = {self.scale:.2g} axis lengths)"
+        if self.fit.residuals is None:
+            return [(f"\u25cf  measured points{scale}", MEASURED_RGB)]
+        largest = float(np.max(np.linalg.norm(self.fit.residuals, axis=1)))
+        size = f"{largest:.3g}{unit}" if unit else f"{math.degrees(2 * math.asin(min(largest / 2, 1))):.3g}\u00b0"
+        lines = [(f"\u25cf  fitted nominal points{scale}", FITTED_RGB),
+                 (f"\u2014  residuals {factor_text(self.factor)} to the measured points (largest {size})",
+                  MEASURED_RGB)]
         if self.fit.flagged:
-            lines.append(("\u25ce  flagged: look at these points again", FLAGGED_RGB))
-        if self.fit.method != "directions":
-            lines.append((f"   points drawn 1{unit} = {self.scale:.3g} scene units (axes are 1)",
-                          palette.LABEL_TEXT_RGB))
+            lines.append(("\u25ce  flagged: measure these points again", FLAGGED_RGB))
         return lines
 
     # --- drawing ------------------------------------------------------------------------------------
@@ -119,7 +118,7 @@ class MeasuredPoints:
             for item in (self.vectors, self.rings, self.fitted, self.measured):
                 item.setVisible(False)
             self._labels_off(0)
-            self._labels.set_panel("measured", "bottom-right", [], visible=False)
+            self._labels.set_panel("measured", "top-right", [], visible=False)
             return
         measured = np.asarray(fit.measured, dtype=float)
         fitted = None if fit.fitted is None else np.asarray(fit.fitted, dtype=float)
@@ -161,7 +160,7 @@ class MeasuredPoints:
             self._labels.set_label(f"flag{k}", pos=shown_points[i] + LABEL_RISE, text=f"row {row} flagged", rgb=FLAGGED_RGB,
                                    bold=True, visible=True)
         self._labels_off(min(len(flagged), MAX_FLAG_LABELS))
-        self._labels.set_panel("measured", "bottom-right", self.legend_lines())
+        self._labels.set_panel("measured", "top-right", self.legend_lines())
 
     def _labels_off(self, start: int) -> None:
         for k in range(start, MAX_FLAG_LABELS):

@@ -89,7 +89,8 @@ def test_a_residual_vector_is_drawn_where_the_scene_projects_it(scene):
         assert not _bright_white(empty, along)          # ...and nothing white was there before
     beside = scene.project(base + 0.5 * (tip - base) + np.array([0.0, -0.08, 0.0]), (W, H))
     assert not _bright_white(image, beside)             # and not a blob: off the line it is dark
-    assert any("residuals \u00d7200 (largest 0.112 mm)" in text for text, _ in item.legend_lines())
+    assert any("residuals \u00d7200 to the measured points (largest 0.112 mm)" in text
+               for text, _ in item.legend_lines())
 
 
 def test_flagged_point_is_ringed_and_none_hides_everything(scene):
@@ -117,4 +118,4 @@ def test_points_far_from_the_part_are_drawn_smaller_to_stay_in_view(scene):
     item = scene.measured_points
     assert item.scale < 0.45 / 60
     assert np.max(np.linalg.norm(item.to_scene(fit.fitted), axis=1)) == pytest.approx(1.25)
-    assert any("1 mm = " in text for text, _ in item.legend_lines())
+    assert any("(1 mm = " in text and "axis lengths)" in text for text, _ in item.legend_lines())
