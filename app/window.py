@@ -106,11 +106,11 @@ class MainWindow(QMainWindow):
         # Side area: one tab per panel.
         self.side_tabs = QTabWidget()
         self.side_tabs.addTab(self.decode_panel, "Decode")
+        self.side_tabs.addTab(_scrollable(self.measure_panel), "Measure")
+        self.side_tabs.addTab(_scrollable(self.batch_panel), "Batch")
         self.side_tabs.addTab(_scrollable(self.chain_panel), "Chain")
         self.side_tabs.addTab(_scrollable(self.check_panel), "Check")
         self.side_tabs.addTab(_scrollable(self.level_panel), "Level")
-        self.side_tabs.addTab(_scrollable(self.measure_panel), "Measure")
-        self.side_tabs.addTab(_scrollable(self.batch_panel), "Batch")
 
         splitter = QSplitter(Qt.Orientation.Horizontal)
         splitter.addWidget(self.mounts)
