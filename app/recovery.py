@@ -161,6 +161,14 @@ def remove(path: Path) -> None:
             pass
 
 
+def _local_time(iso_text: str) -> str:
+    """'2026-12-01T17:20:03+00:00' as the local wall-clock time '2026-12-01 18:20'."""
+    try:
+        return datetime.datetime.fromisoformat(iso_text).astimezone().strftime("%Y-%m-%d %H:%M")
+    except ValueError:
+        return iso_text
+
+
 def offer_recovery(window, folder: Path | None = None) -> bool:
     """Ask whether to restore the newest crashed run's session into `window`; True if restored. The
     recovery file is removed either way once the question is answered (restored: the window's own
@@ -172,7 +180,7 @@ def offer_recovery(window, folder: Path | None = None) -> bool:
         return False
     run = runs[0]
     what = f"“{Path(run.of).name}”" if run.of else "a session that was never saved"
-    when = f" (last autosaved {run.written.replace('T', ' ')})" if run.written else ""
+    when = f" (last autosaved {_local_time(run.written)})" if run.written else ""
     answer = QMessageBox.question(
         window, "Restore unsaved changes?",
         f"Framewright did not close normally last time. Unsaved changes to {what} were kept{when}.\n\n"
