@@ -43,7 +43,8 @@ def test_autosave_waits_for_the_edits_to_pause_then_writes_the_session(qtbot, fo
     qtbot.wait(400)
     assert len(writes) == 1                               # three quick edits, one write
     kept = load_session(saver.path)
-    assert kept.mounts[model.selected_index].orientation == Orientation.from_axis_angle((0, 0, 1), 30)
+    assert kept.mounts[model.selected_index].orientation == model.current_orientation()   # bit for bit
+    assert model.current_orientation().isclose(Orientation.from_axis_angle((0, 0, 1), 30), atol=1e-15)
     assert kept.extra[recovery.MARK]["of"] is None
     saver.discard()
 
