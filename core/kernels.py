@@ -128,9 +128,18 @@ def normalize_quaternions(q):
     """Unit quaternions and the norms they had. A zero quaternion is refused."""
     q = np.asarray(q, dtype=np.float64)
     norms = np.sqrt(np.einsum("...i,...i->...", q, q))
-    if np.any(norms == 0):
-        raise InvalidInputError("quaternion of zero length; expected a non-zero (w, x, y, z)")
-    return q / norms[..., None], norms
+    extreme = ~((norms > 1e-150) & (norms < 1e150))
+    if np.any(extreme):
+        # Scale by the largest component first, so 1e200 or 1e-200 neither overflows nor underflows.
+        scale = np.abs(q).max(axis=-1)
+        if np.any(scale == 0):
+            raise InvalidInputError("quaternion of zero length; expected a non-zero (w, x, y, z)")
+        q = np.where(extreme[..., None], q / np.where(extreme, scale, 1.0)[..., None], q)
+        lengths = np.sqrt(np.einsum("...i,...i->...", q, q))
+        return q / lengths[..., None], np.where(extreme, scale * lengths, norms)
+    # A quaternion already unit to the last bit is kept exactly as it is, so reading a saved value back
+    # (or normalising twice) never moves it.
+    return q / np.where(np.abs(norms - 1.0) <= 4.5e-16, 1.0, norms)[..., None], norms
 
 
 @_in_slices(1,)
@@ -138,16 +147,16 @@ def canonical_quaternions(q):
     """The sign of q that CONVENTIONS.md calls canonical: w > 0, or w = 0 and the first non-zero of
     x, y, z positive. q and -q are the same orientation; this picks one spelling."""
     q = np.asarray(q, dtype=np.float64)
+    # A half turn computed in floating point leaves w, and often an axis component, at about 1e-16 (cos(pi/2)
+    # is not 0): treat those as the zeros they are, so the axis gets the canonical sign and no rounding dust
+    # decides it. Moves the orientation by < 3e-15 rad.
+    half_turn = np.abs(q[..., 0]) <= _HALF_TURN_W
+    q = np.where(half_turn[..., None] & (np.abs(q) <= _HALF_TURN_W), 0.0, q)
     w, x, y, z = _parts(q)
-    # A half turn computed in floating point leaves w at about 1e-16 (cos(pi/2) is not 0): treat that as
-    # the half turn it is (w = 0), so its axis gets the canonical sign. Moves it by < 3e-15 rad.
-    half_turn = np.abs(w) <= _HALF_TURN_W
     first_vector = np.where(x != 0, x, np.where(y != 0, y, z))
     flip = np.where(half_turn, first_vector < 0, w < 0)
-    out = np.where(flip[..., None], -q, q)
-    out[..., 0] = np.where(half_turn, 0.0, out[..., 0])
     # Adding 0.0 turns any -0.0 into +0.0, so no "-0" ever reaches a screen.
-    return out + 0.0
+    return np.where(flip[..., None], -q, q) + 0.0
 
 
 @_in_slices(1, 1)
@@ -360,9 +369,11 @@ def axis_angles_to_quaternions(axis, angle):
     accepted only with a zero angle, where it means "no rotation"."""
     axis = np.asarray(axis, dtype=np.float64)
     angle = np.asarray(angle, dtype=np.float64)
-    length = np.linalg.norm(axis, axis=-1)
-    if np.any((length == 0) & (angle != 0)):
+    scale = np.abs(axis).max(axis=-1)   # scaled first: an axis of 1e200 neither overflows nor is lost
+    if np.any((scale == 0) & (angle != 0)):
         raise InvalidInputError("rotation axis of zero length; expected a non-zero direction (x, y, z)")
+    axis = axis / np.where(scale > 0, scale, 1.0)[..., None]
+    length = np.linalg.norm(axis, axis=-1)
     unit = axis / np.where(length > 0, length, 1.0)[..., None]
     half = 0.5 * angle
     q = np.empty(np.broadcast_shapes(unit.shape[:-1], angle.shape) + (4,), dtype=np.float64)

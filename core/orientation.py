@@ -17,6 +17,23 @@ from core.sequences import parse_sequence
 
 # A quaternion or axis whose length is off by more than this was not meant to be unit length: say so.
 _UNIT_NOTICE = 1e-9
+# Angles beyond a million turns are not orientations anyone meant (a lost decimal point, a unit mix-up),
+# and cos/sin of such arguments have lost their low digits: refuse them.
+_LARGEST_ANGLE_DEG = 3.6e8
+
+
+def _check_angle_size(values, degrees, what):
+    largest = float(np.abs(values).max()) * (1.0 if degrees else 180.0 / np.pi)
+    if largest > _LARGEST_ANGLE_DEG:
+        raise InvalidInputError(
+            f"{what}: {largest:.3g}° is more than a million turns; expected an angle in "
+            f"{'degrees' if degrees else 'radians'} (is a decimal point missing?)")
+
+
+def _vector_length(v):
+    """Euclidean length that neither overflows nor underflows (the vector is scaled first)."""
+    scale = float(np.abs(v).max())
+    return 0.0 if scale == 0 else scale * float(np.linalg.norm(v / scale))
 
 
 @dataclass(frozen=True)
@@ -89,7 +106,7 @@ class Orientation:
             raise InvalidInputError(f"quaternion: expected 4 numbers, got shape {q.shape}")
         if scalar_last:
             q = np.roll(q, 1)
-        norm = float(np.linalg.norm(q))
+        norm = _vector_length(q)
         if norm == 0:
             raise InvalidInputError("quaternion of zero length; expected a non-zero (w, x, y, z)")
         notes = (f"normalised from norm {norm:.10g}",) if abs(norm - 1.0) > _UNIT_NOTICE else ()
@@ -146,7 +163,8 @@ class Orientation:
         if axis.shape != (3,):
             raise InvalidInputError(f"axis: expected 3 numbers, got shape {axis.shape}")
         angle = float(kernels.check_array(angle, (), "angle"))
-        length = float(np.linalg.norm(axis))
+        _check_angle_size(angle, degrees, "angle")
+        length = _vector_length(axis)
         if length == 0 and angle != 0:
             raise InvalidInputError("rotation axis of zero length; expected a non-zero direction (x, y, z)")
         notes = ()
@@ -164,6 +182,7 @@ class Orientation:
         rv = kernels.check_array(rotation_vector, (3,), "rotation vector")
         if rv.shape != (3,):
             raise InvalidInputError(f"rotation vector: expected 3 numbers, got shape {rv.shape}")
+        _check_angle_size(_vector_length(rv), degrees, "rotation vector")
         return cls._from_kernel(kernels.rotation_vectors_to_quaternions(_angle_in(rv, degrees)))
 
     def as_rotation_vector(self, degrees=True):
@@ -179,6 +198,7 @@ class Orientation:
         values = kernels.check_array(angles, (3,), "angles")
         if values.shape != (3,):
             raise InvalidInputError(f"angles: expected 3 numbers, got shape {values.shape}")
+        _check_angle_size(values, degrees, "angles")
         return cls._from_kernel(kernels.angles_to_quaternions(_angle_in(values, degrees), sequence, intrinsic))
 
     def as_angles(self, sequence, intrinsic=True, degrees=True):

@@ -64,3 +64,38 @@ def test_rotation_vector_of_many_turns_gives_a_unit_quaternion():
     import numpy as np
     o = Orientation.from_rotation_vector([7e6, -3e6, 2e6])
     assert abs(np.linalg.norm(o.quaternion) - 1.0) <= 4e-16
+
+
+@pytest.mark.parametrize("call", [
+    lambda: Orientation.from_quaternion([1e200, 0, 0, 0]),
+    lambda: Orientation.from_quaternion([1e-200, 1e-200, 0, 0]),
+    lambda: Orientation.from_axis_angle([1e200, 1e200, 0], 30),
+])
+def test_extreme_magnitudes_still_give_a_unit_quaternion(call):
+    import numpy as np
+    o = call()
+    assert np.all(np.isfinite(o.quaternion)) and abs(np.linalg.norm(o.quaternion) - 1) <= 4e-16
+
+
+def test_axis_of_huge_length_keeps_its_direction():
+    import numpy as np
+    axis, angle = Orientation.from_axis_angle([1e200, 1e200, 0], 30).as_axis_angle()
+    assert np.allclose(axis, [np.sqrt(0.5), np.sqrt(0.5), 0], atol=1e-15) and abs(angle - 30) < 1e-12
+
+
+@pytest.mark.parametrize("call", [
+    lambda: Orientation.from_rotation_vector([1e200, 0, 0]),
+    lambda: Orientation.from_angles("ZYX", [1e12, 0, 0]),
+    lambda: Orientation.from_axis_angle([0, 0, 1], 4e8),
+])
+def test_angles_of_more_than_a_million_turns_are_refused(call):
+    with pytest.raises(InvalidInputError, match="million turns"):
+        call()
+
+
+def test_normalising_a_unit_quaternion_again_changes_no_bit():
+    import numpy as np
+    from tests.core.sampling import random_quaternions
+    for q in random_quaternions(2000, seed=41):
+        once = Orientation.from_quaternion(q)
+        assert Orientation.from_quaternion(once.quaternion) == once

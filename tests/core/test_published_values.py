@@ -121,3 +121,35 @@ def test_parallel_part_stays_fixed_and_perpendicular_part_sweeps_its_circle():
     rotated = o.apply(r)
     assert np.allclose(np.dot(rotated, n) * n, r_par, atol=1e-15)
     assert np.linalg.norm(rotated - r_par) == pytest.approx(np.linalg.norm(np.cross(n, r)), abs=1e-15)
+
+
+@pytest.mark.parametrize("build", [
+    lambda: Orientation.from_angles("XYZ", [-180, 0, 180]),           # 180° about y, from angles
+    lambda: Orientation.from_angles("ZYX", [180, 0, 0]),              # 180° about z
+    lambda: Orientation.from_matrix(np.diag([-1.0, 1.0, -1.0])),      # 180° about y, from a matrix
+    lambda: Orientation.from_rotation_vector([0, -180, 0]),
+])
+def test_half_turns_from_any_representation_have_the_canonical_axis(build):
+    # CONVENTIONS.md: at 180° the axis whose first non-zero component is positive; rounding dust (about
+    # 1e-16 from cos(90°)) must not count as "non-zero".
+    axis, angle = build().as_axis_angle()
+    assert angle == pytest.approx(180.0, abs=1e-12)
+    first = next(c for c in axis if abs(c) > 1e-12)
+    assert first > 0
+    assert np.all((np.abs(axis) > 1e-12) | (axis == 0))   # no dust left in the axis shown
+
+
+def test_many_half_turns_built_from_angles_are_canonical():
+    # A grid of angle triples that give half turns: 0 or ±180 in each place (common practice: two half
+    # turns about perpendicular axes make the third).
+    values = [-180.0, 0.0, 180.0]
+    for sequence in ("XYZ", "ZYX", "ZXZ"):
+        for a in values:
+            for b in values:
+                for c in values:
+                    o = Orientation.from_angles(sequence, [a, b, c])
+                    axis, angle = o.as_axis_angle()
+                    if angle < 90:
+                        continue
+                    first = next(v for v in axis if v != 0)
+                    assert first > 0, (sequence, a, b, c, axis)
