@@ -3,14 +3,22 @@ sequence and the other-convention spelling."""
 
 import numpy as np
 import pytest
+from scipy.spatial.transform import Rotation
 
 from core import Orientation
 from core.kernels import ALL_SEQUENCES, PROPER_EULER, TAIT_BRYAN
 from core.sequences import PRESETS, best_conditioned_sequence, gimbal_margin, other_convention
 
 
-def test_twelve_sequences():
-    assert len(set(ALL_SEQUENCES)) == 12 and len(TAIT_BRYAN) == 6 and len(PROPER_EULER) == 6
+def test_twelve_sequences_are_the_ones_scipy_accepts():
+    # Reference: SciPy's Rotation.from_euler accepts exactly the sequences without an axis repeated in a
+    # row; ours are the six Tait–Bryan and six proper Euler ones (Henderson 1977, from memory).
+    from itertools import product
+    valid = ["".join(p) for p in product("XYZ", repeat=3) if p[0] != p[1] and p[1] != p[2]]
+    assert sorted(ALL_SEQUENCES) == sorted(valid)
+    assert all(s[0] != s[2] for s in TAIT_BRYAN) and all(s[0] == s[2] for s in PROPER_EULER)
+    for s in ALL_SEQUENCES:
+        Rotation.from_euler(s, [0.1, 0.2, 0.3])
 
 
 @pytest.mark.parametrize("pitch", [0.0, 30.0, 80.0, 89.0, 89.9, -45.0])
@@ -18,6 +26,9 @@ def test_margin_and_amplification_for_yaw_pitch_roll(pitch):
     # CONVENTIONS.md: margin = 90° − |θ2| for Tait–Bryan; amplification about 1 / sin(margin).
     o = Orientation.from_angles("ZYX", [12, pitch, -7])
     m = gimbal_margin(o, "ZYX")
+    # The middle angle as SciPy's Rotation.as_euler finds it for the same matrix.
+    theta2 = Rotation.from_matrix(o.as_matrix()).as_euler("ZYX", degrees=True)[1]
+    assert m.margin_deg == pytest.approx(90 - abs(theta2), abs=1e-9)
     assert m.margin_deg == pytest.approx(90 - abs(pitch), abs=1e-9)
     assert m.amplification == pytest.approx(1 / np.sin(np.radians(90 - abs(pitch))), rel=1e-9)
     assert not m.locked
@@ -27,7 +38,8 @@ def test_margin_and_amplification_for_yaw_pitch_roll(pitch):
 def test_margin_for_proper_euler(middle):
     # CONVENTIONS.md: margin = min(θ2, 180° − θ2) for proper Euler sequences.
     o = Orientation.from_angles("ZXZ", [40, middle, 25])
-    assert gimbal_margin(o, "ZXZ").margin_deg == pytest.approx(min(middle, 180 - middle), abs=1e-9)
+    theta2 = Rotation.from_matrix(o.as_matrix()).as_euler("ZXZ", degrees=True)[1]   # SciPy's middle angle
+    assert gimbal_margin(o, "ZXZ").margin_deg == pytest.approx(min(theta2, 180 - theta2), abs=1e-9)
 
 
 def test_lock_is_reported_with_infinite_amplification():
@@ -49,10 +61,18 @@ def test_other_convention_spells_the_same_orientation():
     assert a.isclose(Orientation.from_angles(seq, angles, intrinsic=intrinsic), 1e-15)
 
 
-def test_presets():
-    # CONVENTIONS.md: yaw–pitch–roll = intrinsic ZYX; roll–pitch–yaw about fixed axes = extrinsic XYZ.
-    assert PRESETS["yaw-pitch-roll"][:2] == ("ZYX", True)
-    assert PRESETS["roll-pitch-yaw (fixed axes)"][:2] == ("XYZ", False)
+def test_presets_spell_the_trade_conventions():
+    # CONVENTIONS.md: yaw–pitch–roll = intrinsic ZYX (ψ, θ, φ); roll–pitch–yaw about fixed axes =
+    # extrinsic XYZ (φ, θ, ψ). Checked against SciPy's from_euler ('ZYX' intrinsic, 'xyz' extrinsic).
+    yaw, pitch, roll = 25.0, -8.0, 3.5
+    seq, intrinsic, names = PRESETS["yaw-pitch-roll"]
+    assert names == ("yaw", "pitch", "roll")
+    ours = Orientation.from_angles(seq, [yaw, pitch, roll], intrinsic=intrinsic)
+    assert np.abs(ours.as_matrix() - Rotation.from_euler("ZYX", [yaw, pitch, roll], degrees=True).as_matrix()).max() < 1e-15
+    seq, intrinsic, names = PRESETS["roll-pitch-yaw (fixed axes)"]
+    assert names == ("roll", "pitch", "yaw")
+    ours = Orientation.from_angles(seq, [roll, pitch, yaw], intrinsic=intrinsic)
+    assert np.abs(ours.as_matrix() - Rotation.from_euler("xyz", [roll, pitch, yaw], degrees=True).as_matrix()).max() < 1e-15
 
 
 @pytest.mark.parametrize("sequence", ALL_SEQUENCES)
