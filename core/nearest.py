@@ -10,6 +10,7 @@ from core import kernels
 EXACT_LIMIT = 1e-9
 NOTICE_LIMIT = 5e-3
 WARNING_LIMIT = 5e-2
+_LARGEST_ELEMENT = 10.0
 
 
 @dataclass(frozen=True)
@@ -63,6 +64,13 @@ def _locate_problem(m):
 
 def orthogonality_report(matrix):
     m = kernels.check_array(matrix, (3, 3), "matrix")
+    r, c = np.unravel_index(np.argmax(np.abs(m)), m.shape)
+    if abs(m[r, c]) > _LARGEST_ELEMENT:
+        # A rotation's elements lie in [−1, 1]; far outside, the products would overflow, and the
+        # element itself is the clearest thing to point at.
+        problem = f"row {r + 1}, column {c + 1} is {m[r, c]:.4g}; a rotation's elements lie between −1 and 1"
+        return OrthogonalityReport(float("inf"), float("nan"), np.eye(3), float("inf"), "refused",
+                                   f"refused: not a rotation: {problem}", problem)
     nearest, error, det = kernels.nearest_rotations(m)
     error, det = float(error), float(det)
     max_change = float(np.abs(nearest - m).max())

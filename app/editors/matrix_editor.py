@@ -124,8 +124,11 @@ class MatrixEditor(EditorBase):
 
     def _show_readouts(self, m) -> None:
         report = orthogonality_report(np.asarray(m, dtype=float))
-        self.error_label.setText(f"Orthogonality error {report.error:.2g}")
-        self.det_label.setText(f"Determinant {self.fmt(report.det)}")
+        # Numbers near 1e154 and beyond overflow the products: say "too large" rather than show nan or inf.
+        error = f"{report.error:.2g}" if np.isfinite(report.error) else "– (numbers too large)"
+        det = self.fmt(report.det) if np.isfinite(report.det) else "– (numbers too large)"
+        self.error_label.setText(f"Orthogonality error {error}")
+        self.det_label.setText(f"Determinant {det}")
         return report
 
     def read_orientation(self) -> Orientation | None:

@@ -72,3 +72,12 @@ def test_band_limits():
         m = base.copy()
         m[0, 0] = np.sqrt(1.0 + scale)   # makes (MᵀM − I)[0, 0] exactly `scale`
         assert orthogonality_report(m).band == band, scale
+
+
+def test_huge_elements_are_refused_naming_the_element():
+    m = np.eye(3)
+    m[1, 2] = 1e200
+    r = orthogonality_report(m)
+    assert r.band == "refused" and "row 2, column 3" in r.message
+    with pytest.raises(MatrixRefusedError, match="row 2, column 3"):
+        Orientation.from_matrix(m)
