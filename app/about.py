@@ -6,9 +6,10 @@ from importlib import metadata
 
 from PySide6.QtWidgets import QMessageBox, QWidget
 
-CAUTION = ("A wrong orientation can point a safety-relevant sensor the wrong way. Verify every value against "
-           "the governing drawing and procedure. This tool does not replace inspection by qualified "
-           "personnel; local codes and licensed practice govern.")
+from core.formats import SAFETY_CAUTION
+
+CAUTION = ("A wrong orientation can point a safety-relevant sensor the wrong way. "
+           f"{SAFETY_CAUTION[0].upper()}{SAFETY_CAUTION[1:].rstrip('.')}.")
 LICENSE = "MIT License"
 
 

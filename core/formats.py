@@ -22,6 +22,7 @@ from datetime import datetime
 
 from core.decode import DecodeHints, decode
 from core.errors import FramewrightError
+from core import sequences
 from core.sequences import gimbal_margin, parse_sequence
 
 FORMATS = (
@@ -120,17 +121,14 @@ def format_number(value: float, decimals: int | None = None) -> str:
 
 
 def spelled_sequence(sequence: str, intrinsic: bool) -> str:
-    """Z-Y'-X'' for intrinsic (the moving axes), Z-Y-X for extrinsic."""
-    a, b, c = sequence
-    return f"{a}-{b}'-{c}''" if intrinsic else f"{a}-{b}-{c}"
+    """Z-Y'-X'' for intrinsic (the moving axes), Z-Y-X for extrinsic: plain ASCII, so every copy reads
+    back in any program."""
+    return sequences.spelled_sequence(sequence, intrinsic, ascii=True)
 
 
 def _angle_names(sequence: str, intrinsic: bool) -> str:
-    if (sequence, intrinsic) == ("ZYX", True):
-        return " (yaw, pitch, roll)"
-    if (sequence, intrinsic) == ("XYZ", False):
-        return " (roll, pitch, yaw)"
-    return ""
+    names = sequences.preset_names(sequence, intrinsic)
+    return f" ({', '.join(names)})" if names else ""
 
 
 def _unit(o: FormatOptions) -> str:

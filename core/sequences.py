@@ -22,6 +22,8 @@ __all__ = [
     "is_proper_euler",
     "other_convention",
     "parse_sequence",
+    "preset_names",
+    "spelled_sequence",
 ]
 
 # Named presets the trade uses: the same matrix spelled two ways (CONVENTIONS.md).
@@ -34,6 +36,22 @@ PRESETS = {
 @functools.lru_cache(maxsize=256)
 def _parse_sequence_text(text):
     return _parse(text)
+
+
+def preset_names(sequence, intrinsic):
+    """('yaw', 'pitch', 'roll') and the like when (sequence, intrinsic) is one of the trade's presets,
+    else None."""
+    for seq, intr, names in PRESETS.values():
+        if seq == sequence and intr == intrinsic:
+            return names
+    return None
+
+
+def spelled_sequence(sequence, intrinsic, ascii=False):
+    """'Z-Y′-X″' for intrinsic (primes mark the moving axes), 'Z-Y-X' for extrinsic. ascii=True writes
+    the primes as ' and '' (for text that must read back anywhere)."""
+    primes = ("", "'", "''") if ascii else ("", "\u2032", "\u2033")
+    return "-".join(f"{a}{primes[i] if intrinsic else ''}" for i, a in enumerate(sequence))
 
 
 def parse_sequence(text):

@@ -10,17 +10,9 @@ from app.editors.base import EditorBase
 from app.editors.number_field import NumberField
 from core.errors import FramewrightError
 from core.orientation import Orientation
-from core.sequences import ALL_SEQUENCES, PRESETS, is_proper_euler, other_convention
+from core.sequences import ALL_SEQUENCES, is_proper_euler, other_convention, preset_names, spelled_sequence
 
 PRIMES = ("", "′", "″")
-
-
-def preset_names(sequence: str, intrinsic: bool) -> tuple[str, str, str] | None:
-    """yaw/pitch/roll names when (sequence, intrinsic) is one of the trade's presets."""
-    for seq, intr, names in PRESETS.values():
-        if seq == sequence and intr == intrinsic:
-            return names
-    return None
 
 
 def axis_labels(sequence: str, intrinsic: bool) -> list[str]:
@@ -34,10 +26,6 @@ def axis_labels(sequence: str, intrinsic: bool) -> list[str]:
             text += f" ({names[i]})"
         labels.append(text)
     return labels
-
-
-def spelled_sequence(sequence: str, intrinsic: bool) -> str:
-    return "-".join(f"{a}{PRIMES[i] if intrinsic else ''}" for i, a in enumerate(sequence))
 
 
 class AnglesEditor(EditorBase):

@@ -9,7 +9,7 @@ from PySide6.QtCore import QRectF, QSize, Qt
 from PySide6.QtGui import QColor, QPainter, QPen
 from PySide6.QtWidgets import QGroupBox, QLabel, QPushButton, QSizePolicy, QVBoxLayout, QWidget
 
-from app.editors.angles_editor import preset_names, spelled_sequence
+from core.sequences import preset_names, spelled_sequence
 from app.model import Change, SessionModel
 from core.orientation import Orientation
 from core.sequences import best_conditioned_sequence, gimbal_margin

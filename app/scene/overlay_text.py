@@ -6,7 +6,7 @@ from __future__ import annotations
 import numpy as np
 
 from core import describe
-from core.sequences import PRESETS
+from core.sequences import preset_names, spelled_sequence
 
 REPRESENTATIONS = ("axis-angle", "quaternion", "matrix", "rotation vector", "angles")
 REPRESENTATION_TITLES = {
@@ -28,9 +28,8 @@ def _vector(values, digits=4) -> str:
 
 
 def _sequence_words(sequence, intrinsic) -> str:
-    if intrinsic:
-        return f"intrinsic {sequence[0]}-{sequence[1]}\u2032-{sequence[2]}\u2033"
-    return f"extrinsic {sequence[0]}-{sequence[1]}-{sequence[2]} (fixed axes)"
+    spelled = spelled_sequence(sequence, intrinsic)
+    return f"intrinsic {spelled}" if intrinsic else f"extrinsic {spelled} (fixed axes)"
 
 
 def representation_lines(orientation, kind="axis-angle", sequence="ZYX", intrinsic=True) -> list[str]:
@@ -59,10 +58,7 @@ def representation_lines(orientation, kind="axis-angle", sequence="ZYX", intrins
 
 
 def _angle_names(sequence, intrinsic):
-    for seq, intr, names in PRESETS.values():
-        if seq == sequence and intr == intrinsic:
-            return names
-    return ("\u03b81", "\u03b82", "\u03b83")
+    return preset_names(sequence, intrinsic) or ("\u03b81", "\u03b82", "\u03b83")
 
 
 def orientation_panel(orientation, kind, sequence, intrinsic, preset) -> list[str]:
