@@ -16,6 +16,7 @@ import re
 import sys
 
 from core import formats
+from core.check import CheckSettings, check
 from core.decode import KINDS, DecodeHints, decode
 from core.errors import FramewrightError
 
@@ -171,10 +172,11 @@ def run_compare(args, stdin, stdout) -> int:
     nominal_readings = decode_or_refuse(read_text(args.nominal, stdin), hints, "nominal: ")
     measured_readings = decode_or_refuse(read_text(args.measured, stdin), hints, "measured: ")
     nominal, measured = nominal_readings[0], measured_readings[0]
-    # D = Nᵀ M, written in the nominal body frame (CONVENTIONS.md)
-    deviation = nominal.orientation.inverse() @ measured.orientation
-    axis, angle = deviation.as_axis_angle()
-    within = None if args.tolerance is None else bool(angle <= args.tolerance)
+    # D = Nᵀ M in the nominal body frame, judged by the same rule as the Check panel and batch files
+    result = check(nominal.orientation, measured.orientation,
+                   CheckSettings(mode="total", total_tolerance_deg=180.0 if args.tolerance is None else args.tolerance))
+    angle, axis = result.total_deg, result.axis
+    within = None if args.tolerance is None else result.passed
     warnings = []
     for name, readings in (("nominal", nominal_readings), ("measured", measured_readings)):
         if len(readings) > 1:

@@ -58,7 +58,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from core import kernels
-from core.check import CheckSettings, deviation_angles, deviation_axes, deviation_quaternions, swing_twist_angles
+from core.check import ROUNDING_ALLOWANCE_DEG, CheckSettings, deviation_angles, deviation_axes, deviation_quaternions, swing_twist_angles
 from core.errors import FramewrightError, InvalidInputError, SequenceError
 from core.nearest import WARNING_LIMIT, orthogonality_report
 from core.sequences import parse_sequence
@@ -477,7 +477,7 @@ def compute_deviations(table, settings=CheckSettings(), progress=None):
     else:
         margin = np.minimum(settings.pointing_tolerance_deg - pointing,
                             settings.roll_tolerance_deg - np.abs(roll))
-    return BatchResult(table.names, total, dev_axis, pointing, roll, margin >= 0, margin, settings,
+    return BatchResult(table.names, total, dev_axis, pointing, roll, margin >= -ROUNDING_ALLOWANCE_DEG, margin, settings,
                        table.notes)
 
 

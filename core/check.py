@@ -193,6 +193,11 @@ class CheckSettings:
         return cls(**values)
 
 
+# A figure equal to its tolerance passes. Computed figures carry rounding of about 1e-14°, so "equal" is
+# taken to a nanodegree: far below anything a bench instrument resolves, far above double rounding.
+ROUNDING_ALLOWANCE_DEG = 1e-9
+
+
 @dataclass(frozen=True)
 class Criterion:
     """One figure against its tolerance (degrees). margin = tolerance − value; passed when margin >= 0."""
@@ -207,7 +212,7 @@ class Criterion:
 
     @property
     def passed(self):
-        return self.value_deg <= self.tolerance_deg
+        return self.value_deg <= self.tolerance_deg + ROUNDING_ALLOWANCE_DEG
 
 
 @dataclass(frozen=True)

@@ -132,3 +132,11 @@ def test_settings_round_trip_and_refusals():
         CheckSettings(body_axis=(0, 0, 0))
     with pytest.raises(ValueError, match="unknown key"):
         CheckSettings.from_dict({"tolerance": 1})
+
+
+def test_a_figure_equal_to_its_tolerance_passes_despite_rounding():
+    # Common practice: "within tolerance" includes the limit. A computed 0.5° carries rounding of about
+    # 1e-15°, which must not turn an exact shim into a failure; a micro-degree over must still fail.
+    from core.check import Criterion
+    assert Criterion("total deviation", 0.5 + 1e-13, 0.5).passed
+    assert not Criterion("total deviation", 0.5 + 1e-6, 0.5).passed
