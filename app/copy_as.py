@@ -10,6 +10,8 @@ from datetime import datetime
 from PySide6.QtCore import QMimeData
 from PySide6.QtGui import QGuiApplication
 
+from core import describe
+
 
 FORMATS = {
     "text": "Plain text (editor in use)",
@@ -50,6 +52,8 @@ def _options(model, editor) -> dict:
         "transposed": prefs.matrix_meaning == "reference_to_body",
         "sequence": prefs.sequence,
         "intrinsic": prefs.intrinsic,
+        "words_preset": model.words_preset,
+        "gravity_down": describe.gravity_direction(model.words_preset),
         "name": model.current_mount().name,
         "timestamp": datetime.now().astimezone().isoformat(timespec="seconds"),
     }

@@ -70,7 +70,7 @@ class SessionModel(QObject):
         self._chains: tuple[Chain, ...] = read_chains(self._session)
         self._checks: tuple[SavedCheck, ...] = read_checks(self._session)
         self._show_chain_frames = True
-        self._words_preset = describe.DEFAULT_PRESET
+        self._words_preset = self._session.reference_frame
         self.file_path: str | None = None
 
     # ---- reading --------------------------------------------------------------------------------
@@ -149,7 +149,7 @@ class SessionModel(QObject):
     def session(self) -> Session:
         """The state as plain data, ready to save."""
         session = replace(self._session, mounts=self._mounts, selected=self._selected,
-                          preferences=self._preferences)
+                          preferences=self._preferences, reference_frame=self._words_preset)
         return with_chains_and_checks(session, self._chains, self._checks)
 
     # ---- whole-session changes (not undoable: they start a new history) ------------------------
@@ -162,11 +162,12 @@ class SessionModel(QObject):
         self._selected = session.selected
         self._chains = read_chains(session)
         self._checks = read_checks(session)
+        self._words_preset = session.reference_frame
         if not keep_preferences:
             self._preferences = session.preferences
         self.file_path = file_path
         self.undo_stack.setClean()
-        self._emit({ORIENTATION, MOUNTS, SELECTION, PREFERENCES, CHAIN, CHECK}, None)
+        self._emit({ORIENTATION, MOUNTS, SELECTION, PREFERENCES, CHAIN, CHECK, WORDS}, None)
 
     # ---- view state (not undoable: it changes no data) -----------------------------------------
     def select(self, index: int, origin: object | None = None) -> None:
@@ -192,7 +193,8 @@ class SessionModel(QObject):
         return self._words_preset
 
     def set_words_preset(self, key: str, origin: object | None = None) -> None:
-        """Name the reference directions after a frame preset (a view choice: it never changes R)."""
+        """Name the reference directions after a frame preset. It never changes R; it is saved with the
+        session as the reference frame's name, and it sets where gravity points for level readings."""
         key = describe.frame_preset(key).key  # validates
         if key != self._words_preset:
             self._words_preset = key

@@ -49,6 +49,16 @@ FRAME_PRESETS = {
 DEFAULT_PRESET = "enu"
 
 
+def gravity_direction(name=None):
+    """The reference direction a preset calls "down" (where gravity points), e.g. (0, 0, 1) for NED."""
+    for (axis, sign), word in frame_preset(name).words.items():
+        if word == "down":
+            down = [0.0, 0.0, 0.0]
+            down[axis] = float(sign)
+            return tuple(down)
+    raise ValueError(f"frame preset {name!r} names no direction 'down'")
+
+
 def frame_preset(name: str | FramePreset | None) -> FramePreset:
     """The preset for a key such as 'ned' (case-insensitive); None gives the default (ENU)."""
     if isinstance(name, FramePreset):

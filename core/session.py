@@ -7,6 +7,7 @@ File layout (version 1)::
       "format": "framewright-session",
       "version": 1,
       "description": "free text",
+      "reference_frame": "enu",          # names of the reference axes: enu, ned, vehicle, aircraft, camera
       "selected": 0,
       "preferences": {...},              # Preferences fields, all optional when reading
       "mounts": [
@@ -156,8 +157,16 @@ class Session:
     preferences: Preferences = field(default_factory=Preferences)
     description: str = ""
     extra: Mapping[str, Any] = field(default_factory=dict)  # reserved/unknown top-level keys, kept as read
+    # What the reference frame's axes are called (a core/describe.py frame preset: "enu", "ned", ...).
+    # It names directions in words ("+Z → down") and sets where gravity points; it never changes R.
+    reference_frame: str = "enu"
 
     def __post_init__(self):
+        from core.describe import FRAME_PRESETS  # late, as for Preferences
+
+        if self.reference_frame not in FRAME_PRESETS:
+            raise FramewrightError(f"reference frame {self.reference_frame!r} is unknown; expected one of "
+                                   f"{', '.join(FRAME_PRESETS)}")
         object.__setattr__(self, "mounts", tuple(self.mounts))
         if not self.mounts:
             raise FramewrightError("a session needs at least one mount")
@@ -260,6 +269,7 @@ def session_to_dict(session: Session) -> dict[str, Any]:
         "format": FORMAT_NAME,
         "version": FORMAT_VERSION,
         "description": session.description,
+        "reference_frame": session.reference_frame,
         "selected": session.selected,
         "preferences": session.preferences.to_dict(),
         "mounts": [_mount_to_dict(m) for m in session.mounts],
@@ -372,11 +382,17 @@ def session_from_dict(data: Any, source: str = "session") -> Session:
              f"expected a mount index 0..{len(mounts) - 1}, got {selected!r}")
     description = data.get("description", "")
     _require(isinstance(description, str), f"{source}: description", "expected text")
-    known = {"format", "version", "description", "selected", "preferences", "mounts"}
+    from core.describe import FRAME_PRESETS
+
+    reference_frame = data.get("reference_frame", "enu")
+    _require(reference_frame in FRAME_PRESETS, f"{source}: reference_frame",
+             f"expected one of {', '.join(FRAME_PRESETS)}, got {reference_frame!r}")
+    known = {"format", "version", "description", "reference_frame", "selected", "preferences", "mounts"}
     extra = {k: v for k, v in data.items() if k not in known}
     read_chains(extra, source)  # refuse damaged chains and checks now, naming the entry
     read_checks(extra, source)
-    return Session(mounts=mounts, selected=selected, preferences=prefs, description=description, extra=extra)
+    return Session(mounts=mounts, selected=selected, preferences=prefs, description=description, extra=extra,
+                   reference_frame=reference_frame)
 
 
 def load_session(path: str | os.PathLike) -> Session:

@@ -13,7 +13,7 @@ from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QHBoxLayout, Q
                                QTableWidget, QTableWidgetItem, QVBoxLayout, QWidget)
 
 from app.editors.number_field import parse_number
-from app.model import MOUNTS, ORIENTATION, SELECTION, Change, SessionModel
+from app.model import MOUNTS, ORIENTATION, SELECTION, WORDS, Change, SessionModel
 from app.panels.level_words import WordsBox
 from core import describe
 from core.errors import FramewrightError
@@ -56,7 +56,7 @@ class LevelPanel(QWidget):
     def __init__(self, model: SessionModel, parent=None):
         super().__init__(parent)
         self.model = model
-        self._down = np.array(DOWN_Z_UP)
+        self._down = np.array(describe.gravity_direction(model.words_preset))
 
         self.words = WordsBox(model)
 
@@ -209,7 +209,9 @@ class LevelPanel(QWidget):
 
     # ---- model -> view -----------------------------------------------------------------------------
     def _on_model_changed(self, change: Change) -> None:
-        if change.touches(ORIENTATION, SELECTION, MOUNTS):
+        if change.touches(WORDS):   # the reference frame was named anew: gravity is its "down"
+            self.set_down(describe.gravity_direction(self.model.words_preset))
+        elif change.touches(ORIENTATION, SELECTION, MOUNTS):
             self.render()
 
     def render(self) -> None:

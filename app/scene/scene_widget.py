@@ -217,6 +217,10 @@ class SceneWidget(QtWidgets.QWidget):
         """(kind, sequence, intrinsic) the overlay writes the orientation in."""
         return self._representation, self._sequence, self._intrinsic
 
+    def frame_preset(self):
+        """The frame preset naming the reference directions in the overlay words ('enu', 'ned', ...)."""
+        return self._preset
+
     def set_frame_preset(self, name):
         self._preset = describe.frame_preset(name).key
         self.toolbar.select(self.toolbar.preset, self._preset)

@@ -20,8 +20,20 @@ TILT_DEG = 10.0
 
 @pytest.fixture
 def tilted(model):
+    model.set_words_preset("enu")   # the hand-worked case has Z up (gravity −Z); the demo session is NED
     model.set_orientation(Orientation.from_axis_angle((1, 0, 0), TILT_DEG))
     return model
+
+
+def test_gravity_follows_the_sessions_reference_frame(qtbot, model):
+    # CONVENTIONS.md: gravity along −Z of the reference by default, +Z in NED. The demo session's
+    # reference frame is the mast frame, x north, y east, z down: NED.
+    assert model.words_preset == "ned"
+    widget = LevelPanel(model)
+    qtbot.addWidget(widget)
+    assert tuple(widget.down) == (0.0, 0.0, 1.0)
+    model.set_words_preset("enu")
+    assert tuple(widget.down) == (0.0, 0.0, -1.0)
 
 
 @pytest.fixture

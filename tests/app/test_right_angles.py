@@ -55,8 +55,9 @@ def test_the_words_box_shows_the_nearest_and_its_residual_before_snapping(qtbot,
     model.set_orientation(Orientation.from_axis_angle((0, 0, 1), 90) @ Orientation.from_axis_angle((1, 0, 0), 0.3))
     assert "Nearest right angle: 90° about +Z (X→+Y, Y→−X, Z→+Z); residual 0.300°" in words.nearest_label.text()
     lines = words.axes_label.text().splitlines()
-    assert lines[0] == "+X → +Y (north), exact"                   # ENU names unless told otherwise
-    assert lines[1].startswith("+Y → −X (west), 0.30° off")
+    # The demo session's reference frame is NED (x north, y east, z down), so +Y is east, −X south.
+    assert lines[0] == "+X → +Y (east), exact"
+    assert lines[1].startswith("+Y → −X (south), 0.30° off")
     start = model.current_orientation()
     qtbot.mouseClick(words.snap_button, Qt.MouseButton.LeftButton)
     np.testing.assert_allclose(model.current_orientation().as_matrix(),

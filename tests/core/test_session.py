@@ -160,3 +160,22 @@ def test_written_numbers_are_finite_json(tmp_path):
     q = json.loads(path.read_text())["mounts"][0]["orientation"]["quaternion_wxyz"]
     assert np.isclose(np.linalg.norm(q), 1.0, atol=1e-15)
     assert session_to_dict(load_session(path))["mounts"][0]["orientation"]["quaternion_wxyz"] == q
+
+
+def test_reference_frame_name_is_saved_read_back_and_checked(tmp_path):
+    import json
+
+    from core.session import Mount, Session, SessionFileError, load_session, save_session
+    session = Session(mounts=(Mount("A"),), reference_frame="ned")
+    path = tmp_path / "frame.fwsession.json"
+    save_session(session, path)
+    assert load_session(path).reference_frame == "ned"
+    data = json.loads(path.read_text())
+    data["reference_frame"] = "north-east-up"
+    path.write_text(json.dumps(data))
+    with pytest.raises(SessionFileError, match="reference_frame"):
+        load_session(path)
+    # The invented demo's mast frame is x north, y east, z down: NED (common practice for the name).
+    from pathlib import Path
+    demo = Path(__file__).resolve().parents[2] / "resources" / "demo.fwsession.json"
+    assert load_session(demo).reference_frame == "ned"
