@@ -12,7 +12,7 @@ VIEW_BUTTONS = (("+X", "Look along +X of the reference"), ("\u2212X", "Look alon
                 ("+Y", "Look along +Y of the reference"), ("\u2212Y", "Look along \u2212Y of the reference"),
                 ("+Z", "Look along +Z of the reference"), ("\u2212Z", "Look along \u2212Z of the reference"),
                 ("Boresight", "Look along the body's boresight axis"),
-                ("Iso", "Isometric view from the +X +Y +Z side"),
+                ("Isometric", "Isometric view from the +X +Y +Z side"),
                 ("Reset", "Back to the isometric view at the standard distance"))
 TRACKED_CHOICES = ("boresight", "+X", "+Y", "+Z", "-X", "-Y", "-Z", "typed")
 SLIDER_STEPS = 1000
@@ -104,7 +104,7 @@ class SceneToolbar(QtWidgets.QWidget):
         for key, preset in FRAME_PRESETS.items():
             self.preset.addItem(preset.title.split(" (")[0], key)
         self.preset.currentIndexChanged.connect(lambda _: self.preset_chosen.emit(self.preset.currentData()))
-        bottom.addWidget(QtWidgets.QLabel("Words:"))
+        bottom.addWidget(QtWidgets.QLabel("Direction names:"))
         bottom.addWidget(self.preset)
 
         self.message = QtWidgets.QLabel("")

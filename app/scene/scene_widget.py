@@ -251,7 +251,7 @@ class SceneWidget(QtWidgets.QWidget):
             direction = camera.LOOK_DIRECTIONS[key]
         elif key == "boresight":
             direction = self._swept_matrix() @ FACE_NORMALS[self.part.boresight_face]
-        elif key in ("iso", "reset"):
+        elif key in ("iso", "isometric", "reset"):
             direction = camera.ISOMETRIC
         else:
             raise ValueError(f"unknown view {preset!r}")
