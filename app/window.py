@@ -103,14 +103,15 @@ class MainWindow(QMainWindow):
         centre.setStretchFactor(1, 0)
         centre.setChildrenCollapsible(False)
 
-        # Side area: one tab per panel.
+        # Side area: one tab per panel, in the order of the job: decode, chain, check (and level), then
+        # measure and batch.
         self.side_tabs = QTabWidget()
         self.side_tabs.addTab(self.decode_panel, "Decode")
-        self.side_tabs.addTab(_scrollable(self.measure_panel), "Measure")
-        self.side_tabs.addTab(_scrollable(self.batch_panel), "Batch")
         self.side_tabs.addTab(_scrollable(self.chain_panel), "Chain")
         self.side_tabs.addTab(_scrollable(self.check_panel), "Check")
         self.side_tabs.addTab(_scrollable(self.level_panel), "Level")
+        self.side_tabs.addTab(_scrollable(self.measure_panel), "Measure")
+        self.side_tabs.addTab(_scrollable(self.batch_panel), "Batch")
 
         splitter = QSplitter(Qt.Orientation.Horizontal)
         splitter.addWidget(self.mounts)
@@ -119,7 +120,7 @@ class MainWindow(QMainWindow):
         splitter.setStretchFactor(0, 0)
         splitter.setStretchFactor(1, 1)
         splitter.setStretchFactor(2, 0)
-        splitter.setSizes([230, 1000, 380])
+        splitter.setSizes([200, 900, 500])  # the centre keeps its minimum; the panels get the rest
         splitter.setChildrenCollapsible(False)
         self.splitter = splitter
         self.setCentralWidget(splitter)

@@ -3,7 +3,8 @@
     make screenshots        (or: .venv/bin/python scripts/screenshots.py [output folder])
 
 Starts its own virtual X display when none is set, uses a throw-away settings folder (so the shot does
-not depend on anyone's preferences) and writes docs/screenshots/window.png.
+not depend on anyone's preferences) and writes docs/screenshots/: window.png, the Scene alone for two demo
+mounts, check.png (the Check panel) and fit.png (the Measure panel with a fit).
 """
 
 from __future__ import annotations
@@ -32,6 +33,66 @@ def _virtual_display():
     display = Display(visible=False, size=(1920, 1200), color_depth=24, extra_args=["+extension", "GLX"])
     display.start()
     return display
+
+
+def _settle(app, rounds=8):
+    for _ in range(rounds):
+        app.processEvents()
+
+
+def _grab(window, path) -> bool:
+    if not window.grab().save(str(path)):
+        print(f"could not write {path}", file=sys.stderr)
+        return False
+    print(f"wrote {path} ({window.width()}x{window.height()})")
+    return True
+
+
+def _show_tab(window, title):
+    tabs = window.side_tabs
+    tabs.setCurrentIndex(next(i for i in range(tabs.count()) if tabs.tabText(i) == title))
+
+
+def _check_shot(app, window, out_dir) -> bool:
+    """The Check panel: the demo radar antenna as nominal, an invented 'as measured' copy turned 3° in
+    pointing and 0.4° in roll, judged on the boresight +X with 1° tolerances; the Scene shows the nominal
+    as the ghost."""
+    from core.check import CheckSettings
+    from core.orientation import Orientation
+    from core.session import SavedCheck
+
+    model = window.model
+    nominal_index = next(i for i, m in enumerate(model.mounts) if m.name.startswith("Radar antenna"))
+    nominal = model.mounts[nominal_index]
+    measured_name = "Radar antenna, as measured"
+    model.select(nominal_index)
+    model.duplicate_mount(nominal_index)
+    model.rename_mount(model.selected_index, measured_name)
+    turned = (nominal.orientation @ Orientation.from_axis_angle((0, 1, 0), 3.0)
+              @ Orientation.from_axis_angle((1, 0, 0), 0.4))
+    model.set_orientation(turned)
+    settings = CheckSettings(mode="pointing_and_roll", pointing_tolerance_deg=1.0, roll_tolerance_deg=1.0,
+                             body_axis="+X")
+    model.set_check(SavedCheck(nominal=nominal.name, measured=measured_name, settings=settings))
+    _show_tab(window, "Check")
+    _settle(app)
+    return _grab(window, out_dir / "check.png")
+
+
+def _fit_shot(app, window, out_dir) -> bool:
+    """The Measure panel: the invented points of resources/demo_points.csv for the mast-head camera, fitted,
+    with the points and magnified residuals in the Scene."""
+    model = window.model
+    model.select(next(i for i, m in enumerate(model.mounts) if m.name.startswith("Mast-head camera")))
+    _show_tab(window, "Measure")
+    # The points table is wide: show it on a 1920-pixel screen with the side area opened up.
+    window.resize(1920, 1080)
+    window.splitter.setSizes([200, 960, 760])
+    window.measure_panel.set_method("points")
+    window.measure_panel.import_csv(str(ROOT / "resources" / "demo_points.csv"))
+    window.measure_panel.fit()
+    _settle(app)
+    return _grab(window, out_dir / "fit.png")
 
 
 def main(argv: list[str]) -> int:
@@ -69,11 +130,10 @@ def main(argv: list[str]) -> int:
         window.model.select(2)
         for _ in range(5):
             app.processEvents()
-        path = out_dir / "window.png"
-        if not window.grab().save(str(path)):
-            print(f"could not write {path}", file=sys.stderr)
+        if not _grab(window, out_dir / "window.png"):
             return 1
-        print(f"wrote {path} ({window.width()}x{window.height()})")
+        if not (_check_shot(app, window, out_dir) and _fit_shot(app, window, out_dir)):
+            return 1
         window.model.undo_stack.setClean()
         window.close()
         return 0

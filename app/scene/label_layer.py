@@ -32,6 +32,12 @@ class OverlayPanel:
     corner: str  # 'top-left', 'top-right', 'bottom-left', 'bottom-right'
     lines: list = field(default_factory=list)  # (text, rgb) pairs
     visible: bool = True
+    optional: bool = False  # left out when it would leave the 3D labels too little room (a small view)
+
+
+# An optional panel (the legend) is drawn only while the panels together take at most this share of the
+# view's height, so a short view keeps room for the axis and angle labels it explains.
+_OPTIONAL_PANEL_SHARE = 0.6
 
 
 class LabelLayer(GLGraphicsItem):
@@ -64,8 +70,8 @@ class LabelLayer(GLGraphicsItem):
         if normal is not None:
             label.normal = np.asarray(normal, dtype=float)
 
-    def set_panel(self, key, corner, lines, visible=True):
-        self.panels[key] = OverlayPanel(corner, list(lines), visible)
+    def set_panel(self, key, corner, lines, visible=True, optional=False):
+        self.panels[key] = OverlayPanel(corner, list(lines), visible, optional)
 
     # --- drawing ------------------------------------------------------------------------------------
     def _font(self, pixel_size, bold, mono):
@@ -128,10 +134,14 @@ class LabelLayer(GLGraphicsItem):
         margin, pad = round(10 * scale), round(8 * scale)
         font, metrics = self._font(round(14 * scale), False, True)
         painter.setFont(font)
-        for panel in self.panels.values():
-            if not panel.visible or not panel.lines:
-                continue
-            line_h = metrics.height()
+        line_h = metrics.height()
+        shown = [p for p in self.panels.values() if p.visible and p.lines]
+        for side in ("left", "right"):   # the panels stacked on one side, top and bottom corner
+            stacked = [p for p in shown if side in p.corner]
+            used = sum(line_h * len(p.lines) + 2 * pad + margin for p in stacked)
+            if used > _OPTIONAL_PANEL_SHARE * height:
+                shown = [p for p in shown if not (p.optional and side in p.corner)]
+        for panel in shown:
             w = max(metrics.horizontalAdvance(text) for text, _ in panel.lines) + 2 * pad
             h = line_h * len(panel.lines) + 2 * pad
             left = margin if "left" in panel.corner else width - w - margin

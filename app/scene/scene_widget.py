@@ -413,7 +413,7 @@ class SceneWidget(QtWidgets.QWidget):
                   ("\u03b1  angle between r and n", palette.ALPHA_RGB)]
         if ghost_shown:
             legend.append((f"faint outline  ghost: {self._ghost_label}", palette.GHOST_RGB))
-        self.labels.set_panel("legend", "bottom-left", legend)
+        self.labels.set_panel("legend", "bottom-left", legend, optional=True)
 
     def _sync_ghost_outline(self):
         self.ghost_outline.setData(pos=self.part.edge_segments_drawn())

@@ -6,7 +6,7 @@ library) for every product."""
 
 import numpy as np
 import pytest
-from PySide6.QtCore import Qt
+from PySide6.QtCore import QPoint, Qt
 from scipy.spatial.transform import Rotation
 
 from app.panels.chain_panel import ChainPanel
@@ -161,6 +161,8 @@ def test_the_scene_shows_every_intermediate_frame_labelled(qtbot, window):
     m1 = np.array(group1.transform().data()).reshape(4, 4).T[:3, :3]
     np.testing.assert_allclose(m0, SCIPY_BRACKET.as_matrix(), atol=1e-6)        # QMatrix4x4 holds floats
     np.testing.assert_allclose(m1, HAND_PRODUCT, atol=1e-6)
-    qtbot.mouseClick(panel.frames_box, Qt.MouseButton.LeftButton)
+    # click on the box itself (a wide check box only reacts on its box and text, as for a person)
+    box = panel.frames_box
+    qtbot.mouseClick(box, Qt.MouseButton.LeftButton, pos=QPoint(8, box.height() // 2))
     assert not window.model.show_chain_frames and frames.count == 0
     assert not labels["chain0"].visible
