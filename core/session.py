@@ -334,6 +334,10 @@ def _mount_from_dict(data: Any, where: str) -> Mount:
     orient = data.get("orientation")
     _require(isinstance(orient, dict) and "quaternion_wxyz" in orient, f"{where}.orientation",
              'expected {"quaternion_wxyz": [w, x, y, z]}')
+    # One representation only: a second one beside it could disagree, and silently dropping it would hide
+    # that the file is not what it claims.
+    _require(set(orient) == {"quaternion_wxyz"}, f"{where}.orientation",
+             f'expected only "quaternion_wxyz", found also {sorted(set(orient) - {"quaternion_wxyz"})}')
     q = _numbers(orient["quaternion_wxyz"], 4, f"{where}.orientation.quaternion_wxyz")
     norm = math.sqrt(sum(v * v for v in q))
     _require(abs(norm - 1.0) <= 1e-6, f"{where}.orientation.quaternion_wxyz",

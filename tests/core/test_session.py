@@ -179,3 +179,16 @@ def test_reference_frame_name_is_saved_read_back_and_checked(tmp_path):
     from pathlib import Path
     demo = Path(__file__).resolve().parents[2] / "resources" / "demo.fwsession.json"
     assert load_session(demo).reference_frame == "ned"
+
+
+def test_an_orientation_with_a_second_representation_is_refused(tmp_path):
+    import json
+
+    from core.session import Mount, Session, SessionFileError, load_session, save_session
+    path = tmp_path / "two.fwsession.json"
+    save_session(Session(mounts=(Mount("A"),)), path)
+    data = json.loads(path.read_text())
+    data["mounts"][0]["orientation"]["matrix"] = [[1, 0, 0], [0, 1, 0], [0, 0, 1]]
+    path.write_text(json.dumps(data))
+    with pytest.raises(SessionFileError, match="only"):
+        load_session(path)
