@@ -266,7 +266,9 @@ def check(nominal, measured, settings=CheckSettings()):
     if settings.mode == "total":
         criteria = (Criterion("total deviation", total, settings.total_tolerance_deg),)
     else:
-        criteria = (Criterion("pointing error", pointing, settings.pointing_tolerance_deg),
-                    Criterion("roll", abs(roll), settings.roll_tolerance_deg))
+        # An undefined roll is never "within tolerance": it is judged as the worst roll there is.
+        roll_criterion = (Criterion("roll", abs(roll), settings.roll_tolerance_deg) if roll_defined else
+                          Criterion("roll (undefined, judged as 180°)", 180.0, settings.roll_tolerance_deg))
+        criteria = (Criterion("pointing error", pointing, settings.pointing_tolerance_deg), roll_criterion)
     return CheckResult(Orientation(d), total, axis, body_axis, pointing, roll, roll_defined, criteria,
                        tuple(notes))

@@ -114,6 +114,11 @@ def test_no_deviation_has_no_axis_and_a_reversed_axis_has_no_roll():
     flipped = check(NOMINAL, NOMINAL @ Orientation.from_axis_angle([1, 0, 0], 180), CheckSettings(body_axis="+Z"))
     assert flipped.pointing_deg == pytest.approx(180.0, abs=1e-12)
     assert not flipped.roll_defined and flipped.notes
+    # Judged on pointing and roll, an undefined roll fails on its own, whatever the tolerances.
+    lenient = CheckSettings(mode="pointing_and_roll", body_axis="+Z", pointing_tolerance_deg=180.0,
+                            roll_tolerance_deg=179.0)
+    result = check(NOMINAL, NOMINAL @ Orientation.from_axis_angle([1, 0, 0], 180), lenient)
+    assert not result.criteria[1].passed and not result.passed
 
 
 def test_settings_round_trip_and_refusals():
