@@ -3,7 +3,7 @@
 from __future__ import annotations
 
 from PySide6.QtCore import Qt, QTimer
-from PySide6.QtWidgets import (QGroupBox, QHBoxLayout, QListWidget, QListWidgetItem, QPushButton,
+from PySide6.QtWidgets import (QGroupBox, QHBoxLayout, QLabel, QListWidget, QListWidgetItem, QPushButton,
                                QVBoxLayout)
 
 from app.model import MOUNTS, SELECTION, Change, SessionModel
@@ -25,8 +25,13 @@ class MountsList(QGroupBox):
         self.delete_button = QPushButton("Delete")
         self.delete_button.setToolTip("Delete the selected mount (undo brings it back).")
 
+        self.message = QLabel("")   # why a rename or delete was not done; empty otherwise
+        self.message.setWordWrap(True)
+        self.message.setStyleSheet("color: #b00020;")
+
         layout = QVBoxLayout(self)
         layout.addWidget(self.list, 1)
+        layout.addWidget(self.message)
         buttons = QHBoxLayout()
         for b in (self.add_button, self.duplicate_button):
             buttons.addWidget(b)
@@ -69,6 +74,9 @@ class MountsList(QGroupBox):
     def _delete(self) -> None:
         if len(self.model.mounts) > 1:
             self.model.delete_mount(origin=self)
+            self.message.setText("")
+        else:
+            self.message.setText("The session needs at least one mount; the last one cannot be deleted.")
 
     def _on_row_changed(self, row: int) -> None:
         if 0 <= row < len(self.model.mounts):
@@ -82,6 +90,7 @@ class MountsList(QGroupBox):
     def _rename(self, row: int, text: str) -> None:
         try:
             self.model.rename_mount(row, text, origin=self)
-        except ValueError:
-            pass
+            self.message.setText("")
+        except ValueError as exc:
+            self.message.setText(str(exc))   # e.g. "a mount needs a name; the old one is kept"
         self.render()  # shows the kept name when the new one was empty

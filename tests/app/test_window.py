@@ -161,3 +161,17 @@ def test_demo_session_says_it_is_invented(window):
     assert "invented" in window.model.session().description.lower()
     assert len(window.model.mounts) >= 3
 
+
+
+def test_renaming_a_mount_to_nothing_keeps_the_name_and_says_why(qtbot, window):
+    panel = window.mounts
+    before = window.model.current_mount().name
+    qtbot.mouseClick(panel.rename_button, Qt.MouseButton.LeftButton)
+    qtbot.waitUntil(lambda: panel.list.findChild(QLineEdit) is not None, timeout=2000)
+    line = panel.list.findChild(QLineEdit)
+    line.selectAll()
+    qtbot.keyClick(line, Qt.Key.Key_Delete)
+    qtbot.keyClick(line, Qt.Key.Key_Return)
+    qtbot.waitUntil(lambda: panel.message.text() != "", timeout=2000)
+    assert "needs a name" in panel.message.text()
+    assert window.model.current_mount().name == before
