@@ -94,10 +94,16 @@ class EditorBase(QGroupBox):
             self.finish_editing()
 
     def finish_editing(self) -> None:
-        """The user is done here (Enter, or focus went elsewhere): end the undo run, show canonical."""
+        """The user is done here (Enter, or focus went elsewhere): end the undo run, show canonical. Text
+        that could not be used is named in the editor's note, so leaving the editor loses nothing unsaid."""
+        unused = [(f.text(), f.problem) for f in self.findChildren(NumberField) if f.problem]
         self.model.end_continuous()
         self._editing = False
         self.render()
+        note = getattr(self, "note", None)
+        if unused and note is not None:
+            text, problem = unused[0]
+            note.setText(f"Not used: “{text.strip()}” ({problem}); the last good value is shown.")
 
     def push(self, orientation, key: str) -> None:
         """Send an edit to the model; runs of the same key merge into one undo step."""

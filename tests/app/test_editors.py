@@ -142,8 +142,10 @@ def test_bad_text_in_every_field_turns_it_red_and_changes_nothing(qtbot, win, ba
         assert _frame_is_red(field)
         assert win.model.current_orientation() == before
         assert {id(f): f.text() for f in fields if id(f) in others} == others
-        leave_editor(qtbot, win)  # leaving shows the last good value again
+        editor = next(e for e in win.editors if e.isAncestorOf(field))
+        leave_editor(qtbot, win)  # leaving shows the last good value again, and says what was not used
         assert field.problem is None
+        assert "Not used" in editor.note.text()
     assert win.model.undo_stack.count() == 0
 
 
