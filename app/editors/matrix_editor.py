@@ -44,7 +44,23 @@ class _PasteCatcher(QObject):
             text = QGuiApplication.clipboard().text()
             if self._editor.paste_grid(text):
                 return True
+        if event.type() == QEvent.Type.ContextMenu:
+            menu = self.context_menu(watched)
+            menu.exec(event.globalPos())
+            menu.deleteLater()
+            return True
         return False
+
+    def context_menu(self, line_edit):
+        """The cell's usual right-click menu, whose Paste fills the whole grid when the clipboard holds
+        nine numbers (and pastes into the cell otherwise), as Ctrl+V does."""
+        menu = line_edit.createStandardContextMenu()
+        for action in menu.actions():
+            if action.objectName() == "edit-paste":
+                action.triggered.disconnect()
+                action.triggered.connect(
+                    lambda: self._editor.paste_grid(QGuiApplication.clipboard().text()) or line_edit.paste())
+        return menu
 
 
 class MatrixEditor(EditorBase):
@@ -78,7 +94,7 @@ class MatrixEditor(EditorBase):
             grid.addWidget(self.column_labels[i], 0, i + 1)
             grid.addWidget(self.row_labels[i], i + 1, 0)
         self.connect_fields(self.flat_cells())
-        catcher = _PasteCatcher(self)
+        catcher = self.paste_catcher = _PasteCatcher(self)
         for r in range(3):
             for c in range(3):
                 cell = self.cells[r][c]

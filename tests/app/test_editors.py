@@ -207,6 +207,25 @@ def test_pasting_nine_numbers_into_one_cell_fills_the_grid(qtbot, win):
     assert_editors_agree(win, rotation, skip=("matrix",))
 
 
+def test_right_click_paste_of_nine_numbers_fills_the_grid(qtbot, win):
+    # Reference: SciPy's Rotation for the matrix pasted (body -> reference, rows as printed).
+    rotation = Rotation.from_euler("ZYX", [25, -10, 5], degrees=True)
+    m = rotation.as_matrix()
+    QGuiApplication.clipboard().setText("\n".join(" ".join(repr(float(v)) for v in row) for row in m))
+    cell = win.matrix.cells[1][1]
+    menu = win.matrix.paste_catcher.context_menu(cell.lineEdit())
+    paste = next(a for a in menu.actions() if a.objectName() == "edit-paste")
+    paste.trigger()
+    np.testing.assert_allclose([[float(c.text()) for c in row] for row in win.matrix.cells], m, atol=1e-15)
+    assert scipy_rotation(win.model.current_orientation()).approx_equal(rotation, atol=1e-12)
+    # One number on the clipboard is an ordinary paste into the cell.
+    QGuiApplication.clipboard().setText("0.5")
+    cell.lineEdit().clear()
+    next(a for a in win.matrix.paste_catcher.context_menu(cell.lineEdit()).actions()
+         if a.objectName() == "edit-paste").trigger()
+    assert cell.text() == "0.5"
+
+
 def test_matrix_meaning_toggle_shows_the_transpose_of_the_same_orientation(qtbot, win):
     before = win.model.current_orientation()
     m = before.as_matrix()
