@@ -268,6 +268,15 @@ class SessionModel(QObject):
                        origin=origin, text=text)
         self.undo_stack.endMacro()
 
+    def set_part(self, part, index: int | None = None, origin: object | None = None) -> None:
+        """Change a mount's part (box size, face names, boresight face): one undo step."""
+        index = self._selected if index is None else index
+        mount = self._mounts[index]
+        if part == mount.part:
+            return
+        mounts = self._mounts[:index] + (replace(mount, part=part),) + self._mounts[index + 1:]
+        self._push_mounts(mounts, self._selected, f"Edit the part of “{mount.name}”", origin)
+
     def delete_mount(self, index: int | None = None, origin: object | None = None) -> None:
         index = self._selected if index is None else index
         if len(self._mounts) <= 1:

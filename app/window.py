@@ -28,6 +28,7 @@ from app.panels.gimbal_meter import GimbalMeter
 from app.panels.level_panel import LevelPanel
 from app.panels.measure_panel import MeasurePanel
 from app.panels.mounts_list import MountsList
+from app.part_dialog import PartDialog
 from app.preferences_dialog import PreferencesDialog
 from app.scene.model_binding import bind_scene_to_model
 from app.scene.scene_widget import SceneWidget
@@ -206,6 +207,8 @@ class MainWindow(QMainWindow):
         self.paste_action = self._action("&Paste", self.paste, keys.Paste,
                                          "Paste into the field in use, or into Decode")
         self.preferences_action = self._action("Pre&ferences…", self.show_preferences, keys.Preferences)
+        self.part_action = self._action("&Part of the mount…", self.show_part_dialog, None,
+                                        "Box size, face names and boresight face of the selected mount")
         for action in (self.undo_action, self.redo_action):
             edit_menu.addAction(action)
         edit_menu.addSeparator()
@@ -226,6 +229,7 @@ class MainWindow(QMainWindow):
                                         "orientations (one undo step)")
         edit_menu.addAction(self.snap_action)
         edit_menu.addSeparator()
+        edit_menu.addAction(self.part_action)
         edit_menu.addAction(self.preferences_action)
         self._update_copy_again_text()
 
@@ -384,6 +388,9 @@ class MainWindow(QMainWindow):
         return True
 
     # ---- dialogs and closing -------------------------------------------------------------------
+    def show_part_dialog(self) -> None:
+        PartDialog(self.model, self).exec()
+
     def show_preferences(self) -> None:
         dialog = PreferencesDialog(self.model, copy_as.FORMATS, self.default_copy_format, self)
         if dialog.exec():
