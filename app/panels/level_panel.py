@@ -15,6 +15,7 @@ from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QHBoxLayout, Q
 from app.editors.number_field import parse_number
 from app.model import MOUNTS, ORIENTATION, SELECTION, WORDS, Change, SessionModel
 from app.panels.level_words import WordsBox
+from app.panels.render_when_seen import RendersWhenSeen
 from core import describe
 from core.errors import FramewrightError
 from core.level import DEFAULT_IN_FACE, DOWN_NED, DOWN_Z_UP, FACES, inclinometer_reading, level_readings
@@ -52,7 +53,7 @@ def _face(name: str) -> str:
     return name.replace("-", describe.MINUS)
 
 
-class LevelPanel(QWidget):
+class LevelPanel(RendersWhenSeen, QWidget):
     def __init__(self, model: SessionModel, parent=None):
         super().__init__(parent)
         self.model = model
@@ -212,7 +213,7 @@ class LevelPanel(QWidget):
         if change.touches(WORDS):   # the reference frame was named anew: gravity is its "down"
             self.set_down(describe.gravity_direction(self.model.words_preset))
         elif change.touches(ORIENTATION, SELECTION, MOUNTS):
-            self.render()
+            self.render_when_seen()
 
     def render(self) -> None:
         mount = self.model.current_mount()

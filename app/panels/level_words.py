@@ -7,6 +7,7 @@ from PySide6.QtCore import Qt
 from PySide6.QtWidgets import QComboBox, QGroupBox, QHBoxLayout, QLabel, QPushButton, QVBoxLayout
 
 from app.model import ORIENTATION, SELECTION, WORDS, Change, SessionModel
+from app.panels.render_when_seen import RendersWhenSeen
 from core import describe
 
 
@@ -19,7 +20,7 @@ def residual_text(residual_deg: float) -> str:
     return f"{residual_deg:.3f}\u00b0"
 
 
-class WordsBox(QGroupBox):
+class WordsBox(RendersWhenSeen, QGroupBox):
     def __init__(self, model: SessionModel, parent=None):
         super().__init__("Where the axes point", parent)
         self.model = model
@@ -61,7 +62,7 @@ class WordsBox(QGroupBox):
 
     def _on_model_changed(self, change: Change) -> None:
         if change.touches(ORIENTATION, SELECTION, WORDS):
-            self.render()
+            self.render_when_seen()
 
     def render(self) -> None:
         orientation = self.model.current_orientation()

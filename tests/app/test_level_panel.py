@@ -117,3 +117,16 @@ def test_readings_follow_the_selected_mount(qtbot, panel, tilted):
     tilted.set_orientation(Orientation.from_axis_angle((0, 1, 0), 5.0))  # nose down 5° about Y
     # hand: body +X goes to (cos 5°, 0, −sin 5°): 5° below the horizontal
     assert panel.elevations.text().split()[1] == "\u22125.000°"
+
+
+def test_a_level_panel_in_a_background_tab_catches_up_when_shown(qtbot, window):
+    # It does no work on the edit's path while hidden, yet never shows an old orientation.
+    tabs = window.side_tabs
+    tabs.setCurrentIndex([tabs.tabText(i) for i in range(tabs.count())].index("Decode"))
+    panel = window.level_panel
+    window.model.set_words_preset("enu")
+    window.model.set_orientation(Orientation.from_axis_angle((1, 0, 0), TILT_DEG))
+    assert panel._stale
+    tabs.setCurrentIndex([tabs.tabText(i) for i in range(tabs.count())].index("Level"))
+    qtbot.waitUntil(lambda: not panel._stale, timeout=2000)
+    assert number(cell(panel, "+Z", "Tilt from\nlevel")) == pytest.approx(10.0, abs=5e-4)
