@@ -142,7 +142,7 @@ class LevelPanel(RendersWhenSeen, QWidget):
         self.face_box.setCurrentIndex(self.face_box.findData("+Z"))
         self._fill_directions()
         self._size_table()
-        self.render()
+        self.set_down(self._down)   # shows the reference frame's gravity in the choice too, and renders
 
     # ---- choices -----------------------------------------------------------------------------------
     @property

@@ -32,8 +32,10 @@ def test_gravity_follows_the_sessions_reference_frame(qtbot, model):
     widget = LevelPanel(model)
     qtbot.addWidget(widget)
     assert tuple(widget.down) == (0.0, 0.0, 1.0)
+    assert tuple(widget.gravity_box.currentData()) == (0.0, 0.0, 1.0)   # the choice shown says so too
     model.set_words_preset("enu")
     assert tuple(widget.down) == (0.0, 0.0, -1.0)
+    assert tuple(widget.gravity_box.currentData()) == (0.0, 0.0, -1.0)
 
 
 @pytest.fixture
