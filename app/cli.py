@@ -4,8 +4,9 @@ Qt (`open` hands over to the window through app/main.py, which loads Qt only the
 Each verb is one pair of functions, `add_<verb>_arguments(parser)` and `run_<verb>(args) -> exit status`,
 listed once in VERBS.
 
-Exit status: 0 done (and within tolerance), 1 outside the tolerance, 2 refused input, with one line on
-stderr saying what is wrong and where, and nothing on stdout.
+Exit status: 0 done (and within tolerance), 1 outside the tolerance, 2 refused input (usage errors
+included), with one line on stderr saying what is wrong and where, and nothing on stdout; 3 an internal
+error, with one line on stderr naming the log file that holds the traceback. Never a bare traceback.
 """
 
 from __future__ import annotations
@@ -20,7 +21,10 @@ from core.check import CheckSettings, check
 from core.decode import KINDS, DecodeHints, decode
 from core.errors import FramewrightError
 
-EXIT_OK, EXIT_OUTSIDE, EXIT_REFUSED = 0, 1, 2
+EXIT_OK, EXIT_OUTSIDE, EXIT_REFUSED, EXIT_INTERNAL = 0, 1, 2, 3
+MAX_INPUT_BYTES = 1_000_000         # standard input and files are read up to this and refused beyond it
+MAX_FILE_BYTES = 200_000_000      # CSV files (a batch of a million mounts is about 150 MB)
+MAX_MESSAGE_CHARS = 400             # a refusal is one readable line, however long the input it quotes
 
 
 class _Refused(Exception):
@@ -60,9 +64,30 @@ def hints_from(args) -> DecodeHints:
 
 
 def read_text(argument: str | None, stdin) -> str:
-    if argument is None or argument == "-":
-        return stdin.read()
-    return argument
+    """The text of an argument, or of standard input for '-': valid UTF-8 and at most MAX_INPUT_BYTES,
+    read with the cap before anything parses it (endless input is refused, not held in memory)."""
+    if argument is not None and argument != "-":
+        return valid_text(argument, "the argument")
+    source = getattr(stdin, "buffer", None)
+    data = (source or stdin).read(MAX_INPUT_BYTES + 1)
+    if len(data) > MAX_INPUT_BYTES:
+        raise _Refused(f"standard input is longer than {MAX_INPUT_BYTES} bytes; paste only the orientation")
+    if isinstance(data, bytes):
+        try:
+            data = data.decode("utf-8-sig")
+        except UnicodeDecodeError as error:
+            raise _Refused(f"standard input is not UTF-8 text (byte {error.start}); expected text") from None
+    return valid_text(data, "standard input")
+
+
+def valid_text(text: str, what: str) -> str:
+    """Text as Python received it may hold lone surrogates (bytes of an argument that were not UTF-8):
+    refuse them here so they never reach a reading or its JSON."""
+    try:
+        text.encode("utf-8")
+    except UnicodeEncodeError as error:
+        raise _Refused(f"{what} is not valid UTF-8 text (character {error.start + 1}); expected text") from None
+    return text
 
 
 def decode_or_refuse(text: str, hints: DecodeHints, what: str = ""):
@@ -208,8 +233,13 @@ def run_compare(args, stdin, stdout) -> int:
 def read_file_text(path: str) -> str:
     """The text of a CSV file (UTF-8, a leading byte-order mark allowed), or a refusal naming the file."""
     try:
-        with open(path, encoding="utf-8-sig", newline="") as handle:
-            return handle.read()
+        with open(path, "rb") as handle:
+            data = handle.read(MAX_FILE_BYTES + 1)
+        if len(data) > MAX_FILE_BYTES:
+            raise _Refused(f"{path}: larger than {MAX_FILE_BYTES // 1_000_000} MB; expected a CSV file")
+        return valid_text(data.decode("utf-8-sig"), path)
+    except IsADirectoryError:
+        raise _Refused(f"{path}: is a folder; expected a CSV file") from None
     except OSError as error:
         raise _Refused(f"{path}: cannot be read ({error.strerror or error})") from None
     except UnicodeDecodeError as error:
@@ -366,12 +396,23 @@ VERBS = {
 }
 
 
+class _UsageError(Exception):
+    """argparse found the command line itself wrong; reported as one line like any refusal."""
+
+
+class _Parser(argparse.ArgumentParser):
+    """argparse, except that a usage error is one line on stderr and exit 2, not a usage block."""
+
+    def error(self, message):
+        raise _UsageError(f"{message} (see '{self.prog} --help')")
+
+
 def build_parser() -> argparse.ArgumentParser:
-    parser = argparse.ArgumentParser(
+    parser = _Parser(
         prog="framewright",
         description="Decode, compare and hand on 3D orientations. With no command, opens the window.",
         epilog=f"Caution: {formats.SAFETY_CAUTION}.")
-    commands = parser.add_subparsers(dest="verb", metavar="COMMAND", required=True)
+    commands = parser.add_subparsers(dest="verb", metavar="COMMAND", required=True, parser_class=_Parser)
     for name, (help_text, add_arguments, run) in VERBS.items():
         sub = commands.add_parser(name, help=help_text, description=help_text[0].upper() + help_text[1:] + ".")
         add_arguments(sub)
@@ -379,18 +420,68 @@ def build_parser() -> argparse.ArgumentParser:
     return parser
 
 
+def one_line(text: str) -> str:
+    """A message as one readable line: whitespace folded, control characters shown as escapes (a name
+    holding terminal codes must not rewrite the screen), and cut to MAX_MESSAGE_CHARS."""
+    text = " ".join(str(text).split())
+    text = "".join(c if c.isprintable() else f"\\u{ord(c):04x}" for c in text)
+    if len(text) > MAX_MESSAGE_CHARS:
+        text = text[:MAX_MESSAGE_CHARS - 1] + "…"
+    return text
+
+
+def write_internal_error_log(error: BaseException) -> str:
+    """The traceback of an internal error, in a file of its own; returns its path (or why it failed)."""
+    import tempfile
+    import time
+    import traceback
+    text = "".join(traceback.format_exception(type(error), error, error.__traceback__))
+    try:
+        directory = os.environ.get("FRAMEWRIGHT_LOG_DIR") or tempfile.gettempdir()
+        stamp = time.strftime("%Y%m%d-%H%M%S")
+        handle, path = tempfile.mkstemp(prefix=f"framewright-error-{stamp}-", suffix=".log", dir=directory)
+        with os.fdopen(handle, "w", encoding="utf-8", errors="backslashreplace") as log:
+            log.write(text)
+        return path
+    except OSError as log_error:
+        return f"(no log written: {log_error.strerror or log_error})"
+
+
 def main(argv=None, stdin=None, stdout=None, stderr=None) -> int:
+    """Run one verb. Every outcome is an exit status and at most one line on stderr: 0 / 1 as the verb
+    says, 2 for refused input and usage errors, 3 for an internal error (the traceback goes to a log)."""
+    import warnings
+
     stdin, stdout, stderr = stdin or sys.stdin, stdout or sys.stdout, stderr or sys.stderr
     argv = sys.argv[1:] if argv is None else list(argv)
     # Pasted text such as "-0.5,0,0,0.866" would look like an option to argparse: a leading space keeps
     # it text (the decoder ignores the space).
     argv = [" " + a if re.match(r"-\.?\d", a) else a for a in argv]
-    args = build_parser().parse_args(argv)
+    verb = next((a for a in argv if a in VERBS), None)
+    prefix = f"framewright {verb}" if verb else "framewright"
     try:
-        return args.run(args, stdin, stdout)
-    except _Refused as refused:
-        stderr.write(f"framewright {args.verb}: {' '.join(str(refused).split())}\n")
+        args = build_parser().parse_args(argv)
+        with warnings.catch_warnings():
+            # A floating-point warning means a number that cannot be trusted: an error, never a line
+            # of noise on stderr beside an exit status of 0.
+            warnings.simplefilter("error", RuntimeWarning)
+            return args.run(args, stdin, stdout)
+    except _UsageError as usage:
+        stderr.write(f"{prefix}: usage: {one_line(usage)}\n")
         return EXIT_REFUSED
+    except _Refused as refused:
+        stderr.write(f"{prefix}: {one_line(refused)}\n")
+        return EXIT_REFUSED
+    except SystemExit:
+        raise                       # --help and --version print and leave as argparse intends
+    except KeyboardInterrupt:
+        stderr.write(f"{prefix}: interrupted\n")
+        return 130
+    except BaseException as error:  # noqa: BLE001 - the contract: no bare traceback, ever
+        log = write_internal_error_log(error)
+        stderr.write(f"{prefix}: internal error ({one_line(type(error).__name__)}: "
+                     f"{one_line(error)[:120]}); please report it with the traceback in {log}\n")
+        return EXIT_INTERNAL
 
 
 if __name__ == "__main__":

@@ -217,8 +217,10 @@ def _render_json(orientation, o: FormatOptions) -> str:
 
 
 def json_object_text(data: dict) -> str:
-    """One JSON object, a key per line and each list on one line (readable in an e-mail)."""
-    body = ",\n".join(f"  {json.dumps(k)}: {json.dumps(v, ensure_ascii=False)}" for k, v in data.items())
+    """One JSON object, a key per line and each list on one line (readable in an e-mail). Strict JSON: a
+    non-finite number raises ValueError rather than printing NaN or Infinity."""
+    body = ",\n".join(f"  {json.dumps(k)}: {json.dumps(v, ensure_ascii=False, allow_nan=False)}"
+                       for k, v in data.items())
     return "{\n" + body + "\n}\n"
 
 
