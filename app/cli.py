@@ -191,15 +191,17 @@ def add_compare_arguments(parser: argparse.ArgumentParser) -> None:
 def run_compare(args, stdin, stdout) -> int:
     if args.nominal == "-" and args.measured == "-":
         raise _Refused("only one of NOMINAL and MEASURED can be read from standard input")
-    if args.tolerance is not None and not (args.tolerance >= 0 and args.tolerance != float("inf")):
-        raise _Refused(f"--tolerance must be a finite number of degrees, 0 or more; got {args.tolerance}")
+    try:
+        settings = CheckSettings(mode="total",
+                                 total_tolerance_deg=180.0 if args.tolerance is None else args.tolerance)
+    except FramewrightError as error:
+        raise _Refused(f"--tolerance: {error}") from None
     hints = hints_from(args)
     nominal_readings = decode_or_refuse(read_text(args.nominal, stdin), hints, "nominal: ")
     measured_readings = decode_or_refuse(read_text(args.measured, stdin), hints, "measured: ")
     nominal, measured = nominal_readings[0], measured_readings[0]
     # D = Nᵀ M in the nominal body frame, judged by the same rule as the Check panel and batch files
-    result = check(nominal.orientation, measured.orientation,
-                   CheckSettings(mode="total", total_tolerance_deg=180.0 if args.tolerance is None else args.tolerance))
+    result = check(nominal.orientation, measured.orientation, settings)
     angle, axis = result.total_deg, result.axis
     within = None if args.tolerance is None else result.passed
     warnings = []

@@ -125,8 +125,9 @@ def _tolerance(value, what):
         number = float(value)
     except (TypeError, ValueError) as exc:
         raise InvalidInputError(f"{what}: expected a number of degrees, got {value!r}") from exc
-    if not math.isfinite(number) or number < 0:
-        raise InvalidInputError(f"{what}: expected a finite angle >= 0 degrees, got {value!r}")
+    if not math.isfinite(number) or not 0 <= number <= 180:
+        # No deviation exceeds 180°: a larger tolerance cannot fail and is a typo, not a tolerance.
+        raise InvalidInputError(f"{what}: expected an angle from 0 to 180 degrees, got {value!r}")
     return number
 
 

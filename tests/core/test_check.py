@@ -129,8 +129,13 @@ def test_settings_round_trip_and_refusals():
     assert CheckSettings.from_dict({"body_axis": "-x"}).to_dict()["body_axis"] == "-X"
     with pytest.raises(InvalidInputError, match="expected one of total, pointing_and_roll"):
         CheckSettings(mode="angle")
-    with pytest.raises(InvalidInputError, match=">= 0"):
+    with pytest.raises(InvalidInputError, match="from 0 to 180 degrees"):
         CheckSettings(total_tolerance_deg=-1)
+    # no deviation exceeds a half turn, so a tolerance beyond 180° cannot fail: refused on both sides
+    assert CheckSettings(total_tolerance_deg=180).total_tolerance_deg == 180
+    for beyond in (180.000001, 1e308, float("inf"), float("nan")):
+        with pytest.raises(InvalidInputError, match="from 0 to 180 degrees"):
+            CheckSettings(pointing_tolerance_deg=beyond)
     with pytest.raises(InvalidInputError, match="needs a body axis"):
         CheckSettings(mode="pointing_and_roll")
     with pytest.raises(InvalidInputError, match="zero-length"):
