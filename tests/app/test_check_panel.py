@@ -115,7 +115,10 @@ def test_bad_tolerance_text_is_refused_and_the_last_good_value_kept(qtbot, panel
     commit(qtbot, panel.pointing_field, "0,3")
     assert panel.pointing_field.problem is not None and "'.'" in panel.pointing_field.problem
     commit(qtbot, panel.roll_field, "-1")
-    assert ">= 0" in panel.message.text()
+    assert "from 0 to 180 degrees" in panel.message.text()
+    assert model.check.settings == before
+    commit(qtbot, panel.roll_field, "1e308")      # would pass anything: refused, not shown in 300 digits
+    assert "from 0 to 180 degrees" in panel.message.text() and len(panel.message.text()) < 300
     assert model.check.settings == before
 
 
