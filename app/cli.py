@@ -6,7 +6,8 @@ listed once in VERBS.
 
 Exit status: 0 done (and within tolerance), 1 outside the tolerance, 2 refused input (usage errors
 included), with one line on stderr saying what is wrong and where, and nothing on stdout; 3 an internal
-error, with one line on stderr naming the log file that holds the traceback. Never a bare traceback.
+error, with one line on stderr naming the log file that holds the traceback; 4 when, with an
+uncertainty given, the measurement cannot decide (ISO 14253-1). Never a bare traceback.
 """
 
 from __future__ import annotations
@@ -21,7 +22,7 @@ from core.check import CheckSettings, check
 from core.decode import KINDS, DecodeHints, decode
 from core.errors import FramewrightError
 
-EXIT_OK, EXIT_OUTSIDE, EXIT_REFUSED, EXIT_INTERNAL = 0, 1, 2, 3
+EXIT_OK, EXIT_OUTSIDE, EXIT_REFUSED, EXIT_INTERNAL, EXIT_UNDECIDED = 0, 1, 2, 3, 4
 MAX_INPUT_BYTES = 1_000_000         # standard input and files are read up to this and refused beyond it
 MAX_FILE_BYTES = 200_000_000      # CSV files (a batch of a million mounts is about 150 MB)
 MAX_MESSAGE_CHARS = 400             # a refusal is one readable line, however long the input it quotes
@@ -185,6 +186,11 @@ def add_compare_arguments(parser: argparse.ArgumentParser) -> None:
     parser.add_argument("measured", metavar="MEASURED", help="the measured orientation as text ('-': standard input)")
     add_reading_options(parser)
     parser.add_argument("--tolerance", type=float, metavar="DEG", help="allowed total deviation in degrees")
+    parser.add_argument("--uncertainty", type=float, metavar="DEG",
+                        help="standard uncertainty of the measured orientation, degrees: the verdict then follows "
+                             "ISO 14253-1 (conforms / does not conform / cannot decide)")
+    parser.add_argument("--coverage", type=float, default=2.0, metavar="K",
+                        help="coverage factor k of the expanded uncertainty U = k u (default 2)")
     parser.add_argument("--json", action="store_true", help="print one JSON object")
 
 
@@ -204,6 +210,15 @@ def run_compare(args, stdin, stdout) -> int:
     result = check(nominal.orientation, measured.orientation, settings)
     angle, axis = result.total_deg, result.axis
     within = None if args.tolerance is None else result.passed
+    decision = None
+    if args.uncertainty is not None:
+        if args.tolerance is None:
+            raise _Refused("--uncertainty needs --tolerance: the decision compares the deviation with a tolerance")
+        from core.decision import decide
+        try:
+            decision = decide(angle, args.tolerance, args.uncertainty, args.coverage)
+        except FramewrightError as error:
+            raise _Refused(str(error)) from None
     warnings = []
     for name, readings in (("nominal", nominal_readings), ("measured", measured_readings)):
         if len(readings) > 1:
@@ -213,6 +228,8 @@ def run_compare(args, stdin, stdout) -> int:
         data = {"deviation_deg": angle, "axis": None if angle == 0 else [float(v) for v in axis],
                 "axis_frame": "nominal body", "within_tolerance": within, "tolerance_deg": args.tolerance,
                 "margin_deg": None if args.tolerance is None else args.tolerance - angle,
+                "uncertainty_deg": args.uncertainty, "coverage": args.coverage if decision else None,
+                "decision": decision.outcome if decision else None,
                 "warnings": warnings, "nominal": reading_object(nominal, args),
                 "measured": reading_object(measured, args)}
         stdout.write(formats.json_object_text(data))
@@ -223,9 +240,13 @@ def run_compare(args, stdin, stdout) -> int:
             margin = args.tolerance - angle
             lines.append(f"within tolerance {_n(args.tolerance)} deg (margin {_n(margin)} deg)" if within else
                          f"OUTSIDE tolerance {_n(args.tolerance)} deg (by {_n(-margin)} deg)")
+        if decision is not None:
+            lines.append(f"decision (ISO 14253-1): {decision.words()}")
         lines += [f"nominal: {nominal.label}", f"measured: {measured.label}"]
         lines += [f"warning: {w}" for w in warnings]
         stdout.write("\n".join(lines) + "\n")
+    if decision is not None:
+        return {"conforms": EXIT_OK, "does not conform": EXIT_OUTSIDE}.get(decision.outcome, EXIT_UNDECIDED)
     return EXIT_OUTSIDE if within is False else EXIT_OK
 
 
@@ -367,6 +388,200 @@ def run_batch(args, stdin, stdout) -> int:
 
 
 # ---------------------------------------------------------------------------------------------------
+# correct
+# ---------------------------------------------------------------------------------------------------
+def add_correct_arguments(parser: argparse.ArgumentParser) -> None:
+    parser.add_argument("nominal", metavar="NOMINAL", help="the nominal orientation as text ('-': standard input)")
+    parser.add_argument("measured", metavar="MEASURED", help="the measured orientation as text ('-': standard input)")
+    add_reading_options(parser)
+    parser.add_argument("--axes", metavar="A1;A2[;A3]",
+                        help="the mount's adjustment axes in the order they are turned, each +X/-Y/Z or three "
+                             "numbers, e.g. \"+Z; 0.2 1 0\"")
+    parser.add_argument("--frame", choices=("body", "reference"), default="body",
+                        help="the frame the adjustment axes are written in (default body)")
+    parser.add_argument("--footprint", metavar="FILE",
+                        help="the feet (or bolt points) in body coordinates, mm: one 'x y z' a line")
+    parser.add_argument("--face-normal", metavar="AXIS",
+                        help="outward normal of the mounting face (+X/-Z or three numbers); default: the feet's "
+                             "plane, on the side away from the body origin")
+    parser.add_argument("--pivot", type=int, default=1, metavar="N", help="the foot that stays put (default 1)")
+    parser.add_argument("--pitch", type=float, metavar="MM", help="thread pitch of levelling screws, mm per turn")
+    parser.add_argument("--json", action="store_true", help="print one JSON object")
+
+
+def _floats(values) -> list:
+    return [float(v) + 0.0 for v in values]
+
+
+def run_correct(args, stdin, stdout) -> int:
+    from core.correction import adjustment_angles, correction, read_axes
+    from core.shims import outward_normal, read_footprint, shims
+
+    if args.nominal == "-" and args.measured == "-":
+        raise _Refused("only one of NOMINAL and MEASURED can be read from standard input")
+    hints = hints_from(args)
+    nominal = decode_or_refuse(read_text(args.nominal, stdin), hints, "nominal: ")[0]
+    measured = decode_or_refuse(read_text(args.measured, stdin), hints, "measured: ")[0]
+    fix = correction(nominal.orientation, measured.orientation)
+    data = {"correction_body": {"angle_deg": fix.angle_deg, "axis": None if fix.axis_body is None else
+                                _floats(fix.axis_body), "small_angles_deg": _floats(fix.small_angles_body_deg)},
+            "correction_reference": {"angle_deg": fix.angle_deg, "axis": None if fix.axis_reference is None else
+                                     _floats(fix.axis_reference),
+                                     "small_angles_deg": _floats(fix.small_angles_reference_deg)},
+            "meaning": "measured @ correction_body = nominal; correction_reference @ measured = nominal",
+            "adjustment": None, "shims": None}
+    try:
+        if args.axes is not None:
+            target = fix.body if args.frame == "body" else fix.reference
+            adjust = adjustment_angles(target, read_axes(args.axes))
+            data["adjustment"] = {"frame": args.frame, "axes": [list(a) for a in adjust.axes],
+                                  "angles_deg": list(adjust.angles_deg), "residual_deg": adjust.residual_deg,
+                                  "exact": adjust.exact}
+        if args.footprint is not None:
+            feet = read_footprint(read_file_text(args.footprint))
+            if args.face_normal is None:
+                normal = outward_normal(feet)
+            else:
+                from core.check import axis_vector
+                from core.correction import read_axes as read_directions
+                normal = axis_vector(tuple(read_directions(args.face_normal)[0]), "face normal")
+            result = shims(fix.body, feet, normal, pivot=args.pivot - 1, pitch_mm=args.pitch)
+            data["shims"] = {"face_normal": _floats(normal), "pivot_foot": args.pivot,
+                             "feet_mm": [_floats(f) for f in feet], "shims_mm": _floats(result.shims_mm),
+                             "screw_turns": None if result.turns is None else _floats(result.turns),
+                             "pitch_mm": args.pitch, "tilt_deg": result.tilt_deg,
+                             "twist_deg": result.twist_deg, "pivot_lifted_mm": result.pivot_lifted_mm}
+    except FramewrightError as error:
+        raise _Refused(str(error)) from None
+    if args.json:
+        stdout.write(formats.json_object_text(data))
+        return EXIT_OK
+    stdout.write("\n".join(_correction_lines(fix, data)) + "\n")
+    return EXIT_OK
+
+
+def _about_words(angle, axis, frame) -> str:
+    return "no correction needed" if axis is None else \
+        f"{_n(angle)} deg about ({', '.join(_n(v) for v in axis)}) in {frame} axes"
+
+
+def _correction_lines(fix, data) -> list[str]:
+    lines = ["correction (turns the part from measured to nominal):",
+             f"  {_about_words(fix.angle_deg, fix.axis_body, 'body')}",
+             f"  {_about_words(fix.angle_deg, fix.axis_reference, 'reference')}",
+             f"  small turns about body X, Y, Z (deg): {', '.join(_n(v) for v in fix.small_angles_body_deg)}"]
+    adjust = data["adjustment"]
+    if adjust:
+        lines.append(f"adjustment angles about the given {adjust['frame']} axes, in order:")
+        for i, (axis, angle) in enumerate(zip(adjust["axes"], adjust["angles_deg"]), start=1):
+            lines.append(f"  {i}. about ({', '.join(_n(v) for v in axis)}): {_n(angle)} deg")
+        lines.append("  these reach the correction exactly" if adjust["exact"] else
+                     f"  these axes cannot reach the correction: {_n(adjust['residual_deg'])} deg remains "
+                     "(the least-squares answer)")
+    shim = data["shims"]
+    if shim:
+        lines.append(f"shims under the footprint (face normal ({', '.join(_n(v) for v in shim['face_normal'])}), "
+                     f"foot {shim['pivot_foot']} the pivot), mm:")
+        turns = shim["screw_turns"]
+        for i, (foot, thickness) in enumerate(zip(shim["feet_mm"], shim["shims_mm"]), start=1):
+            extra = "" if turns is None else f"   {turns[i - 1]:.3f} turns"
+            lines.append(f"  foot {i} at ({', '.join(_n(v) for v in foot)}): {thickness:.4f}{extra}")
+        lines.append(f"  tilt the shims make: {_n(shim['tilt_deg'])} deg; turn about the face normal left for the "
+                     f"slotted holes: {_n(shim['twist_deg'])} deg")
+        if shim["pivot_lifted_mm"] > 0:
+            lines.append(f"  the pivot foot needs a shim too ({shim['pivot_lifted_mm']:.4f} mm): no shim can be "
+                         "negative, so the thinnest set lifts every foot by that much")
+    return lines
+
+
+# ---------------------------------------------------------------------------------------------------
+# average
+# ---------------------------------------------------------------------------------------------------
+def add_average_arguments(parser: argparse.ArgumentParser) -> None:
+    parser.add_argument("file", metavar="FILE",
+                        help="repeated measurements of one mount: one orientation a line, or blocks separated by "
+                             "blank lines (a matrix on three lines); '-' reads standard input")
+    add_reading_options(parser)
+    parser.add_argument("--json", action="store_true", help="print one JSON object")
+
+
+def measurement_blocks(text: str) -> tuple[list[tuple[int, str]], bool]:
+    """(first line number, text) of each measurement, and whether they are the lines of one block.
+    Blocks between blank lines are measurements (a matrix on three lines); a file without blank lines
+    holds one measurement a line. '#' lines are comments."""
+    blocks, current = [], []
+    for number, line in enumerate(text.replace("\r\n", "\n").replace("\r", "\n").split("\n"), start=1):
+        if line.strip().startswith("#"):
+            continue
+        if line.strip():
+            current.append((number, line))
+        elif current:
+            blocks.append(current)
+            current = []
+    if current:
+        blocks.append(current)
+    if len(blocks) == 1:
+        return [(number, line) for number, line in blocks[0]], True
+    return [(block[0][0], "\n".join(line for _, line in block)) for block in blocks], False
+
+
+def run_average(args, stdin, stdout) -> int:
+    from core.average import average
+
+    text = read_text(args.file, stdin) if args.file == "-" else read_file_text(args.file)
+    blocks, one_block = measurement_blocks(text)
+    if not blocks:
+        raise _Refused(f"{args.file}: holds no measurements; expected one orientation a line")
+    hints = hints_from(args)
+    if one_block and len(blocks) > 1:
+        # Three lines of three numbers may be one matrix or three measurements: never guess which.
+        try:
+            whole = decode("\n".join(line for _, line in blocks), hints)
+        except FramewrightError:
+            whole = None
+        if whole:
+            raise _Refused(f"{args.file}: its lines read together as one orientation ({whole[0].label}); put one "
+                           "measurement a line, or separate measurements by blank lines")
+    readings = []
+    for line, block in blocks:
+        found = decode_or_refuse(block, hints, f"{args.file} line {line}: ")
+        readings.append((line, found))
+    first_label = readings[0][1][0].label
+    for line, found in readings:
+        if found[0].label != first_label:
+            raise _Refused(f"{args.file} line {line}: read as {found[0].label} but the first measurement as "
+                           f"{first_label}; options such as --kind make them read alike")
+    try:
+        result = average([found[0].orientation for _, found in readings])
+    except FramewrightError as error:
+        raise _Refused(f"{args.file}: {error}") from None
+    summary = formats.summary(result.mean, args.sequence or "ZYX", True if args.intrinsic is None else args.intrinsic)
+    ambiguous = sum(len(found) > 1 for _, found in readings)
+    notes = [f"{ambiguous} measurement(s) had more than one reading; each was read as {first_label} (options such "
+             "as --kind make it unique)"] if ambiguous else []
+    table = [{"line": line, "angle_to_average_deg": float(angle), "flagged": i in result.flagged}
+             for i, ((line, _), angle) in enumerate(zip(readings, result.angles_deg))]
+    if args.json:
+        stdout.write(formats.json_object_text({
+            "measurements": result.count, "read_as": first_label, **summary, "rms_deg": result.rms_deg,
+            "max_deg": result.max_deg, "standard_uncertainty_deg": result.standard_uncertainty_deg,
+            "flagged_lines": [readings[i][0] for i in result.flagged], "scatter": table, "notes": notes}))
+        return EXIT_OK
+    lines = [f"average of {result.count} measurements (read as {first_label})"] + orientation_lines(summary)
+    lines.append(f"  scatter: RMS {_n4(result.rms_deg)} deg, largest {_n4(result.max_deg)} deg")
+    if result.standard_uncertainty_deg is not None:
+        lines.append(f"  standard uncertainty of the average: {_n4(result.standard_uncertainty_deg)} deg "
+                     "(RMS scatter / sqrt(n - 1))")
+    lines.append("   line   angle to the average (deg)")
+    for row in table:
+        lines.append(f"  {row['line']:>5}   {_n4(row['angle_to_average_deg']):>10}"
+                     + ("   flagged: more than 3 scatters from the others" if row["flagged"] else ""))
+    lines += [f"note: {note}" for note in notes]
+    stdout.write("\n".join(lines) + "\n")
+    return EXIT_OK
+
+
+# ---------------------------------------------------------------------------------------------------
 # open
 # ---------------------------------------------------------------------------------------------------
 def add_open_arguments(parser: argparse.ArgumentParser) -> None:
@@ -394,6 +609,10 @@ VERBS = {
     "compare": ("deviation of a measured orientation from the nominal", add_compare_arguments, run_compare),
     "fit": ("best-fit orientation from point pairs in a CSV file, with residuals", add_fit_arguments, run_fit),
     "batch": ("deviations of many mounts in a CSV file against a tolerance", add_batch_arguments, run_batch),
+    "correct": ("what to turn, and the shims, to bring a measured mount to its nominal", add_correct_arguments,
+                run_correct),
+    "average": ("the average of repeated measurements of one mount, with their scatter", add_average_arguments,
+                run_average),
     "open": ("open a session file in the window", add_open_arguments, run_open),
 }
 

@@ -72,6 +72,29 @@ class AdjustmentAngles:
         return compose_about_axes(self.axes, self.angles_deg)
 
 
+def read_axes(text: str) -> list:
+    """'+X; 0 1 1; -Z' -> the axes, each a named axis (+X, -y, Z) or three numbers; ';' between axes."""
+    from core.check import axis_name, axis_vector
+    from core.number_text import parse_number
+    if not isinstance(text, str) or len(text) > 1000:
+        raise InvalidInputError("adjustment axes: expected text such as '+X; 0 1 1' (at most 1000 characters)")
+    axes = []
+    for i, part in enumerate(text.split(";"), start=1):
+        name = axis_name(part)
+        if name is not None:
+            axes.append(axis_vector(name))
+            continue
+        numbers = part.replace(",", " ").split()
+        if len(numbers) != 3:
+            raise InvalidInputError(f"adjustment axis {i} ('{part.strip()[:40]}'): expected a named axis such as +X "
+                                    "or three numbers")
+        try:
+            axes.append([parse_number(n) for n in numbers])
+        except ValueError as error:
+            raise InvalidInputError(f"adjustment axis {i}: {error}") from None
+    return axes
+
+
 def _unit_axes(axes) -> np.ndarray:
     try:
         a = np.array(axes, dtype=float)

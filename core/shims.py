@@ -69,6 +69,43 @@ def _unit(vector, what) -> np.ndarray:
     return v / np.linalg.norm(v)
 
 
+def read_footprint(text: str) -> np.ndarray:
+    """Feet as text: one foot a line, x y z in body coordinates (commas, spaces or tabs between), a first
+    line of column names and lines starting with '#' allowed."""
+    from core.number_text import parse_number
+    if not isinstance(text, str) or len(text) > 100_000:
+        raise InvalidInputError("footprint: expected text of at most 100,000 characters")
+    rows = []
+    for line_no, line in enumerate(text.replace("\r\n", "\n").replace("\r", "\n").split("\n"), start=1):
+        cells = line.replace(",", " ").replace(";", " ").split()
+        if not cells or cells[0].startswith("#"):
+            continue
+        if not rows and not any(c[0].isdigit() or c[0] in "+-.−" for c in cells):
+            continue                                             # the column names
+        if len(cells) != 3:
+            raise InvalidInputError(f"footprint line {line_no}: expected three numbers (x y z), got {len(cells)}")
+        try:
+            rows.append([parse_number(c) for c in cells])
+        except ValueError as error:
+            raise InvalidInputError(f"footprint line {line_no}: {error}") from None
+        if len(rows) > MAX_FEET:
+            raise InvalidInputError(f"footprint: more than {MAX_FEET} feet")
+    return _footprint(rows) if rows else _footprint(np.zeros((0, 3)))
+
+
+def outward_normal(footprint) -> np.ndarray:
+    """The normal of the feet's plane that points away from the body origin (the part's centre), which is
+    the mounting face's outward normal for a part whose origin is inside it."""
+    p = _footprint(footprint)
+    centre = p.mean(axis=0)
+    normal = np.linalg.svd(p - centre)[2][-1]
+    offset = float(centre @ normal)
+    if abs(offset) < 1e-9 * max(1.0, float(np.abs(p).max())):
+        raise InvalidInputError("footprint: the feet's plane passes through the body origin, so its outward side is "
+                                "not known; give the face normal")
+    return normal if offset > 0 else -normal
+
+
 def swing_and_twist(rotation: Orientation, axis) -> tuple[Orientation, Orientation]:
     """(swing, twist) with rotation = twist @ swing, twist about `axis`, swing about an axis ⊥ `axis`."""
     n = _unit(axis, "face normal")
