@@ -570,8 +570,8 @@ def run_average(args, stdin, stdout) -> int:
     lines = [f"average of {result.count} measurements (read as {first_label})"] + orientation_lines(summary)
     lines.append(f"  scatter: RMS {_n4(result.rms_deg)} deg, largest {_n4(result.max_deg)} deg")
     if result.standard_uncertainty_deg is not None:
-        lines.append(f"  standard uncertainty of the average: {_n4(result.standard_uncertainty_deg)} deg "
-                     "(RMS scatter / sqrt(n - 1))")
+        lines.append(f"  standard uncertainty of the average: {_n4(result.standard_uncertainty_deg)} deg per axis "
+                     "(from the scatter, over sqrt(n))")
     lines.append("   line   angle to the average (deg)")
     for row in table:
         lines.append(f"  {row['line']:>5}   {_n4(row['angle_to_average_deg']):>10}"

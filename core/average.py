@@ -28,7 +28,9 @@ LEAVE_ONE_OUT_MAX = 1000
 @dataclass(frozen=True)
 class Average:
     """mean: the average; angles_deg[i]: measurement i's angle from it; rms_deg, max_deg: the scatter;
-    standard_uncertainty_deg: of the average, rms / √(n − 1) (Bessel-corrected, None for one measurement);
+    covariance_rad2: of the average, a small rotation in the reference frame (core.uncertainty), the
+    scatter's covariance (Bessel-corrected) over n; standard_uncertainty_deg: its mean per axis,
+    √(trace / 3) (for equal weights rms / √(3 (n − 1))); both None for one measurement;
     flagged: measurements more than OUTLIER_SCATTERS scatters from the average of the others."""
     mean: Orientation
     count: int
@@ -37,6 +39,7 @@ class Average:
     max_deg: float
     standard_uncertainty_deg: float | None
     flagged: tuple[int, ...]
+    covariance_rad2: np.ndarray | None = None
 
 
 def _quaternions(measurements) -> np.ndarray:
@@ -99,5 +102,13 @@ def average(measurements, weights=None) -> Average:
             rest_rms = math.sqrt(float((w[others] * rest_angles ** 2).sum() / w[others].sum()))
             if float(np.degrees(kernels.angles_between(rest, q[i]))) > OUTLIER_SCATTERS * rest_rms > 0:
                 flagged.append(i)
-    uncertainty = None if n == 1 else rms / math.sqrt(n - 1)
-    return Average(mean, n, angles, rms, float(angles.max()), uncertainty, tuple(int(i) for i in flagged))
+    covariance = uncertainty = None
+    if n > 1:
+        # each measurement as a small turn from the average, in the reference frame: δ = M · e
+        spread = mean.apply(kernels.quaternions_to_rotation_vectors(
+            kernels.multiply_quaternions(kernels.conjugate_quaternions(mean.quaternion), q)))
+        scatter = (spread * w[:, None]).T @ spread / total * n / (n - 1)
+        covariance = scatter / n
+        uncertainty = math.degrees(math.sqrt(float(np.trace(covariance)) / 3))
+    return Average(mean, n, angles, rms, float(angles.max()), uncertainty, tuple(int(i) for i in flagged),
+                   covariance)

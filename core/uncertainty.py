@@ -1,0 +1,97 @@
+"""How sure a measured orientation is, and what that means for the figures a check judges.
+
+An orientation's uncertainty is a 3×3 covariance of a small rotation δ (radians², reference frame) with
+M_true = exp([δ]×) · M. It comes from a hand-typed standard uncertainty (the same on every axis), from the
+scatter of repeated measurements (core.average), or from a point fit's residuals and geometry.
+
+Point fit (measured = R · nominal + t, least squares): linearised about the fit, each point's residual
+changes by −[c_i]× δ with c_i = R (p_i − p̄) the centred nominal point turned into the reference frame, so
+Cov(δ) = σ² H⁻¹ with H = Σ w_i (|c_i|² I − c_i c_iᵀ) and σ² = Σ w_i |r_i|² / (3n − 6) (per coordinate, for a
+weight of 1; six parameters fitted). This is the small-angle covariance of the absolute-orientation fit
+(Horn 1987; Kabsch 1976 for the fit itself).
+
+Figures of a check (D = Nᵀ M, CONVENTIONS.md), to first order in δ:
+- total deviation d = |log D|: its change is a · (Mᵀ δ) with a the deviation axis in body axes;
+- pointing error of body axis b: the change of the angle between N b and M b is e · δ, e the unit normal of
+  the plane through them (where the pointing error is near zero the largest spread across M b is used);
+- roll about b: (M b) · δ.
+"""
+
+from __future__ import annotations
+
+import math
+
+import numpy as np
+
+from core.errors import InvalidInputError
+from core.orientation import Orientation
+
+# Below this pointing error (radians) its direction is rounding: use the largest spread across the axis.
+_POINTING_DEFINED_RAD = 1e-9
+
+
+def isotropic(standard_uncertainty_deg) -> np.ndarray:
+    """The covariance of an orientation known to u degrees (one standard deviation) about every axis."""
+    if isinstance(standard_uncertainty_deg, bool):
+        raise InvalidInputError("standard uncertainty: expected a number of degrees")
+    try:
+        u = float(standard_uncertainty_deg)
+    except (TypeError, ValueError):
+        raise InvalidInputError(f"standard uncertainty: expected a number of degrees, got "
+                                f"{standard_uncertainty_deg!r}") from None
+    if not math.isfinite(u) or not 0 <= u <= 180:
+        raise InvalidInputError(f"standard uncertainty: expected 0 to 180 degrees, got {standard_uncertainty_deg!r}")
+    return np.eye(3) * math.radians(u) ** 2
+
+
+def point_fit_covariance(nominal_points, orientation: Orientation, residuals, weights=None) -> np.ndarray:
+    """Cov(δ) (radians², reference frame) of a point fit from its nominal points, result and residuals."""
+    p = np.asarray(nominal_points, dtype=float)
+    r = np.asarray(residuals, dtype=float)
+    n = len(p)
+    if p.ndim != 2 or p.shape[1] != 3 or r.shape != p.shape:
+        raise InvalidInputError("point fit covariance: expected nominal points and residuals as matching (N, 3) rows")
+    w = np.ones(n) if weights is None else np.asarray(weights, dtype=float)
+    used = int(np.count_nonzero(w))
+    if used < 3:
+        raise InvalidInputError("point fit covariance: expected at least 3 points with weight above zero")
+    centre = (w @ p) / w.sum()
+    c = orientation.apply(p - centre)
+    h = (w * np.einsum("ij,ij->i", c, c)).sum() * np.eye(3) - (c * w[:, None]).T @ c
+    sigma2 = float((w * np.einsum("ij,ij->i", r, r)).sum()) / (3 * used - 6)
+    try:
+        return sigma2 * np.linalg.inv(h)
+    except np.linalg.LinAlgError:
+        raise InvalidInputError("point fit covariance: the nominal points do not fix the rotation "
+                                "(collinear)") from None
+
+
+def figure_uncertainties(nominal: Orientation, measured: Orientation, covariance, body_axis=None) -> dict:
+    """Standard uncertainties (degrees) of the total deviation and, for a body axis, of its pointing error
+    and of the roll about it, from the measured orientation's covariance (radians², reference frame)."""
+    cov = np.asarray(covariance, dtype=float)
+    if cov.shape != (3, 3) or not np.all(np.isfinite(cov)):
+        raise InvalidInputError("orientation covariance: expected a finite 3×3 matrix")
+    m = measured.as_matrix()
+    deviation = nominal.inverse() @ measured
+    axis, angle = deviation.as_axis_angle(degrees=False)
+    body_cov = m.T @ cov @ m
+    if angle > 0:
+        total = math.sqrt(max(0.0, float(axis @ body_cov @ axis)))
+    else:   # at zero deviation the angle grows with the whole spread: its largest direction
+        total = math.sqrt(max(0.0, float(np.linalg.eigvalsh(body_cov)[-1])))
+    out = {"total_deg": math.degrees(total)}
+    if body_axis is not None:
+        b = np.asarray(body_axis, dtype=float)
+        b = b / np.linalg.norm(b)
+        nominal_b, measured_b = nominal.apply(b), measured.apply(b)
+        normal = np.cross(nominal_b, measured_b)
+        if np.linalg.norm(normal) > _POINTING_DEFINED_RAD:
+            e = normal / np.linalg.norm(normal)
+            pointing = float(e @ cov @ e)
+        else:
+            across = np.eye(3) - np.outer(measured_b, measured_b)
+            pointing = float(np.linalg.eigvalsh(across @ cov @ across)[-1])
+        out["pointing_deg"] = math.degrees(math.sqrt(max(0.0, pointing)))
+        out["roll_deg"] = math.degrees(math.sqrt(max(0.0, float(measured_b @ cov @ measured_b))))
+    return out

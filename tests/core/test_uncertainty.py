@@ -1,0 +1,83 @@
+"""The covariance of a point fit and its propagation to the figures a check judges, each checked against a
+Monte Carlo of noisy cases (the empirical spread within 10 % of the prediction); SciPy's Rotation makes the
+noise rotations."""
+
+import math
+
+import numpy as np
+import pytest
+from scipy.spatial.transform import Rotation
+
+from core.check import CheckSettings, check
+from core.errors import InvalidInputError
+from core.fit import fit_points
+from core.orientation import Orientation
+from core.uncertainty import figure_uncertainties, isotropic, point_fit_covariance
+
+RNG = np.random.default_rng(1401)
+# an invented bracket: eight points on a 300 × 120 × 80 mm part, not symmetric, so the covariance is not round
+NOMINAL = np.array([[150, 60, 40], [-150, 60, 40], [-150, -60, 40], [150, -60, -40], [0, 0, 40], [120, -60, 0],
+                    [-100, 20, -40], [60, 60, -40]], dtype=float)
+TRUE = Rotation.from_euler("ZYX", [30, -12, 5], degrees=True)
+SIGMA_MM = 0.05
+
+
+def _noisy_fit():
+    measured = TRUE.apply(NOMINAL) + np.array([1000, -200, 50]) + RNG.normal(scale=SIGMA_MM, size=NOMINAL.shape)
+    return fit_points(NOMINAL, measured)
+
+
+def test_a_point_fits_covariance_matches_2000_noisy_fits():
+    errors, predicted = [], []
+    truth = Orientation.from_quaternion(TRUE.as_quat(scalar_first=True))
+    for _ in range(2000):
+        fit = _noisy_fit()
+        # δ with R_fit = exp([δ]×) R_true, reference frame
+        errors.append((fit.orientation @ truth.inverse()).as_rotation_vector(degrees=False))
+        predicted.append(point_fit_covariance(NOMINAL, fit.orientation, fit.residuals))
+    empirical = np.cov(np.array(errors).T)
+    expected = np.mean(predicted, axis=0)          # σ estimated from each fit's own residuals
+    spread_e, spread_p = np.linalg.eigvalsh(empirical), np.linalg.eigvalsh(expected)
+    assert np.allclose(spread_e, spread_p, rtol=0.10)
+    # and direction by direction: the standard deviation along each principal axis of the prediction
+    for axis in np.linalg.eigh(expected)[1].T:
+        assert math.sqrt(axis @ empirical @ axis) == pytest.approx(math.sqrt(axis @ expected @ axis), rel=0.10)
+
+
+def _perturbed(measured: Orientation, covariance, count):
+    deltas = RNG.multivariate_normal(np.zeros(3), covariance, size=count)
+    return [Orientation.from_rotation_vector(d, degrees=False) @ measured for d in deltas]
+
+
+@pytest.mark.parametrize("body_axis", ["+X", "+Z"])
+def test_figure_uncertainties_match_a_monte_carlo_of_the_check(body_axis):
+    nominal = Orientation.from_angles("ZYX", [30, -12, 5])
+    measured = nominal @ Orientation.from_angles("ZYX", [1.2, -0.8, 0.6])
+    covariance = np.diag([0.02, 0.05, 0.03]) ** 2 * (math.pi / 180) ** 2
+    covariance[0, 1] = covariance[1, 0] = 0.3 * math.sqrt(covariance[0, 0] * covariance[1, 1])
+    predicted = figure_uncertainties(nominal, measured, covariance, CheckSettings(body_axis=body_axis).axis_vector())
+    settings = CheckSettings(mode="pointing_and_roll", body_axis=body_axis, pointing_tolerance_deg=10,
+                             roll_tolerance_deg=10, total_tolerance_deg=10)
+    results = [check(nominal, m, settings) for m in _perturbed(measured, covariance, 2000)]
+    assert np.std([r.total_deg for r in results]) == pytest.approx(predicted["total_deg"], rel=0.10)
+    assert np.std([r.pointing_deg for r in results]) == pytest.approx(predicted["pointing_deg"], rel=0.10)
+    assert np.std([r.roll_deg for r in results]) == pytest.approx(predicted["roll_deg"], rel=0.10)
+
+
+def test_an_isotropic_uncertainty_gives_every_figure_the_same_uncertainty():
+    nominal = Orientation.from_angles("ZYX", [10, 20, 30])
+    measured = nominal @ Orientation.from_axis_angle((1, 2, 2), 2)
+    figures = figure_uncertainties(nominal, measured, isotropic(0.05), (0, 0, 1))
+    assert figures == pytest.approx({"total_deg": 0.05, "pointing_deg": 0.05, "roll_deg": 0.05}, rel=1e-9)
+
+
+@pytest.mark.parametrize("value", [-0.1, 181, float("nan"), True, "x"])
+def test_a_typed_uncertainty_outside_its_range_is_refused(value):
+    with pytest.raises(InvalidInputError, match="standard uncertainty"):
+        isotropic(value)
+
+
+def test_a_covariance_needs_three_points_with_weight():
+    fit = fit_points(NOMINAL[:4], TRUE.apply(NOMINAL[:4]))
+    with pytest.raises(InvalidInputError, match="at least 3 points"):
+        point_fit_covariance(NOMINAL[:4], fit.orientation, fit.residuals, weights=[1, 1, 0, 0])
