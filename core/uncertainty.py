@@ -95,3 +95,30 @@ def figure_uncertainties(nominal: Orientation, measured: Orientation, covariance
         out["pointing_deg"] = math.degrees(math.sqrt(max(0.0, pointing)))
         out["roll_deg"] = math.degrees(math.sqrt(max(0.0, float(measured_b @ cov @ measured_b))))
     return out
+
+
+def direction_fit_covariance(reference_directions, orientation: Orientation, residual_angles_deg=None,
+                             weights=None, direction_uncertainty_deg=None) -> np.ndarray:
+    """Cov(δ) (radians², reference frame) of an orientation fitted to two or more measured directions, by
+    the QUEST covariance of M. D. Shuster & S. D. Oh (1981), "Three-axis attitude determination from vector
+    observations", J. Guidance and Control 4(1) (from memory): P = σ² (Σ wᵢ (I − rᵢ rᵢᵀ))⁻¹, with σ the
+    directions' own uncertainty when given, else estimated from the residual angles, Σ wᵢ θᵢ² / (2n − 3)."""
+    r = np.asarray(reference_directions, dtype=float)
+    if r.ndim != 2 or r.shape[1] != 3 or len(r) < 2:
+        raise InvalidInputError("direction fit covariance: expected two or more measured directions")
+    r = r / np.linalg.norm(r, axis=1)[:, None]
+    w = np.ones(len(r)) if weights is None else np.asarray(weights, dtype=float)
+    if direction_uncertainty_deg is not None:
+        sigma2 = math.radians(float(direction_uncertainty_deg)) ** 2
+    else:
+        if residual_angles_deg is None:
+            raise InvalidInputError("direction fit covariance: give the directions' uncertainty or the residuals")
+        dof = 2 * int(np.count_nonzero(w)) - 3
+        theta = np.radians(np.asarray(residual_angles_deg, dtype=float))
+        sigma2 = float((w * theta ** 2).sum()) / dof
+    information = (w[:, None, None] * (np.eye(3) - r[:, :, None] * r[:, None, :])).sum(axis=0)
+    try:
+        return sigma2 * np.linalg.inv(information)
+    except np.linalg.LinAlgError:
+        raise InvalidInputError("direction fit covariance: the directions are parallel; the turn about them is "
+                                "not determined") from None

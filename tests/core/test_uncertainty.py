@@ -10,9 +10,9 @@ from scipy.spatial.transform import Rotation
 
 from core.check import CheckSettings, check
 from core.errors import InvalidInputError
-from core.fit import fit_points
+from core.fit import fit_directions, fit_points
 from core.orientation import Orientation
-from core.uncertainty import figure_uncertainties, isotropic, point_fit_covariance
+from core.uncertainty import direction_fit_covariance, figure_uncertainties, isotropic, point_fit_covariance
 
 RNG = np.random.default_rng(1401)
 # an invented bracket: eight points on a 300 × 120 × 80 mm part, not symmetric, so the covariance is not round
@@ -81,3 +81,23 @@ def test_a_covariance_needs_three_points_with_weight():
     fit = fit_points(NOMINAL[:4], TRUE.apply(NOMINAL[:4]))
     with pytest.raises(InvalidInputError, match="at least 3 points"):
         point_fit_covariance(NOMINAL[:4], fit.orientation, fit.residuals, weights=[1, 1, 0, 0])
+
+
+def test_a_direction_fits_covariance_matches_2000_noisy_fits():
+    # an invented bench: gravity from a level, a boresight from a sight and a third direction from a tracker,
+    # each known to 0.02° (their noise turns each direction by a small random rotation)
+    body = np.array([[0, 0, -1], [1, 0, 0], [0.3, 0.9, 0.1]], dtype=float)
+    body /= np.linalg.norm(body, axis=1)[:, None]
+    reference = TRUE.apply(body)
+    truth = Orientation.from_quaternion(TRUE.as_quat(scalar_first=True))
+    sigma = math.radians(0.02)
+    errors = []
+    for _ in range(2000):
+        # noise perpendicular to each direction, σ per axis (two axes across it)
+        noise = RNG.normal(scale=sigma, size=reference.shape)
+        noise -= np.einsum("ij,ij->i", noise, reference)[:, None] * reference
+        fit = fit_directions(body, reference + noise, min_angle_deg=1)
+        errors.append((fit.orientation @ truth.inverse()).as_rotation_vector(degrees=False))
+    empirical = np.cov(np.array(errors).T)
+    expected = direction_fit_covariance(reference, truth, direction_uncertainty_deg=0.02)
+    assert np.allclose(np.linalg.eigvalsh(empirical), np.linalg.eigvalsh(expected), rtol=0.10)
