@@ -20,9 +20,6 @@ from core.orientation import Orientation
 
 MAX_MEASUREMENTS = 1_000_000
 OUTLIER_SCATTERS = 3.0          # a measurement this many scatters from the others' average is flagged
-# Up to this many measurements each is judged against the others alone (n² work); beyond it one reading
-# cannot move the average or the scatter enough to hide, and the whole set's figures are used.
-LEAVE_ONE_OUT_MAX = 1000
 
 
 @dataclass(frozen=True)
@@ -78,37 +75,39 @@ def _mean(q: np.ndarray, w: np.ndarray) -> np.ndarray:
     return vectors[:, -1]
 
 
+def _far_from_the_others(errors: np.ndarray, w: np.ndarray) -> list[int]:
+    """Measurements more than OUTLIER_SCATTERS scatters from the average of the others. Leaving out
+    measurement i (error eᵢ from the average, small turns) moves the average by Δ = −wᵢ eᵢ / (W − wᵢ), so its
+    distance from the others' average is |eᵢ| W / (W − wᵢ), and the others' mean square error about their
+    own average is (Σ w|e|² − wᵢ|eᵢ|² − wᵢ²|eᵢ|² / (W − wᵢ)) / (W − wᵢ): every case at once, to first order."""
+    square = np.einsum("ij,ij->i", errors, errors)
+    total, total_square = w.sum(), float(w @ square)
+    rest = total - w
+    usable = (w > 0) & (rest > 0)
+    rest = np.where(usable, rest, 1.0)
+    own = np.sqrt(square) * total / rest
+    rest_rms = np.sqrt(np.maximum(total_square - w * square - w * w * square / rest, 0.0) / rest)
+    return [int(i) for i in np.flatnonzero(usable & (own > OUTLIER_SCATTERS * rest_rms) & (rest_rms > 0))]
+
+
 def average(measurements, weights=None) -> Average:
     """The weighted average of Orientations (or (n, 4) w-first quaternions), with its scatter."""
     q = _quaternions(measurements)
     w = _weights(weights, len(q))
     mean = Orientation.from_quaternion(_mean(q, w))
-    angles = np.degrees(kernels.angles_between(mean.quaternion, q))
+    # each measurement as a small turn from the average, in the average's body axes (radians)
+    turns = kernels.multiply_quaternions(kernels.conjugate_quaternions(mean.quaternion), q)
+    turns *= np.where(turns[:, :1] < 0, -1.0, 1.0)          # w >= 0: the short way round, as canonical
+    errors = kernels.quaternions_to_rotation_vectors(turns, assume_canonical=True)
+    angles = np.degrees(np.sqrt(np.einsum("ij,ij->i", errors, errors)))
     total = w.sum()
     rms = math.sqrt(float((w * angles ** 2).sum() / total))
     n = len(q)
-    flagged = []
-    if n > LEAVE_ONE_OUT_MAX:
-        flagged = list(np.flatnonzero(angles > OUTLIER_SCATTERS * rms)) if rms > 0 else []
-    elif n >= 3:
-        total_matrix = (q * w[:, None]).T @ q
-        for i in range(n):
-            others = np.arange(n) != i
-            if w[i] == 0 or w[others].sum() == 0:
-                continue
-            # the average of the others: the eigenvector of the sum less this measurement's own term
-            rest = np.linalg.eigh(total_matrix - w[i] * np.outer(q[i], q[i]))[1][:, -1]
-            rest_angles = np.degrees(kernels.angles_between(rest, q[others]))
-            rest_rms = math.sqrt(float((w[others] * rest_angles ** 2).sum() / w[others].sum()))
-            if float(np.degrees(kernels.angles_between(rest, q[i]))) > OUTLIER_SCATTERS * rest_rms > 0:
-                flagged.append(i)
+    flagged = _far_from_the_others(errors, w) if n >= 3 else []
     covariance = uncertainty = None
     if n > 1:
-        # each measurement as a small turn from the average, in the reference frame: δ = M · e
-        spread = mean.apply(kernels.quaternions_to_rotation_vectors(
-            kernels.multiply_quaternions(kernels.conjugate_quaternions(mean.quaternion), q)))
-        scatter = (spread * w[:, None]).T @ spread / total * n / (n - 1)
-        covariance = scatter / n
+        spread = mean.apply(errors)                  # the same turns in the reference frame: δ = M · e
+        covariance = (spread * w[:, None]).T @ spread / total / (n - 1)
         uncertainty = math.degrees(math.sqrt(float(np.trace(covariance)) / 3))
-    return Average(mean, n, angles, rms, float(angles.max()), uncertainty, tuple(int(i) for i in flagged),
+    return Average(mean, n, angles, rms, float(angles.max()), uncertainty, tuple(flagged),
                    covariance)
