@@ -22,6 +22,7 @@ from app.editors.quaternion_editor import QuaternionEditor
 from app.model import PREFERENCES, Change, SessionModel
 from app.panels.batch_panel import BatchPanel
 from app.panels.chain_panel import ChainPanel
+from app.panels.adjust_panel import AdjustPanel
 from app.panels.check_panel import CheckPanel
 from app.panels.decode_panel import DecodePanel
 from app.panels.gimbal_meter import GimbalMeter
@@ -81,6 +82,7 @@ class MainWindow(QMainWindow):
         self.batch_panel = BatchPanel(model)
         self.chain_panel = ChainPanel(model)
         self.check_panel = CheckPanel(model)
+        self.adjust_panel = AdjustPanel(model)
         self.level_panel = LevelPanel(model)
         self.scene = SceneWidget()
         self.scene.setMinimumHeight(320)
@@ -110,6 +112,7 @@ class MainWindow(QMainWindow):
         self.side_tabs.addTab(self.decode_panel, "Decode")
         self.side_tabs.addTab(_scrollable(self.chain_panel), "Chain")
         self.side_tabs.addTab(_scrollable(self.check_panel), "Check")
+        self.side_tabs.addTab(_scrollable(self.adjust_panel), "Adjust")
         self.side_tabs.addTab(_scrollable(self.level_panel), "Level")
         self.side_tabs.addTab(_scrollable(self.measure_panel), "Measure")
         self.side_tabs.addTab(_scrollable(self.batch_panel), "Batch")

@@ -72,8 +72,9 @@ class AdjustmentAngles:
         return compose_about_axes(self.axes, self.angles_deg)
 
 
-def read_axes(text: str) -> list:
-    """'+X; 0 1 1; -Z' -> the axes, each a named axis (+X, -y, Z) or three numbers; ';' between axes."""
+def read_axes(text: str) -> np.ndarray:
+    """'+X; 0 1 1; -Z' -> the unit axes, each a named axis (+X, -y, Z) or three numbers; ';' between axes.
+    Two or three axes, none of zero length and no two in a row parallel, or InvalidInputError."""
     from core.check import axis_name, axis_vector
     from core.number_text import parse_number
     if not isinstance(text, str) or len(text) > 1000:
@@ -92,7 +93,7 @@ def read_axes(text: str) -> list:
             axes.append([parse_number(n) for n in numbers])
         except ValueError as error:
             raise InvalidInputError(f"adjustment axis {i}: {error}") from None
-    return axes
+    return _unit_axes(axes)
 
 
 def _unit_axes(axes) -> np.ndarray:

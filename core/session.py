@@ -43,6 +43,7 @@ from dataclasses import dataclass, field, fields, replace
 from pathlib import Path
 from typing import Any, Mapping
 
+from core.adjustment_setup import AdjustmentSetup
 from core.chain import Chain
 from core.check import CheckSettings
 from core.errors import FramewrightError
@@ -186,6 +187,7 @@ class SavedCheck:
     measured: str | None = None
     settings: CheckSettings = field(default_factory=CheckSettings)
     name: str = "check"
+    adjustment: AdjustmentSetup = field(default_factory=AdjustmentSetup)
 
     def __post_init__(self):
         for key in ("nominal", "measured"):
@@ -194,24 +196,30 @@ class SavedCheck:
                 raise FramewrightError(f"check {key}: expected a mount name or null, got {value!r}")
         if not isinstance(self.settings, CheckSettings):
             raise FramewrightError("check settings: expected CheckSettings")
+        if not isinstance(self.adjustment, AdjustmentSetup):
+            raise FramewrightError("check adjustment: expected AdjustmentSetup")
 
     def to_dict(self) -> dict[str, Any]:
-        return {"name": self.name, "nominal": self.nominal, "measured": self.measured,
+        data = {"name": self.name, "nominal": self.nominal, "measured": self.measured,
                 "settings": self.settings.to_dict()}
+        if self.adjustment != AdjustmentSetup():     # files without one stay as they were
+            data["adjustment"] = self.adjustment.to_dict()
+        return data
 
     @classmethod
     def from_dict(cls, data: Any) -> "SavedCheck":
         if not isinstance(data, dict):
             raise FramewrightError(f"expected a JSON object, got {type(data).__name__}")
-        unknown = sorted(set(data) - {"name", "nominal", "measured", "settings"})
+        unknown = sorted(set(data) - {"name", "nominal", "measured", "settings", "adjustment"})
         if unknown:
             raise FramewrightError(f"unknown key(s) {', '.join(unknown)}; expected name, nominal, measured, "
-                                   "settings")
+                                   "settings, adjustment")
         name = data.get("name", "check")
         if not isinstance(name, str):
             raise FramewrightError(f"name: expected text, got {name!r}")
+        adjustment = AdjustmentSetup.from_dict(data["adjustment"]) if "adjustment" in data else AdjustmentSetup()
         return cls(data.get("nominal"), data.get("measured"), CheckSettings.from_dict(data.get("settings", {})),
-                   name)
+                   name, adjustment)
 
 
 def _read_list(session_or_extra, key: str, read, source: str) -> tuple:

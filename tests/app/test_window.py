@@ -150,7 +150,7 @@ def test_layout_has_every_part_with_plain_labels(window):
               window.angles.title(), window.meter.title()]
     assert titles == ["Mounts", "Axis && angle", "Quaternion", "Matrix", "Angles", "Gimbal margin"]
     tabs = [window.side_tabs.tabText(i) for i in range(window.side_tabs.count())]
-    assert tabs == ["Decode", "Chain", "Check", "Level", "Measure", "Batch"]   # DESIGN.md's panels
+    assert tabs == ["Decode", "Chain", "Check", "Adjust", "Level", "Measure", "Batch"]   # DESIGN.md's panels
     from app.scene.scene_widget import SceneWidget
     assert isinstance(window.scene, SceneWidget)
     # Fits a 1600-pixel-wide screen (the narrow side of a common desktop monitor and our Xvfb).
