@@ -399,18 +399,23 @@ def _cell_problem(cell):
     return None
 
 
+def _where(line, row, name):
+    return f"line {line} (row {row + 1}, mount {name[:80]!r})"
+
+
 def _row_problem(row, line, cells, header, numeric):
     """The first problem of one row (a RowProblem) or None."""
+    where = _where(line, row, cells[0])
     if len(cells) != len(header):
-        return RowProblem(row, line, None, f"line {line}: the row has {len(cells)} cells; expected "
-                          f"{len(header)} as in the header")
+        return RowProblem(row, line, None, f"{where} has {len(cells)} cells; expected {len(header)} as in "
+                          f"the header")
     if len(cells[0]) > MAX_CELL_CHARS:
-        return RowProblem(row, line, header[0], f"line {line}, column {header[0]!r}: the name is "
+        return RowProblem(row, line, header[0], f"{where}, column {header[0]!r}: the name is "
                           f"{len(cells[0]):,} characters long; expected at most {MAX_CELL_CHARS:,}")
     for index in numeric:
         problem = _cell_problem(cells[index])
         if problem:
-            return RowProblem(row, line, header[index], f"line {line}, column {header[index]!r}: {problem}")
+            return RowProblem(row, line, header[index], f"{where}, column {header[index]!r}: {problem}")
     return None
 
 
@@ -595,7 +600,8 @@ def read_mounts(text, nominal=None, measured=None, progress=None):
         lines = _row_lines(text)
         for row, what in found.items():
             column_set = sets[0] if row in bad_nominal else sets[1]
-            problems.append(RowProblem(row, lines[row], column_set.columns[0], f"line {lines[row]}, {what}"))
+            problems.append(RowProblem(row, lines[row], column_set.columns[0],
+                                       f"{_where(lines[row], row, names[row])}, {what}"))
     _report(progress, 1, 1, "reading")
     return MountTable(names, nominal_q, measured_q, sets, tuple(notes),
                       tuple(sorted(problems, key=lambda p: p.row)))
@@ -633,7 +639,7 @@ def compute_deviations(table, settings=CheckSettings(), progress=None):
     unfinished = ~error & ~np.logical_and.reduce([np.isfinite(f).reshape(n, -1).all(axis=1) for f in figures])
     if unfinished.any():
         for row in np.flatnonzero(unfinished):
-            problems.append(RowProblem(int(row), None, None, f"data row {row + 1}: the deviation could not be "
+            problems.append(RowProblem(int(row), None, None, f"row {row + 1} (mount {table.names[row][:80]!r}): the deviation could not be "
                                        "computed as a finite number; expected finite, in-range numbers"))
         error = error | unfinished
     for f in figures:

@@ -174,7 +174,7 @@ def test_bad_rows_become_error_rows_naming_the_place(change, words, line, column
     result, output = run_batch(GOOD.replace(*change))
     assert result.error_count == 1
     problem = result.problems[0]
-    assert words in problem.message and problem.message.startswith(f"line {line}")
+    assert words in problem.message and problem.message.startswith(f"line {line} (row ")
     assert (problem.line, problem.column) == (line, column)
     assert result.verdicts()[problem.row] == "error" and not result.passed[problem.row]
     assert np.isnan(result.total_deg[problem.row])
@@ -215,7 +215,7 @@ def test_matrices_reflected_or_far_off_are_error_rows_and_rounded_ones_noted():
     mirrored = text + f"mirror,{identity},-1,0,0,0,1,0,0,0,1\n"
     result, _ = run_batch(mirrored)
     assert result.verdicts() == ["fail", "error"]      # 45° is outside the default 0.5°
-    assert result.problems[0].message.startswith("line 3") and "reflection" in result.problems[0].message
+    assert result.problems[0].message.startswith("line 3 (row 2, mount 'mirror')") and "reflection" in result.problems[0].message
     skewed = text + f"skew,{identity},1,0.2,0,0,1,0,0,0,1\n"
     result, _ = run_batch(skewed)
     assert "not a rotation" in result.problems[0].message and result.verdicts()[1] == "error"
