@@ -474,7 +474,8 @@ def scaled_lengths(v):
     component of 1e200 neither overflows nor one of 1e-200 underflows."""
     scale = np.abs(v).max(axis=1)
     safe = np.where(scale > 0, scale, 1.0)
-    return scale * np.sqrt(np.einsum("ij,ij->i", v / safe[:, None], v / safe[:, None]))
+    with np.errstate(over="ignore"):   # only a length beyond the largest float becomes inf (then refused)
+        return scale * np.sqrt(np.einsum("ij,ij->i", v / safe[:, None], v / safe[:, None]))
 
 
 def _first_bad(bad, usable):
