@@ -7,7 +7,6 @@ row and column is at fault. Files of more than LARGE_FILE_ROWS rows show a progr
 
 from __future__ import annotations
 
-import html
 import os
 import tempfile
 from pathlib import Path
@@ -19,6 +18,7 @@ from PySide6.QtWidgets import (QAbstractItemView, QApplication, QCheckBox, QFile
                                QHeaderView, QLabel, QProgressDialog, QPushButton, QTableView, QVBoxLayout,
                                QWidget)
 
+from app import plain_text
 from app.editors.number_field import NumberField, format_number
 from app.panels.batch_conventions_dialog import BatchConventionsDialog
 from app.panels.batch_table_model import BatchFilterProxy, BatchResultModel
@@ -194,7 +194,7 @@ class BatchPanel(QWidget):
         self.table, self.file_path = table, path
         self.file_label.setText(f"{name}: {len(table.names)} mounts. "
                                 + "; ".join(s.describe() for s in table.sets))
-        self.file_label.setToolTip(_plain_tip(str(path)))
+        self.file_label.setToolTip(plain_text.plain_tip(str(path)))
         self._say("; ".join(table.notes))
         self._show(result)
         return True
@@ -293,7 +293,3 @@ def _write_atomically(path: Path, text: str) -> None:
         Path(temporary).unlink(missing_ok=True)
         raise
 
-
-def _plain_tip(text: str) -> str:
-    """A tooltip that shows text as it is: Qt takes a tooltip as rich text when it looks like markup."""
-    return "<p style='white-space:pre'>" + html.escape(text) + "</p>"

@@ -9,12 +9,11 @@ in milliseconds and the proxy keeps filtering and the header's sort indicator as
 
 from __future__ import annotations
 
-import html
-
 import numpy as np
 from PySide6.QtCore import QAbstractTableModel, QModelIndex, QSortFilterProxyModel, Qt
 from PySide6.QtGui import QBrush, QColor, QFont
 
+from app import plain_text
 from core.batch import BatchResult
 
 FAILED_ROW = QBrush(QColor("#ffcdd2"))
@@ -121,9 +120,9 @@ class BatchResultModel(QAbstractTableModel):
             return None if key == "name" else (_CENTRE if key == "result" else _RIGHT)
         if role == Qt.ItemDataRole.ToolTipRole:
             if row in self._problems:   # the file's text, shown as it is (escaped, never markup)
-                return "<p style='white-space:pre-wrap'>" + html.escape(self._problems[row]) + "</p>"
+                return plain_text.plain_tip(self._problems[row])
             if key == "name":
-                return "<p>" + html.escape(self._names[row]) + "</p>"
+                return plain_text.plain_tip(self._names[row])
             return self._columns[index.column()][1]
         return None
 
