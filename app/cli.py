@@ -365,28 +365,8 @@ def _same_file(one: str, other: str) -> bool:
         return False
 
 
-def write_file_atomically(path: str, text: str) -> None:
-    """Write a temporary file in the target's directory, flush it to disk, then rename it over the target:
-    the target is either the old file or the whole new one, never half of it. The temporary file is
-    removed on any failure."""
-    import tempfile
-    directory = os.path.dirname(os.path.abspath(path))
-    handle, temporary = tempfile.mkstemp(prefix="." + os.path.basename(path) + ".", suffix=".tmp", dir=directory)
-    try:
-        with os.fdopen(handle, "w", encoding="utf-8", newline="") as stream:
-            stream.write(text)
-            stream.flush()
-            os.fsync(stream.fileno())
-        os.replace(temporary, path)
-    except BaseException:
-        try:
-            os.unlink(temporary)
-        except OSError:
-            pass
-        raise
-
-
 def run_batch(args, stdin, stdout) -> int:
+    from core.atomic_write import write_text_atomically
     from core.batch import run_batch as batch_check
     from core.check import CheckSettings
     from core.printable import printable
@@ -415,7 +395,7 @@ def run_batch(args, stdin, stdout) -> int:
                        f"{printable(result.problems[0].message)}; expected at least one readable row")
     if args.out:
         try:
-            write_file_atomically(args.out, table)
+            write_text_atomically(args.out, table)
         except OSError as error:
             raise _Refused(f"--out {printable(args.out)}: cannot be written ({error.strerror or error}); "
                            f"nothing was written") from None

@@ -8,7 +8,6 @@ row and column is at fault. Files of more than LARGE_FILE_ROWS rows show a progr
 from __future__ import annotations
 
 import os
-import tempfile
 from pathlib import Path
 
 import numpy as np
@@ -22,6 +21,7 @@ from app import plain_text
 from app.editors.number_field import NumberField, format_number
 from app.panels.batch_conventions_dialog import BatchConventionsDialog
 from app.panels.batch_table_model import BatchFilterProxy, BatchResultModel
+from core.atomic_write import write_text_atomically
 from core.batch import (BatchCancelledError, BatchFileError, SetConventions, compute_deviations, read_mounts,
                         write_results)
 from core.check import CheckSettings
@@ -215,7 +215,7 @@ class BatchPanel(QWidget):
                 text = write_results(self.result, progress=progress)
             finally:
                 self._end_progress()
-            _write_atomically(Path(path), text)
+            write_text_atomically(path, text)
         except BatchCancelledError:
             self._problem("Export cancelled; no file was written.")
             return False
@@ -280,16 +280,3 @@ class BatchPanel(QWidget):
             self.progress_dialog.close()
             self.progress_dialog.deleteLater()
             self.progress_dialog = None
-
-
-def _write_atomically(path: Path, text: str) -> None:
-    """Write next to the target and rename over it, so a failed write never leaves half a file."""
-    handle, temporary = tempfile.mkstemp(prefix=path.name + ".", suffix=".tmp", dir=path.parent)
-    try:
-        with os.fdopen(handle, "w", encoding="utf-8", newline="") as stream:
-            stream.write(text)
-        os.replace(temporary, path)
-    except BaseException:
-        Path(temporary).unlink(missing_ok=True)
-        raise
-
