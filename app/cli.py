@@ -352,37 +352,69 @@ def add_batch_arguments(parser: argparse.ArgumentParser) -> None:
     parser.add_argument("--tolerance", type=float, required=True, metavar="DEG",
                         help="allowed total deviation of each mount, in degrees")
     parser.add_argument("--out", metavar="RESULT.csv", help="also write the table of deviations as CSV")
+    parser.add_argument("--skip-errors", action="store_true",
+                        help="list rows that cannot be checked as errors and judge the others (exit 0 or 1 by "
+                             "them); without it any such row refuses the file (exit 2)")
+
+
+def _same_file(one: str, other: str) -> bool:
+    """True when both paths name one file (device and inode: a symlink or hard link counts)."""
+    try:
+        return os.path.samefile(one, other)
+    except OSError:
+        return False
 
 
 def run_batch(args, stdin, stdout) -> int:
+    from core.atomic_write import write_text_atomically
     from core.batch import run_batch as batch_check
     from core.check import CheckSettings
+    from core.printable import printable
 
     try:
         settings = CheckSettings(total_tolerance_deg=args.tolerance)
     except FramewrightError as error:
         raise _Refused(f"--tolerance: {error}") from None
+    if args.out and _same_file(args.out, args.file):
+        raise _Refused(f"--out {printable(args.out)}: that is the input file {printable(args.file)} (the same "
+                       f"file by another name or link); expected another file")
     text = read_file_text(args.file)
     try:
         result, table = batch_check(text, settings)
     except FramewrightError as error:
-        raise _Refused(f"{args.file}: {error}") from None
+        raise _Refused(f"{printable(args.file)}: {printable(error)}") from None
+    errors = result.error_count
+    if errors and not getattr(args, "skip_errors", False):
+        first = result.problems[0].message
+        more = f" (and {errors - 1} more)" if errors > 1 else ""
+        raise _Refused(f"{printable(args.file)}: {errors} of {len(result.names)} rows cannot be checked: "
+                       f"{printable(first)}{more}; expected every row readable, or --skip-errors to list them "
+                       f"as errors and judge the others")
+    if errors == len(result.names):
+        raise _Refused(f"{printable(args.file)}: none of the {errors} rows can be checked: "
+                       f"{printable(result.problems[0].message)}; expected at least one readable row")
     if args.out:
-        if os.path.abspath(args.out) == os.path.abspath(args.file):
-            raise _Refused(f"--out {args.out}: that is the input file; expected another file name")
         try:
-            with open(args.out, "w", encoding="utf-8", newline="") as handle:
-                handle.write(table)
+            write_text_atomically(args.out, table)
         except OSError as error:
-            raise _Refused(f"--out {args.out}: cannot be written ({error.strerror or error})") from None
-    width = max(len("mount"), *(len(name) for name in result.names))
+            raise _Refused(f"--out {printable(args.out)}: cannot be written ({error.strerror or error}); "
+                           f"nothing was written") from None
+    names = [printable(name) for name in result.names]
+    width = max(len("mount"), *(len(name) for name in names))
+    problems = result.problem_texts()
     lines = [f"{'mount'.ljust(width)}  deviation (deg)  result   margin (deg)"]
-    for name, total, passed, margin in zip(result.names, result.total_deg, result.passed, result.margin_deg):
-        lines.append(f"{name.ljust(width)}  {total:15.4f}  {'pass' if passed else 'FAIL':<6} {margin + 0.0:13.4f}")
+    for row, (name, total, passed, margin) in enumerate(zip(names, result.total_deg, result.passed,
+                                                             result.margin_deg)):
+        if row in problems:
+            lines.append(f"{name.ljust(width)}  {'-':>15}  {'ERROR':<6} {'-':>13}  {printable(problems[row])}")
+        else:
+            lines.append(f"{name.ljust(width)}  {total:15.4f}  {'pass' if passed else 'FAIL':<6} "
+                         f"{margin + 0.0:13.4f}")
     failed = result.failed_count
-    lines.append(f"{len(result.names)} mounts, {failed} outside the tolerance of {_n(args.tolerance)} deg"
-                 + (f"; results written to {args.out}" if args.out else ""))
-    lines += [f"note: {note}" for note in result.notes]
+    lines.append(f"{len(names)} mounts, {failed} outside the tolerance of {_n(args.tolerance)} deg, "
+                 f"{result.passed_count} within, {errors} in error (not checked)"
+                 + (f"; results written to {printable(args.out)}" if args.out else ""))
+    lines += [f"note: {printable(note)}" for note in result.notes]
     stdout.write("\n".join(lines) + "\n")
     return EXIT_OUTSIDE if failed else EXIT_OK
 

@@ -6,6 +6,7 @@ from __future__ import annotations
 from PySide6.QtWidgets import (QComboBox, QDialog, QDialogButtonBox, QFormLayout, QGroupBox, QHBoxLayout,
                                QLabel, QLineEdit, QVBoxLayout)
 
+from app import plain_text
 from core.errors import FramewrightError
 from core.number_text import parse_number
 from core.session import FACE_KEYS, PartProperties
@@ -43,7 +44,7 @@ class PartDialog(QDialog):
         self.boresight_box.setCurrentIndex(FACE_KEYS.index(part.boresight))
         self.boresight_box.setToolTip("The face the part points with: its normal is the boresight axis.")
         names.addRow("Boresight face", self.boresight_box)
-        self.message = QLabel("")
+        self.message = plain_text.plain_label()
         self.message.setStyleSheet(ERROR_STYLE)
         self.message.setWordWrap(True)
         buttons = QDialogButtonBox(QDialogButtonBox.StandardButton.Ok | QDialogButtonBox.StandardButton.Cancel)

@@ -5,6 +5,7 @@ from __future__ import annotations
 from PySide6.QtWidgets import (QComboBox, QDialog, QDialogButtonBox, QDoubleSpinBox, QFormLayout, QLabel,
                                QSpinBox)
 
+from app import plain_text
 from core.errors import FramewrightError
 
 
@@ -35,7 +36,7 @@ class PreferencesDialog(QDialog):
         for key, label in copy_formats.items():
             self.copy_default.addItem(label, key)
         self.copy_default.setCurrentIndex(max(0, self.copy_default.findData(default_copy)))
-        self.problem = QLabel("")
+        self.problem = plain_text.plain_label()
         self.problem.setStyleSheet("color: #c62828;")
         form = QFormLayout(self)
         form.addRow("Angle units", self.units)

@@ -175,13 +175,15 @@ def offer_recovery(window, folder: Path | None = None) -> bool:
     autosave takes over); older crashed runs, if any, are offered on later starts."""
     from PySide6.QtWidgets import QMessageBox
 
+    from app import plain_text
+
     runs = find_crashed(folder)
     if not runs:
         return False
     run = runs[0]
     what = f"“{Path(run.of).name}”" if run.of else "a session that was never saved"
     when = f" (last autosaved {_local_time(run.written)})" if run.written else ""
-    answer = QMessageBox.question(
+    answer = plain_text.question(   # plain text: the file name is shown as it is
         window, "Restore unsaved changes?",
         f"Framewright did not close normally last time. Unsaved changes to {what} were kept{when}.\n\n"
         "Restore them? (No: they are thrown away.)",

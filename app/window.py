@@ -13,7 +13,7 @@ from PySide6.QtWidgets import (QAbstractSpinBox, QApplication, QComboBox, QFileD
                                QHBoxLayout, QLabel, QLineEdit, QMainWindow, QMessageBox, QPlainTextEdit,
                                QScrollArea, QSpinBox, QSplitter, QTabWidget, QTextEdit, QVBoxLayout, QWidget)
 
-from app import about, copy_as, recent_files, recovery, settings
+from app import about, copy_as, plain_text, recent_files, recovery, settings
 from app.editors.angles_editor import AnglesEditor
 from app.editors.axis_angle_editor import AxisAngleEditor
 from app.editors.base import EditorBase
@@ -340,7 +340,7 @@ class MainWindow(QMainWindow):
         try:
             session = load_session(path)
         except FramewrightError as exc:
-            QMessageBox.warning(self, "Cannot open session", str(exc))
+            plain_text.warning(self, "Cannot open session", str(exc))
             self.statusBar().showMessage(f"Not opened: {exc}")
             return False
         self.model.load_session(session, file_path=str(path))
@@ -381,7 +381,7 @@ class MainWindow(QMainWindow):
         try:
             save_session(self.model.session(), path)
         except (OSError, FramewrightError) as exc:
-            QMessageBox.warning(self, "Cannot save session", f"{path}: {exc}")
+            plain_text.warning(self, "Cannot save session", f"{path}: {exc}")
             return False
         self.model.file_path = str(path)
         self.model.undo_stack.setClean()  # also removes the recovery file

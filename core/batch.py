@@ -33,15 +33,19 @@ Conventions can also be passed in (`SetConventions`) for a file whose header has
 that contradicts the header is refused, never silently preferred. Other columns (serial, notes) are
 ignored and named in the table's notes; an unknown ``nominal_``/``measured_`` column is refused (a typo).
 
-Any bad cell refuses the whole file with a BatchFileError naming the line, the data row, the mount and
-the column; nothing partial is returned.
+A file that is not a table (its header unreadable, no rows, a line over MAX_LINE_CHARS, unbalanced
+quotes) is refused whole with a BatchFileError naming the line (and column). A row whose numbers cannot
+be trusted (not a number, not finite, outside the range its meaning allows, the wrong number of cells)
+is an error row: a RowProblem names its line, column and what was expected; it is counted apart and never
+judged pass or fail. Line endings may be LF, CR LF or a bare CR.
 
 Output file
 -----------
-``name,total_deviation_deg,deviation_axis_x,deviation_axis_y,deviation_axis_z[,pointing_error_deg,roll_deg],result,margin_deg``
+``name,total_deviation_deg,deviation_axis_x,deviation_axis_y,deviation_axis_z[,pointing_error_deg,roll_deg],result,margin_deg,problem``
 with the deviation D = Nᵀ M and its axis in the nominal body frame, the pointing error and roll of the
 chosen body axis when one is set, ``pass``/``fail`` and the margin (tolerance − value, the smallest of
-the criteria) under the CheckSettings given (see core/check.py).
+the criteria) under the CheckSettings given (see core/check.py); an error row has empty figures, ``error``
+and its problem. Text cells are spreadsheet-safe (core/csv_cells.py).
 
 The arithmetic is vectorised over all rows (core/kernels.py on arrays); rows are processed in chunks of
 CHUNK_ROWS only so that a progress callback can report and cancel.
@@ -59,6 +63,7 @@ import numpy as np
 
 from core import kernels
 from core.check import ROUNDING_ALLOWANCE_DEG, CheckSettings, deviation_angles, deviation_axes, deviation_quaternions, swing_twist_angles
+from core.csv_cells import spreadsheet_safe
 from core.errors import FramewrightError, InvalidInputError, SequenceError
 from core.nearest import WARNING_LIMIT, orthogonality_report
 from core.sequences import parse_sequence
@@ -146,6 +151,13 @@ class MountTable:
     measured: np.ndarray
     sets: tuple             # (nominal ColumnSet, measured ColumnSet)
     notes: tuple = ()
+    problems: tuple = ()    # RowProblem of every error row (its quaternions are placeholders, never judged)
+
+    def error_rows(self):
+        """(N,) True where the row is in error."""
+        error = np.zeros(len(self.names), dtype=bool)
+        error[[p.row for p in self.problems]] = True
+        return error
 
 
 @dataclass(frozen=True)
@@ -159,10 +171,32 @@ class BatchResult:
     margin_deg: np.ndarray
     settings: CheckSettings
     notes: tuple = ()
+    problems: tuple = ()          # RowProblem per error row; their figures are NaN and passed is False
+    error: np.ndarray | None = None   # (N,) True where the row is in error (None: no error rows)
+
+    def error_mask(self):
+        return np.zeros(len(self.names), dtype=bool) if self.error is None else self.error
+
+    @property
+    def error_count(self):
+        return len(self.problems)
 
     @property
     def failed_count(self):
-        return int(np.count_nonzero(~self.passed))
+        """Rows judged and outside the tolerance (error rows are counted apart)."""
+        return int(np.count_nonzero(~self.passed & ~self.error_mask()))
+
+    @property
+    def passed_count(self):
+        return int(np.count_nonzero(self.passed))
+
+    def verdicts(self):
+        """'pass', 'fail' or 'error' per row, in file order."""
+        return np.where(self.error_mask(), "error", np.where(self.passed, "pass", "fail")).tolist()
+
+    def problem_texts(self):
+        """{row: message} of the error rows."""
+        return {p.row: p.message for p in self.problems}
 
 
 def _report(progress, done, total, stage):
@@ -290,20 +324,69 @@ def _read_header(header, nominal, measured):
 
 # --- cells ------------------------------------------------------------------------------------------
 
+# Caps checked before the csv module sees the text (its own limit, 131,072 characters per field, is
+# process-wide and raises a bare csv.Error): no number or name needs more.
+MAX_LINE_CHARS = 100_000
+MAX_HEADER_CHARS = 20_000
+MAX_CELL_CHARS = 1_000
+# The range each kind of number may take before any arithmetic. Angles: ten turns, as the decoder allows
+# (beyond that a decimal point was lost, not a mount measured). Matrix entries of a rotation lie in
+# [-1, 1]; 1.5 leaves room for rounding and still keeps the SVD far from overflow. A quaternion is about
+# unit; a length outside [1e-6, 1e6] is a misplaced number, not one to normalise.
+MAX_ANGLE_DEG = 3600.0
+MAX_MATRIX_ENTRY = 1.5
+QUATERNION_LENGTHS = (1e-6, 1e6)
+
+
+@dataclass(frozen=True)
+class RowProblem:
+    """Why one data row cannot be checked. row: 0-based data row; line: 1-based line in the file;
+    column: the header cell at fault (None for the row as a whole)."""
+
+    row: int
+    line: int | None
+    column: str | None
+    message: str
+
+
 def _clean_number_text(text):
     return text.replace("−", "-").replace("–", "-").replace("\u00a0", " ")
+
+
+def normalise_line_ends(text):
+    """CR LF and old-style bare CR become LF, so every reader sees the same lines."""
+    return text.replace("\r\n", "\n").replace("\r", "\n")
+
+
+def _check_line_lengths(text, header):
+    """Refuse a line too long to be a table's (naming line and column) before the csv module sees it."""
+    for number, line in enumerate(text.split("\n"), start=1):
+        limit = MAX_HEADER_CHARS if number == 1 else MAX_LINE_CHARS
+        if len(line) > limit:
+            pieces = line.split(",")
+            index = next((i for i, piece in enumerate(pieces) if len(piece) > MAX_CELL_CHARS), None)
+            column = header[index] if header and index is not None and index < len(header) else None
+            where = f", column {column!r}" if column else (f", cell {index + 1}" if index is not None else "")
+            raise BatchFileError(f"line {number}{where}: the line is {len(line):,} characters long; expected "
+                                 f"at most {limit:,}", line=number, column=column)
 
 
 def _scan_rows(text):
     """(line number, cells) of every non-blank data row, by the csv module (used to locate problems)."""
     reader = csv.reader(io.StringIO(text))
-    next(reader, None)
-    for cells in reader:
-        if cells and any(c.strip() for c in cells):
-            yield reader.line_num, cells
+    try:
+        next(reader, None)
+        for cells in reader:
+            if cells and any(c.strip() for c in cells):
+                yield reader.line_num, cells
+    except csv.Error as error:
+        raise BatchFileError(f"line {reader.line_num}: the file is not readable as CSV ({error}); expected "
+                             f"comma-separated cells with balanced quotes", line=reader.line_num) from None
 
 
 def _cell_problem(cell):
+    if len(cell) > MAX_CELL_CHARS:
+        return f"the cell is {len(cell):,} characters long; expected a number"
     text = _clean_number_text(cell).strip()
     if not text:
         return "is empty; expected a number"
@@ -316,45 +399,39 @@ def _cell_problem(cell):
     return None
 
 
-def _locate_bad_cells(text, header, numeric):
-    """Find the problems the fast reader tripped on, naming line, row, mount and column."""
-    problems = []
-    for row, (line, cells) in enumerate(_scan_rows(text), start=1):
-        name = cells[0] if cells else ""
-        if len(cells) != len(header):
-            problems.append((line, row, None, f"line {line} (row {row}, mount {name!r}) has {len(cells)} "
-                             f"cells; expected {len(header)} as in the header"))
-            continue
-        for index in numeric:
-            problem = _cell_problem(cells[index])
-            if problem:
-                problems.append((line, row, header[index], f"line {line} (row {row}, mount {name!r}), column "
-                                 f"{header[index]!r}: {problem}"))
-    return problems
+def _where(line, row, name):
+    return f"line {line} (row {row + 1}, mount {name[:80]!r})"
 
 
-def _refuse(problems, fallback):
-    if not problems:
-        raise BatchFileError(f"the file cannot be read: {fallback}")
-    line, row, column, message = problems[0]
-    if len(problems) > 1:
-        message += f" (and {len(problems) - 1} more problem(s); the next: {problems[1][3]})"
-    raise BatchFileError(message, line=line, row=row, column=column)
+def _row_problem(row, line, cells, header, numeric):
+    """The first problem of one row (a RowProblem) or None."""
+    where = _where(line, row, cells[0])
+    if len(cells) != len(header):
+        return RowProblem(row, line, None, f"{where} has {len(cells)} cells; expected {len(header)} as in "
+                          f"the header")
+    if len(cells[0]) > MAX_CELL_CHARS:
+        return RowProblem(row, line, header[0], f"{where}, column {header[0]!r}: the name is "
+                          f"{len(cells[0]):,} characters long; expected at most {MAX_CELL_CHARS:,}")
+    for index in numeric:
+        problem = _cell_problem(cells[index])
+        if problem:
+            return RowProblem(row, line, header[index], f"{where}, column {header[index]!r}: {problem}")
+    return None
 
 
-def _row_position(text, row):
-    """(line, mount name) of 1-based data row `row`."""
-    for r, (line, cells) in enumerate(_scan_rows(text), start=1):
-        if r == row:
-            return line, cells[0]
-    return None, ""
-
-
-def _refuse_row(text, row_index, column_set, what):
-    line, name = _row_position(text, row_index + 1)
-    raise BatchFileError(f"line {line} (row {row_index + 1}, mount {name!r}), columns "
-                         f"{', '.join(column_set.columns)}: {what}", line=line, row=row_index + 1,
-                         column=column_set.columns[0])
+def _read_one_by_one(text, header, numeric):
+    """Every row through the csv module: names, values (NaN in rows that cannot be read) and problems."""
+    names, rows, problems = [], [], []
+    for row, (line, cells) in enumerate(_scan_rows(text)):
+        names.append(cells[0][:MAX_CELL_CHARS])
+        problem = _row_problem(row, line, cells, header, numeric)
+        if problem is None:
+            rows.append([float(_clean_number_text(cells[i]).strip()) for i in numeric])
+        else:
+            problems.append(problem)
+            rows.append([np.nan] * len(numeric))
+    values = np.array(rows, dtype=np.float64).reshape(len(rows), len(numeric))
+    return tuple(names), values, problems
 
 
 def _structure_problems(text, header):
@@ -368,9 +445,10 @@ def _structure_problems(text, header):
 
 
 def _read_cells(text, header, numeric):
-    """Names (tuple) and the numeric columns (N, len(numeric)), or BatchFileError naming a bad cell."""
+    """Names (tuple), the numeric columns (N, len(numeric)) and the RowProblems of rows that cannot be
+    read. Clean files take numpy's fast reader; any doubt sends every row through the csv module."""
     if _structure_problems(text, header):
-        _refuse(_locate_bad_cells(text, header, numeric), "rows of unequal length")
+        return _read_one_by_one(text, header, numeric)
     try:
         with warnings.catch_warnings():
             warnings.simplefilter("ignore", UserWarning)
@@ -381,75 +459,153 @@ def _read_cells(text, header, numeric):
             warnings.simplefilter("ignore", UserWarning)
             names = np.loadtxt(io.StringIO(text), delimiter=",", skiprows=1, usecols=[0], quotechar='"',
                                comments=None, ndmin=1, dtype=str)
-    except ValueError as exc:
-        _refuse(_locate_bad_cells(text, header, numeric), str(exc))
-    if not np.isfinite(values).all():
-        _refuse(_locate_bad_cells(text, header, numeric), "a cell holds NaN or infinity")
-    return tuple(names.tolist()), values
+    except ValueError:
+        return _read_one_by_one(text, header, numeric)
+    if not np.isfinite(values).all() or values.shape[0] != names.shape[0] \
+            or (names.size and max(map(len, names.tolist())) > MAX_CELL_CHARS):
+        return _read_one_by_one(text, header, numeric)
+    return tuple(names.tolist()), values, []
 
 
 # --- conversion to quaternions ----------------------------------------------------------------------
 
-def _to_quaternions(column_set, values, text, notes):
+def scaled_lengths(v):
+    """Euclidean length of each row of v (N, k), scaled first (divided by its largest magnitude), so a
+    component of 1e200 neither overflows nor one of 1e-200 underflows."""
+    scale = np.abs(v).max(axis=1)
+    safe = np.where(scale > 0, scale, 1.0)
+    with np.errstate(over="ignore"):   # only a length beyond the largest float becomes inf (then refused)
+        return scale * np.sqrt(np.einsum("ij,ij->i", v / safe[:, None], v / safe[:, None]))
+
+
+def _first_bad(bad, usable):
+    return np.flatnonzero(bad & usable)
+
+
+def _to_quaternions(column_set, values, usable, notes):
+    """Unit quaternions (N, 4) of the rows marked usable (identity elsewhere) and {row: what is wrong}
+    for usable rows whose numbers fall outside the range their meaning allows."""
     rep = column_set.representation
+    n = len(values)
+    out = np.tile([1.0, 0.0, 0.0, 0.0], (n, 1))
+    problems = {}
+    limit = MAX_ANGLE_DEG if column_set.degrees else np.radians(MAX_ANGLE_DEG)
+    unit = "deg" if column_set.degrees else "rad"
+    columns = ", ".join(column_set.columns)
+    safe = np.where(usable[:, None], values, 0.0)
+
+    def refuse(bad, what):
+        for row in _first_bad(bad, usable):
+            problems.setdefault(int(row), what(int(row)))
+        return usable & ~bad
+
     scale = np.pi / 180.0 if column_set.degrees else 1.0
     if rep == "quaternion":
-        norms = np.sqrt(np.einsum("ij,ij->i", values, values))
-        if np.any(norms == 0):
-            _refuse_row(text, int(np.argmin(norms)), column_set, "quaternion of zero length; expected a "
-                        "non-zero (w, x, y, z)")
-        off = np.abs(norms - 1.0)
-        if off.max() > _QUATERNION_NOTICE:
+        norms = scaled_lengths(safe)
+        low, high = QUATERNION_LENGTHS
+        ok = refuse((norms < low) | (norms > high),
+                    lambda r: f"columns {columns}: quaternion of length {norms[r]:.3g}; expected a unit "
+                              f"quaternion (length about 1, w x y z not all zero)")
+        off = np.abs(norms - 1.0)[ok]
+        if off.size and off.max() > _QUATERNION_NOTICE:
             notes.append(f"{column_set.role}: {int(np.count_nonzero(off > _QUATERNION_NOTICE))} quaternion(s) "
                          f"normalised (largest norm departure {off.max():.2g})")
-        return kernels.canonical_quaternions(values / norms[:, None])
+        if ok.any():
+            out[ok] = kernels.canonical_quaternions(safe[ok] / norms[ok, None])
+        return out, problems, ok
     if rep == "matrix":
-        m = values.reshape(-1, 3, 3)
+        big = np.abs(safe).max(axis=1) > MAX_MATRIX_ENTRY
+        ok = refuse(big, lambda r: f"columns {columns}: an entry of {np.abs(safe[r]).max():.3g} cannot belong "
+                                   f"to a rotation matrix; expected entries between -1 and 1")
+        if not ok.any():
+            return out, problems, ok
+        m = safe[ok].reshape(-1, 3, 3)
         if column_set.matrix_meaning == "reference_to_body":
             m = np.swapaxes(m, 1, 2)
         rotations, error, det = kernels.nearest_rotations(m)
-        bad = (det <= 0) | (error > WARNING_LIMIT)
-        if bad.any():
-            row = int(np.argmax(bad))
-            _refuse_row(text, row, column_set, orthogonality_report(m[row]).message)
-        corrected = error > 1e-9
+        rows = np.flatnonzero(ok)
+        bad_rows = (det <= 0) | (error > WARNING_LIMIT)
+        for k in np.flatnonzero(bad_rows):
+            problems[int(rows[k])] = f"columns {columns}: {orthogonality_report(m[k]).message}"
+        good = ~bad_rows
+        corrected = (error > 1e-9) & good
         if corrected.any():
             notes.append(f"{column_set.role}: {int(np.count_nonzero(corrected))} matrix(es) not exactly "
                          f"orthonormal were replaced by their nearest rotation (largest orthogonality error "
-                         f"{error.max():.2g})")
-        return kernels.matrices_to_quaternions(rotations)
+                         f"{error[corrected].max():.2g})")
+        ok = ok.copy()
+        ok[rows[bad_rows]] = False
+        if good.any():
+            out[rows[good]] = kernels.matrices_to_quaternions(rotations[good])
+        return out, problems, ok
     if rep == "axis_angle":
-        axis, angle = values[:, :3], values[:, 3] * scale
-        zero = (np.einsum("ij,ij->i", axis, axis) == 0) & (angle != 0)
-        if zero.any():
-            _refuse_row(text, int(np.argmax(zero)), column_set, "rotation axis of zero length; expected a "
-                        "non-zero direction (x, y, z)")
-        return kernels.axis_angles_to_quaternions(axis, angle)
+        axis, angle = safe[:, :3], safe[:, 3]
+        ok = refuse(np.abs(angle) > limit, lambda r: f"column {column_set.columns[3]!r}: angle "
+                    f"{angle[r]:.6g} {unit}; expected at most {limit:g} {unit} either way")
+        ok = refuse((np.abs(axis).max(axis=1) == 0) & (angle != 0),
+                    lambda r: f"columns {columns}: rotation axis of zero length; expected a non-zero "
+                              f"direction (x, y, z)") & ok
+        if ok.any():
+            out[ok] = kernels.axis_angles_to_quaternions(axis[ok], angle[ok] * scale)
+        return out, problems, ok
     if rep == "rotation_vector":
-        return kernels.rotation_vectors_to_quaternions(values * scale)
-    return kernels.angles_to_quaternions(values * scale, column_set.sequence, column_set.intrinsic)
+        lengths = scaled_lengths(safe)
+        ok = refuse(lengths > limit, lambda r: f"columns {columns}: rotation vector of length "
+                    f"{lengths[r]:.6g} {unit}; expected at most {limit:g} {unit}")
+        if ok.any():
+            out[ok] = kernels.rotation_vectors_to_quaternions(safe[ok] * scale)
+        return out, problems, ok
+    big = np.abs(safe).max(axis=1) > limit
+    ok = refuse(big, lambda r: f"columns {columns}: an angle of {np.abs(safe[r]).max():.6g} {unit}; "
+                               f"expected at most {limit:g} {unit} either way")
+    if ok.any():
+        out[ok] = kernels.angles_to_quaternions(safe[ok] * scale, column_set.sequence, column_set.intrinsic)
+    return out, problems, ok
+
+
+def _row_lines(text):
+    """1-based line of every data row, in order."""
+    return [line for line, _ in _scan_rows(text)]
 
 
 def read_mounts(text, nominal=None, measured=None, progress=None):
     """Read a batch CSV (the text of the file) into unit quaternions per row. `nominal` / `measured` are
-    optional SetConventions for a header that states none."""
+    optional SetConventions for a header that states none.
+
+    A file whose header cannot be read, with no rows, with a line too long or with unbalanced quotes is
+    refused whole (BatchFileError). A row whose numbers cannot be trusted (not a number, not finite, out of
+    the range its meaning allows, the wrong number of cells) becomes an error row: its RowProblem names
+    line, column and what was expected, and it is never judged."""
     if not isinstance(text, str):
         raise InvalidInputError(f"batch file: expected the file's text, got {type(text).__name__}")
-    text = text.lstrip("\ufeff")
+    text = normalise_line_ends(text.lstrip("\ufeff"))
     first_line = text.split("\n", 1)[0]
+    if len(first_line) > MAX_HEADER_CHARS:
+        _check_line_lengths(first_line, None)
     header = next(csv.reader([first_line]), [])
     sets, ignored = _read_header(header, nominal, measured)
+    _check_line_lengths(text, header)
     _report(progress, 0, 1, "reading")
     numeric = [i for s in sets for i in s.indices]
-    names, values = _read_cells(text, header, numeric)
+    names, values, problems = _read_cells(text, header, numeric)
     if len(names) == 0:
         raise BatchFileError("the file has a header but no rows; expected one row per mount", line=2)
     notes = [f"ignored column(s): {', '.join(ignored)}"] if ignored else []
     width = len(sets[0].indices)
-    nominal_q = _to_quaternions(sets[0], values[:, :width], text, notes)
-    measured_q = _to_quaternions(sets[1], values[:, width:], text, notes)
+    usable = np.ones(len(names), dtype=bool)
+    usable[[p.row for p in problems]] = False
+    nominal_q, bad_nominal, usable = _to_quaternions(sets[0], values[:, :width], usable, notes)
+    measured_q, bad_measured, usable = _to_quaternions(sets[1], values[:, width:], usable, notes)
+    found = {**bad_measured, **bad_nominal}
+    if found:
+        lines = _row_lines(text)
+        for row, what in found.items():
+            column_set = sets[0] if row in bad_nominal else sets[1]
+            problems.append(RowProblem(row, lines[row], column_set.columns[0],
+                                       f"{_where(lines[row], row, names[row])}, {what}"))
     _report(progress, 1, 1, "reading")
-    return MountTable(names, nominal_q, measured_q, sets, tuple(notes))
+    return MountTable(names, nominal_q, measured_q, sets, tuple(notes),
+                      tuple(sorted(problems, key=lambda p: p.row)))
 
 
 # --- deviations -------------------------------------------------------------------------------------
@@ -477,34 +633,54 @@ def compute_deviations(table, settings=CheckSettings(), progress=None):
     else:
         margin = np.minimum(settings.pointing_tolerance_deg - pointing,
                             settings.roll_tolerance_deg - np.abs(roll))
-    return BatchResult(table.names, total, dev_axis, pointing, roll, margin >= -ROUNDING_ALLOWANCE_DEG, margin, settings,
-                       table.notes)
+    error = table.error_rows()
+    problems = list(table.problems)
+    figures = [total, dev_axis, margin] + ([pointing, roll] if axis is not None else [])
+    # Belt and braces: a figure that came out non-finite from trusted input is an error, never a verdict.
+    unfinished = ~error & ~np.logical_and.reduce([np.isfinite(f).reshape(n, -1).all(axis=1) for f in figures])
+    if unfinished.any():
+        for row in np.flatnonzero(unfinished):
+            problems.append(RowProblem(int(row), None, None, f"row {row + 1} (mount {table.names[row][:80]!r}): the deviation could not be "
+                                       "computed as a finite number; expected finite, in-range numbers"))
+        error = error | unfinished
+    for f in figures:
+        f[error] = np.nan
+    passed = (margin >= -ROUNDING_ALLOWANCE_DEG) & ~error
+    return BatchResult(table.names, total, dev_axis, pointing, roll, passed, margin, settings, table.notes,
+                       tuple(sorted(problems, key=lambda p: p.row)), error if error.any() else None)
 
 
-def _quote(name):
-    if any(c in name for c in ',"\n\r') or name != name.strip():
-        return '"' + name.replace('"', '""') + '"'
-    return name
+
+def _quote(cell):
+    cell = spreadsheet_safe(cell)
+    if any(c in cell for c in ',"\n\r') or cell != cell.strip():
+        return '"' + cell.replace('"', '""') + '"'
+    return cell
 
 
 def write_results(result, decimals=9, progress=None):
-    """The results as CSV text (header and one line per mount)."""
+    """The results as CSV text (header and one line per mount). Error rows have empty figures, the result
+    'error' and the problem in the last column; text cells are made spreadsheet-safe (core/csv_cells.py)."""
     columns = ["total_deviation_deg", "deviation_axis_x", "deviation_axis_y", "deviation_axis_z"]
     arrays = [result.total_deg, result.axis[:, 0], result.axis[:, 1], result.axis[:, 2]]
     if result.pointing_deg is not None:
         columns += ["pointing_error_deg", "roll_deg"]
         arrays += [result.pointing_deg, result.roll_deg]
     number = f"%.{int(decimals)}f"
-    row_format = "%s," + ",".join([number] * len(arrays)) + ",%s," + number
-    verdict = np.where(result.passed, "pass", "fail").tolist()
+    row_format = "%s," + ",".join([number] * len(arrays)) + ",%s," + number + ","
+    verdict = result.verdicts()
     names = [_quote(n) for n in result.names]
-    lines = [",".join(["name"] + columns + ["result", "margin_deg"])]
+    problems = result.problem_texts()
+    blank = "," * len(arrays) + ",error,,"
+    lines = [",".join(["name"] + columns + ["result", "margin_deg", "problem"])]
     n = len(names)
     for start in range(0, n, CHUNK_ROWS):
         stop = min(start + CHUNK_ROWS, n)
         # Rounding first and adding 0.0 turns tiny negatives into 0.0, so no "-0.000000000" is written.
         cols = [(np.round(a[start:stop], decimals) + 0.0).tolist() for a in arrays + [result.margin_deg]]
         lines.extend(map(row_format.__mod__, zip(names[start:stop], *cols[:-1], verdict[start:stop], cols[-1])))
+        for row in (r for r in problems if start <= r < stop):
+            lines[1 + row] = names[row] + blank + _quote(problems[row])
         _report(progress, stop, n, "writing")
     return "\n".join(lines) + "\n"
 

@@ -20,6 +20,7 @@ import re
 from dataclasses import dataclass, replace
 from datetime import datetime
 
+from core.csv_cells import spreadsheet_safe
 from core.decode import DecodeHints, decode
 from core.errors import FramewrightError
 from core import sequences
@@ -255,8 +256,10 @@ def csv_header(options=None) -> str:
 
 
 def _csv_line(cells) -> str:
+    """One CSV row; a text cell a spreadsheet would run as a formula is neutralised (core/csv_cells.py),
+    numbers such as -0.5 stay numbers."""
     buffer = io.StringIO()
-    csv.writer(buffer, lineterminator="\n").writerow(cells)
+    csv.writer(buffer, lineterminator="\n").writerow(spreadsheet_safe(cell) for cell in cells)
     return buffer.getvalue()
 
 

@@ -84,10 +84,42 @@ DIRECTION_COLUMNS = (
               "(R · body), in degrees; filled by Fit.", kind="output")])
 
 
+def _without_brackets(text: str) -> str:
+    """Text with every bracketed part ("[mm]", "(m)") removed, in one pass (a regular expression that
+    looks for each '[' 's closing bracket would take time growing with the square of the length)."""
+    kept, depth = [], 0
+    for character in text:
+        if character in "[(":
+            depth += 1
+        elif character in "])" and depth:
+            depth -= 1
+        elif not depth:
+            kept.append(character)
+    return "".join(kept)
+
+
 def header_key(cell: str) -> str:
     """'Measured X [mm]' -> 'measured_x'."""
-    cell = re.sub(r"[\[(].*?[\])]", "", cell.lstrip("\ufeff")).strip().lower()
+    cell = _without_brackets(cell.lstrip("\ufeff")).strip().lower()
     return re.sub(r"[\s\-]+", "_", cell)
+
+
+# Caps checked before the csv module reads a line (its own field limit is process-wide and raises a bare
+# csv.Error): no header, number or note needs more.
+MAX_HEADER_CHARS = 20_000
+MAX_LINE_CHARS = 100_000
+MAX_CELL_CHARS = 1_000
+# A coordinate beyond this (a thousand kilometres in millimetres) is a misplaced number, and squaring it in
+# the fit would lose every digit of a real part; refused before any arithmetic.
+MAX_COORDINATE = 1e9
+
+
+def _check_lengths(lines: list[str]) -> None:
+    for number, line in enumerate(lines, start=1):
+        limit = MAX_HEADER_CHARS if number == 1 else MAX_LINE_CHARS
+        if len(line) > limit:
+            raise RowsError(f"line {number}: {len(line):,} characters; expected at most {limit:,}"
+                            + (" in the header row" if number == 1 else ""))
 
 
 def _delimiter(header_line: str) -> str:
@@ -100,12 +132,26 @@ def _delimiter(header_line: str) -> str:
 
 def rows_from_csv(text: str, columns: list[Column]) -> Rows:
     """Rows for the given input columns (input and weight kinds, in table order) from CSV text."""
-    text = text.lstrip("\ufeff")
-    lines = text.splitlines()
+    # CR LF and old-style bare CR become LF, so the csv module sees every line end the same way.
+    text = text.lstrip("\ufeff").replace("\r\n", "\n").replace("\r", "\n")
+    lines = text.split("\n")
     if not lines or not lines[0].strip():
         raise RowsError("line 1: the file is empty; expected a header row naming the columns")
+    _check_lengths(lines)
     reader = csv.reader(io.StringIO(text), delimiter=_delimiter(lines[0]))
+    try:
+        return _read_rows(reader, columns)
+    except csv.Error as error:
+        raise RowsError(f"line {reader.line_num}: not readable as CSV ({error}); expected cells separated "
+                        f"by commas with balanced quotes") from None
+
+
+def _read_rows(reader, columns: list[Column]) -> Rows:
     header = next(reader)
+    for index, cell in enumerate(header):
+        if len(cell) > MAX_CELL_CHARS:
+            raise RowsError(f"line 1, column {index + 1}: a header cell of {len(cell):,} characters; expected "
+                            f"at most {MAX_CELL_CHARS:,}")
     keys = [header_key(c) for c in header]
     where: list[int | None] = []
     for column in columns:
@@ -132,10 +178,17 @@ def rows_from_csv(text: str, columns: list[Column]) -> Rows:
                     raise RowsError(f"line {line_no}, column {header[index]!r}: empty; expected a number")
                 row.append(None)
                 continue
+            if len(cell) > MAX_CELL_CHARS:
+                raise RowsError(f"line {line_no}, column {header[index]!r}: a cell of {len(cell):,} "
+                                f"characters; expected a number")
             try:
-                row.append(parse_number(cell))
+                value = parse_number(cell)
             except ValueError as exc:
                 raise RowsError(f"line {line_no}, column {header[index]!r}: {exc}") from None
+            if abs(value) > MAX_COORDINATE:
+                raise RowsError(f"line {line_no}, column {header[index]!r}: {cell.strip()} is beyond "
+                                f"±{MAX_COORDINATE:g}; expected a coordinate or weight in the length unit")
+            row.append(value)
         values.append(tuple(row))
     if not values:
         raise RowsError("the file has a header but no rows; expected one row per point")

@@ -8,17 +8,20 @@ row and column is at fault. Files of more than LARGE_FILE_ROWS rows show a progr
 from __future__ import annotations
 
 import os
-import tempfile
 from pathlib import Path
+
+import numpy as np
 
 from PySide6.QtCore import Qt, QTimer, Signal
 from PySide6.QtWidgets import (QAbstractItemView, QApplication, QCheckBox, QFileDialog, QHBoxLayout,
                                QHeaderView, QLabel, QProgressDialog, QPushButton, QTableView, QVBoxLayout,
                                QWidget)
 
+from app import plain_text
 from app.editors.number_field import NumberField, format_number
 from app.panels.batch_conventions_dialog import BatchConventionsDialog
 from app.panels.batch_table_model import BatchFilterProxy, BatchResultModel
+from core.atomic_write import write_text_atomically
 from core.batch import (BatchCancelledError, BatchFileError, SetConventions, compute_deviations, read_mounts,
                         write_results)
 from core.check import CheckSettings
@@ -65,6 +68,8 @@ class BatchPanel(QWidget):
         self.summary = QLabel("")
         self.summary.setWordWrap(True)
         self.message = QLabel("")
+        for label in (self.file_label, self.summary, self.message):   # names and cells are the file's text
+            label.setTextFormat(Qt.TextFormat.PlainText)
         self.message.setWordWrap(True)
         self.message.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
 
@@ -189,8 +194,8 @@ class BatchPanel(QWidget):
         self.table, self.file_path = table, path
         self.file_label.setText(f"{name}: {len(table.names)} mounts. "
                                 + "; ".join(s.describe() for s in table.sets))
-        self.file_label.setToolTip(str(path))
-        self.message.setText("; ".join(table.notes))
+        self.file_label.setToolTip(plain_text.plain_tip(str(path)))
+        self._say("; ".join(table.notes))
         self._show(result)
         return True
 
@@ -210,14 +215,14 @@ class BatchPanel(QWidget):
                 text = write_results(self.result, progress=progress)
             finally:
                 self._end_progress()
-            _write_atomically(Path(path), text)
+            write_text_atomically(path, text)
         except BatchCancelledError:
             self._problem("Export cancelled; no file was written.")
             return False
         except OSError as exc:
             self._problem(f"Cannot write {Path(path).name}: {exc}")
             return False
-        self.message.setText(f"Exported {len(self.result.names)} rows to {Path(path).name}.")
+        self._say(f"Exported {len(self.result.names)} rows to {Path(path).name}.")
         return True
 
     # ---- showing ----------------------------------------------------------------------------------
@@ -225,12 +230,18 @@ class BatchPanel(QWidget):
         self.result = result
         self.results.set_result(result)
         self.export_button.setEnabled(True)
-        failed = result.failed_count
-        worst = int(result.total_deg.argmax()) if len(result.names) else 0
-        self.summary.setText(
-            f"{len(result.names)} mounts checked against {format_number(self.tolerance_deg, 6)}°: "
-            f"{failed} out of tolerance. Largest deviation {result.total_deg[worst]:.4f}° "
-            f"({result.names[worst]}, row {worst + 1}).")
+        failed, errors = result.failed_count, result.error_count
+        judged = ~result.error_mask()
+        text = (f"{len(result.names)} mounts checked against {format_number(self.tolerance_deg, 6)}°: "
+                f"{result.passed_count} within, {failed} out of tolerance, {errors} in error (not checked).")
+        if judged.any():
+            worst = int(np.flatnonzero(judged)[np.argmax(result.total_deg[judged])])
+            text += (f" Largest deviation {result.total_deg[worst]:.4f}° ({result.names[worst]}, "
+                     f"row {worst + 1}).")
+        if errors:
+            text += f" First error: {result.problems[0].message}"
+        self.summary.setText(text)
+        self.summary.setStyleSheet(ERROR_STYLE if errors else "")
         self.view.resizeColumnsToContents()
         header = self.view.horizontalHeader()
         for column in range(header.count()):   # room for the sort arrow beside each title
@@ -238,7 +249,12 @@ class BatchPanel(QWidget):
         self.results_changed.emit(result)
 
     def _problem(self, text: str) -> None:
-        self.message.setText(f"<span style='{ERROR_STYLE}'>{_escape(text)}</span>")
+        self.message.setStyleSheet(ERROR_STYLE)
+        self.message.setText(text)
+
+    def _say(self, text: str) -> None:
+        self.message.setStyleSheet("")
+        self.message.setText(text)
 
     def _start_progress(self, title: str):
         dialog = QProgressDialog(title, "Cancel", 0, 100, self)
@@ -264,20 +280,3 @@ class BatchPanel(QWidget):
             self.progress_dialog.close()
             self.progress_dialog.deleteLater()
             self.progress_dialog = None
-
-
-def _write_atomically(path: Path, text: str) -> None:
-    """Write next to the target and rename over it, so a failed write never leaves half a file."""
-    handle, temporary = tempfile.mkstemp(prefix=path.name + ".", suffix=".tmp", dir=path.parent)
-    try:
-        with os.fdopen(handle, "w", encoding="utf-8", newline="") as stream:
-            stream.write(text)
-        os.replace(temporary, path)
-    except BaseException:
-        Path(temporary).unlink(missing_ok=True)
-        raise
-
-
-def _escape(text: str) -> str:
-    return (text.replace("&", "&amp;").replace("<", "&lt;").replace(">", "&gt;")
-            .replace("\n", "<br>"))

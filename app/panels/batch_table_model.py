@@ -13,9 +13,11 @@ import numpy as np
 from PySide6.QtCore import QAbstractTableModel, QModelIndex, QSortFilterProxyModel, Qt
 from PySide6.QtGui import QBrush, QColor, QFont
 
+from app import plain_text
 from core.batch import BatchResult
 
 FAILED_ROW = QBrush(QColor("#ffcdd2"))
+ERROR_ROW = QBrush(QColor("#ffe0b2"))
 _BOLD = QFont()
 _BOLD.setBold(True)
 _RIGHT = int(Qt.AlignmentFlag.AlignRight | Qt.AlignmentFlag.AlignVCenter)
@@ -36,7 +38,8 @@ def columns_for(result: BatchResult):
                      "in degrees.", "pointing"),
                     ("Roll (°)", f"Roll about the body axis {axis} left after the pointing correction, in "
                      "degrees.", "roll")]
-    columns += [("Result", "pass: within the tolerance; fail: out of tolerance.", "result"),
+    columns += [("Result", "pass: within the tolerance; fail: out of tolerance; error: the row's numbers "
+                 "cannot be trusted and it was not checked (the tooltip says why).", "result"),
                 ("Margin (°)", "Tolerance minus the deviation, in degrees (the smallest of the criteria); "
                  "negative when out of tolerance.", "margin")]
     return columns
@@ -52,6 +55,7 @@ class BatchResultModel(QAbstractTableModel):
         self._arrays = {}
         self._order = np.zeros(0, dtype=np.intp)    # view row -> row of the file (0-based)
         self._passed: list[bool] = []
+        self._problems: dict[int, str] = {}
         self._sorted_by: tuple[int, Qt.SortOrder] | None = None
 
     # ---- contents ---------------------------------------------------------------------------------
@@ -59,7 +63,7 @@ class BatchResultModel(QAbstractTableModel):
         self.beginResetModel()
         self.result = result
         if result is None:
-            self._columns, self._arrays, self._passed = [], {}, []
+            self._columns, self._arrays, self._passed, self._problems = [], {}, [], {}
             self._order = np.zeros(0, dtype=np.intp)
         else:
             self._columns = columns_for(result)
@@ -68,6 +72,7 @@ class BatchResultModel(QAbstractTableModel):
                             "pointing": result.pointing_deg, "roll": result.roll_deg}
             self._passed = result.passed.tolist()
             self._names = list(result.names)
+            self._problems = result.problem_texts()
             self._order = np.arange(len(result.names))
         self.endResetModel()
         if result is not None and self._sorted_by is not None:
@@ -101,17 +106,23 @@ class BatchResultModel(QAbstractTableModel):
             if key == "name":
                 return self._names[row]
             if key == "result":
-                return "pass" if self._passed[row] else "fail"
+                return "error" if row in self._problems else ("pass" if self._passed[row] else "fail")
+            if row in self._problems:
+                return ""
             value = float(self._arrays[key][row]) + 0.0
             text = f"{value:.{self.DECIMALS}f}"
             return "0." + "0" * self.DECIMALS if text == "-0." + "0" * self.DECIMALS else text
         if role == Qt.ItemDataRole.BackgroundRole:
-            return None if self._passed[row] else FAILED_ROW
+            return ERROR_ROW if row in self._problems else (None if self._passed[row] else FAILED_ROW)
         if role == Qt.ItemDataRole.FontRole:
             return _BOLD if key == "result" and not self._passed[row] else None
         if role == Qt.ItemDataRole.TextAlignmentRole:
             return None if key == "name" else (_CENTRE if key == "result" else _RIGHT)
         if role == Qt.ItemDataRole.ToolTipRole:
+            if row in self._problems:   # the file's text, shown as it is (escaped, never markup)
+                return plain_text.plain_tip(self._problems[row])
+            if key == "name":
+                return plain_text.plain_tip(self._names[row])
             return self._columns[index.column()][1]
         return None
 
@@ -138,8 +149,8 @@ class BatchResultModel(QAbstractTableModel):
         key = self._columns[column][2]
         if key == "name":
             values = np.asarray(self._names, dtype=str)
-        elif key == "result":
-            values = self.result.passed.astype(np.int8)
+        elif key == "result":   # error, then fail, then pass
+            values = self.result.passed.astype(np.int8) - self.result.error_mask().astype(np.int8)
         else:
             values = self._arrays[key]
         descending = order == Qt.SortOrder.DescendingOrder

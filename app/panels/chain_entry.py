@@ -7,12 +7,12 @@ from __future__ import annotations
 from PySide6.QtCore import Signal
 from PySide6.QtWidgets import QComboBox, QLabel, QPlainTextEdit, QVBoxLayout, QWidget
 
+from app import plain_text
 from app.panels.decode_panel import _conventions
 from core import describe
 from core.errors import FramewrightError
 from core.orientation import Orientation
 
-ERROR_STYLE = "color:#c62828"
 
 
 def number(value: float, digits: int = 6) -> str:
@@ -59,7 +59,7 @@ class PastedOrientation(QWidget):
                                     "conventions of each are named).")
         self.reading_box.setSizeAdjustPolicy(QComboBox.SizeAdjustPolicy.AdjustToMinimumContentsLengthWithIcon)
         self.reading_box.setMinimumContentsLength(20)
-        self.message = QLabel("")
+        self.message = plain_text.plain_label()
         self.message.setWordWrap(True)
         layout = QVBoxLayout(self)
         layout.setContentsMargins(0, 0, 0, 0)
@@ -81,18 +81,19 @@ class PastedOrientation(QWidget):
         self.reading_box.blockSignals(True)
         self.reading_box.clear()
         if not text.strip():
-            self.message.setText("")
+            plain_text.say(self.message, "")
         else:
             try:
                 self.readings = list(decode(text))
             except FramewrightError as exc:
-                self.message.setText(f"<span style='{ERROR_STYLE}'>Cannot read this: {exc}</span>")
+                plain_text.say(self.message, f"Cannot read this: {exc}", problem=True)
             else:
                 if not self.readings:
-                    self.message.setText("No reading of this text is a valid orientation.")
+                    plain_text.say(self.message, "No reading of this text is a valid orientation.")
                 else:
-                    self.message.setText(f"{len(self.readings)} reading{'s' if len(self.readings) > 1 else ''}; "
-                                         "the first is the most plausible.")
+                    plural = "s" if len(self.readings) > 1 else ""
+                    plain_text.say(self.message, f"{len(self.readings)} reading{plural}; the first is the most "
+                                                 "plausible.")
                 for rank, reading in enumerate(self.readings, start=1):
                     self.reading_box.addItem(f"{rank}. {reading.kind}: {_conventions(reading)}")
                     self.reading_box.setItemData(rank - 1, f"{full_tooltip(reading.orientation)}",

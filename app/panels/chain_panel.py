@@ -9,7 +9,6 @@ each intermediate frame in words, and "Make the product a mount" adds the produc
 
 from __future__ import annotations
 
-import html
 from dataclasses import replace
 
 from PySide6.QtCore import Qt
@@ -17,6 +16,7 @@ from PySide6.QtWidgets import (QAbstractItemView, QCheckBox, QGridLayout, QGroup
                                QHeaderView, QLabel, QLineEdit, QPushButton, QTableWidget, QTableWidgetItem,
                                QVBoxLayout, QWidget)
 
+from app import plain_text
 from app.model import CHAIN, SELECTION, ORIENTATION, WORDS, Change, SessionModel
 from app.panels.chain_entry import PastedOrientation, axis_angle_summary, full_tooltip
 from core import describe
@@ -89,7 +89,7 @@ class ChainPanel(QWidget):
         grid.addWidget(self.set_from_text, 3, 1)
 
         result = QGroupBox("Result")
-        self.product_label = QLabel()
+        self.product_label = plain_text.plain_label()   # names the steps
         self.product_label.setWordWrap(True)
         self.product_label.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
         self.product_label.setToolTip("The product body -> reference of every step that is on, R = R1 · R2 · …, "
@@ -292,12 +292,12 @@ class ChainPanel(QWidget):
         if not frames:
             return "Every step is switched off: the product is the identity (the body is the reference)."
         product = chain.product()
-        lines = [f"<b>Product</b> body {describe.ARROW} reference: {axis_angle_summary(product)}"]
-        lines.extend(f"&nbsp;&nbsp;{w}" for w in describe.describe_orientation(product, preset))
-        for k, frame in enumerate(frames, start=1):
-            lines.append(f"<b>Frame {k}</b>, after “{html.escape(frame.name)}”: {axis_angle_summary(frame.orientation)}")
-            lines.append("&nbsp;&nbsp;" + "; ".join(describe.describe_axes(frame.orientation, preset)))
-        return "<br>".join(lines)
+        lines = [f"Product body {describe.ARROW} reference: {axis_angle_summary(product)}"]
+        lines.extend(f"    {w}" for w in describe.describe_orientation(product, preset))
+        for k, frame in enumerate(frames, start=1):   # plain text: step names are shown as typed
+            lines.append(f"Frame {k}, after “{frame.name}”: {axis_angle_summary(frame.orientation)}")
+            lines.append("    " + "; ".join(describe.describe_axes(frame.orientation, preset)))
+        return "\n".join(lines)
 
     def _update_buttons(self) -> None:
         row = self.selected_row()

@@ -17,13 +17,13 @@ from PySide6.QtGui import QFont
 from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QHBoxLayout, QLabel, QLineEdit,
                                QPushButton, QVBoxLayout, QWidget)
 
+from app import plain_text
 from app.editors.number_field import NumberField, parse_number
 from app.model import CHECK, MOUNTS, ORIENTATION, SELECTION, Change, SessionModel
 from core import describe
 from core.check import CheckSettings, axis_name, check
 from core.errors import FramewrightError
 
-ERROR_STYLE = "color:#c62828"
 PASS_STYLE = "background:#2e7d32; color:white; padding:6px 18px; border-radius:4px"
 FAIL_STYLE = "background:#c62828; color:white; padding:6px 18px; border-radius:4px"
 IDLE_STYLE = "background:#5f6368; color:white; padding:6px 18px; border-radius:4px"
@@ -103,7 +103,7 @@ class CheckPanel(QWidget):
         self.roll_field = self._tolerance_field(
             "Roll tolerance in degrees: the largest turn about the body axis (after the pointing is corrected) "
             "that passes, either sign.")
-        self.message = QLabel("")
+        self.message = plain_text.plain_label()   # quotes typed text
         self.message.setWordWrap(True)
 
         choose = QGroupBox("Compare")
@@ -140,7 +140,7 @@ class CheckPanel(QWidget):
         self.margin_label.setFont(margin_font)
         self.margin_label.setToolTip("Margin = tolerance − value of the figure closest to failing; negative when "
                                      "it fails.")
-        self.details = QLabel("")
+        self.details = plain_text.plain_label()   # names the mounts
         self.details.setWordWrap(True)
         self.details.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
         self.details.setToolTip("Deviation D = Nᵀ M, written in the nominal body frame; its axis is in nominal "
@@ -200,9 +200,9 @@ class CheckPanel(QWidget):
         try:
             settings = replace(check_state.settings, **{key: value})
         except FramewrightError as exc:
-            self.message.setText(f"<span style='{ERROR_STYLE}'>{exc} (kept the last good setting)</span>")
+            plain_text.say(self.message, f"{exc} (kept the last good setting)", problem=True)
             return str(exc)
-        self.message.setText("")
+        plain_text.say(self.message, "")
         self.model.set_check(replace(check_state, settings=settings), origin=self,
                              text=f"Check: {key.replace('_deg', '').replace('_', ' ')}")
         return None
@@ -217,7 +217,7 @@ class CheckPanel(QWidget):
             new = replace(settings, mode=mode, body_axis=axis)
             self.model.set_check(replace(self.model.check, settings=new), origin=self,
                                  text="Check: pointing error and roll")
-            self.message.setText(f"Pointing needs a body axis: took the boresight, {_axis_text(axis)}.")
+            plain_text.say(self.message, f"Pointing needs a body axis: took the boresight, {_axis_text(axis)}.")
             self.render()
             return
         self._set_settings("mode", mode)
@@ -230,8 +230,8 @@ class CheckPanel(QWidget):
             self.render_axis_field_only()
             return
         if choice == NO_AXIS and self.model.check.settings.mode == "pointing_and_roll":
-            self.message.setText(f"<span style='{ERROR_STYLE}'>Pointing error and roll need a body axis; "
-                                 "choose one, or check by total deviation (kept the last axis).</span>")
+            plain_text.say(self.message, "Pointing error and roll need a body axis; choose one, or check by "
+                           "total deviation (kept the last axis).", problem=True)
             self.render()
             return
         self._set_settings("body_axis", None if choice == NO_AXIS else choice)
@@ -248,7 +248,7 @@ class CheckPanel(QWidget):
                 raise ValueError(f"type three numbers x, y, z for the body axis; got “{text.strip()}”")
             values = tuple(parse_number(p) for p in parts)
         except ValueError as exc:
-            self.message.setText(f"<span style='{ERROR_STYLE}'>{exc} (kept the last good axis)</span>")
+            plain_text.say(self.message, f"{exc} (kept the last good axis)", problem=True)
             return
         self._set_settings("body_axis", values)
 
@@ -257,7 +257,7 @@ class CheckPanel(QWidget):
             value = field.value()
         except ValueError as exc:
             field.set_problem(str(exc))
-            self.message.setText(f"<span style='{ERROR_STYLE}'>{exc} (kept the last good tolerance)</span>")
+            plain_text.say(self.message, f"{exc} (kept the last good tolerance)", problem=True)
             return
         if value == getattr(self.model.check.settings, key):
             field.set_problem(None)

@@ -7,6 +7,7 @@ from PySide6.QtGui import QGuiApplication
 from PySide6.QtWidgets import (QHBoxLayout, QLabel, QListWidget, QListWidgetItem, QPlainTextEdit,
                                QPushButton, QVBoxLayout, QWidget)
 
+from app import plain_text
 from app.model import SessionModel
 from core.errors import FramewrightError
 
@@ -45,7 +46,7 @@ class DecodePanel(QWidget):
         self.read_button.setToolTip("List every plausible reading of the text, most likely first.")
         self.paste_button = QPushButton("Paste")
         self.paste_button.setToolTip("Replace the text with the clipboard and read it.")
-        self.message = QLabel("")
+        self.message = plain_text.plain_label()
         self.message.setWordWrap(True)
         self.list = QListWidget()
         self.list.setWordWrap(True)
@@ -96,18 +97,18 @@ class DecodePanel(QWidget):
         self.readings = []
         self.apply_button.setEnabled(False)
         if not text.strip():
-            self.message.setText("")
+            plain_text.say(self.message, "")
             return
         try:
             self.readings = list(decode(text))  # no hints: every plausible reading, side by side
         except FramewrightError as exc:
-            self.message.setText(f"<span style='color:#c62828'>Cannot read this: {exc}</span>")
+            plain_text.say(self.message, f"Cannot read this: {exc}", problem=True)
             return
         if not self.readings:
-            self.message.setText("No reading of this text is a valid orientation.")
+            plain_text.say(self.message, "No reading of this text is a valid orientation.")
             return
-        self.message.setText(f"{len(self.readings)} reading{'s' if len(self.readings) != 1 else ''}, "
-                             "most plausible first.")
+        plural = "s" if len(self.readings) != 1 else ""
+        plain_text.say(self.message, f"{len(self.readings)} reading{plural}, most plausible first.")
         for rank, reading in enumerate(self.readings, start=1):
             lines = [f"{rank}. {reading.kind}: {_conventions(reading)}"]
             if _words(reading.notes):
@@ -127,4 +128,4 @@ class DecodePanel(QWidget):
         reading = self.readings[self.list.row(item)]
         self.model.set_orientation(reading.orientation, origin=self,
                                    text=f"Apply decoded reading ({reading.kind})")
-        self.message.setText(f"Applied: {reading.kind}, {_conventions(reading)}.")
+        plain_text.say(self.message, f"Applied: {reading.kind}, {_conventions(reading)}.")

@@ -12,6 +12,7 @@ from PySide6.QtCore import Qt
 from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QHBoxLayout, QHeaderView, QLabel, QLineEdit,
                                QTableWidget, QTableWidgetItem, QVBoxLayout, QWidget)
 
+from app import plain_text
 from app.editors.number_field import parse_number
 from app.model import MOUNTS, ORIENTATION, SELECTION, WORDS, Change, SessionModel
 from app.panels.level_words import WordsBox
@@ -20,7 +21,6 @@ from core import describe
 from core.errors import FramewrightError
 from core.level import DEFAULT_IN_FACE, DOWN_NED, DOWN_Z_UP, FACES, inclinometer_reading, level_readings
 
-ERROR_STYLE = "color:#c62828"
 TYPED = "typed"
 GRAVITY_CHOICES = (
     ("\u2212Z (Z up, as ENU)", DOWN_Z_UP),
@@ -74,7 +74,7 @@ class LevelPanel(RendersWhenSeen, QWidget):
         self.gravity_field.setToolTip("Gravity as a reference-frame direction x, y, z (any length; '.' is the "
                                       "decimal point); Enter to use it.")
         self.gravity_field.setEnabled(False)
-        self.message = QLabel("")
+        self.message = plain_text.plain_label()
         self.message.setWordWrap(True)
 
         self.faces = QTableWidget(len(FACES), len(FACE_COLUMNS))
@@ -172,7 +172,7 @@ class LevelPanel(RendersWhenSeen, QWidget):
         if data == TYPED:
             self.gravity_field.setFocus()
             return
-        self.message.setText("")
+        plain_text.say(self.message, "")
         self.set_down(data)
 
     def _gravity_typed(self) -> None:
@@ -183,9 +183,9 @@ class LevelPanel(RendersWhenSeen, QWidget):
                 raise ValueError(f"type three numbers x, y, z for gravity; got “{text.strip()}”")
             self.set_down([parse_number(p) for p in parts])
         except ValueError as exc:
-            self.message.setText(f"<span style='{ERROR_STYLE}'>{exc} (kept the last good direction)</span>")
+            plain_text.say(self.message, f"{exc} (kept the last good direction)", problem=True)
             return
-        self.message.setText("")
+        plain_text.say(self.message, "")
 
     def _face_picked(self, *_) -> None:
         self._face_chosen = True
@@ -220,7 +220,7 @@ class LevelPanel(RendersWhenSeen, QWidget):
         try:
             report = level_readings(mount.orientation, self._down)
         except FramewrightError as exc:  # cannot happen with a checked direction; never a blank panel
-            self.message.setText(f"<span style='{ERROR_STYLE}'>{exc}</span>")
+            plain_text.say(self.message, f"{exc}", problem=True)
             return
         names = mount.part.face_names
         for row, reading in enumerate(report.faces):

@@ -14,6 +14,7 @@ from PySide6.QtGui import QFontDatabase, QGuiApplication
 from PySide6.QtWidgets import (QComboBox, QFileDialog, QHBoxLayout, QLabel, QLineEdit, QPlainTextEdit,
                                QPushButton, QStackedWidget, QVBoxLayout, QWidget)
 
+from app import plain_text
 from app.model import MOUNTS, PREFERENCES, Change, SessionModel
 from app.panels.measure_fit import (DIRECTIONS, POINTS, THREE_POINTS, MeasuredFit, fit_direction_rows,
                                     fit_point_rows, fit_three_points, result_lines, row_outputs)
@@ -22,7 +23,6 @@ from app.panels.measure_table import MeasureTable, TableInputError
 from core.errors import FramewrightError
 from core.point_rows import DIRECTION_COLUMNS, POINT_COLUMNS, THREE_POINT_COLUMNS, THREE_POINT_ROWS
 
-ERROR_STYLE = "color:#c62828"
 METHODS = [
     (POINTS, "Best fit from point pairs",
      "Nominal points in the body frame (from the drawing) and the same points measured in the reference "
@@ -80,7 +80,7 @@ class MeasurePanel(QWidget):
         self.fit_button.setToolTip("Find the orientation from the rows of this table.")
         self.fit_button.setDefault(True)
 
-        self.message = QLabel()
+        self.message = plain_text.plain_label()
         self.message.setWordWrap(True)
         self.result_text = QPlainTextEdit()
         self.result_text.setReadOnly(True)
@@ -231,10 +231,10 @@ class MeasurePanel(QWidget):
             self.fit_changed.emit(None)
 
     def _show_problem(self, text: str) -> None:
-        self.message.setText(f"<span style='{ERROR_STYLE}'>{_escape(text)}</span>")
+        plain_text.say(self.message, text, problem=True)
 
     def _show_info(self, text: str) -> None:
-        self.message.setText(_escape(text))
+        plain_text.say(self.message, text)
 
     def _inputs_edited(self, *_):
         if self.last_fit is not None:
@@ -253,7 +253,7 @@ class MeasurePanel(QWidget):
         for table in self.tables.values():
             table.clear_outputs()
         self._forget_fit()
-        self.message.setText("")
+        plain_text.say(self.message, "")
 
     def _suggest_name(self) -> None:
         self.mount_name.setPlaceholderText(self.model.unused_name("Measured"))
@@ -264,6 +264,3 @@ class MeasurePanel(QWidget):
         if change.touches(PREFERENCES):
             self._render_result()
 
-
-def _escape(text: str) -> str:
-    return text.replace("&", "&amp;").replace("<", "&lt;").replace(">", "&gt;")

@@ -6,6 +6,7 @@ from PySide6.QtCore import Qt, QTimer
 from PySide6.QtWidgets import (QGroupBox, QHBoxLayout, QLabel, QListWidget, QListWidgetItem, QPushButton,
                                QVBoxLayout)
 
+from app import plain_text
 from app.model import MOUNTS, SELECTION, Change, SessionModel
 
 
@@ -25,7 +26,7 @@ class MountsList(QGroupBox):
         self.delete_button = QPushButton("Delete")
         self.delete_button.setToolTip("Delete the selected mount (undo brings it back).")
 
-        self.message = QLabel("")   # why a rename or delete was not done; empty otherwise
+        self.message = plain_text.plain_label()   # why a rename or delete was not done; empty otherwise
         self.message.setWordWrap(True)
         self.message.setStyleSheet("color: #b00020;")
 
@@ -60,7 +61,7 @@ class MountsList(QGroupBox):
         for mount in self.model.mounts:
             item = QListWidgetItem(mount.name)
             item.setFlags(item.flags() | Qt.ItemFlag.ItemIsEditable)
-            item.setToolTip(mount.notes or mount.name)
+            item.setToolTip(plain_text.plain_tip(mount.notes or mount.name))
             self.list.addItem(item)
         self.list.setCurrentRow(self.model.selected_index)
         self.list.blockSignals(False)

@@ -126,10 +126,8 @@ def test_export_writes_what_core_batch_writes(qtbot, panel, monkeypatch, mounts_
     assert "Exported 300 rows" in panel.message.text()
 
 
-def test_a_malformed_file_names_row_and_column_and_changes_nothing(qtbot, panel, monkeypatch, mounts_file, tmp_path):
+def test_a_bad_cell_is_an_error_row_counted_apart_and_named(qtbot, panel, monkeypatch, mounts_file, tmp_path):
     path, text, *_ = mounts_file
-    open_through_button(qtbot, panel, monkeypatch, path)
-    shown_before, label_before = panel.result, panel.file_label.text()
     lines = text.splitlines()
     cells = lines[5].split(",")
     cells[6] = "12.5.3"                                             # data row 5, column measured_pitch
@@ -137,11 +135,45 @@ def test_a_malformed_file_names_row_and_column_and_changes_nothing(qtbot, panel,
     bad = tmp_path / "typo.csv"
     bad.write_text("\n".join(lines) + "\n", encoding="utf-8")
     open_through_button(qtbot, panel, monkeypatch, bad)
+    summary = panel.summary.text()
+    assert "1 in error (not checked)" in summary and f"{ROWS - 2} within, 1 out of tolerance" in summary
+    assert "line 6 (row 5, mount 'IMU-005'), column 'measured_pitch': '12.5.3' is not a number" in summary
+    result_column = column_of(panel, "Result")
+    assert shown(panel, result_column)[4] == "error" and shown(panel, column_of(panel, "Deviation (°)"))[4] == ""
+    assert panel.proxy.index(4, 0).data(Qt.ItemDataRole.BackgroundRole) is not FAILED_ROW
+    qtbot.mouseClick(panel.only_failed, Qt.MouseButton.LeftButton)
+    assert sorted(shown(panel, result_column)) == ["error", "fail"]  # an error row is never hidden as a pass
+
+
+def test_a_broken_header_refuses_the_file_and_changes_nothing(qtbot, panel, monkeypatch, mounts_file, tmp_path):
+    path, text, *_ = mounts_file
+    open_through_button(qtbot, panel, monkeypatch, path)
+    shown_before, label_before = panel.result, panel.file_label.text()
+    bad = tmp_path / "typo.csv"
+    bad.write_text(text.replace("measured_pitch", "measured_ptch", 1), encoding="utf-8")
+    open_through_button(qtbot, panel, monkeypatch, bad)
     message = panel.message.text()
-    assert "“typo.csv” refused at row 5, column measured_pitch" in message
-    assert "'12.5.3' is not a number" in message and "Nothing changed" in message
+    assert "“typo.csv” refused" in message and "unknown field 'ptch'" in message and "Nothing changed" in message
     assert panel.result is shown_before and panel.file_label.text() == label_before
     assert panel.proxy.rowCount() == ROWS
+
+
+HOSTILE = "<b style='color:green'>ALL PASS</b><img src='/tmp/x.png'>"
+
+
+def test_names_and_messages_show_as_plain_text(qtbot, panel, monkeypatch, tmp_path):
+    # A name of markup must show its characters, never draw: every label with the file's text is plain.
+    path = tmp_path / (HOSTILE.replace("/", "_") + ".csv")
+    path.write_text("name,nominal_qw,nominal_qx,nominal_qy,nominal_qz,measured_qw,measured_qx,measured_qy,"
+                    f"measured_qz\n\"{HOSTILE}\",1,0,0,0,0,1,0,0\n", encoding="utf-8")
+    open_through_button(qtbot, panel, monkeypatch, path)
+    for label in (panel.file_label, panel.summary, panel.message):
+        assert label.textFormat() == Qt.TextFormat.PlainText
+    assert HOSTILE in panel.summary.text() and "1 out of tolerance" in panel.summary.text()
+    panel.export_results(str(tmp_path / "out.csv"))                  # a name in a message stays plain too
+    path.write_text("not a header\n", encoding="utf-8")
+    open_through_button(qtbot, panel, monkeypatch, path)
+    assert panel.message.textFormat() == Qt.TextFormat.PlainText and "<b style" in panel.message.text()
 
 
 def test_typed_tolerance_recomputes_and_bad_text_keeps_the_last_value(qtbot, panel, monkeypatch, mounts_file):

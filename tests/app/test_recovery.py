@@ -11,7 +11,7 @@ from pathlib import Path
 import pytest
 from PySide6.QtWidgets import QMessageBox
 
-from app import recent_files, recovery
+from app import plain_text, recent_files, recovery
 from app.model import SessionModel
 from core.orientation import Orientation
 from core.session import load_session, save_session
@@ -102,7 +102,7 @@ def test_after_a_crash_the_next_start_offers_the_changes_and_restores_them(qtbot
         asked.append(text)
         return QMessageBox.StandardButton.Yes
 
-    monkeypatch.setattr(QMessageBox, "question", answer)
+    monkeypatch.setattr(plain_text, "question", answer)
     assert recovery.offer_recovery(window)
     assert len(asked) == 1 and "rig.fwsession.json" in asked[0] and "did not close normally" in asked[0]
     names = [m.name for m in window.model.mounts]
@@ -118,7 +118,7 @@ def test_after_a_crash_the_next_start_offers_the_changes_and_restores_them(qtbot
 def test_declining_throws_the_changes_away_and_changes_nothing(qtbot, folder, window, tmp_path, demo_session,
                                                                monkeypatch):
     _crash(tmp_path, folder, demo_session)
-    monkeypatch.setattr(QMessageBox, "question", lambda *args: QMessageBox.StandardButton.No)
+    monkeypatch.setattr(plain_text, "question", lambda *args: QMessageBox.StandardButton.No)
     before = window.model.session()
     assert not recovery.offer_recovery(window)
     assert window.model.session() == before and window.model.undo_stack.isClean()
@@ -129,7 +129,7 @@ def test_a_recovery_file_older_than_its_saved_session_is_not_offered(qtbot, fold
                                                                       demo_session, monkeypatch):
     session_file = _crash(tmp_path, folder, demo_session)
     os.utime(session_file, None)                                 # saved again after the crash
-    monkeypatch.setattr(QMessageBox, "question", lambda *a: pytest.fail("asked about a stale file"))
+    monkeypatch.setattr(plain_text, "question", lambda *a: pytest.fail("asked about a stale file"))
     assert not recovery.offer_recovery(window)
     assert _files(folder) == []
 
@@ -137,7 +137,7 @@ def test_a_recovery_file_older_than_its_saved_session_is_not_offered(qtbot, fold
 def test_a_damaged_recovery_file_is_skipped(qtbot, folder, window, monkeypatch):
     folder.mkdir(parents=True)
     (folder / "recovery-1-1.fwsession.json").write_text("{half a file")
-    monkeypatch.setattr(QMessageBox, "question", lambda *a: pytest.fail("asked about a damaged file"))
+    monkeypatch.setattr(plain_text, "question", lambda *a: pytest.fail("asked about a damaged file"))
     assert not recovery.offer_recovery(window)
 
 

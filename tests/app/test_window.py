@@ -6,9 +6,9 @@ import configparser
 import pytest
 from PySide6.QtCore import QPoint, QRect, QSettings, Qt
 from PySide6.QtGui import QKeySequence
-from PySide6.QtWidgets import QApplication, QLineEdit, QMessageBox
+from PySide6.QtWidgets import QApplication, QLineEdit
 
-from app import about, settings, window as window_module
+from app import about, plain_text, settings, window as window_module
 from core.session import load_session
 from tests.app.window_driver import focus
 
@@ -120,7 +120,7 @@ def test_save_and_open_a_session_file(qtbot, window, tmp_path):
 
 def test_opening_a_foreign_file_says_why_and_keeps_the_session(qtbot, window, tmp_path, monkeypatch):
     shown = []
-    monkeypatch.setattr(QMessageBox, "warning", lambda *args: shown.append(args[2]))
+    monkeypatch.setattr(plain_text, "warning", lambda *args: shown.append(args[2]))
     path = tmp_path / "other.json"
     path.write_text('{"format": "something else", "version": 1}')
     names = [m.name for m in window.model.mounts]

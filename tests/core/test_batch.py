@@ -152,7 +152,7 @@ def test_quoted_names_blank_lines_unicode_minus_and_extra_columns():
     assert result.passed.tolist() == [True, False]
     assert "ignored column(s): serial" in result.notes
     lines = output.splitlines()
-    assert lines[0] == "name,total_deviation_deg,deviation_axis_x,deviation_axis_y,deviation_axis_z,result,margin_deg"
+    assert lines[0] == "name,total_deviation_deg,deviation_axis_x,deviation_axis_y,deviation_axis_z,result,margin_deg,problem"
     assert lines[1].startswith('"camera, left",0.250000000,-1.000000000,0.000000000,0.000000000,pass,0.75')
 
 
@@ -168,26 +168,41 @@ GOOD = ("name,nominal_qw,nominal_qx,nominal_qy,nominal_qz,measured_qw,measured_q
     (("0.01,0,0", "0.01,nan,0"), "not a finite", 3, "measured_qy"),
     (("c,1,0,0,0,1,0,0,0", "c,1,0,0,0,1,0,0,0,7"), "has 10 cells; expected 9", 4, None),
     (("c,1,0,0,0,1,0,0,0", "c,1,0,0,0,1,0,0"), "has 8 cells; expected 9", 4, None),
-    (("c,1,0,0,0,1,0,0,0", "c,0,0,0,0,1,0,0,0"), "quaternion of zero length", 4, "nominal_qw"),
-    (("measured_qz", "measured_qq"), "unknown field 'qq'", 1, "measured_qq"),
-    (("measured_qz", "measured_qz[rad]"), "does not apply to a quaternion", 1, "measured_qz[rad]"),
-    (("measured_qz", "serial"), "not one complete set", 1, None),
-    (("name,", "mount,"), "first column must be 'name'", 1, "mount"),
+    (("c,1,0,0,0,1,0,0,0", "c,0,0,0,0,1,0,0,0"), "quaternion of length 0", 4, "nominal_qw"),
 ])
-def test_bad_files_are_refused_naming_the_place(change, words, line, column):
+def test_bad_rows_become_error_rows_naming_the_place(change, words, line, column):
+    result, output = run_batch(GOOD.replace(*change))
+    assert result.error_count == 1
+    problem = result.problems[0]
+    assert words in problem.message and problem.message.startswith(f"line {line} (row ")
+    assert (problem.line, problem.column) == (line, column)
+    assert result.verdicts()[problem.row] == "error" and not result.passed[problem.row]
+    assert np.isnan(result.total_deg[problem.row])
+    assert output.splitlines()[problem.row + 1].split(",")[5:7] == ["error", ""]
+
+
+@pytest.mark.parametrize("change, words, column", [
+    (("measured_qz", "measured_qq"), "unknown field 'qq'", "measured_qq"),
+    (("measured_qz", "measured_qz[rad]"), "does not apply to a quaternion", "measured_qz[rad]"),
+    (("measured_qz", "serial"), "not one complete set", None),
+    (("name,", "mount,"), "first column must be 'name'", "mount"),
+])
+def test_a_broken_header_refuses_the_whole_file(change, words, column):
     with pytest.raises(BatchFileError, match=words) as caught:
         run_batch(GOOD.replace(*change))
-    assert caught.value.line == line
+    assert caught.value.line == 1
     assert caught.value.column == column
 
 
-def test_several_bad_cells_are_counted_in_the_message():
+def test_several_bad_rows_are_each_named():
     bad = GOOD.replace("a,1,0,0,0", "a,1,0,?,0").replace("c,1,0,0,0", "c,1,0,0,!")
-    with pytest.raises(BatchFileError, match=r"line 2 .*'\?'.*and 1 more problem.*line 4"):
-        run_batch(bad)
+    result, _ = run_batch(bad)
+    assert [(p.line, p.column) for p in result.problems] == [(2, "nominal_qy"), (4, "nominal_qz")]
+    assert result.verdicts() == ["error", "fail", "error"]
+    assert (result.error_count, result.failed_count, result.passed_count) == (2, 1, 0)
 
 
-def test_matrices_reflected_or_far_off_are_refused_and_rounded_ones_noted():
+def test_matrices_reflected_or_far_off_are_error_rows_and_rounded_ones_noted():
     header = ["name"] + [f"{role}_r{i}{j}" for role in ("nominal", "measured") for i in (1, 2, 3)
                          for j in (1, 2, 3)]
     identity = "1,0,0,0,1,0,0,0,1"
@@ -198,11 +213,12 @@ def test_matrices_reflected_or_far_off_are_refused_and_rounded_ones_noted():
     assert result.total_deg[0] == pytest.approx(45.0, abs=1e-9)
     assert any("nearest rotation" in note for note in result.notes)
     mirrored = text + f"mirror,{identity},-1,0,0,0,1,0,0,0,1\n"
-    with pytest.raises(BatchFileError, match=r"line 3 \(row 2, mount 'mirror'\).*reflection"):
-        run_batch(mirrored)
+    result, _ = run_batch(mirrored)
+    assert result.verdicts() == ["fail", "error"]      # 45° is outside the default 0.5°
+    assert result.problems[0].message.startswith("line 3 (row 2, mount 'mirror')") and "reflection" in result.problems[0].message
     skewed = text + f"skew,{identity},1,0.2,0,0,1,0,0,0,1\n"
-    with pytest.raises(BatchFileError, match="not a rotation"):
-        run_batch(skewed)
+    result, _ = run_batch(skewed)
+    assert "not a rotation" in result.problems[0].message and result.verdicts()[1] == "error"
 
 
 def test_header_without_rows_is_refused():
@@ -241,4 +257,4 @@ def test_read_compute_write_are_separate_steps():
     assert [s.describe() for s in table.sets] == ["nominal: quaternion (Hamilton)", "measured: quaternion (Hamilton)"]
     result = compute_deviations(table, CheckSettings(total_tolerance_deg=1.0))
     assert result.pointing_deg is None
-    assert write_results(result, decimals=3).splitlines()[2] == "b,1.146,1.000,0.000,0.000,fail,-0.146"
+    assert write_results(result, decimals=3).splitlines()[2] == "b,1.146,1.000,0.000,0.000,fail,-0.146,"
