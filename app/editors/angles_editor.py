@@ -92,6 +92,7 @@ class AnglesEditor(EditorBase):
 
     def render(self) -> None:
         seq, intr = self.sequence, self.intrinsic
+        self.limit_angles(self.fields)
         self.sequence_box.setCurrentIndex(self.sequence_box.findData(seq))
         self.kind_box.setCurrentIndex(0 if intr else 1)
         for i, (label, text) in enumerate(zip(self.labels, axis_labels(seq, intr))):

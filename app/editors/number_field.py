@@ -10,7 +10,7 @@ from PySide6.QtCore import QRectF, Qt, Signal
 from PySide6.QtGui import QColor, QPainter, QPen, QValidator
 from PySide6.QtWidgets import QAbstractSpinBox
 
-from core.number_text import parse_number  # noqa: F401  (one reader for every cell; re-exported here)
+from core.number_text import parse_number, quoted  # noqa: F401  (one reader for every cell; re-exported)
 
 
 def format_number(value: float, digits: int) -> str:
@@ -40,6 +40,7 @@ class NumberField(QAbstractSpinBox):
         self._step = step
         self._steppable = steppable
         self._problem: str | None = None
+        self._range: tuple[float, float, bool, str] | None = None  # low, high, low excluded, why
         self.setToolTip(convention_tooltip)
         self.setAccelerated(True)
         self.setKeyboardTracking(True)
@@ -63,7 +64,20 @@ class NumberField(QAbstractSpinBox):
         return self.lineEdit().text()
 
     def value(self) -> float:
-        return parse_number(self.text())
+        """The number typed, when it is complete and inside the field's range; ValueError saying why not."""
+        value = parse_number(self.text())
+        if self._range is not None:
+            low, high, low_excluded, why = self._range
+            if value > high or value < low or (low_excluded and value == low):
+                raise ValueError(f"{quoted(self.text())} is outside {why}")
+        return value
+
+    def set_range(self, low: float, high: float, why: str, low_excluded: bool = False) -> None:
+        """Values this field accepts; `why` names the range for the message (e.g. "±720°: ...")."""
+        self._range = (low, high, low_excluded, why)
+
+    def clear_range(self) -> None:
+        self._range = None
 
     def fit_digits(self, digits: int) -> None:
         """Wide enough for a signed number with this many significant digits, never clipped."""
