@@ -195,6 +195,12 @@ class MainWindow(QMainWindow):
         edit_menu = self.menuBar().addMenu("&Edit")
         self.undo_action = self._action("&Undo", self.model.undo, keys.Undo)
         self.redo_action = self._action("&Redo", self.model.redo, keys.Redo)
+        # Redo on both spellings people use: Ctrl+Shift+Z and Ctrl+Y (whatever the platform's default is).
+        redo_keys = QKeySequence.keyBindings(keys.Redo)
+        for extra in ("Ctrl+Shift+Z", "Ctrl+Y"):
+            if QKeySequence(extra) not in redo_keys:
+                redo_keys.append(QKeySequence(extra))
+        self.redo_action.setShortcuts(redo_keys)
         self.model.undo_stack.canUndoChanged.connect(self.undo_action.setEnabled)
         self.model.undo_stack.canRedoChanged.connect(self.redo_action.setEnabled)
         self.model.undo_stack.undoTextChanged.connect(self._show_undo_text)

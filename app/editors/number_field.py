@@ -6,8 +6,8 @@ The field never rewrites its own text while the user types; the editor decides w
 
 from __future__ import annotations
 
-from PySide6.QtCore import QRectF, Qt, Signal
-from PySide6.QtGui import QColor, QPainter, QPen, QValidator
+from PySide6.QtCore import QEvent, QRectF, Qt, Signal
+from PySide6.QtGui import QColor, QKeySequence, QPainter, QPen, QValidator
 from PySide6.QtWidgets import QAbstractSpinBox
 
 from core.number_text import parse_number, quoted  # noqa: F401  (one reader for every cell; re-exported)
@@ -24,6 +24,19 @@ def format_number(value: float, digits: int) -> str:
 
 
 INVALID_COLOUR = QColor("#c62828")
+
+# Keys a field leaves to the window, so undo and redo reach the model's undo stack from any field rather
+# than the line edit's private history (which would undo keystrokes the model already holds).
+_WINDOW_KEYS = (QKeySequence.StandardKey.Undo, QKeySequence.StandardKey.Redo)
+_WINDOW_KEY_COMBOS = ("Ctrl+Y", "Ctrl+Shift+Z")
+
+
+def is_undo_or_redo_key(event) -> bool:
+    if any(event.matches(key) for key in _WINDOW_KEYS):
+        return True
+    pressed = QKeySequence(event.keyCombination())
+    return any(pressed.matches(QKeySequence(combo)) == QKeySequence.SequenceMatch.ExactMatch
+               for combo in _WINDOW_KEY_COMBOS)
 
 
 class NumberField(QAbstractSpinBox):
@@ -52,6 +65,16 @@ class NumberField(QAbstractSpinBox):
         self.lineEdit().returnPressed.connect(self.committed)
         self.fit_digits(9)
         self.setObjectName("NumberField")
+        self.installEventFilter(self)
+        self.lineEdit().installEventFilter(self)
+
+    def eventFilter(self, watched, event) -> bool:
+        # Not claiming the shortcut (the event stays ignored) lets the window's Undo and Redo take it; a key
+        # press that still arrives (nothing to undo) never reaches the line edit's own history.
+        if event.type() in (QEvent.Type.ShortcutOverride, QEvent.Type.KeyPress) and is_undo_or_redo_key(event):
+            event.ignore()
+            return True
+        return super().eventFilter(watched, event)
 
     # ---- text the editor renders ----------------------------------------------------------------
     def set_text(self, text: str) -> None:
