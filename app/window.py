@@ -40,13 +40,20 @@ DEMO_SESSION = RESOURCES / "demo.fwsession.json"
 FILE_FILTER = f"Framewright sessions (*{FILE_SUFFIX});;All files (*)"
 
 
-def _scrollable(panel: QWidget) -> QScrollArea:
-    """A wide panel in a scroll area, so the side area can stay narrow on a small screen."""
+def _scrollable(panel: QWidget, min_width: int = 300, across: bool = True) -> QScrollArea:
+    """A panel in a scroll area, so the window can shrink below the panel's full size on a small screen.
+    With across=False it never scrolls sideways: the area is as wide as the panel needs."""
     area = QScrollArea()
     area.setWidget(panel)
     area.setWidgetResizable(True)
     area.setFrameShape(QFrame.Shape.NoFrame)
-    area.setMinimumWidth(320)
+    area.setMinimumWidth(min_width)
+    if not across:
+        area.setHorizontalScrollBarPolicy(Qt.ScrollBarPolicy.ScrollBarAlwaysOff)
+        # room for the panel and for an up-down scroll bar beside it, so it never needs to scroll sideways
+        bar = area.style().pixelMetric(area.style().PixelMetric.PM_ScrollBarExtent)
+        area.setMinimumWidth(panel.minimumSizeHint().width() + bar)
+        area.setMinimumHeight(min(panel.minimumSizeHint().height(), 160))
     return area
 
 
@@ -83,7 +90,6 @@ class MainWindow(QMainWindow):
         self.check_panel = CheckPanel(model)
         self.level_panel = LevelPanel(model)
         self.scene = SceneWidget()
-        self.scene.setMinimumHeight(320)
         self._scene_binding = bind_scene_to_model(self.scene, model)
         self.measure_panel.fit_changed.connect(self.scene.set_measured_points)
         self.editors: list[EditorBase] = [self.axis_angle, self.quaternion, self.matrix, self.angles]
@@ -92,17 +98,27 @@ class MainWindow(QMainWindow):
         editors = QWidget()
         grid = QGridLayout(editors)
         grid.setContentsMargins(0, 0, 0, 0)
+        grid.setSpacing(4)
+        for box in self.editors + [self.meter]:
+            # Tighter than the default frame, so all five fit under the Scene on an 800-pixel screen.
+            box.layout().setContentsMargins(6, 4, 6, 4)
+            box.layout().setSpacing(4)
+        # Two rows of three narrow columns, so the editors fit a laptop's width: the matrix's three cells
+        # span under the two narrow editors, the meter sits under the Angles it speaks of.
         grid.addWidget(self.axis_angle, 0, 0)
         grid.addWidget(self.quaternion, 0, 1)
-        grid.addWidget(self.matrix, 0, 2)
-        grid.addWidget(self.angles, 1, 0, 1, 2)
+        grid.addWidget(self.angles, 0, 2)
+        grid.addWidget(self.matrix, 1, 0, 1, 2)
         grid.addWidget(self.meter, 1, 2)
         centre = QSplitter(Qt.Orientation.Vertical)
         centre.addWidget(self.scene)
-        centre.addWidget(editors)
+        centre.addWidget(_scrollable(editors, min_width=0, across=False))
         centre.setStretchFactor(0, 1)
         centre.setStretchFactor(1, 0)
         centre.setChildrenCollapsible(False)
+        # The editors keep their full height (stretch 0); the Scene takes what is left.
+        centre.setSizes([1000, editors.sizeHint().height()])
+        self.centre = centre
 
         # Side area: one tab per panel, in the order of the job: decode, chain, check (and level), then
         # measure and batch.
@@ -121,8 +137,11 @@ class MainWindow(QMainWindow):
         splitter.setStretchFactor(0, 0)
         splitter.setStretchFactor(1, 1)
         splitter.setStretchFactor(2, 0)
-        splitter.setSizes([200, 900, 500])  # the centre keeps its minimum; the panels get the rest
-        splitter.setChildrenCollapsible(False)
+        splitter.setSizes([160, 900, 500])  # the centre keeps its minimum; the panels get the rest
+        # The Mounts list and the side panels fold away (drag their edge, or View ▸ Side panels) to give
+        # the Scene and the editors a small screen's whole width; the centre never folds.
+        splitter.setChildrenCollapsible(True)
+        splitter.setCollapsible(1, False)
         self.splitter = splitter
         self.setCentralWidget(splitter)
 
@@ -239,9 +258,29 @@ class MainWindow(QMainWindow):
         edit_menu.addAction(self.preferences_action)
         self._update_copy_again_text()
 
+        view_menu = self.menuBar().addMenu("&View")
+        self.side_action = self._action("Side &panels", self.show_side_panels, None,
+                                        "Show or fold away the side panels (Decode, Chain, Check, …)")
+        self.side_action.setCheckable(True)
+        self.side_action.setChecked(True)
+        self.splitter.splitterMoved.connect(lambda *_: self.side_action.setChecked(self.splitter.sizes()[2] > 0))
+        view_menu.addAction(self.side_action)
+
         help_menu = self.menuBar().addMenu("&Help")
         self.about_action = self._action("&About Framewright", lambda: about.show_about(self))
         help_menu.addAction(self.about_action)
+
+    def show_side_panels(self, shown: bool) -> None:
+        sizes = self.splitter.sizes()
+        if bool(shown) == (sizes[2] > 0):
+            return
+        if shown:
+            width = max(self.side_tabs.minimumSizeHint().width(), getattr(self, "_side_width", 380))
+            sizes = [sizes[0], max(sizes[1] - width, 0), width]
+        else:
+            self._side_width = sizes[2]
+            sizes = [sizes[0], sizes[1] + sizes[2], 0]
+        self.splitter.setSizes(sizes)
 
     def _show_undo_text(self, text: str) -> None:
         self.undo_action.setText(f"&Undo {text}".strip())

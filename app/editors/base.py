@@ -174,6 +174,12 @@ class EditorBase(QGroupBox):
         return values if good else None
 
     @staticmethod
+    def narrow_combo(box, characters: int = 14) -> None:
+        """Let a combo of long entries shrink to `characters` (elided); its list still shows them whole."""
+        box.setSizeAdjustPolicy(box.SizeAdjustPolicy.AdjustToMinimumContentsLengthWithIcon)
+        box.setMinimumContentsLength(characters)
+
+    @staticmethod
     def note_label(lines: int = 2) -> QLabel:
         """A wrapped line of notes under the fields, with room kept for `lines` lines so a note never
         arrives clipped and the layout does not jump when one appears."""

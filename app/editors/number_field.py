@@ -104,8 +104,8 @@ class NumberField(QAbstractSpinBox):
 
     def fit_digits(self, digits: int) -> None:
         """Wide enough for a signed number with this many significant digits, never clipped."""
-        sample = "-0.000" + "8" * digits
-        self.setMinimumWidth(self.fontMetrics().horizontalAdvance(sample) + (44 if self._steppable else 16))
+        sample = "-0.0" + "8" * digits  # a signed fraction; wider text scrolls rather than widening all
+        self.setMinimumWidth(self.fontMetrics().horizontalAdvance(sample) + (38 if self._steppable else 16))
 
     def set_step(self, step: float) -> None:
         self._step = step

@@ -103,6 +103,7 @@ class GimbalMeter(QGroupBox):
         font.setBold(True)
         self.margin_label.setFont(font)
         self.band_label = QLabel()
+        self.band_label.setWordWrap(True)  # so the meter can be narrow on a laptop
         self.bar = MarginBar()
         self.amplification_label = QLabel()
         self.amplification_label.setWordWrap(True)

@@ -52,7 +52,7 @@ class SceneWidget(QtWidgets.QWidget):
         self.view = SceneView()
         self.view.setBackgroundColor(palette.BACKGROUND)
         self.view.opts["fov"] = camera.FIELD_OF_VIEW
-        self.view.setMinimumSize(320, 240)
+        self.view.setMinimumSize(240, 100)  # small enough for a laptop; the window gives it the rest
         self.toolbar = SceneToolbar(self)
         layout = QtWidgets.QVBoxLayout(self)
         layout.setContentsMargins(0, 0, 0, 0)
