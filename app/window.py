@@ -7,7 +7,7 @@ import sys
 import time
 from pathlib import Path
 
-from PySide6.QtCore import QLocale, Qt, QTimer
+from PySide6.QtCore import QEvent, QLocale, Qt, QTimer
 from PySide6.QtGui import QAction, QKeySequence
 from PySide6.QtWidgets import (QAbstractSpinBox, QApplication, QComboBox, QFileDialog, QFrame, QGridLayout,
                                QHBoxLayout, QLabel, QLineEdit, QMainWindow, QMessageBox, QPlainTextEdit,
@@ -119,6 +119,8 @@ class MainWindow(QMainWindow):
         # The editors keep their full height (stretch 0); the Scene takes what is left.
         centre.setSizes([1000, editors.sizeHint().height()])
         self.centre = centre
+        self._editors_box = editors
+        editors.installEventFilter(self)  # a note that wraps to one more line gets its room (_fit_editors)
 
         # Side area: one tab per panel, in the order of the job: decode, chain, check (and level), then
         # measure and batch.
@@ -269,6 +271,23 @@ class MainWindow(QMainWindow):
         help_menu = self.menuBar().addMenu("&Help")
         self.about_action = self._action("&About Framewright", lambda: about.show_about(self))
         help_menu.addAction(self.about_action)
+
+    def eventFilter(self, watched, event) -> bool:
+        if watched is self._editors_box and event.type() == QEvent.Type.LayoutRequest:
+            QTimer.singleShot(0, self._fit_editors)
+        return super().eventFilter(watched, event)
+
+    def _fit_editors(self) -> None:
+        """Give the editors the height their text now needs, taken from the Scene down to its minimum, so
+        no field or button of theirs is hidden below a scroll; never shrinks what the user gave them."""
+        box = self._editors_box
+        need = box.heightForWidth(box.width()) if box.hasHeightForWidth() else -1
+        need = max(need, box.sizeHint().height())
+        scene_h, editors_h = self.centre.sizes()
+        room = scene_h + editors_h - self.scene.minimumSizeHint().height()
+        wanted = min(need, room)
+        if wanted > editors_h:
+            self.centre.setSizes([scene_h + editors_h - wanted, wanted])
 
     def show_side_panels(self, shown: bool) -> None:
         sizes = self.splitter.sizes()

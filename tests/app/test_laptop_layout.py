@@ -9,6 +9,7 @@ from PySide6.QtCore import QPoint, QRect
 from PySide6.QtWidgets import QScrollArea
 
 from app.editors.number_field import NumberField
+from core.orientation import Orientation
 
 LAPTOPS = [(1280, 800), (1366, 768)]
 DEMO_BATCH = Path(__file__).resolve().parents[2] / "resources" / "demo_batch.csv"
@@ -56,6 +57,9 @@ def test_every_key_control_is_whole_and_inside_the_window_on_a_laptop(qtbot, win
     # with a result in the Batch panel (the invented demo CSV), whose long lines must wrap, not widen it
     assert window.batch_panel.open_file(str(DEMO_BATCH))
     settle(qtbot, window, size)
+    # numbers with many digits make the Angles editor's second spelling wrap to a third line
+    window.model.set_orientation(Orientation.from_angles("ZYX", (-29.867917, 7.9971289, 2.91495405)))
+    qtbot.wait(50)
     fields = [f for editor in window.editors for f in editor.findChildren(NumberField) if not f.isHidden()]
     assert len(fields) == 3 + 1 + 4 + 9 + 3
     for field in fields:
