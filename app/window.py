@@ -152,7 +152,7 @@ class MainWindow(QMainWindow):
         self.statusBar().showMessage("Ready. Safety: verify against the governing drawing and procedure.")
 
         model.changed.connect(self._on_model_changed)
-        self.recovery = recovery.Recovery(model, parent=self)  # autosave after edits pause; see recovery.py
+        self.recovery = recovery.Recovery(model, parent=self)  # autosave soon after each change; recovery.py
         model.undo_stack.cleanChanged.connect(self._update_title)
         QApplication.instance().focusChanged.connect(self._track_editor)
         self._update_title()
