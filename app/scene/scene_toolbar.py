@@ -12,7 +12,7 @@ VIEW_BUTTONS = (("+X", "Look along +X of the reference"), ("\u2212X", "Look alon
                 ("+Y", "Look along +Y of the reference"), ("\u2212Y", "Look along \u2212Y of the reference"),
                 ("+Z", "Look along +Z of the reference"), ("\u2212Z", "Look along \u2212Z of the reference"),
                 ("Boresight", "Look along the body's boresight axis"),
-                ("Isometric", "Isometric view from the +X +Y +Z side"),
+                ("Isometric", "Isometric view from above, on the +X +Y side (above: the frame's up)"),
                 ("Reset", "Back to the isometric view at the standard distance"))
 TRACKED_CHOICES = ("boresight", "+X", "+Y", "+Z", "-X", "-Y", "-Z", "typed")
 SLIDER_STEPS = 1000
