@@ -248,6 +248,8 @@ class SessionModel(QObject):
         index = self._selected if index is None else index
         source = self._mounts[index]
         copy = source.renamed(self.unused_name(source.name + " copy"))
+        if source.notes:  # the original's note may state its angles, which the copy will not keep for long
+            copy = replace(copy, notes=f"Copy of “{source.name}” (its note stays with it).")
         mounts = self._mounts[: index + 1] + (copy,) + self._mounts[index + 1:]
         self._push_mounts(mounts, index + 1, f"Duplicate mount “{source.name}”", origin)
 

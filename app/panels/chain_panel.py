@@ -111,7 +111,9 @@ class ChainPanel(QWidget):
         name_row.addWidget(QLabel("Chain"))
         name_row.addWidget(self.name_field, 1)
         layout.addLayout(name_row)
-        layout.addWidget(self.table, 1)
+        # The table keeps its height and the spare room sits at the bottom, so the step form below never
+        # moves when a step is added (the result above the spare room grows instead).
+        layout.addWidget(self.table)
         buttons = QGridLayout()
         for k, b in enumerate((self.up_button, self.down_button, self.invert_button, self.enable_button,
                                self.delete_button)):
@@ -119,6 +121,7 @@ class ChainPanel(QWidget):
         layout.addLayout(buttons)
         layout.addWidget(entry)
         layout.addWidget(result)
+        layout.addStretch(1)
 
         self.name_field.editingFinished.connect(self._rename_chain)
         self.table.itemChanged.connect(self._on_item_changed)
