@@ -3,6 +3,7 @@ panels (Decode, Measure, Batch, ...) as tabs, with menus, shortcuts and the stat
 
 from __future__ import annotations
 
+import dataclasses
 import sys
 import time
 from pathlib import Path
@@ -200,10 +201,13 @@ class MainWindow(QMainWindow):
     def _build_menus(self) -> None:
         keys = QKeySequence.StandardKey
         file_menu = self.menuBar().addMenu("&File")
+        self.new_action = self._action("&New", self.new_session, keys.New,
+                                       "Start an empty session: one mount, no file (asks about unsaved changes)")
         self.open_action = self._action("&Open…", self.open_file, keys.Open)
         self.save_action = self._action("&Save", self.save_file, keys.Save)
         self.save_as_action = self._action("Save &as…", self.save_file_as, keys.SaveAs)
         self.quit_action = self._action("&Quit", self.close, keys.Quit)
+        file_menu.addAction(self.new_action)
         file_menu.addAction(self.open_action)
         self.recent_menu = file_menu.addMenu("Recent &files")
         self.recent_menu.setToolTipsVisible(True)
@@ -390,6 +394,15 @@ class MainWindow(QMainWindow):
         if answer == QMessageBox.StandardButton.Save:
             return self.save_file()
         return answer == QMessageBox.StandardButton.Discard
+
+    def new_session(self) -> bool:
+        """An empty session (one mount at the identity, no file); the reference frame and the display
+        preferences stay as they are."""
+        if not self._confirm_discard():
+            return False
+        self.model.load_session(dataclasses.replace(Session.single(), reference_frame=self.model.words_preset))
+        self.statusBar().showMessage("New session: one mount, not saved yet.")
+        return True
 
     def open_file(self, path: str | None = None) -> bool:
         if not self._confirm_discard():

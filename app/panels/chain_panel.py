@@ -46,7 +46,7 @@ class ChainPanel(QWidget):
         header = self.table.horizontalHeader()
         header.setSectionResizeMode(QHeaderView.ResizeMode.ResizeToContents)
         header.setSectionResizeMode(3, QHeaderView.ResizeMode.Stretch)
-        self.table.setMinimumHeight(150)
+        self.table.setFixedHeight(180)  # never squeezed by a growing result below, so the form stays put
         self.table.setWordWrap(False)
         self.table.horizontalHeaderItem(3).setToolTip("The step's orientation in its parent (child -> parent), "
                                                       "as axis and angle; hover a cell for every representation.")

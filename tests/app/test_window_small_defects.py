@@ -21,7 +21,9 @@ def test_the_chain_step_form_does_not_move_when_steps_are_added(qtbot, window):
     for _ in range(3):
         qtbot.mouseClick(panel.add_from_editors, Qt.MouseButton.LeftButton)
         qtbot.wait(20)
-        assert form_position() == before   # the next click lands where the last one did
+        area = panel.parentWidget().parentWidget()
+        assert form_position() == before, (area.verticalScrollBar().value(), panel.height(), area.height(),
+                                           panel.table.height(), window.size())
     assert len(window.model.chain.steps) == 3
 
 
@@ -43,3 +45,23 @@ def test_the_lock_note_does_not_say_roll_is_shown_as_0_while_the_field_shows_10(
     assert fields[2].text() == "10"                     # the user's spelling, until they leave
     note = window.meter.lock_label.text()
     assert "Gimbal lock" in note and "shown as 0" not in note
+
+
+def test_file_new_starts_an_empty_session_after_asking_about_unsaved_changes(qtbot, window, monkeypatch):
+    from PySide6.QtWidgets import QMessageBox
+
+    model = window.model
+    type_into(qtbot, window.angles.fields[0], "33")
+    qtbot.keyClick(window.angles.fields[0].lineEdit(), Qt.Key.Key_Return)
+    before = model.session()
+    asked = []
+    monkeypatch.setattr(QMessageBox, "question",
+                        lambda *a, **k: asked.append(a[2]) or QMessageBox.StandardButton.Cancel)
+    window.new_action.trigger()
+    assert asked and model.session() == before          # cancelled: nothing changed
+    monkeypatch.setattr(QMessageBox, "question", lambda *a, **k: QMessageBox.StandardButton.Discard)
+    window.new_action.trigger()
+    assert len(model.mounts) == 1 and model.file_path is None
+    assert model.words_preset == before.reference_frame  # the frame's names stay (the demo's NED)
+    assert model.undo_stack.count() == 0 and model.undo_stack.isClean()
+    assert window.new_action.shortcut().toString() == "Ctrl+N"
