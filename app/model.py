@@ -208,9 +208,11 @@ class SessionModel(QObject):
 
     # ---- data edits: every one through an undo command -----------------------------------------
     def set_orientation(self, orientation: Orientation, origin: object | None = None, *,
-                        continuous_key: object = None, text: str = "Edit orientation") -> None:
+                        continuous_key: object = None, text: str = "Edit orientation",
+                        pause_ends_run: bool = True) -> None:
         """Set the selected mount's orientation. Edits with the same ``continuous_key`` that follow each
-        other without a pause merge into one undo step (one drag, one typing run)."""
+        other without a pause merge into one undo step (one drag, one typing run). A typing run passes
+        ``pause_ends_run=False``: it ends when the field commits, never half-typed on a pause."""
         if not isinstance(orientation, Orientation):
             raise TypeError("set_orientation needs an Orientation")
         if continuous_key is None:
@@ -221,8 +223,10 @@ class SessionModel(QObject):
         command = commands.SetOrientationCommand(self, self._selected, old, orientation, origin,
                                                  text, continuous_key, self._merge_token)
         self.undo_stack.push(command)
-        if continuous_key is not None:
+        if continuous_key is not None and pause_ends_run:
             self._idle.start()
+        elif continuous_key is not None:
+            self._idle.stop()
         else:
             self.end_continuous()
 
@@ -244,6 +248,8 @@ class SessionModel(QObject):
         index = self._selected if index is None else index
         source = self._mounts[index]
         copy = source.renamed(self.unused_name(source.name + " copy"))
+        if source.notes:  # the original's note may state its angles, which the copy will not keep for long
+            copy = replace(copy, notes=f"Copy of “{source.name}” (its note stays with it).")
         mounts = self._mounts[: index + 1] + (copy,) + self._mounts[index + 1:]
         self._push_mounts(mounts, index + 1, f"Duplicate mount “{source.name}”", origin)
 

@@ -1,8 +1,10 @@
 """Autosave to a recovery file, so an unsaved session survives a crash.
 
-A Recovery listens to the model: a change with unsaved edits (re)starts a short timer, and only when the
-edits have paused for AUTOSAVE_DELAY_MS is the session written, atomically (core/session.save_session),
-to a recovery file in the user's data folder — never on the path of an edit. A save (the undo stack
+A Recovery listens to the model: a change with unsaved edits starts a short timer unless it is already
+running, so the session is written, atomically (core/session.save_session), to a recovery file in the
+user's data folder AUTOSAVE_DELAY_MS after the first of a burst of changes — the burst coalesces into one
+write, a steady stream of edits is still written every AUTOSAVE_DELAY_MS, and no committed step waits for
+the edits to pause. It is never written on the path of an edit. A save (the undo stack
 becomes clean) or a clean close removes the file. Each running window owns its file and holds a lock
 beside it (QLockFile), so a second window never offers another live window's file: a recovery file whose
 lock can be taken belongs to a run that ended without cleaning up, i.e. crashed.
@@ -28,7 +30,8 @@ from PySide6.QtCore import QLockFile, QObject, QStandardPaths, QTimer
 from core.errors import FramewrightError
 from core.session import FILE_SUFFIX, Session, load_session, save_session
 
-AUTOSAVE_DELAY_MS = 2000
+# Within half a second of any committed undo step, with room for the write itself.
+AUTOSAVE_DELAY_MS = 300
 PREFIX = "recovery-"
 MARK = "recovery"   # top-level key in a recovery file: which file it recovers and when it was written
 
@@ -69,12 +72,17 @@ class Recovery(QObject):
 
     def _on_change(self, _change=None) -> None:
         if not self.model.undo_stack.isClean():
-            self._timer.start()          # restarts: written once the edits pause
+            self._schedule()
 
     def _on_clean_changed(self, clean: bool) -> None:
         if clean:
             self.discard()
         else:
+            self._schedule()
+
+    def _schedule(self) -> None:
+        # Never restart a running timer: restarting would wait for the edits to pause.
+        if not self._timer.isActive():
             self._timer.start()
 
     def write_now(self) -> bool:

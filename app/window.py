@@ -3,11 +3,12 @@ panels (Decode, Measure, Batch, ...) as tabs, with menus, shortcuts and the stat
 
 from __future__ import annotations
 
+import dataclasses
 import sys
 import time
 from pathlib import Path
 
-from PySide6.QtCore import QLocale, Qt, QTimer
+from PySide6.QtCore import QEvent, QLocale, Qt, QTimer
 from PySide6.QtGui import QAction, QKeySequence
 from PySide6.QtWidgets import (QAbstractSpinBox, QApplication, QComboBox, QFileDialog, QFrame, QGridLayout,
                                QHBoxLayout, QLabel, QLineEdit, QMainWindow, QMessageBox, QPlainTextEdit,
@@ -41,13 +42,20 @@ DEMO_SESSION = RESOURCES / "demo.fwsession.json"
 FILE_FILTER = f"Framewright sessions (*{FILE_SUFFIX});;All files (*)"
 
 
-def _scrollable(panel: QWidget) -> QScrollArea:
-    """A wide panel in a scroll area, so the side area can stay narrow on a small screen."""
+def _scrollable(panel: QWidget, min_width: int = 300, across: bool = True) -> QScrollArea:
+    """A panel in a scroll area, so the window can shrink below the panel's full size on a small screen.
+    With across=False it never scrolls sideways: the area is as wide as the panel needs."""
     area = QScrollArea()
     area.setWidget(panel)
     area.setWidgetResizable(True)
     area.setFrameShape(QFrame.Shape.NoFrame)
-    area.setMinimumWidth(320)
+    area.setMinimumWidth(min_width)
+    if not across:
+        area.setHorizontalScrollBarPolicy(Qt.ScrollBarPolicy.ScrollBarAlwaysOff)
+        # room for the panel and for an up-down scroll bar beside it, so it never needs to scroll sideways
+        bar = area.style().pixelMetric(area.style().PixelMetric.PM_ScrollBarExtent)
+        area.setMinimumWidth(panel.minimumSizeHint().width() + bar)
+        area.setMinimumHeight(min(panel.minimumSizeHint().height(), 160))
     return area
 
 
@@ -85,7 +93,6 @@ class MainWindow(QMainWindow):
         self.adjust_panel = AdjustPanel(model)
         self.level_panel = LevelPanel(model)
         self.scene = SceneWidget()
-        self.scene.setMinimumHeight(320)
         self._scene_binding = bind_scene_to_model(self.scene, model)
         self.measure_panel.fit_changed.connect(self.scene.set_measured_points)
         self.editors: list[EditorBase] = [self.axis_angle, self.quaternion, self.matrix, self.angles]
@@ -94,17 +101,29 @@ class MainWindow(QMainWindow):
         editors = QWidget()
         grid = QGridLayout(editors)
         grid.setContentsMargins(0, 0, 0, 0)
+        grid.setSpacing(4)
+        for box in self.editors + [self.meter]:
+            # Tighter than the default frame, so all five fit under the Scene on an 800-pixel screen.
+            box.layout().setContentsMargins(6, 4, 6, 4)
+            box.layout().setSpacing(4)
+        # Two rows of three narrow columns, so the editors fit a laptop's width: the matrix's three cells
+        # span under the two narrow editors, the meter sits under the Angles it speaks of.
         grid.addWidget(self.axis_angle, 0, 0)
         grid.addWidget(self.quaternion, 0, 1)
-        grid.addWidget(self.matrix, 0, 2)
-        grid.addWidget(self.angles, 1, 0, 1, 2)
+        grid.addWidget(self.angles, 0, 2)
+        grid.addWidget(self.matrix, 1, 0, 1, 2)
         grid.addWidget(self.meter, 1, 2)
         centre = QSplitter(Qt.Orientation.Vertical)
         centre.addWidget(self.scene)
-        centre.addWidget(editors)
+        centre.addWidget(_scrollable(editors, min_width=0, across=False))
         centre.setStretchFactor(0, 1)
         centre.setStretchFactor(1, 0)
         centre.setChildrenCollapsible(False)
+        # The editors keep their full height (stretch 0); the Scene takes what is left.
+        centre.setSizes([1000, editors.sizeHint().height()])
+        self.centre = centre
+        self._editors_box = editors
+        editors.installEventFilter(self)  # a note that wraps to one more line gets its room (_fit_editors)
 
         # Side area: one tab per panel, in the order of the job: decode, chain, check (and level), then
         # measure and batch.
@@ -124,8 +143,11 @@ class MainWindow(QMainWindow):
         splitter.setStretchFactor(0, 0)
         splitter.setStretchFactor(1, 1)
         splitter.setStretchFactor(2, 0)
-        splitter.setSizes([200, 900, 500])  # the centre keeps its minimum; the panels get the rest
-        splitter.setChildrenCollapsible(False)
+        splitter.setSizes([160, 900, 500])  # the centre keeps its minimum; the panels get the rest
+        # The Mounts list and the side panels fold away (drag their edge, or View ▸ Side panels) to give
+        # the Scene and the editors a small screen's whole width; the centre never folds.
+        splitter.setChildrenCollapsible(True)
+        splitter.setCollapsible(1, False)
         self.splitter = splitter
         self.setCentralWidget(splitter)
 
@@ -134,7 +156,7 @@ class MainWindow(QMainWindow):
         self.statusBar().showMessage("Ready. Safety: verify against the governing drawing and procedure.")
 
         model.changed.connect(self._on_model_changed)
-        self.recovery = recovery.Recovery(model, parent=self)  # autosave after edits pause; see recovery.py
+        self.recovery = recovery.Recovery(model, parent=self)  # autosave soon after each change; recovery.py
         model.undo_stack.cleanChanged.connect(self._update_title)
         QApplication.instance().focusChanged.connect(self._track_editor)
         self._update_title()
@@ -182,10 +204,13 @@ class MainWindow(QMainWindow):
     def _build_menus(self) -> None:
         keys = QKeySequence.StandardKey
         file_menu = self.menuBar().addMenu("&File")
+        self.new_action = self._action("&New", self.new_session, keys.New,
+                                       "Start an empty session: one mount, no file (asks about unsaved changes)")
         self.open_action = self._action("&Open…", self.open_file, keys.Open)
         self.save_action = self._action("&Save", self.save_file, keys.Save)
         self.save_as_action = self._action("Save &as…", self.save_file_as, keys.SaveAs)
         self.quit_action = self._action("&Quit", self.close, keys.Quit)
+        file_menu.addAction(self.new_action)
         file_menu.addAction(self.open_action)
         self.recent_menu = file_menu.addMenu("Recent &files")
         self.recent_menu.setToolTipsVisible(True)
@@ -198,6 +223,12 @@ class MainWindow(QMainWindow):
         edit_menu = self.menuBar().addMenu("&Edit")
         self.undo_action = self._action("&Undo", self.model.undo, keys.Undo)
         self.redo_action = self._action("&Redo", self.model.redo, keys.Redo)
+        # Redo on both spellings people use: Ctrl+Shift+Z and Ctrl+Y (whatever the platform's default is).
+        redo_keys = QKeySequence.keyBindings(keys.Redo)
+        for extra in ("Ctrl+Shift+Z", "Ctrl+Y"):
+            if QKeySequence(extra) not in redo_keys:
+                redo_keys.append(QKeySequence(extra))
+        self.redo_action.setShortcuts(redo_keys)
         self.model.undo_stack.canUndoChanged.connect(self.undo_action.setEnabled)
         self.model.undo_stack.canRedoChanged.connect(self.redo_action.setEnabled)
         self.model.undo_stack.undoTextChanged.connect(self._show_undo_text)
@@ -236,9 +267,46 @@ class MainWindow(QMainWindow):
         edit_menu.addAction(self.preferences_action)
         self._update_copy_again_text()
 
+        view_menu = self.menuBar().addMenu("&View")
+        self.side_action = self._action("Side &panels", self.show_side_panels, None,
+                                        "Show or fold away the side panels (Decode, Chain, Check, …)")
+        self.side_action.setCheckable(True)
+        self.side_action.setChecked(True)
+        self.splitter.splitterMoved.connect(lambda *_: self.side_action.setChecked(self.splitter.sizes()[2] > 0))
+        view_menu.addAction(self.side_action)
+
         help_menu = self.menuBar().addMenu("&Help")
         self.about_action = self._action("&About Framewright", lambda: about.show_about(self))
         help_menu.addAction(self.about_action)
+
+    def eventFilter(self, watched, event) -> bool:
+        if watched is self._editors_box and event.type() == QEvent.Type.LayoutRequest:
+            QTimer.singleShot(0, self._fit_editors)
+        return super().eventFilter(watched, event)
+
+    def _fit_editors(self) -> None:
+        """Give the editors the height their text now needs, taken from the Scene down to its minimum, so
+        no field or button of theirs is hidden below a scroll; never shrinks what the user gave them."""
+        box = self._editors_box
+        need = box.heightForWidth(box.width()) if box.hasHeightForWidth() else -1
+        need = max(need, box.sizeHint().height())
+        scene_h, editors_h = self.centre.sizes()
+        room = scene_h + editors_h - self.scene.minimumSizeHint().height()
+        wanted = min(need, room)
+        if wanted > editors_h:
+            self.centre.setSizes([scene_h + editors_h - wanted, wanted])
+
+    def show_side_panels(self, shown: bool) -> None:
+        sizes = self.splitter.sizes()
+        if bool(shown) == (sizes[2] > 0):
+            return
+        if shown:
+            width = max(self.side_tabs.minimumSizeHint().width(), getattr(self, "_side_width", 380))
+            sizes = [sizes[0], max(sizes[1] - width, 0), width]
+        else:
+            self._side_width = sizes[2]
+            sizes = [sizes[0], sizes[1] + sizes[2], 0]
+        self.splitter.setSizes(sizes)
 
     def _show_undo_text(self, text: str) -> None:
         self.undo_action.setText(f"&Undo {text}".strip())
@@ -329,6 +397,15 @@ class MainWindow(QMainWindow):
         if answer == QMessageBox.StandardButton.Save:
             return self.save_file()
         return answer == QMessageBox.StandardButton.Discard
+
+    def new_session(self) -> bool:
+        """An empty session (one mount at the identity, no file); the reference frame and the display
+        preferences stay as they are."""
+        if not self._confirm_discard():
+            return False
+        self.model.load_session(dataclasses.replace(Session.single(), reference_frame=self.model.words_preset))
+        self.statusBar().showMessage("New session: one mount, not saved yet.")
+        return True
 
     def open_file(self, path: str | None = None) -> bool:
         if not self._confirm_discard():

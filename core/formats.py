@@ -6,8 +6,9 @@ the angle between what was rendered and what came back, before anything is calle
     round_trip_error(orientation, text, "python", options) -> degrees
     FORMATS: (name, plain label) pairs, in menu order
 
-Numbers are printed with the shortest text that reads back to the same double (`repr`), unless
-`decimals` asks for fixed decimals; then the round trip is exact only to the printed precision.
+Numbers are printed with the shortest decimal within NOISE_RELATIVE of the double (so a typed -30.4 that
+came back through the quaternion as -30.39999999999999 is written -30.4 again), unless `decimals` asks
+for fixed decimals; then the round trip is exact only to the printed precision.
 """
 
 from __future__ import annotations
@@ -109,11 +110,29 @@ def _options(options) -> FormatOptions:
 # ---------------------------------------------------------------------------------------------------
 # Numbers and words shared by the formats
 # ---------------------------------------------------------------------------------------------------
+# The last few bits of arithmetic noise (a conversion to the quaternion and back leaves about 1e-15
+# relative): rounding off no more than this keeps every exact format's round trip within 1e-12 degrees,
+# which a relative 1e-12 would not (a quaternion component off by 1e-12 turns the orientation ~1e-10°).
+NOISE_RELATIVE = 2e-15
+
+
+def shortest_decimal(value: float, relative: float = NOISE_RELATIVE) -> str:
+    """The shortest decimal (as Python writes a float) within `relative` of value; '0.0' for zero."""
+    value = float(value) + 0.0            # + 0.0 turns -0.0 into 0.0
+    if value == 0.0 or not math.isfinite(value):
+        return repr(value)
+    for digits in range(1, 17):
+        rounded = float(f"{value:.{digits}g}")
+        if abs(rounded - value) <= relative * abs(value):
+            return repr(rounded)
+    return repr(value)
+
+
 def format_number(value: float, decimals: int | None = None) -> str:
-    """'0.7071067811865476' (shortest exact) or fixed decimals; never '-0'."""
+    """'0.7071067811865476' (the shortest decimal, arithmetic noise off) or fixed decimals; never '-0'."""
     value = float(value)
     if decimals is None:
-        text = repr(value + 0.0)          # + 0.0 turns -0.0 into 0.0
+        text = shortest_decimal(value)
     else:
         text = f"{value:.{decimals}f}"
         if float(text) == 0:

@@ -11,6 +11,17 @@ _MINUS_SIGNS = {"\u2212": "-", "\u2013": "-", "\u2012": "-", "\ufe63": "-", "\uf
 _SPACES = ("\u00a0", "\u202f", "\u2009", " ", "\t")
 
 
+QUOTE_LIMIT = 40  # characters of a person's text quoted back in a message; the rest is cut
+
+
+def quoted(text: str) -> str:
+    """The text as a message quotes it: stripped, and cut short so a pasted screenful never fills a panel."""
+    text = text.strip()
+    if len(text) > QUOTE_LIMIT:
+        text = text[: QUOTE_LIMIT - 1] + "…"
+    return f"“{text}”"
+
+
 def parse_number(text: str) -> float:
     """Read one number typed or pasted by a person. Raises ValueError with a message for that person."""
     cleaned = text
@@ -22,16 +33,16 @@ def parse_number(text: str) -> float:
     if cleaned == "":
         raise ValueError("empty: type a number")
     if "," in cleaned:
-        raise ValueError(f"“{text.strip()}”: use '.' as the decimal point, not ','")
+        raise ValueError(f"{quoted(text)}: use '.' as the decimal point, not ','")
     if any(space in cleaned for space in _SPACES):
         # ... but inside it they would join two numbers into one ("1 2" is not 12)
-        raise ValueError(f"“{text.strip()}” has a space inside: one number per field")
+        raise ValueError(f"{quoted(text)} has a space inside: one number per field")
     if not cleaned.isascii() or "_" in cleaned:
-        raise ValueError(f"“{text.strip()}” is not a plain number (digits 0-9, '.', 'e', a sign)")
+        raise ValueError(f"{quoted(text)} is not a plain number (digits 0-9, '.', 'e', a sign)")
     try:
         value = float(cleaned)
     except ValueError:
-        raise ValueError(f"“{text.strip()}” is not a number") from None
+        raise ValueError(f"{quoted(text)} is not a number") from None
     if not math.isfinite(value):
-        raise ValueError(f"“{text.strip()}” is not a finite number")
+        raise ValueError(f"{quoted(text)} is not a finite number")
     return value

@@ -4,7 +4,8 @@
 
 Starts its own virtual X display when none is set, uses a throw-away settings folder (so the shot does
 not depend on anyone's preferences) and writes docs/screenshots/: window.png, the Scene alone for two demo
-mounts, check.png (the Check panel) and fit.png (the Measure panel with a fit).
+mounts, check.png (the Check panel) and fit.png (the Measure panel with a fit), and the whole window at
+1280x800 (window.png, window-1280x800.png) and 1920x1080 (window-1920x1080.png).
 """
 
 from __future__ import annotations
@@ -130,6 +131,12 @@ def main(argv: list[str]) -> int:
         window.model.select(2)
         for _ in range(5):
             app.processEvents()
+        # The whole window at a laptop's size and at a large screen's (window.png is the laptop one).
+        for width, height in ((1920, 1080), (1280, 800)):
+            window.resize(width, height)
+            _settle(app)
+            if not _grab(window, out_dir / f"window-{width}x{height}.png"):
+                return 1
         if not _grab(window, out_dir / "window.png"):
             return 1
         if not (_check_shot(app, window, out_dir) and _fit_shot(app, window, out_dir)):

@@ -43,6 +43,8 @@ class AnglesEditor(EditorBase):
         self.kind_box.setToolTip("Intrinsic: R = R1(θ1)·R2(θ2)·R3(θ3), each turn about the axes already turned. "
                                  "Extrinsic: R = R3(θ3)·R2(θ2)·R1(θ1), each about the fixed reference axes, "
                                  "in the order written.")
+        self.narrow_combo(self.sequence_box)
+        self.narrow_combo(self.kind_box)
         self.fields = [NumberField("", step=1.0) for _ in range(3)]
         self.labels = [QLabel() for _ in range(3)]
         self.other_label = QLabel()
@@ -92,6 +94,7 @@ class AnglesEditor(EditorBase):
 
     def render(self) -> None:
         seq, intr = self.sequence, self.intrinsic
+        self.limit_angles(self.fields)
         self.sequence_box.setCurrentIndex(self.sequence_box.findData(seq))
         self.kind_box.setCurrentIndex(0 if intr else 1)
         for i, (label, text) in enumerate(zip(self.labels, axis_labels(seq, intr))):

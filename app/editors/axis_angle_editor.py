@@ -73,6 +73,10 @@ class AxisAngleEditor(EditorBase):
         self.slider.setVisible(not rotvec)
         self.angle_field.set_convention_tooltip(_ANGLE_TIP.format(unit=unit))
         self.angle_field.set_step(1.0 if self.degrees else 0.01)
+        self.limit_angles([self.angle_field] + (self.axis_fields if rotvec else []))
+        if not rotvec:
+            for field in self.axis_fields:
+                field.clear_range()
         self.angle_label.setText(f"Angle ({unit})")
         for c, label, field in zip("xyz", self.axis_labels, self.axis_fields):
             label.setText(f"Vector {c} ({unit})" if rotvec else f"Axis {c}")

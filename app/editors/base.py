@@ -3,11 +3,18 @@ user's spelling until focus leaves the editor, then show the canonical form."""
 
 from __future__ import annotations
 
+import math
+
 from PySide6.QtCore import Qt
 from PySide6.QtWidgets import QApplication, QGroupBox, QLabel, QWidget
 
-from app.editors.number_field import NumberField, format_number, parse_number
+from app.editors.number_field import NumberField, format_number, quoted
 from app.model import ORIENTATION, PREFERENCES, Change, SessionModel
+
+
+# Typed angles beyond this are refused (not asked about: a question on every keystroke of a run would
+# interrupt typing, and no mount is turned more than two full turns).
+ANGLE_LIMIT_DEG = 720.0
 
 
 class EditorBase(QGroupBox):
@@ -15,6 +22,8 @@ class EditorBase(QGroupBox):
         super().__init__(title, parent)
         self.model = model
         self._editing = False  # the user has typed or stepped here since the last render
+        self._preview_start = None  # (orientation, key, merge token) before this run's first preview
+        self._field_start = None  # (field, orientation) before the typing in that field began
         model.changed.connect(self._on_model_changed)
         app = QApplication.instance()
         if app is not None:
@@ -35,16 +44,37 @@ class EditorBase(QGroupBox):
     # ---- edits from the fields ----------------------------------------------------------------
     def connect_fields(self, fields: list[NumberField]) -> None:
         for field in fields:
-            field.edited.connect(self._on_typed)
+            field.edited.connect(lambda text, f=field: self._on_typed(text, f))
             field.committed.connect(self._on_committed)
             field.stepped.connect(lambda value, f=field: self._on_stepped(f, value))
 
-    def _on_typed(self, _text: str = "") -> None:
+    def _on_typed(self, _text: str = "", field: NumberField | None = None) -> None:
         self._editing = True
+        if field is not None and (self._field_start is None or self._field_start[0] is not field):
+            # what this field's typing may withdraw: the orientation before its first keystroke
+            self._field_start = (field, self.model.current_orientation())
         o = self.read_orientation()
         if o is not None:
             self.push(o, "typing")
             self.after_edit(o)
+            return
+        # Half-typed or out of range: withdraw what the run previewed, so nothing of it stays committed,
+        # and say why in the note, where it can be seen without hovering.
+        self._withdraw_preview()
+        problem = next((f.problem for f in self.findChildren(NumberField) if f.problem), None)
+        note = getattr(self, "note", None)
+        if problem is not None and note is not None:
+            note.setText(f"Not used yet: {problem}. The last good value stays in use.")
+
+    def _withdraw_preview(self) -> None:
+        """Back to before the bad field's typing began (other fields' good values stay previewed)."""
+        start = self._preview_start
+        if start is None:
+            return
+        orientation = self._field_start[1] if self._field_start is not None else start[0]
+        _, key, token = start
+        if token == self.model.merge_token and self.model.current_orientation() != orientation:
+            self.push(orientation, key)  # merges into the run's step (which leaves the stack at its start)
 
     def _on_stepped(self, field: NumberField, value: float) -> None:
         field.set_text(self.fmt(value))
@@ -80,6 +110,7 @@ class EditorBase(QGroupBox):
         if change.made_by(self) and change.what == frozenset({ORIENTATION}):
             return  # our own edit: the fields already hold what the user typed
         self._editing = False
+        self._preview_start = self._field_start = None
         if change.touches(PREFERENCES):
             for field in self.findChildren(NumberField):
                 field.fit_digits(self.digits)
@@ -97,19 +128,37 @@ class EditorBase(QGroupBox):
         """The user is done here (Enter, or focus went elsewhere): end the undo run, show canonical. Text
         that could not be used is named in the editor's note, so leaving the editor loses nothing unsaid."""
         unused = [(f.text(), f.problem) for f in self.findChildren(NumberField) if f.problem]
+        if unused:
+            self._withdraw_preview()
+        self._preview_start = self._field_start = None
         self.model.end_continuous()
         self._editing = False
         self.render()
         note = getattr(self, "note", None)
         if unused and note is not None:
             text, problem = unused[0]
-            note.setText(f"Not used: “{text.strip()}” ({problem}); the last good value is shown.")
+            note.setText(f"Not used: {quoted(text)} ({problem}); the last good value is shown.")
 
     def push(self, orientation, key: str) -> None:
         """Send an edit to the model; runs of the same key merge into one undo step."""
         self._editing = True
+        start = self._preview_start
+        if start is None or start[1] != key or start[2] != self.model.merge_token:
+            self._preview_start = (self.model.current_orientation(), key, self.model.merge_token)
         self.model.set_orientation(orientation, origin=self, continuous_key=(type(self).__name__, key),
-                                   text=f"Edit {self.title().replace('&&', '&')}")
+                                   text=f"Edit {self.title().replace('&&', '&')}",
+                                   pause_ends_run=not key.startswith("typing"))
+
+    def limit_angles(self, fields: list[NumberField]) -> None:
+        """Angles are refused beyond two full turns either way: no mounting needs more, and a larger
+        number is a slip (an exponent, a digit too many) that would otherwise reduce to some angle."""
+        if self.degrees:
+            for field in fields:
+                field.set_range(-ANGLE_LIMIT_DEG, ANGLE_LIMIT_DEG, f"±{ANGLE_LIMIT_DEG:g}° (two full turns)")
+        else:
+            limit = math.radians(ANGLE_LIMIT_DEG)
+            for field in fields:
+                field.set_range(-limit, limit, f"±{limit:.6g} rad (two full turns)")
 
     @staticmethod
     def read_fields(fields: list[NumberField]) -> list[float] | None:
@@ -117,12 +166,18 @@ class EditorBase(QGroupBox):
         values, good = [], True
         for field in fields:
             try:
-                values.append(parse_number(field.text()))
+                values.append(field.value())
                 field.set_problem(None)
             except ValueError as exc:
                 field.set_problem(str(exc))
                 good = False
         return values if good else None
+
+    @staticmethod
+    def narrow_combo(box, characters: int = 14) -> None:
+        """Let a combo of long entries shrink to `characters` (elided); its list still shows them whole."""
+        box.setSizeAdjustPolicy(box.SizeAdjustPolicy.AdjustToMinimumContentsLengthWithIcon)
+        box.setMinimumContentsLength(characters)
 
     @staticmethod
     def note_label(lines: int = 2) -> QLabel:

@@ -83,7 +83,7 @@ class MatrixEditor(EditorBase):
         self.det_label = QLabel()
         self.det_label.setToolTip("Determinant of the numbers as typed: +1 for a rotation; negative means a "
                                   "reflection, which is refused.")
-        self.note = self.note_label(lines=3)
+        self.note = self.note_label(lines=2)
 
         grid = QGridLayout(self)
         for c, name in enumerate("XYZ"):

@@ -6,11 +6,11 @@ The field never rewrites its own text while the user types; the editor decides w
 
 from __future__ import annotations
 
-from PySide6.QtCore import QRectF, Qt, Signal
-from PySide6.QtGui import QColor, QPainter, QPen, QValidator
+from PySide6.QtCore import QEvent, QRectF, Qt, Signal
+from PySide6.QtGui import QColor, QKeySequence, QPainter, QPen, QValidator
 from PySide6.QtWidgets import QAbstractSpinBox
 
-from core.number_text import parse_number  # noqa: F401  (one reader for every cell; re-exported here)
+from core.number_text import parse_number, quoted  # noqa: F401  (one reader for every cell; re-exported)
 
 
 def format_number(value: float, digits: int) -> str:
@@ -24,6 +24,19 @@ def format_number(value: float, digits: int) -> str:
 
 
 INVALID_COLOUR = QColor("#c62828")
+
+# Keys a field leaves to the window, so undo and redo reach the model's undo stack from any field rather
+# than the line edit's private history (which would undo keystrokes the model already holds).
+_WINDOW_KEYS = (QKeySequence.StandardKey.Undo, QKeySequence.StandardKey.Redo)
+_WINDOW_KEY_COMBOS = ("Ctrl+Y", "Ctrl+Shift+Z")
+
+
+def is_undo_or_redo_key(event) -> bool:
+    if any(event.matches(key) for key in _WINDOW_KEYS):
+        return True
+    pressed = QKeySequence(event.keyCombination())
+    return any(pressed.matches(QKeySequence(combo)) == QKeySequence.SequenceMatch.ExactMatch
+               for combo in _WINDOW_KEY_COMBOS)
 
 
 class NumberField(QAbstractSpinBox):
@@ -40,6 +53,7 @@ class NumberField(QAbstractSpinBox):
         self._step = step
         self._steppable = steppable
         self._problem: str | None = None
+        self._range: tuple[float, float, bool, str] | None = None  # low, high, low excluded, why
         self.setToolTip(convention_tooltip)
         self.setAccelerated(True)
         self.setKeyboardTracking(True)
@@ -51,6 +65,16 @@ class NumberField(QAbstractSpinBox):
         self.lineEdit().returnPressed.connect(self.committed)
         self.fit_digits(9)
         self.setObjectName("NumberField")
+        self.installEventFilter(self)
+        self.lineEdit().installEventFilter(self)
+
+    def eventFilter(self, watched, event) -> bool:
+        # Not claiming the shortcut (the event stays ignored) lets the window's Undo and Redo take it; a key
+        # press that still arrives (nothing to undo) never reaches the line edit's own history.
+        if event.type() in (QEvent.Type.ShortcutOverride, QEvent.Type.KeyPress) and is_undo_or_redo_key(event):
+            event.ignore()
+            return True
+        return super().eventFilter(watched, event)
 
     # ---- text the editor renders ----------------------------------------------------------------
     def set_text(self, text: str) -> None:
@@ -63,12 +87,25 @@ class NumberField(QAbstractSpinBox):
         return self.lineEdit().text()
 
     def value(self) -> float:
-        return parse_number(self.text())
+        """The number typed, when it is complete and inside the field's range; ValueError saying why not."""
+        value = parse_number(self.text())
+        if self._range is not None:
+            low, high, low_excluded, why = self._range
+            if value > high or value < low or (low_excluded and value == low):
+                raise ValueError(f"{quoted(self.text())} is outside {why}")
+        return value
+
+    def set_range(self, low: float, high: float, why: str, low_excluded: bool = False) -> None:
+        """Values this field accepts; `why` names the range for the message (e.g. "±720°: ...")."""
+        self._range = (low, high, low_excluded, why)
+
+    def clear_range(self) -> None:
+        self._range = None
 
     def fit_digits(self, digits: int) -> None:
         """Wide enough for a signed number with this many significant digits, never clipped."""
-        sample = "-0.000" + "8" * digits
-        self.setMinimumWidth(self.fontMetrics().horizontalAdvance(sample) + (44 if self._steppable else 16))
+        sample = "-0.0" + "8" * digits  # a signed fraction; wider text scrolls rather than widening all
+        self.setMinimumWidth(self.fontMetrics().horizontalAdvance(sample) + (38 if self._steppable else 16))
 
     def set_step(self, step: float) -> None:
         self._step = step

@@ -29,6 +29,7 @@ class QuaternionEditor(EditorBase):
             self.order_box.addItem(text, key)
         self.order_box.setToolTip("Order of the four numbers on screen and in copies. The quaternion is the "
                                   "same (Hamilton); only the order it is written in changes.")
+        self.narrow_combo(self.order_box)
         self.fields = [NumberField("", step=0.01) for _ in range(4)]
         self.labels = [QLabel() for _ in range(4)]
         self.norm_label = QLabel()

@@ -46,7 +46,7 @@ class ChainPanel(QWidget):
         header = self.table.horizontalHeader()
         header.setSectionResizeMode(QHeaderView.ResizeMode.ResizeToContents)
         header.setSectionResizeMode(3, QHeaderView.ResizeMode.Stretch)
-        self.table.setMinimumHeight(150)
+        self.table.setFixedHeight(180)  # never squeezed by a growing result below, so the form stays put
         self.table.setWordWrap(False)
         self.table.horizontalHeaderItem(3).setToolTip("The step's orientation in its parent (child -> parent), "
                                                       "as axis and angle; hover a cell for every representation.")
@@ -111,7 +111,9 @@ class ChainPanel(QWidget):
         name_row.addWidget(QLabel("Chain"))
         name_row.addWidget(self.name_field, 1)
         layout.addLayout(name_row)
-        layout.addWidget(self.table, 1)
+        # The table keeps its height and the spare room sits at the bottom, so the step form below never
+        # moves when a step is added (the result above the spare room grows instead).
+        layout.addWidget(self.table)
         buttons = QGridLayout()
         for k, b in enumerate((self.up_button, self.down_button, self.invert_button, self.enable_button,
                                self.delete_button)):
@@ -119,6 +121,7 @@ class ChainPanel(QWidget):
         layout.addLayout(buttons)
         layout.addWidget(entry)
         layout.addWidget(result)
+        layout.addStretch(1)
 
         self.name_field.editingFinished.connect(self._rename_chain)
         self.table.itemChanged.connect(self._on_item_changed)

@@ -34,6 +34,10 @@ TYPED = "typed"
 NO_AXIS = "none"
 
 
+# No two orientations are more than 180° apart, so a larger tolerance could never fail.
+TOLERANCE_MAX_DEG = 180.0
+
+
 def _deg(value: float) -> str:
     text = f"{value:.3f}"
     return ("0.000" if float(text) == 0 else text).replace("-", describe.MINUS) + "\u00b0"
@@ -125,6 +129,12 @@ class CheckPanel(QWidget):
             row.addWidget(field)
             row.addStretch(1)
             t_form.addRow(label, row)
+        # What is wrong with a typed tolerance is said here, under the tolerances, not under the axis.
+        self.tolerance_note = QLabel("")
+        self.tolerance_note.setWordWrap(True)
+        self.tolerance_note.setTextFormat(Qt.TextFormat.PlainText)  # it quotes what was typed
+        self.tolerance_note.setStyleSheet(plain_text.ERROR_STYLE)
+        t_form.addRow(self.tolerance_note)
 
         result = QGroupBox("Result")
         self.verdict = QLabel("—")
@@ -171,13 +181,16 @@ class CheckPanel(QWidget):
                            (self.roll_field, "roll_tolerance_deg")):
             field.committed.connect(lambda f=field, k=key: self._tolerance_typed(f, k))
             field.editingFinished.connect(lambda f=field, k=key: self._tolerance_typed(f, k))
-            field.stepped.connect(lambda v, f=field, k=key: self._set_settings(f"{k}", max(0.0, round(v, 9))))
+            field.stepped.connect(lambda v, f=field, k=key: self._set_settings(
+                f"{k}", min(TOLERANCE_MAX_DEG, max(0.0, round(v, 9)))))
         model.changed.connect(self._on_model_changed)
         self.render()
 
     @staticmethod
     def _tolerance_field(tip: str) -> NumberField:
-        field = NumberField(tip + " '.' is the decimal point; Enter to use it.", step=0.1)
+        field = NumberField(tip + f" More than 0 and at most {TOLERANCE_MAX_DEG:g}° (no two orientations are "
+                                  "further apart). '.' is the decimal point; Enter to use it.", step=0.1)
+        field.set_range(0.0, TOLERANCE_MAX_DEG, f"0 < tolerance ≤ {TOLERANCE_MAX_DEG:g}°", low_excluded=True)
         field.fit_digits(4)
         return field
 
@@ -257,8 +270,9 @@ class CheckPanel(QWidget):
             value = field.value()
         except ValueError as exc:
             field.set_problem(str(exc))
-            plain_text.say(self.message, f"{exc} (kept the last good tolerance)", problem=True)
+            self.tolerance_note.setText(f"{exc} (kept the last good tolerance)")
             return
+        self.tolerance_note.setText("")
         if value == getattr(self.model.check.settings, key):
             field.set_problem(None)
             return

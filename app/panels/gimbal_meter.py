@@ -103,6 +103,7 @@ class GimbalMeter(QGroupBox):
         font.setBold(True)
         self.margin_label.setFont(font)
         self.band_label = QLabel()
+        self.band_label.setWordWrap(True)  # so the meter can be narrow on a laptop
         self.bar = MarginBar()
         self.amplification_label = QLabel()
         self.amplification_label.setWordWrap(True)
@@ -155,7 +156,8 @@ class GimbalMeter(QGroupBox):
             first, third = (names[0], names[2]) if names else ("θ1", "θ3")
             sign = "+" if which == "sum" else "−"
             self.lock_label.setText(f"Gimbal lock: {first} and {third} are coupled; only {first} {sign} {third} "
-                                    f"is determined ({third} is shown as 0).")
+                                    f"is determined; written out, {third} is 0 and {first} carries the "
+                                    "whole coupled turn.")
             self.lock_label.show()
         else:
             self.lock_label.hide()

@@ -104,13 +104,17 @@ class MeasurePanel(QWidget):
         layout.addLayout(top)
         layout.addWidget(self.help)
         layout.addWidget(self.stack, 1)
-        buttons = QHBoxLayout()
-        for button in (self.add_button, self.remove_button, self.paste_button, self.import_button,
-                       self.clear_button):
+        # Two short rows of buttons, Fit on the first, so it is in reach in a narrow side area.
+        buttons, more = QHBoxLayout(), QHBoxLayout()
+        for button in (self.add_button, self.remove_button, self.paste_button):
             buttons.addWidget(button)
         buttons.addStretch(1)
         buttons.addWidget(self.fit_button)
+        for button in (self.import_button, self.clear_button):
+            more.addWidget(button)
+        more.addStretch(1)
         layout.addLayout(buttons)
+        layout.addLayout(more)
         layout.addWidget(self.message)
         layout.addWidget(self.result_text, 1)
         bottom = QHBoxLayout()

@@ -34,6 +34,9 @@ class MountsList(QGroupBox):
         layout.addWidget(self.list, 1)
         layout.addWidget(self.message)
         buttons = QHBoxLayout()
+        for b in (self.add_button, self.duplicate_button, self.rename_button, self.delete_button):
+            # as narrow as the words, so the list can be narrow on a laptop
+            b.setMinimumWidth(b.fontMetrics().horizontalAdvance(b.text()) + 16)
         for b in (self.add_button, self.duplicate_button):
             buttons.addWidget(b)
         layout.addLayout(buttons)

@@ -18,6 +18,17 @@ SCENE_RADIUS = 1.6  # everything the scene draws lies within this distance of th
 FIELD_OF_VIEW = 40.0  # horizontal, degrees
 
 
+def up_z_for(preset) -> int:
+    """-1 when the frame preset names its +Z "down" (NED, aircraft body): the Scene then draws -Z up the
+    screen; +1 for the others, whose +Z is up or not vertical (ENU, vehicle body, camera optical)."""
+    return -1 if preset.words[(2, 1)] == "down" else 1
+
+
+def isometric_for(up_z: int) -> tuple[float, float, float]:
+    """The isometric view looks down at the origin from the (+X, +Y, up) octant."""
+    return (-1.0, -1.0, -float(up_z))
+
+
 def elevation_azimuth_for(direction) -> tuple[float, float]:
     """pyqtgraph's camera sits at centre + distance·(cos e cos a, cos e sin a, sin e) and looks at the
     centre, so looking along d means (e, a) of -d. Straight down or up keeps +X to the right."""

@@ -12,7 +12,7 @@ VIEW_BUTTONS = (("+X", "Look along +X of the reference"), ("\u2212X", "Look alon
                 ("+Y", "Look along +Y of the reference"), ("\u2212Y", "Look along \u2212Y of the reference"),
                 ("+Z", "Look along +Z of the reference"), ("\u2212Z", "Look along \u2212Z of the reference"),
                 ("Boresight", "Look along the body's boresight axis"),
-                ("Isometric", "Isometric view from the +X +Y +Z side"),
+                ("Isometric", "Isometric view from above, on the +X +Y side (above: the frame's up)"),
                 ("Reset", "Back to the isometric view at the standard distance"))
 TRACKED_CHOICES = ("boresight", "+X", "+Y", "+Z", "-X", "-Y", "-Z", "typed")
 SLIDER_STEPS = 1000
@@ -39,8 +39,10 @@ class SceneToolbar(QtWidgets.QWidget):
     def __init__(self, parent=None):
         super().__init__(parent)
         rows = _tight(QtWidgets.QVBoxLayout(self))
-        top, bottom = _tight(QtWidgets.QHBoxLayout()), _tight(QtWidgets.QHBoxLayout())
+        # Three short rows (views; sweep and files; what is drawn), so the Scene fits a laptop's width.
+        top, middle, bottom = (_tight(QtWidgets.QHBoxLayout()) for _ in range(3))
         rows.addLayout(top)
+        rows.addLayout(middle)
         rows.addLayout(bottom)
 
         top.addWidget(QtWidgets.QLabel("Look along:"))
@@ -62,24 +64,24 @@ class SceneToolbar(QtWidgets.QWidget):
         stl.clicked.connect(self.stl_requested)
         export = QtWidgets.QPushButton("Export PNG\u2026", toolTip="Save the scene as a PNG at a chosen size")
         export.clicked.connect(self.export_requested)
-        top.addWidget(stl)
-        top.addWidget(export)
 
         self.play = QtWidgets.QToolButton(text="\u25b6 Play", checkable=True,
                                           toolTip="Replay the rotation from the reference about n")
         self.play.toggled.connect(self.play_toggled)
         self.slider = QtWidgets.QSlider(QtCore.Qt.Orientation.Horizontal, minimum=0, maximum=SLIDER_STEPS,
                                         value=SLIDER_STEPS, toolTip="Sweep: the body at t \u00d7 the angle about n")
-        self.slider.setMinimumWidth(160)
+        self.slider.setMinimumWidth(100)
         self.slider.valueChanged.connect(lambda v: self.sweep_moved.emit(v / SLIDER_STEPS))
         self.sweep_value = QtWidgets.QLabel("t = 1.00")
         self.sweep_value.setMinimumWidth(60)
-        bottom.addWidget(QtWidgets.QLabel("Sweep:"))
-        bottom.addWidget(self.play)
-        bottom.addWidget(self.slider, 1)
-        bottom.addWidget(self.sweep_value)
+        middle.addWidget(QtWidgets.QLabel("Sweep:"))
+        middle.addWidget(self.play)
+        middle.addWidget(self.slider, 1)
+        middle.addWidget(self.sweep_value)
+        middle.addSpacing(8)
+        middle.addWidget(stl)
+        middle.addWidget(export)
 
-        bottom.addSpacing(8)
         bottom.addWidget(QtWidgets.QLabel("Track r:"))
         self.tracked = QtWidgets.QComboBox(toolTip="The vector whose swept cone is drawn")
         for choice in TRACKED_CHOICES:
@@ -106,6 +108,7 @@ class SceneToolbar(QtWidgets.QWidget):
         self.preset.currentIndexChanged.connect(lambda _: self.preset_chosen.emit(self.preset.currentData()))
         bottom.addWidget(QtWidgets.QLabel("Direction names:"))
         bottom.addWidget(self.preset)
+        bottom.addStretch(1)
 
         self.message = QtWidgets.QLabel("")
         self.message.setStyleSheet("color: #c0392b;")

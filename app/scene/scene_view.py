@@ -2,12 +2,32 @@
 for a real paint instead of guessing)."""
 
 import pyqtgraph.opengl as gl
+from PySide6 import QtGui
+
+# Half a turn about the reference X axis, (x, y, z) -> (x, -y, -z): a rotation (never a mirror), its own
+# inverse. Seen through it, a frame whose +Z points down is drawn with -Z up the screen.
+_HALF_TURN_ABOUT_X = QtGui.QMatrix4x4(1, 0, 0, 0, 0, -1, 0, 0, 0, 0, -1, 0, 0, 0, 0, 1)
 
 
 class SceneView(gl.GLViewWidget):
+    """pyqtgraph's camera keeps its +Z up; with ``up_z = -1`` the view shows the reference frame turned
+    half a turn about X first, so the frame's -Z is up. Elevation and azimuth then apply to that turned
+    frame (SceneWidget.set_view converts)."""
+
     def __init__(self, *args, **kwargs):
         super().__init__(*args, **kwargs)
         self.frames_drawn = 0
+        self.up_z = 1
+
+    def viewMatrix(self):
+        tr = super().viewMatrix()
+        return tr * _HALF_TURN_ABOUT_X if self.up_z < 0 else tr
+
+    def cameraPosition(self):
+        position = super().cameraPosition()
+        if self.up_z < 0:
+            position = QtGui.QVector3D(position.x(), -position.y(), -position.z())
+        return position
 
     def paintGL(self):
         super().paintGL()

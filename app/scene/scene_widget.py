@@ -52,7 +52,7 @@ class SceneWidget(QtWidgets.QWidget):
         self.view = SceneView()
         self.view.setBackgroundColor(palette.BACKGROUND)
         self.view.opts["fov"] = camera.FIELD_OF_VIEW
-        self.view.setMinimumSize(320, 240)
+        self.view.setMinimumSize(240, 100)  # small enough for a laptop; the window gives it the rest
         self.toolbar = SceneToolbar(self)
         layout = QtWidgets.QVBoxLayout(self)
         layout.setContentsMargins(0, 0, 0, 0)
@@ -222,8 +222,13 @@ class SceneWidget(QtWidgets.QWidget):
         return self._preset
 
     def set_frame_preset(self, name):
-        self._preset = describe.frame_preset(name).key
+        preset = describe.frame_preset(name)
+        self._preset = preset.key
         self.toolbar.select(self.toolbar.preset, self._preset)
+        up_z = camera.up_z_for(preset)
+        if up_z != self.view.up_z:  # down is down on screen: turn the picture, starting from the isometric
+            self.view.up_z = up_z
+            self.set_view("iso")
         self._refresh()
 
     def set_sweep(self, t):
@@ -252,9 +257,11 @@ class SceneWidget(QtWidgets.QWidget):
         elif key == "boresight":
             direction = self._swept_matrix() @ FACE_NORMALS[self.part.boresight_face]
         elif key in ("iso", "isometric", "reset"):
-            direction = camera.ISOMETRIC
+            direction = camera.isometric_for(self.view.up_z)
         else:
             raise ValueError(f"unknown view {preset!r}")
+        if self.view.up_z < 0:  # elevation and azimuth apply to the frame as turned (scene_view.py)
+            direction = (direction[0], -direction[1], -direction[2])
         elevation, azimuth = camera.elevation_azimuth_for(direction)
         self.view.setCameraPosition(pos=QtGui.QVector3D(0, 0, 0), distance=self._fitting_distance(),
                                     elevation=elevation, azimuth=azimuth)

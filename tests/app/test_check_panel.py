@@ -115,11 +115,33 @@ def test_bad_tolerance_text_is_refused_and_the_last_good_value_kept(qtbot, panel
     commit(qtbot, panel.pointing_field, "0,3")
     assert panel.pointing_field.problem is not None and "'.'" in panel.pointing_field.problem
     commit(qtbot, panel.roll_field, "-1")
-    assert "from 0 to 180 degrees" in panel.message.text()
-    assert model.check.settings == before
+    # the reason is said under the tolerances, not under the body axis field
+    assert "0 < tolerance ≤ 180°" in panel.tolerance_note.text() and panel.message.text() == ""
     commit(qtbot, panel.roll_field, "1e308")      # would pass anything: refused, not shown in 300 digits
-    assert "from 0 to 180 degrees" in panel.message.text() and len(panel.message.text()) < 300
+    assert "0 < tolerance ≤ 180°" in panel.tolerance_note.text() and len(panel.tolerance_note.text()) < 300
     assert model.check.settings == before
+
+
+@pytest.mark.parametrize("hostile", ["1e308", "0", "180.000001", "9" * 400, "nan"])
+def test_a_tolerance_outside_zero_to_180_degrees_is_refused_without_spilling_its_digits(
+        qtbot, panel, model, shimmed, hostile):
+    # 0 < t ≤ 180°: no two orientations are more than 180° apart (common practice: the largest rotation
+    # angle between two orientations is 180°), so a larger tolerance could never fail.
+    set_up_pointing_check(qtbot, panel, shimmed)
+    before = model.check.settings
+    commit(qtbot, panel.pointing_field, hostile)
+    assert model.check.settings == before
+    assert panel.pointing_field.problem is not None
+    note = panel.tolerance_note.text()
+    assert note and len(note) < 160, note           # the reason is said, briefly: no 300-digit number
+    assert len(panel.margin_label.text()) < 120 and len(panel.details.text()) < 1200
+    assert panel.tolerance_note.isVisible()
+
+
+def test_a_tolerance_of_exactly_180_degrees_is_accepted(qtbot, panel, model, shimmed):
+    set_up_pointing_check(qtbot, panel, shimmed)
+    commit(qtbot, panel.pointing_field, "180")
+    assert model.check.settings.pointing_tolerance_deg == 180.0 and panel.tolerance_note.text() == ""
 
 
 def test_the_scene_ghost_is_the_nominal_while_the_measured_mount_is_shown(qtbot, window):

@@ -30,7 +30,8 @@ def _files(folder):
     return sorted(folder.glob("recovery-*.fwsession.json")) if folder.exists() else []
 
 
-def test_autosave_waits_for_the_edits_to_pause_then_writes_the_session(qtbot, folder, demo_session, monkeypatch):
+def test_autosave_coalesces_a_burst_of_edits_into_one_write_of_the_session(qtbot, folder, demo_session,
+                                                                          monkeypatch):
     model = SessionModel(demo_session)
     saver = recovery.Recovery(model, folder, delay_ms=300)
     writes = []
@@ -60,6 +61,56 @@ def test_a_save_and_a_clean_close_remove_the_recovery_file(qtbot, folder, window
     window.model.undo_stack.setClean()
     window.close()
     assert _files(folder) == []
+
+
+def test_a_steady_stream_of_edits_is_written_while_it_goes_on_not_only_after_it(qtbot, folder, demo_session,
+                                                                              monkeypatch):
+    # Autosave never waits for a pause: edits every 100 ms for well over the delay are written meanwhile.
+    model = SessionModel(demo_session)
+    saver = recovery.Recovery(model, folder)
+    assert recovery.AUTOSAVE_DELAY_MS <= 500      # a committed step reaches the file within half a second
+    writes = []
+    real_write = recovery.save_session
+    monkeypatch.setattr(recovery, "save_session", lambda s, p: writes.append(p) or real_write(s, p))
+    edits = 0
+    while edits < 30 and not writes:
+        model.set_orientation(Orientation.from_axis_angle((0, 0, 1), 10 + edits))
+        edits += 1
+        qtbot.wait(100)
+    assert writes, "nothing written during a stream of 30 edits"
+    assert edits < 30
+    saver.discard()
+
+
+CRASH_ONE_STEP_AFTER_AN_EDIT = """
+import os, sys
+from PySide6.QtCore import QCoreApplication, QTimer
+from app import recovery
+from app.model import SessionModel
+from core.orientation import Orientation
+from core.session import load_session
+
+app = QCoreApplication([])
+model = SessionModel(load_session(sys.argv[1]))
+saver = recovery.Recovery(model, sys.argv[2])          # the window's own delay
+model.set_orientation(Orientation.from_axis_angle((0, 0, 1), 17.25))
+# The crash comes one autosave step after the edit (plus the 5% a coarse Qt timer may slip), well before
+# the edits could be called paused.
+QTimer.singleShot(recovery.AUTOSAVE_DELAY_MS + 100, lambda: os.kill(os.getpid(), 9))
+app.exec()
+"""
+
+
+def test_a_kill_minus_9_one_step_after_an_edit_recovers_the_edit(tmp_path, folder, demo_session):
+    session_file = tmp_path / "rig.fwsession.json"
+    save_session(demo_session, session_file)
+    env = {**os.environ, "PYTHONPATH": str(ROOT), "QT_QPA_PLATFORM": "offscreen"}
+    result = subprocess.run([sys.executable, "-c", CRASH_ONE_STEP_AFTER_AN_EDIT, str(session_file), str(folder)],
+                            cwd=ROOT, env=env, capture_output=True, text=True, timeout=60)
+    assert result.returncode == -9, result.stderr
+    [crashed] = recovery.find_crashed(folder)
+    edited = crashed.session.mounts[crashed.session.selected].orientation
+    assert edited == Orientation.from_axis_angle((0, 0, 1), 17.25)
 
 
 CRASHING_RUN = """

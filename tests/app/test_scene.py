@@ -17,7 +17,7 @@ SHAFT = 0.8  # a point on the body axis shaft, short of the arrowhead (0.89..1.0
 def scene(qtbot):
     widget = SceneWidget()
     qtbot.addWidget(widget)
-    widget.resize(1000, 720)
+    widget.resize(1000, 749)  # a view of 1000 x 660 under the three-row toolbar, as these checks were made at
     widget.show()
     qtbot.waitExposed(widget)
     return widget

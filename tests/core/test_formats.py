@@ -3,6 +3,7 @@ printed precision (printed_precision_deg, stated there) when printed with fixed 
 come from SciPy's Rotation so the numbers rendered are checked against an outside library too."""
 
 import json
+import re
 from datetime import datetime
 
 import numpy as np
@@ -10,7 +11,8 @@ import pytest
 from scipy.spatial.transform import Rotation
 
 from core import formats
-from core.formats import (FORMAT_NAMES, FORMATS, JSON_KEYS, REPRESENTATIONS, SAFETY_CAUTION, FormatOptions,
+from core.formats import (FORMAT_NAMES, FORMATS, JSON_KEYS, NOISE_RELATIVE, REPRESENTATIONS, SAFETY_CAUTION,
+                          FormatOptions, shortest_decimal,
                           csv_header, printed_precision_deg, render, round_trip_error, round_trip_hints)
 from core.decode import decode
 from core.orientation import Orientation
@@ -178,3 +180,27 @@ def test_a_copy_pasted_back_without_hints_reads_first_as_what_was_copied(fmt, re
     if fmt == "csv":
         text = csv_header(options) + text
     assert decode(text)[0].orientation.angle_to(o) < 1e-12
+
+
+@pytest.mark.parametrize("fmt", ["text", "csv", "python", "c", "matlab"])
+def test_typed_angles_copy_as_typed_not_with_arithmetic_noise(fmt):
+    # -30.4, 5.8, 2.5 come back through the quaternion as -30.39999999999999, 5.799999999999995 and
+    # 2.5000000000000004 (a few units in the last place); the copy writes what was typed.
+    o = Orientation.from_angles("ZYX", (-30.4, 5.8, 2.5), degrees=True)
+    text = render(o, fmt, {"representation": "angles"})
+    for typed in ("-30.4", "5.8", "2.5"):
+        assert re.search(rf"(?<![\d.]){re.escape(typed)}(?![\d])", text), text
+    assert "9999" not in text and "0000000" not in text
+    options = FormatOptions(representation="angles")
+    assert round_trip_error(o, text, fmt, options) <= 1e-12
+
+
+def test_shortest_decimal_stays_within_its_bound_for_hostile_values():
+    rng = np.random.default_rng(12)
+    values = np.concatenate([rng.normal(size=2000), rng.normal(size=500) * 1e-300, rng.normal(size=500) * 1e300,
+                             [5e-324, -5e-324, 1.7976931348623157e308, 0.1, 1 / 3, -0.0, 0.0, 1e-17]])
+    for value in values:
+        text = shortest_decimal(value)
+        back = float(text)
+        assert abs(back - value) <= NOISE_RELATIVE * abs(value), (value, text)
+        assert len(text) <= 24 and text != "-0.0"

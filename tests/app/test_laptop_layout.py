@@ -1,0 +1,102 @@
+"""The window on a laptop screen: at 1280×800 and 1366×768 (100% scaling) every editor field, the Gimbal
+margin meter, Decode's Apply, Measure's Fit, Batch's Export and the status bar are shown whole, inside the
+window, with no sideways scrolling; the window can shrink to 1200×720; the side panels fold away."""
+
+from pathlib import Path
+
+import pytest
+from PySide6.QtCore import QPoint, QRect
+from PySide6.QtWidgets import QScrollArea
+
+from app.editors.number_field import NumberField
+from core.orientation import Orientation
+
+LAPTOPS = [(1280, 800), (1366, 768)]
+DEMO_BATCH = Path(__file__).resolve().parents[2] / "resources" / "demo_batch.csv"
+
+
+def settle(qtbot, window, size):
+    window.resize(*size)
+    qtbot.waitUntil(lambda: (window.width(), window.height()) == size, timeout=3000)
+    qtbot.wait(50)
+
+
+def assert_whole_and_inside(window, widget, what):
+    assert widget.isVisible(), f"{what} is not shown"
+    # Not clipped by a scroll area or the window: the part of it that is painted is all of it.
+    assert widget.visibleRegion().boundingRect() == widget.rect(), f"{what} is clipped"
+    top_left = widget.mapTo(window, QPoint(0, 0))
+    inside = QRect(top_left, widget.size())
+    assert window.rect().contains(inside), f"{what} at {inside} lies outside the window {window.rect()}"
+
+
+def scroll_area_of(widget):
+    parent = widget.parentWidget()
+    while parent is not None and not isinstance(parent, QScrollArea):
+        parent = parent.parentWidget()
+    return parent
+
+
+def show_tab(window, panel):
+    tabs = window.side_tabs
+    for i in range(tabs.count()):
+        page = tabs.widget(i)
+        if page is panel or page.isAncestorOf(panel):
+            tabs.setCurrentIndex(i)
+            return
+    raise AssertionError(f"no tab holds {panel}")
+
+
+def test_the_window_can_shrink_to_1200_by_720(window):
+    hint = window.minimumSizeHint()
+    assert hint.width() <= 1200 and hint.height() <= 720, hint
+
+
+@pytest.mark.parametrize("size", LAPTOPS)
+def test_every_key_control_is_whole_and_inside_the_window_on_a_laptop(qtbot, window, size):
+    # with a result in the Batch panel (the invented demo CSV), whose long lines must wrap, not widen it
+    assert window.batch_panel.open_file(str(DEMO_BATCH))
+    settle(qtbot, window, size)
+    # numbers with many digits make the Angles editor's second spelling wrap to a third line
+    window.model.set_orientation(Orientation.from_angles("ZYX", (-29.867917, 7.9971289, 2.91495405)))
+    qtbot.wait(50)
+    fields = [f for editor in window.editors for f in editor.findChildren(NumberField) if not f.isHidden()]
+    assert len(fields) == 3 + 1 + 4 + 9 + 3
+    for field in fields:
+        assert_whole_and_inside(window, field, f"field {field.toolTip()[:30]!r}")
+    assert_whole_and_inside(window, window.meter, "the Gimbal margin meter")
+    assert_whole_and_inside(window, window.statusBar(), "the status bar")
+    assert_whole_and_inside(window, window.scene.view, "the Scene")
+    assert window.scene.view.height() >= 100
+    for panel, button, what in ((window.decode_panel, window.decode_panel.apply_button, "Apply"),
+                                (window.measure_panel, window.measure_panel.fit_button, "Fit"),
+                                (window.batch_panel, window.batch_panel.export_button, "Export")):
+        show_tab(window, panel)
+        qtbot.wait(20)
+        assert_whole_and_inside(window, button, what)
+        area = scroll_area_of(panel)
+        if area is not None:  # reachable without scrolling sideways
+            assert area.horizontalScrollBar().maximum() == 0, f"{what}'s panel scrolls sideways"
+
+
+def test_the_editors_never_scroll_sideways_at_the_smallest_size(qtbot, window):
+    window.resize(window.minimumSizeHint())
+    qtbot.wait(50)
+    area = scroll_area_of(window.matrix)
+    assert area.horizontalScrollBar().maximum() == 0
+    for cell in window.matrix.flat_cells():
+        top_left = cell.mapTo(area.widget(), QPoint(0, 0))
+        assert top_left.x() + cell.width() <= area.viewport().width()
+
+
+def test_the_side_panels_fold_away_and_come_back_from_the_view_menu(qtbot, window):
+    settle(qtbot, window, (1280, 800))
+    centre_before = window.splitter.sizes()[1]
+    window.side_action.trigger()
+    qtbot.wait(20)
+    assert window.splitter.sizes()[2] == 0 and not window.side_action.isChecked()
+    assert window.splitter.sizes()[1] > centre_before
+    window.side_action.trigger()
+    qtbot.wait(20)
+    assert window.splitter.sizes()[2] >= window.side_tabs.minimumSizeHint().width()
+    assert window.side_action.isChecked()
