@@ -26,6 +26,8 @@ MAX_INPUT_BYTES = 100_000
 KINDS = ("matrix", "quaternion", "axis-angle", "rotation-vector", "angles")
 UNDERSTOOD_COUNTS = "9 (a matrix), 4 (a quaternion, or an axis and an angle) or 3 (angles or a rotation vector)"
 _MAX_NOTES = 12
+_MAX_NUMBERS = 2000        # decode stops early on a flood of numbers: no orientation is written with more
+_SUMMARY_LINES = 8         # a count message names this many lines, then says how many more
 
 # ---------------------------------------------------------------------------------------------------
 # Characters that pasted text brings along
@@ -67,7 +69,7 @@ _NUMBER = re.compile(r"""
     """, re.VERBOSE)
 _UNIT = re.compile(r"[ ]?(?:(?P<deg>°|deg(?:rees?|s)?(?![A-Za-z]))|(?P<rad>rad(?:ians?|s)?(?![A-Za-z])))")
 _MINUTES = re.compile(r"[ ]?(?P<m>\d+(?:\.\d*)?)[ ]?'(?:[ ]?(?P<s>\d+(?:\.\d*)?)[ ]?(?:\"|''))?")
-_WORD_WITH_DIGIT = re.compile(r"[^\s,;|\[\](){}&<>=:\"]*\d[^\s,;|\[\](){}&<>=:\"]*")
+_TOKEN = re.compile(r"[^\s,;|\[\](){}&<>=:\"]+")   # a run between separators; filtered, never backtracked
 # A key before its value: `w = 0.7`, `"qx": 0`, `X:`, `angle (deg) =`, `yaw [deg]:`
 _KEY = re.compile(r"""(?<![\w.:])["']?(?P<key>[A-Za-z_][\w.]*(?:[ ]?[(\[][A-Za-z]+[)\]])?)["']?[ ]*(?::(?!:)|=(?!=))""")
 # Expressions we refuse rather than misread: 1/√2, sqrt(2)/2, pi/2, cos(30°)
@@ -75,7 +77,7 @@ _EXPRESSION = re.compile(r"(?:\d[ ]*/[ ]*[\d.(\\a-zA-Z√π])|(?:\)[ ]*/)|√|π
                          r"(?![A-Za-z])[ ]*[(\d/*]")
 _C_DIMENSIONS = re.compile(r"(?<=[\w\]])[ ]*\[[ ]*\d+[ ]*\]")          # double R[3][3], q[4]
 _TEMPLATE_ARGS = re.compile(r"(?<=\w)[ ]*<[^<>\n]*>")                   # Matrix<double,3,3>
-_COMMENT = re.compile(r"/\*.*?\*/|//[^\n]*|(?<![\w&])#[^\n]*|%[^\n]*", re.DOTALL)
+_COMMENT_START = re.compile(r"/\*|//|#|%")
 
 
 @dataclass(frozen=True)
@@ -118,7 +120,10 @@ class ParsedNumbers:
         counts: dict[int, int] = {}
         for n in self.numbers:
             counts[n.line] = counts.get(n.line, 0) + 1
-        return ", ".join(f"line {k}: {v}" for k, v in sorted(counts.items()))
+        parts = [f"line {k}: {v}" for k, v in sorted(counts.items())]
+        if len(parts) > _SUMMARY_LINES:
+            parts = parts[:_SUMMARY_LINES] + [f"and {len(parts) - _SUMMARY_LINES} more lines"]
+        return ", ".join(parts)
 
 
 class _Notes(list):
@@ -158,22 +163,54 @@ def _join_detached_signs(line: str, notes: _Notes, line_no: int) -> str:
 
 
 def _strip_comments(text: str) -> tuple[str, str]:
-    """Comments (# // /* */ %) can carry words we use as hints but their numbers are not data."""
+    """Comments (# // /* */ %) can carry words we use as hints but their numbers are not data.
+
+    One forward scan: a '/*' with no '*/' after it is text, and once one is unclosed every later one is
+    too, so the closing search runs at most once per comment (linear time on '/*x/*x…')."""
     comments: list[str] = []
+    out: list[str] = []
+    pos = 0
+    closes = True                       # False once a '/*' found no '*/' after it
+    while True:
+        m = _COMMENT_START.search(text, pos)
+        if m is None:
+            break
+        start, opener = m.start(), m.group()
+        if opener == "/*":
+            end = text.find("*/", start + 2) if closes else -1
+            if end < 0:
+                closes = False
+                out.append(text[pos:start + 1])
+                pos = start + 1
+                continue
+            end += 2
+        elif opener == "#" and start > 0 and (text[start - 1].isalnum() or text[start - 1] in "_&"):
+            out.append(text[pos:start + 1])
+            pos = start + 1
+            continue
+        else:
+            end = text.find("\n", start)
+            end = len(text) if end < 0 else end
+        comment = text[start:end]
+        comments.append(comment)
+        out += [text[pos:start], "\n" * comment.count("\n")]
+        pos = end
+    out.append(text[pos:])
+    return "".join(out), " ".join(comments)
 
-    def keep_words(m: re.Match) -> str:
-        comments.append(m.group())
-        return "\n" * m.group().count("\n")
-    return _COMMENT.sub(keep_words, text), " ".join(comments)
+
+def _has_digit(word: str) -> bool:
+    return any(c.isdigit() for c in word)
 
 
-def parse_numbers(text: str) -> ParsedNumbers:
+def parse_numbers(text: str, max_numbers: int | None = None) -> ParsedNumbers:
     """Find the numbers in pasted text.
 
     Accepts integers, decimals, scientific notation (6.123e-17, 6.1×10⁻¹⁷, Fortran 1D-3), a leading '+',
     the Unicode minus and an en dash as minus, non-breaking and thin spaces, any separators and brackets,
     degree marks (°, deg, d°m's") and 'rad'. Words, labels and lines with no numbers are set aside with a
-    note. Raises DecodeError for text over 100 kB and for expressions (1/√2, pi/2) it will not guess at.
+    note. Raises DecodeError for text over 100 kB, for expressions (1/√2, pi/2) it will not guess at, and
+    for more than `max_numbers` numbers when given (the decoder's early stop on a flood of numbers).
     """
     _check_size(text)
     notes = _Notes()
@@ -190,14 +227,20 @@ def parse_numbers(text: str) -> ParsedNumbers:
     skipped_titles = 0
     previous_text = None
     for line_no, raw_line in enumerate(clean.split("\n"), start=1):
-        line = _C_DIMENSIONS.sub(" ", _TEMPLATE_ARGS.sub(" ", raw_line))
-        line = _join_detached_signs(line, notes, line_no)
+        if not raw_line or raw_line.isspace():
+            continue                    # a blank line holds nothing (and must stay cheap: 100 kB of them)
+        line = raw_line
+        if "<" in line or "[" in line:
+            line = _C_DIMENSIONS.sub(" ", _TEMPLATE_ARGS.sub(" ", line))
+        if "-" in line or "+" in line:
+            line = _join_detached_signs(line, notes, line_no)
         expression = _EXPRESSION.search(line)
         if expression and _NUMBER.search(line):
             start = max(0, expression.start() - 6)
             raise DecodeError(f"line {line_no} holds an expression ('{line[start:expression.end() + 6].strip()}');"
                               " Framewright reads plain numbers only: paste decimal values")
-        _refuse_empty_cells(line, line_no)
+        if "," in line or ";" in line or "|" in line:
+            _refuse_empty_cells(line, line_no)
         keys = [(m.end(), m.group("key").lower()) for m in _KEY.finditer(line)]
         next_key = 0
         label = None
@@ -244,6 +287,9 @@ def parse_numbers(text: str) -> ParsedNumbers:
             # a new label on the same line starts a new row ("X: 1 0 0  Y: 0 1 0")
             if found_here and label is not None and label != found_here[-1].label:
                 row += 1
+            if max_numbers is not None and len(numbers) + len(found_here) >= max_numbers:
+                raise DecodeError(f"the text holds more than {max_numbers} numbers (line {line_no} and before);"
+                                  f" Framewright reads {UNDERSTOOD_COUNTS}: paste only the orientation")
             found_here.append(FoundNumber(
                 value=value, text=line[m.start():end].strip(), line=line_no, column=m.start() + 1, unit=unit,
                 label=label, row=row,
@@ -261,7 +307,7 @@ def parse_numbers(text: str) -> ParsedNumbers:
         if found_here:
             captions.append((line_no, line[:found_here[0].column - 1].strip().lower()))
             line_words.append((line_no, rest.strip()))
-            odd = [w for w in _WORD_WITH_DIGIT.findall(rest) if w.strip("'\"^°+-*x×·")]
+            odd = [w for w in _TOKEN.findall(rest) if _has_digit(w) and w.strip("'\"^°+-*x×·")]
             if odd:
                 notes.add(f"line {line_no}: ignored {', '.join(repr(w) for w in odd[:3])} (not a number)")
             numbers.extend(found_here)
@@ -280,16 +326,20 @@ def parse_numbers(text: str) -> ParsedNumbers:
                          bool(re.search(r"\d,\d", clean)), tuple(line_words))
 
 
-_EMPTY_CELL = re.compile(r"\d[^\d\n]*?(,[ ]*,|;[ ]*;|\|[ ]*\|)(?=[^\d\n]*?\d)")
+_BETWEEN_DIGITS = re.compile(r"[^\d\n]+")
+_EMPTY_PLACE = re.compile(r",[ ]*,|;[ ]*;|\|[ ]*\|")
 
 
 def _refuse_empty_cells(line: str, line_no: int) -> None:
     """'0.7071, , 0' or '| 1 | | 0 |': a number is missing between two others; reading on would shift
-    every later number into the wrong place."""
-    m = _EMPTY_CELL.search(line)
-    if m:
-        raise DecodeError(f"line {line_no}, column {m.start(1) + 1}: an empty place between numbers"
-                          f" ('{m.group(1)}'): a number seems to be missing")
+    every later number into the wrong place. Each run of non-digits is looked at once (linear time)."""
+    for run in _BETWEEN_DIGITS.finditer(line):
+        if run.start() == 0 or run.end() == len(line):
+            continue                    # not between two digits
+        m = _EMPTY_PLACE.search(line, run.start(), run.end())
+        if m:
+            raise DecodeError(f"line {line_no}, column {m.start() + 1}: an empty place between numbers"
+                              f" ('{m.group()}'): a number seems to be missing")
 
 
 def _shorten(text: str, width: int = 40) -> str:
@@ -853,7 +903,7 @@ def decode(text: str, hints=None) -> list[Reading]:
     from_json = _decode_our_json(text, hints)
     if from_json is not None:
         return from_json
-    parsed = parse_numbers(text)
+    parsed = parse_numbers(text, max_numbers=_MAX_NUMBERS)
     return readings_from_numbers(parsed, hints)
 
 
