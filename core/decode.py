@@ -147,9 +147,12 @@ def _check_size(text: str) -> None:
 
 def _to_float(match: re.Match) -> float:
     mantissa = match.group("mantissa")
-    exponent = int(match.group("exp") or 0) + int(match.group("exp10") or 0)
+    exponents = (match.group("exp") or "0", match.group("exp10") or "0")
+    if any(len(e.lstrip("+-").lstrip("0")) > 4 for e in exponents):     # before int(): 5000 digits
+        raise DecodeError(f"'{_shorten(match.group().strip())}' has an exponent out of range")
+    exponent = int(exponents[0]) + int(exponents[1])
     if abs(exponent) > 400:
-        raise DecodeError(f"'{match.group().strip()}' has an exponent out of range")
+        raise DecodeError(f"'{_shorten(match.group().strip())}' has an exponent out of range")
     value = float(f"{mantissa}e{exponent}")
     return -value if match.group("sign") == "-" else value
 
@@ -237,7 +240,7 @@ def parse_numbers(text: str, max_numbers: int | None = None) -> ParsedNumbers:
         expression = _EXPRESSION.search(line)
         if expression and _NUMBER.search(line):
             start = max(0, expression.start() - 6)
-            raise DecodeError(f"line {line_no} holds an expression ('{line[start:expression.end() + 6].strip()}');"
+            raise DecodeError(f"line {line_no} holds an expression ('{_shorten(line[start:expression.end() + 6].strip())}');"
                               " Framewright reads plain numbers only: paste decimal values")
         if "," in line or ";" in line or "|" in line:
             _refuse_empty_cells(line, line_no)
@@ -260,14 +263,14 @@ def parse_numbers(text: str, max_numbers: int | None = None) -> ParsedNumbers:
                 end = u.end()
             value = _to_float(m)
             if not math.isfinite(value):
-                raise DecodeError(f"line {line_no}: '{m.group().strip()}' is too large to be a number here")
+                raise DecodeError(f"line {line_no}: '{_shorten(m.group().strip())}' is too large to be a number here")
             if unit == "deg" and u.group("deg") == "°":
                 dms = _MINUTES.match(line, end)
                 if dms and float(dms.group("m")).is_integer():
                     minutes = float(dms.group("m"))
                     seconds = float(dms.group("s") or 0.0)
                     if minutes >= 60 or seconds >= 60:
-                        raise DecodeError(f"line {line_no}: '{line[m.start():dms.end()].strip()}' has minutes or"
+                        raise DecodeError(f"line {line_no}: '{_shorten(line[m.start():dms.end()].strip())}' has minutes or"
                                           " seconds of 60 or more")
                     value = math.copysign(abs(value) + minutes / 60 + seconds / 3600, value if value else
                                           (-1.0 if m.group("sign") == "-" else 1.0))
@@ -956,7 +959,7 @@ def _readings(parsed: ParsedNumbers, hints: DecodeHints) -> list[Reading]:
             hints = DecodeHints(**{**hints.__dict__, "kind": "quaternion"})
     for n in parsed.numbers:
         if abs(n.value) > _MAX_MAGNITUDE:
-            raise DecodeError(f"line {n.line}: {n.text} is too large for any part of an orientation")
+            raise DecodeError(f"line {n.line}: {_shorten(n.text)} is too large for any part of an orientation")
     count = len(values)
     if hints.kind is not None and _KIND_COUNT[hints.kind] != count:
         raise DecodeError(f"a {hints.kind} needs {_KIND_COUNT[hints.kind]} numbers; the text holds {count}"

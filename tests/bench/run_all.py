@@ -12,8 +12,8 @@ from pathlib import Path
 
 sys.path.insert(0, str(Path(__file__).resolve().parents[2]))
 
-BENCHMARKS = ["bench_core", "bench_kernels", "bench_batch", "bench_fit", "bench_correct", "bench_window", "bench_startup",
-              "bench_scene"]
+BENCHMARKS = ["bench_core", "bench_kernels", "bench_decode", "bench_batch", "bench_fit", "bench_correct",
+              "bench_window", "bench_startup", "bench_scene"]
 
 
 def start_display():

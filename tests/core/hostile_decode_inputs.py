@@ -8,8 +8,9 @@ SIZE = 99_000
 
 
 def _fill(piece: str, prefix: str = "", suffix: str = "") -> str:
-    room = SIZE - len(prefix) - len(suffix)
-    return prefix + (piece * (room // len(piece) + 1))[:room] + suffix
+    """`piece` repeated to SIZE bytes of UTF-8 (just under the decoder's 100 kB limit)."""
+    room = SIZE - len(prefix.encode()) - len(suffix.encode())
+    return prefix + piece * (room // len(piece.encode())) + suffix
 
 
 def hostile_inputs(seed: int = 7) -> dict[str, str]:
@@ -19,10 +20,10 @@ def hostile_inputs(seed: int = 7) -> dict[str, str]:
         "empty cells between numbers": _fill(", ", "1", "2"),
         "semicolon cells": _fill(";", "1"),
         "bar cells": _fill("| ", "1"),
-        "long word before numbers": _fill("a") + " 1 2 3",
+        "long word before numbers": _fill("a", "", " 1 2 3"),
         "long word with a digit": _fill("a1"),
-        "long key": _fill("a") + ": 1",
-        "long key dots": _fill("a.") + "= 1",
+        "long key": _fill("a", "", ": 1"),
+        "long key dots": _fill("a.", "", "= 1"),
         "repeated comment openers": _fill("/*x"),
         "repeated hashes": _fill("#x"),
         "repeated line comments": _fill("//x"),
