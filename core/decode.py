@@ -74,7 +74,13 @@ _TOKEN = re.compile(r"[^\s,;|\[\](){}&<>=:\"]+")   # a run between separators; f
 _KEY = re.compile(r"""(?<![\w.:])["']?(?P<key>[A-Za-z_][\w.]*(?:[ ]?[(\[][A-Za-z]+[)\]])?)["']?[ ]*(?::(?!:)|=(?!=))""")
 # Expressions we refuse rather than misread: 1/√2, sqrt(2)/2, pi/2, cos(30°)
 _EXPRESSION = re.compile(r"(?:\d[ ]*/[ ]*[\d.(\\a-zA-Z√π])|(?:\)[ ]*/)|√|π|\\frac|\\sqrt|(?<![A-Za-z])(?:sqrt|pi|sin|cos|tan)"
-                         r"(?![A-Za-z])[ ]*[(\d/*]")
+                         r"(?![A-Za-z])[ ]*[(\d/*]", re.IGNORECASE)
+# Words that stand for a value we will not guess at: non-finite values, named constants, substitutions
+_NON_FINITE = re.compile(r"(?<![\w.])[+-]?(?:nan|inf(?:inity)?)(?!\w)", re.IGNORECASE)
+_CONSTANT = re.compile(r"(?<![A-Za-z0-9])(?:M_)?PI(?![A-Za-z0-9_])|π|\$\{|\$\(", re.IGNORECASE)
+# Words allowed between two numbers on a line (besides keys): units, component and angle names, 'and'
+_BETWEEN_WORDS = frozenset("""deg degs degree degrees rad rads radian radians and w x y z i j k qw qx qy qz
+    yaw pitch roll heading bank elevation axis angle theta phi psi""".split())
 _C_DIMENSIONS = re.compile(r"(?<=[\w\]])[ ]*\[[ ]*\d+[ ]*\]")          # double R[3][3], q[4]
 _TEMPLATE_ARGS = re.compile(r"(?<=\w)[ ]*<[^<>\n]*>")                   # Matrix<double,3,3>
 _COMMENT_START = re.compile(r"/\*|//|#|%")
@@ -103,6 +109,7 @@ class ParsedNumbers:
     headers: tuple[tuple[int, str], ...] = ()    # (data line, the numberless line just above it): CSV headers
     decimal_commas: bool = False                 # '0,7071' seen: maybe decimal commas (read as separators)
     line_words: tuple[tuple[int, str], ...] = ()  # (data line, its text with the numbers blanked out)
+    strays: tuple[tuple[int, str], ...] = ()      # (line, word) between two numbers that we do not know
 
     @property
     def values(self) -> np.ndarray:
@@ -145,14 +152,14 @@ def _check_size(text: str) -> None:
                           " (paste only the orientation)")
 
 
-def _to_float(match: re.Match) -> float:
+def _to_float(match: re.Match, line_no: int) -> float:
     mantissa = match.group("mantissa")
     exponents = (match.group("exp") or "0", match.group("exp10") or "0")
     if any(len(e.lstrip("+-").lstrip("0")) > 4 for e in exponents):     # before int(): 5000 digits
-        raise DecodeError(f"'{_shorten(match.group().strip())}' has an exponent out of range")
+        raise DecodeError(f"line {line_no}: '{_shorten(match.group().strip())}' has an exponent out of range")
     exponent = int(exponents[0]) + int(exponents[1])
     if abs(exponent) > 400:
-        raise DecodeError(f"'{_shorten(match.group().strip())}' has an exponent out of range")
+        raise DecodeError(f"line {line_no}: '{_shorten(match.group().strip())}' has an exponent out of range")
     value = float(f"{mantissa}e{exponent}")
     return -value if match.group("sign") == "-" else value
 
@@ -226,6 +233,7 @@ def parse_numbers(text: str, max_numbers: int | None = None) -> ParsedNumbers:
     captions: list[tuple[int, str]] = []
     headers: list[tuple[int, str]] = []
     line_words: list[tuple[int, str]] = []
+    strays: list[tuple[int, str]] = []
     row = 0
     skipped_titles = 0
     previous_text = None
@@ -244,7 +252,9 @@ def parse_numbers(text: str, max_numbers: int | None = None) -> ParsedNumbers:
                               " Framewright reads plain numbers only: paste decimal values")
         if "," in line or ";" in line or "|" in line:
             _refuse_empty_cells(line, line_no)
-        keys = [(m.end(), m.group("key").lower()) for m in _KEY.finditer(line)]
+        _refuse_values_we_will_not_guess(line, line_no)
+        key_matches = list(_KEY.finditer(line))
+        keys = [(m.end(), m.group("key").lower()) for m in key_matches]
         next_key = 0
         label = None
         found_here: list[FoundNumber] = []
@@ -261,7 +271,7 @@ def parse_numbers(text: str, max_numbers: int | None = None) -> ParsedNumbers:
             if u:
                 unit = "deg" if u.group("deg") else "rad"
                 end = u.end()
-            value = _to_float(m)
+            value = _to_float(m, line_no)
             if not math.isfinite(value):
                 raise DecodeError(f"line {line_no}: '{_shorten(m.group().strip())}' is too large to be a number here")
             if unit == "deg" and u.group("deg") == "°":
@@ -308,6 +318,7 @@ def parse_numbers(text: str, max_numbers: int | None = None) -> ParsedNumbers:
         rest = "".join(pieces) + line[previous_end:]
         words.append(rest.lower())
         if found_here:
+            strays.extend(_words_between_numbers(rest, found_here, key_matches, line_no))
             captions.append((line_no, line[:found_here[0].column - 1].strip().lower()))
             line_words.append((line_no, rest.strip()))
             odd = [w for w in _TOKEN.findall(rest) if _has_digit(w) and w.strip("'\"^°+-*x×·")]
@@ -326,7 +337,7 @@ def parse_numbers(text: str, max_numbers: int | None = None) -> ParsedNumbers:
     if skipped_titles > 3:
         notes.add(f"{skipped_titles - 3} more lines without numbers were ignored")
     return ParsedNumbers(tuple(numbers), tuple(notes), " ".join(words), tuple(captions), tuple(headers),
-                         bool(re.search(r"\d,\d", clean)), tuple(line_words))
+                         bool(re.search(r"\d,\d", clean)), tuple(line_words), tuple(strays))
 
 
 _BETWEEN_DIGITS = re.compile(r"[^\d\n]+")
@@ -343,6 +354,36 @@ def _refuse_empty_cells(line: str, line_no: int) -> None:
         if m:
             raise DecodeError(f"line {line_no}, column {m.start() + 1}: an empty place between numbers"
                               f" ('{m.group()}'): a number seems to be missing")
+
+
+def _refuse_values_we_will_not_guess(line: str, line_no: int) -> None:
+    """NaN, inf, PI, M_PI, π, ${…}: dropping them would shift the other numbers into another reading, and
+    reading 'PI/2' as 2 loses the sign and π. Refused by name, with the line."""
+    m = _NON_FINITE.search(line)
+    if m:
+        raise DecodeError(f"line {line_no}: '{m.group()}' is not a finite number; every number must be a"
+                          " finite decimal value")
+    m = _CONSTANT.search(line)
+    if m:
+        token = _shorten(line[m.start():].split()[0], 24)
+        raise DecodeError(f"line {line_no}: '{token}' is a named constant or an expression; Framewright reads"
+                          " plain numbers only: paste decimal values")
+
+
+def _words_between_numbers(rest: str, found: list, key_matches: list, line_no: int) -> list:
+    """Words between the first and the last number of a line that are no key, unit or component name:
+    '30 abc 20 10' must not be read as three angles with 'abc' dropped."""
+    first, last = found[0].column - 1, found[-1].column - 1 + len(found[-1].text)
+    keyed = [(m.start(), m.end()) for m in key_matches]
+    out = []
+    for t in _TOKEN.finditer(rest, first, last):
+        word = t.group().strip("'\"*+-^°×·\\")
+        if not any(c.isalnum() for c in word) or word.lower() in _BETWEEN_WORDS:
+            continue
+        if any(a <= t.start() < b for a, b in keyed):
+            continue
+        out.append((line_no, word))
+    return out
 
 
 def _shorten(text: str, width: int = 40) -> str:
@@ -936,6 +977,23 @@ def readings_from_numbers(parsed: ParsedNumbers, hints=None) -> list[Reading]:
     return readings
 
 
+def _refuse_strays(parsed: ParsedNumbers, lines: set) -> None:
+    """A word between numbers on a line that is read (see _words_between_numbers) is refused."""
+    for line, word in parsed.strays:
+        if line in lines:
+            raise DecodeError(f"line {line}: '{_shorten(word, 24)}' between numbers is not a number, key, unit or"
+                              " component name; Framewright will not guess what it stands for (remove it)")
+
+
+def _refuse_square_of_two(parsed: ParsedNumbers, keyed, count: int) -> None:
+    """'[1 0; 0 1]': four numbers in two rows of two are a 2x2 matrix, not a quaternion."""
+    if count == 4 and keyed is None and [len(r) for r in parsed.rows] == [2, 2]:
+        lines = sorted({n.line for n in parsed.numbers})
+        raise DecodeError(f"the 4 numbers are written as 2 rows of 2 (a 2x2 matrix, line"
+                          f"{'s' if len(lines) > 1 else ''} {', '.join(map(str, lines))}); an orientation needs a"
+                          " 3x3 matrix, or a quaternion or axis and angle written as one row")
+
+
 def _readings(parsed: ParsedNumbers, hints: DecodeHints) -> list[Reading]:
     clues = _read_clues(parsed)
     notes = list(parsed.notes) + clues.notes
@@ -951,16 +1009,20 @@ def _readings(parsed: ParsedNumbers, hints: DecodeHints) -> list[Reading]:
         if picked is None:
             raise DecodeError(_count_message(parsed, hints))
         values, line, caption_order = picked
+        _refuse_strays(parsed, {line})
         notes.append(f"the text holds {len(parsed.numbers)} numbers; read the quaternion on line {line}")
         if caption_order and hints.order is None:
             clues.order = caption_order
         clues.kinds.add("quaternion")
         if hints.kind is None:
             hints = DecodeHints(**{**hints.__dict__, "kind": "quaternion"})
+    else:
+        _refuse_strays(parsed, {n.line for n in parsed.numbers})
     for n in parsed.numbers:
         if abs(n.value) > _MAX_MAGNITUDE:
             raise DecodeError(f"line {n.line}: {_shorten(n.text)} is too large for any part of an orientation")
     count = len(values)
+    _refuse_square_of_two(parsed, keyed, count)
     if hints.kind is not None and _KIND_COUNT[hints.kind] != count:
         raise DecodeError(f"a {hints.kind} needs {_KIND_COUNT[hints.kind]} numbers; the text holds {count}"
                           f" ({parsed.lines_summary() or 'none'})")
