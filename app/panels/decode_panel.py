@@ -2,7 +2,7 @@
 
 from __future__ import annotations
 
-from PySide6.QtCore import QTimer
+from PySide6.QtCore import QObject, QRunnable, QThreadPool, QTimer, Signal
 from PySide6.QtGui import QGuiApplication
 from PySide6.QtWidgets import (QHBoxLayout, QLabel, QListWidget, QListWidgetItem, QPlainTextEdit,
                                QPushButton, QVBoxLayout, QWidget)
@@ -29,6 +29,39 @@ def _conventions(reading) -> str:
     if isinstance(conventions, dict):
         return ", ".join(str(v) if k == reading.kind else f"{k} {v}" for k, v in conventions.items())
     return _words(conventions)
+
+
+# Text up to this length decodes in a few milliseconds and is read at once; longer text (up to the
+# decoder's 100 kB, which can take a few hundred ms) is read on a worker thread so a paste never freezes
+# the window.
+_READ_AT_ONCE_CHARS = 2_000
+
+
+class _Relay(QObject):
+    """Carries a worker's result back to the GUI thread (a queued signal)."""
+    done = Signal(int, object)
+
+
+class _DecodeJob(QRunnable):
+    def __init__(self, text: str, generation: int, relay: _Relay):
+        super().__init__()
+        self.text, self.generation, self.relay = text, generation, relay
+
+    def run(self) -> None:
+        result = _decode_or_error(self.text)
+        try:
+            self.relay.done.emit(self.generation, result)
+        except RuntimeError:            # the window closed while this was read: nobody to tell
+            pass
+
+
+def _decode_or_error(text: str):
+    """The readings, or the exception that refused the text (shown as a message, never raised)."""
+    from core.decode import decode  # late: the decoder is only needed here
+    try:
+        return list(decode(text))  # no hints: every plausible reading, side by side
+    except Exception as exc:  # noqa: BLE001  (a worker must hand every outcome back)
+        return exc
 
 
 class DecodePanel(QWidget):
@@ -69,6 +102,9 @@ class DecodePanel(QWidget):
         layout.addWidget(self.list, 1)
         layout.addWidget(self.apply_button)
 
+        self._generation = 0            # a newer read makes an older worker's result stale
+        self._relay = _Relay()          # no parent: each job holds it, so it outlives a closed panel
+        self._relay.done.connect(self._show)
         self._debounce = QTimer(self)
         self._debounce.setSingleShot(True)
         self._debounce.setInterval(250)
@@ -89,21 +125,32 @@ class DecodePanel(QWidget):
         self.read()
 
     def read(self) -> None:
-        from core.decode import decode  # late: the decoder is only needed here
-
         self._debounce.stop()
         text = self.paste_box.toPlainText()
         self.list.clear()
         self.readings = []
         self.apply_button.setEnabled(False)
+        self._generation += 1
         if not text.strip():
             plain_text.say(self.message, "")
             return
-        try:
-            self.readings = list(decode(text))  # no hints: every plausible reading, side by side
-        except FramewrightError as exc:
-            plain_text.say(self.message, f"Cannot read this: {exc}", problem=True)
+        if len(text) <= _READ_AT_ONCE_CHARS:
+            self._show(self._generation, _decode_or_error(text))
             return
+        plain_text.say(self.message, "Reading…")
+        QThreadPool.globalInstance().start(_DecodeJob(text, self._generation, self._relay))
+
+    def _show(self, generation: int, result) -> None:
+        if generation != self._generation:
+            return                      # the text changed while this was read
+        if isinstance(result, FramewrightError):
+            plain_text.say(self.message, f"Cannot read this: {result}", problem=True)
+            return
+        if isinstance(result, Exception):
+            plain_text.say(self.message, f"Cannot read this: an internal error ({type(result).__name__})",
+                           problem=True)
+            return
+        self.readings = result
         if not self.readings:
             plain_text.say(self.message, "No reading of this text is a valid orientation.")
             return

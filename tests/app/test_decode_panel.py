@@ -84,3 +84,24 @@ def test_double_click_applies_a_reading(qtbot, window):
     qtbot.mouseDClick(panel.list.viewport(), Qt.MouseButton.LeftButton, pos=rect.center())
     assert window.model.current_orientation() == panel.readings[0].orientation
     assert window.model.undo_stack.count() == 1
+
+
+def test_a_100_kB_paste_is_read_off_the_gui_thread_and_a_newer_text_wins(qtbot, window):
+    from tests.core.hostile_decode_inputs import hostile_inputs
+    panel = window.decode_panel
+    big = hostile_inputs()["long word before numbers"]          # ~99 kB: a long word, then '1 2 3'
+    QGuiApplication.clipboard().setText(big)
+    qtbot.mouseClick(panel.paste_button, Qt.MouseButton.LeftButton)
+    # The click returned before the decoder finished: the work is on a worker thread.
+    assert panel.message.text() == "Reading…"
+    qtbot.waitUntil(lambda: panel.message.text() != "Reading…", timeout=30_000)   # hang guard only
+    assert panel.list.count() >= 1 and panel.readings[0].numbers == (1.0, 2.0, 3.0)
+    # A long paste replaced at once by a short one: the short one's readings stay.
+    QGuiApplication.clipboard().setText(big)
+    qtbot.mouseClick(panel.paste_button, Qt.MouseButton.LeftButton)
+    panel.paste_box.clear()
+    focus(qtbot, panel.paste_box)
+    qtbot.keyClicks(panel.paste_box, "0 0 1 45")
+    qtbot.mouseClick(panel.read_button, Qt.MouseButton.LeftButton)
+    qtbot.wait(1500)                                             # let the stale worker finish
+    assert panel.readings and panel.readings[0].numbers == (0.0, 0.0, 1.0, 45.0)
