@@ -81,6 +81,7 @@ _CONSTANT = re.compile(r"(?<![A-Za-z0-9])(?:M_)?PI(?![A-Za-z0-9_])|π|\$\{|\$\("
 # Words allowed between two numbers on a line (besides keys): units, component and angle names, 'and'
 _BETWEEN_WORDS = frozenset("""deg degs degree degrees rad rads radian radians and w x y z i j k qw qx qy qz
     yaw pitch roll heading bank elevation axis angle theta phi psi""".split())
+_NUMBER_TYPE = re.compile(r"(?:np\.|numpy\.)?(?:float|int|uint|double)\d*", re.IGNORECASE)  # np.float64(0.5)
 _C_DIMENSIONS = re.compile(r"(?<=[\w\]])[ ]*\[[ ]*\d+[ ]*\]")          # double R[3][3], q[4]
 _TEMPLATE_ARGS = re.compile(r"(?<=\w)[ ]*<[^<>\n]*>")                   # Matrix<double,3,3>
 _COMMENT_START = re.compile(r"/\*|//|#|%")
@@ -378,7 +379,7 @@ def _words_between_numbers(rest: str, found: list, key_matches: list, line_no: i
     out = []
     for t in _TOKEN.finditer(rest, first, last):
         word = t.group().strip("'\"*+-^°×·\\")
-        if not any(c.isalnum() for c in word) or word.lower() in _BETWEEN_WORDS:
+        if not any(c.isalnum() for c in word) or word.lower() in _BETWEEN_WORDS or _NUMBER_TYPE.fullmatch(word):
             continue
         if any(a <= t.start() < b for a, b in keyed):
             continue
@@ -985,6 +986,23 @@ def _refuse_strays(parsed: ParsedNumbers, lines: set) -> None:
                               " component name; Framewright will not guess what it stands for (remove it)")
 
 
+_KNOWN_KEYS = frozenset(_COMPONENT) | {"q0", "q1", "q2", "q3", "q4", "yaw", "pitch", "roll", "heading", "bank",
+                                       "elevation", "axis", "angle", "theta"}
+
+
+def _refuse_mixed_keys(parsed: ParsedNumbers) -> None:
+    """'q0 abc = 0.7071, q1 = 0, q2 = 0.7071, q3 = 0': three component names and one key we do not know;
+    reading the numbers bare would drop the names and read another kind."""
+    keys = [_split_key(label)[0] for label in _labels(parsed)]
+    named = [k for k in keys if k in _KNOWN_KEYS]
+    if not named:
+        return
+    for n, k in zip(parsed.numbers, keys):
+        if k and k not in _KNOWN_KEYS:
+            raise DecodeError(f"line {n.line}: the key '{_shorten(k, 24)}' is not a component name like the"
+                              f" others ({', '.join(dict.fromkeys(named))}); Framewright will not guess its place")
+
+
 def _refuse_square_of_two(parsed: ParsedNumbers, keyed, count: int) -> None:
     """'[1 0; 0 1]': four numbers in two rows of two are a 2x2 matrix, not a quaternion."""
     if count == 4 and keyed is None and [len(r) for r in parsed.rows] == [2, 2]:
@@ -998,6 +1016,8 @@ def _readings(parsed: ParsedNumbers, hints: DecodeHints) -> list[Reading]:
     clues = _read_clues(parsed)
     notes = list(parsed.notes) + clues.notes
     keyed = _keyed(parsed)
+    if keyed is None:
+        _refuse_mixed_keys(parsed)
     if keyed is not None:
         values = keyed.values
         if keyed.note:
@@ -1121,7 +1141,8 @@ def _without_title_line(parsed: ParsedNumbers) -> ParsedNumbers | None:
     candidates = []
     for line, text in ends:
         words = re.findall(r"[a-z]{3,}", _DATA_WORDS.sub(" ", text.lower()))
-        if words and per_line[line] <= 2 and len(parsed.numbers) - per_line[line] in _COUNT_KINDS:
+        keyed_line = any(n.label is not None for n in parsed.numbers if n.line == line)   # 'w = 0.5' is data
+        if words and not keyed_line and per_line[line] <= 2 and len(parsed.numbers) - per_line[line] in _COUNT_KINDS:
             candidates.append((line, text))
     if len(candidates) != 1 or len(per_line) < 2:
         return None
