@@ -993,6 +993,8 @@ _KNOWN_KEYS = frozenset(_COMPONENT) | {"q0", "q1", "q2", "q3", "q4", "yaw", "pit
 def _refuse_mixed_keys(parsed: ParsedNumbers) -> None:
     """'q0 abc = 0.7071, q1 = 0, q2 = 0.7071, q3 = 0': three component names and one key we do not know;
     reading the numbers bare would drop the names and read another kind."""
+    if len(parsed.numbers) not in _COUNT_KINDS:
+        return                          # a longer text: one of its lines is read (or it is refused)
     keys = [_split_key(label)[0] for label in _labels(parsed)]
     named = [k for k in keys if k in _KNOWN_KEYS]
     if not named:
