@@ -40,8 +40,10 @@ def temporary_name(target_name: str, pid: int | None = None) -> str:
     return f".{target_name}{_TEMP_MARK}{pid}-{secrets.token_hex(4)}.tmp"
 
 
-def _temporary_pattern(target_name: str) -> re.Pattern:
-    return re.compile(re.escape(f".{target_name}{_TEMP_MARK}") + r"(\d+)-[0-9a-f]+\.tmp")
+def _temporary_pattern(target_name: str | None) -> re.Pattern:
+    """Our temporaries of saves of `target_name` (None: of any file)."""
+    name = r"\..+" if target_name is None else re.escape(f".{target_name}")
+    return re.compile(name + re.escape(_TEMP_MARK) + r"(\d+)-[0-9a-f]+\.tmp")
 
 
 def _kind(mode: int) -> str:
@@ -69,18 +71,27 @@ def _process_is_gone(pid: int) -> bool:
 def remove_stale_temporaries(target: Path, now: float | None = None) -> list[Path]:
     """Remove temporaries of killed saves of `target` (regular files only, our name pattern only); the
     ones removed. A temporary of a live save in progress (its process runs, and it is young) is kept."""
+    return _remove_stale(Path(target).parent, _temporary_pattern(Path(target).name), now)
+
+
+def remove_stale_temporaries_in(folder: Path, now: float | None = None) -> list[Path]:
+    """As remove_stale_temporaries, for saves of any file in `folder` (e.g. autosaves of runs that
+    crashed, whose files have names no later save will use)."""
+    return _remove_stale(Path(folder), _temporary_pattern(None), now)
+
+
+def _remove_stale(folder: Path, pattern: re.Pattern, now: float | None) -> list[Path]:
     now = time.time() if now is None else now
-    pattern = _temporary_pattern(target.name)
     removed = []
     try:
-        names = os.listdir(target.parent)
+        names = os.listdir(folder)
     except OSError:
         return removed
     for name in names:
         match = pattern.fullmatch(name)
         if match is None:
             continue
-        candidate = target.parent / name
+        candidate = folder / name
         try:
             info = os.lstat(candidate)
             if not stat.S_ISREG(info.st_mode):

@@ -78,10 +78,26 @@ def _character_problem(text: str, found: re.Match, what: str) -> str:
     return f"{what} holds {kind} U+{ord(char):04X} at character {found.start() + 1}; expected plain text"
 
 
+def _kind(value: Any) -> str:
+    if value is None:
+        return "null"
+    if isinstance(value, bool):
+        return "true" if value else "false"
+    if isinstance(value, (int, float)):
+        return "a number"
+    if isinstance(value, str):
+        return "text"
+    if isinstance(value, list):
+        return "a list"
+    if isinstance(value, dict):
+        return "an object"
+    return type(value).__name__
+
+
 def name_problem(value, empty_ok: bool = False) -> str | None:
     """Why `value` is not a valid name (None when it is): text, one line, printable, not too long."""
     if not isinstance(value, str):
-        return f"expected a name (text), got {type(value).__name__ if value is not None else 'null'}"
+        return f"expected a name (text), got {_kind(value)}"
     if not empty_ok and not value.strip():
         return "expected a non-empty name"
     if len(value) > MAX_NAME_CHARS:
@@ -93,7 +109,7 @@ def name_problem(value, empty_ok: bool = False) -> str | None:
 def free_text_problem(value) -> str | None:
     """Why `value` is not valid free text (notes, description); None when it is."""
     if not isinstance(value, str):
-        return f"expected text, got {type(value).__name__ if value is not None else 'null'}"
+        return f"expected text, got {_kind(value)}"
     found = _NOT_IN_TEXT.search(value)
     return None if found is None else _character_problem(value, found, "the text")
 
@@ -368,22 +384,6 @@ def save_session(session: Session, path: str | os.PathLike) -> None:
 # place in the file (`mounts[3].part.box_size_mm[1]`) with what was expected. Anything the checks here
 # miss but a constructor refuses is still a SessionFileError (see load_session), marked `unexpected` so
 # the tests can tell a named refusal from a gap in these checks.
-
-def _kind(value: Any) -> str:
-    if value is None:
-        return "null"
-    if isinstance(value, bool):
-        return "true" if value else "false"
-    if isinstance(value, (int, float)):
-        return "a number"
-    if isinstance(value, str):
-        return "text"
-    if isinstance(value, list):
-        return "a list"
-    if isinstance(value, dict):
-        return "an object"
-    return type(value).__name__
-
 
 def _require(condition: bool, where: str, message: str) -> None:
     if not condition:
