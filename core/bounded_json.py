@@ -135,7 +135,7 @@ def check_values(data, max_depth: int = MAX_DEPTH, may_hold_surrogates: bool = T
     # Each stack entry: (container, depth, where) with `where` a linked (parent, key) pair, spelled only
     # when there is a problem to report.
     stack = [(data, 1, None)]
-    if not isinstance(data, (dict, list)):
+    if not isinstance(data, (dict, list, tuple)):
         _check_leaf(data, None, may_hold_surrogates)
         return
     while stack:
@@ -151,7 +151,7 @@ def check_values(data, max_depth: int = MAX_DEPTH, may_hold_surrogates: bool = T
         else:
             items = enumerate(value)
         for key, item in items:
-            if isinstance(item, (dict, list)):
+            if isinstance(item, (dict, list, tuple)):   # tuples: data built in memory, before a save
                 stack.append((item, depth + 1, (where, key)))
             elif isinstance(item, str):
                 if may_hold_surrogates and _surrogate_at(item) is not None:

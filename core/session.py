@@ -355,7 +355,9 @@ def session_file_bytes(session: Session, source: str = "session") -> bytes:
     (a lone surrogate or a control character in a name, a non-finite number among kept data) is a
     SessionFileError naming the field, before anything is written."""
     try:
-        plain = json.dumps(session_to_dict(session), ensure_ascii=True, allow_nan=False)
+        as_dict = session_to_dict(session)
+        bounded_json.check_values(as_dict)       # names the place of a lone surrogate or a NaN
+        plain = json.dumps(as_dict, ensure_ascii=True, allow_nan=False)
         data = json.loads(plain)
         bounded_json.check_values(data)
         session_from_dict(data, source=source)
