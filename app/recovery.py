@@ -25,8 +25,9 @@ import tempfile
 from dataclasses import dataclass, replace
 from pathlib import Path
 
-from PySide6.QtCore import QLockFile, QObject, QStandardPaths, QTimer
+from PySide6.QtCore import QLockFile, QObject, QStandardPaths, QTimer, Signal
 
+from core import atomic_file
 from core.errors import FramewrightError
 from core.session import FILE_SUFFIX, Session, load_session, save_session
 
@@ -51,7 +52,10 @@ def _lock_for(path: Path) -> QLockFile:
 
 
 class Recovery(QObject):
-    """Autosave of one model to its own recovery file. `discard()` on a clean close."""
+    """Autosave of one model to its own recovery file. `discard()` on a clean close. `failed` carries why
+    a write did not happen (the window shows it); the session in the window is untouched either way."""
+
+    failed = Signal(str)
 
     def __init__(self, model, folder: Path | None = None, delay_ms: int = AUTOSAVE_DELAY_MS, parent=None):
         super().__init__(parent)
@@ -105,7 +109,9 @@ class Recovery(QObject):
                     self._lock = lock
             save_session(replace(session, extra=extra), self.path)
         except (OSError, FramewrightError) as exc:
-            self.last_error = f"recovery file {self.path}: {exc}"
+            why = atomic_file.describe(exc) if isinstance(exc, OSError) else str(exc)
+            self.last_error = f"recovery file {self.path}: {why}"
+            self.failed.emit(self.last_error)
             return False
         self.last_error = None
         return True
@@ -139,6 +145,7 @@ def find_crashed(folder: Path | None = None) -> list[CrashedRun]:
     """Recovery files left by runs that ended without cleaning up, newest first. Unreadable ones are
     skipped (and left where they are); stale ones (older than the file they came from) are removed."""
     folder = Path(folder) if folder is not None else default_folder()
+    atomic_file.remove_stale_temporaries_in(folder)   # left by autosaves that were killed mid-write
     found = []
     for path in sorted(folder.glob(f"{PREFIX}*{FILE_SUFFIX}")):
         lock = _lock_for(path)
@@ -152,7 +159,11 @@ def find_crashed(folder: Path | None = None) -> list[CrashedRun]:
             continue
         mark = session.extra.get(MARK) if isinstance(session.extra.get(MARK), dict) else {}
         of = mark.get("of") if isinstance(mark.get("of"), str) else None
-        if of and Path(of).exists() and Path(of).stat().st_mtime > path.stat().st_mtime:
+        try:
+            saved_since = bool(of) and Path(of).exists() and Path(of).stat().st_mtime > path.stat().st_mtime
+        except (OSError, ValueError):     # a name the file system cannot hold: not saved since
+            saved_since = False
+        if saved_since:
             remove(path)                  # the session was saved after this was written
             continue
         clean = replace(session, extra={k: v for k, v in session.extra.items() if k != MARK})

@@ -15,6 +15,7 @@ from PySide6.QtWidgets import (QAbstractSpinBox, QApplication, QComboBox, QFileD
                                QScrollArea, QSpinBox, QSplitter, QTabWidget, QTextEdit, QVBoxLayout, QWidget)
 
 from app import about, copy_as, plain_text, recent_files, recovery, settings
+from core import atomic_file
 from app.editors.angles_editor import AnglesEditor
 from app.editors.axis_angle_editor import AxisAngleEditor
 from app.editors.base import EditorBase
@@ -157,6 +158,7 @@ class MainWindow(QMainWindow):
 
         model.changed.connect(self._on_model_changed)
         self.recovery = recovery.Recovery(model, parent=self)  # autosave soon after each change; recovery.py
+        self.recovery.failed.connect(self._autosave_failed)
         model.undo_stack.cleanChanged.connect(self._update_title)
         QApplication.instance().focusChanged.connect(self._track_editor)
         self._update_title()
@@ -416,9 +418,9 @@ class MainWindow(QMainWindow):
                 return False
         try:
             session = load_session(path)
-        except FramewrightError as exc:
-            plain_text.warning(self, "Cannot open session", str(exc))
+        except FramewrightError as exc:   # load_session refuses every damaged file with SessionFileError
             self.statusBar().showMessage(f"Not opened: {exc}")
+            self._tell("Cannot open session", f"{exc}\n\nThe session you had open is unchanged.")
             return False
         self.model.load_session(session, file_path=str(path))
         recent_files.add_recent(str(path), self._settings)
@@ -458,7 +460,15 @@ class MainWindow(QMainWindow):
         try:
             save_session(self.model.session(), path)
         except (OSError, FramewrightError) as exc:
-            plain_text.warning(self, "Cannot save session", f"{path}: {exc}")
+            # The file on disk is as it was; the work stays here and goes to the recovery file now.
+            why = f"{path}: {atomic_file.describe(exc)}" if isinstance(exc, OSError) else str(exc)
+            kept = "Your changes are still open here"
+            if not self.model.undo_stack.isClean():
+                kept += (" and in the recovery file" if self.recovery.write_now()
+                         else f"; the recovery file could not be written either ({self.recovery.last_error})")
+            self.statusBar().showMessage(f"Not saved: {why}")
+            self._tell("Cannot save session", f"Not saved: {why}\n\n{kept}. The file on disk is unchanged. "
+                       "Choose File ▸ Save as… to save them somewhere else.")
             return False
         self.model.file_path = str(path)
         self.model.undo_stack.setClean()  # also removes the recovery file
@@ -466,6 +476,15 @@ class MainWindow(QMainWindow):
         self._update_title()
         self.statusBar().showMessage(f"Saved {path}.")
         return True
+
+    def _tell(self, title: str, text: str) -> None:
+        """A warning the user must acknowledge, as plain text: a file name or a field read from a file
+        is never shown as markup."""
+        plain_text.warning(self, title, text)
+
+    def _autosave_failed(self, why: str) -> None:
+        self.statusBar().showMessage(f"Autosave failed: {why}. Save the session (File ▸ Save as…) to keep "
+                                     "your changes.")
 
     # ---- dialogs and closing -------------------------------------------------------------------
     def show_part_dialog(self) -> None:

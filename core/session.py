@@ -38,11 +38,12 @@ from __future__ import annotations
 import json
 import math
 import os
-import tempfile
+import re
 from dataclasses import dataclass, field, fields, replace
 from pathlib import Path
 from typing import Any, Mapping
 
+from core import atomic_file, bounded_json
 from core.adjustment_setup import AdjustmentSetup
 from core.chain import Chain
 from core.check import CheckSettings
@@ -60,10 +61,64 @@ FACE_KEYS = ("+X", "-X", "+Y", "-Y", "+Z", "-Z")
 ANGLE_UNITS = ("deg", "rad")
 QUATERNION_ORDERS = ("wxyz", "xyzw")
 MATRIX_MEANINGS = ("body_to_reference", "reference_to_body")
+# A box of a micrometre or a kilometre is a typing error, not a part; the bounds also keep the Scene's
+# arithmetic (half sizes, reciprocals, a size next to another) far from underflow and overflow.
+BOX_SIZE_RANGE_MM = (1e-3, 1e6)
+MAX_NAME_CHARS = 500
+
+# Names (mounts, faces, chains, steps, checks) are one line of plain text: no control characters (C0, DEL,
+# C1) and no line or paragraph separators. Free text (notes, description) may hold tabs and line breaks.
+# Neither may hold a lone surrogate, which is not Unicode text and cannot be written in UTF-8.
+_NOT_IN_NAME = re.compile("[\x00-\x1f\x7f-\x9f\u2028\u2029\ud800-\udfff]")
+_NOT_IN_TEXT = re.compile("[\x00-\x08\x0b\x0c\x0e-\x1f\x7f-\x9f\ud800-\udfff]")
+
+
+def _character_problem(text: str, found: re.Match, what: str) -> str:
+    char = found.group()
+    kind = "a lone surrogate (not valid Unicode text)" if "\ud800" <= char <= "\udfff" else "a control character"
+    return f"{what} holds {kind} U+{ord(char):04X} at character {found.start() + 1}; expected plain text"
+
+
+def _kind(value: Any) -> str:
+    if value is None:
+        return "null"
+    if isinstance(value, bool):
+        return "true" if value else "false"
+    if isinstance(value, (int, float)):
+        return "a number"
+    if isinstance(value, str):
+        return "text"
+    if isinstance(value, list):
+        return "a list"
+    if isinstance(value, dict):
+        return "an object"
+    return type(value).__name__
+
+
+def name_problem(value, empty_ok: bool = False) -> str | None:
+    """Why `value` is not a valid name (None when it is): text, one line, printable, not too long."""
+    if not isinstance(value, str):
+        return f"expected a name (text), got {_kind(value)}"
+    if not empty_ok and not value.strip():
+        return "expected a non-empty name"
+    if len(value) > MAX_NAME_CHARS:
+        return f"a name of {len(value):,} characters; expected at most {MAX_NAME_CHARS}"
+    found = _NOT_IN_NAME.search(value)
+    return None if found is None else _character_problem(value, found, "the name")
+
+
+def free_text_problem(value) -> str | None:
+    """Why `value` is not valid free text (notes, description); None when it is."""
+    if not isinstance(value, str):
+        return f"expected text, got {_kind(value)}"
+    found = _NOT_IN_TEXT.search(value)
+    return None if found is None else _character_problem(value, found, "the text")
 
 
 class SessionFileError(FramewrightError):
-    """A session file that cannot be read: damaged, foreign, or from a newer program."""
+    """A session file that cannot be read or written: damaged, foreign, or from a newer program."""
+
+    unexpected = False   # True: refused by a constructor rather than by the loader's own field checks
 
 
 @dataclass(frozen=True)
@@ -75,13 +130,18 @@ class PartProperties:
     boresight: str = "+Z"  # the face (and so body axis) the part points with
 
     def __post_init__(self):
+        low, high = BOX_SIZE_RANGE_MM
         size = tuple(float(v) for v in self.box_size_mm)
-        if len(size) != 3 or not all(math.isfinite(v) and v > 0 for v in size):
-            raise FramewrightError(f"box size must be three positive numbers in mm, got {self.box_size_mm!r}")
+        if len(size) != 3 or not all(low <= v <= high for v in size):
+            raise FramewrightError(f"box size must be three positive numbers from {low:g} to {high:g} mm, "
+                                   f"got {self.box_size_mm!r}")
         object.__setattr__(self, "box_size_mm", size)
-        for key in self.face_names:
+        for key, name in self.face_names.items():
             if key not in FACE_KEYS:
                 raise FramewrightError(f"face name key {key!r} is not one of {', '.join(FACE_KEYS)}")
+            problem = name_problem(name, empty_ok=True)
+            if problem:
+                raise FramewrightError(f"face {key} name: {problem}")
         object.__setattr__(self, "face_names", dict(self.face_names))
         if self.boresight not in FACE_KEYS:
             raise FramewrightError(f"boresight {self.boresight!r} is not one of {', '.join(FACE_KEYS)}")
@@ -95,6 +155,14 @@ class Mount:
     orientation: Orientation = field(default_factory=Orientation.identity)
     part: PartProperties = field(default_factory=PartProperties)
     notes: str = ""
+
+    def __post_init__(self):
+        problem = name_problem(self.name)
+        if problem:
+            raise FramewrightError(f"mount name: {problem}")
+        problem = free_text_problem(self.notes)
+        if problem:
+            raise FramewrightError(f"mount {self.name!r} notes: {problem}")
 
     def renamed(self, name: str) -> "Mount":
         return replace(self, name=name)
@@ -194,6 +262,9 @@ class SavedCheck:
             value = getattr(self, key)
             if value is not None and not isinstance(value, str):
                 raise FramewrightError(f"check {key}: expected a mount name or null, got {value!r}")
+        problem = name_problem(self.name)
+        if problem:
+            raise FramewrightError(f"check name: {problem}")
         if not isinstance(self.settings, CheckSettings):
             raise FramewrightError("check settings: expected CheckSettings")
         if not isinstance(self.adjustment, AdjustmentSetup):
@@ -287,92 +358,230 @@ def session_to_dict(session: Session) -> dict[str, Any]:
     return data
 
 
-def save_session(session: Session, path: str | os.PathLike) -> None:
-    """Write atomically: a temporary file in the same folder, flushed to disk, then renamed over the
-    target, so a crash leaves either the old file or the new one, never half of one."""
-    path = Path(path)
-    text = json.dumps(session_to_dict(session), indent=2, ensure_ascii=False, allow_nan=False) + "\n"
-    fd, tmp_name = tempfile.mkstemp(prefix="." + path.name + ".", suffix=".tmp", dir=path.parent)
+def session_file_bytes(session: Session, source: str = "session") -> bytes:
+    """The bytes a save writes. They are checked to read back first: a session the loader would refuse
+    (a lone surrogate or a control character in a name, a non-finite number among kept data) is a
+    SessionFileError naming the field, before anything is written."""
     try:
-        with os.fdopen(fd, "w", encoding="utf-8") as handle:
-            handle.write(text)
-            handle.flush()
-            os.fsync(handle.fileno())
-        os.replace(tmp_name, path)
-    except BaseException:
-        try:
-            os.unlink(tmp_name)
-        except FileNotFoundError:
-            pass
+        as_dict = session_to_dict(session)
+        bounded_json.check_values(as_dict)       # names the place of a lone surrogate or a NaN
+        plain = json.dumps(as_dict, ensure_ascii=True, allow_nan=False)
+        data = json.loads(plain)
+        bounded_json.check_values(data)
+        session_from_dict(data, source=source)
+        text = json.dumps(data, indent=2, ensure_ascii=False, allow_nan=False) + "\n"
+        return text.encode("utf-8")
+    except SessionFileError:
         raise
-    try:  # make the rename itself durable where the platform allows it
-        dir_fd = os.open(path.parent, os.O_RDONLY)
-    except OSError:
-        return
-    try:
-        os.fsync(dir_fd)
-    except OSError:
-        pass
-    finally:
-        os.close(dir_fd)
+    except bounded_json.BoundedJsonError as exc:
+        raise SessionFileError(f"{source}: {exc}") from None
+    except _UNEXPECTED as exc:   # e.g. NaN or an object JSON cannot hold among the kept data
+        raise SessionFileError(f"{source}: cannot be written as a session file ({exc})"[:2000]) from None
+
+
+def save_session(session: Session, path: str | os.PathLike) -> None:
+    """Write atomically through core/atomic_file: a temporary file beside the target, flushed to disk,
+    then renamed over it, so a crash leaves either the old file or the new one, never half of one. A
+    symbolic link is written through, the file's permissions are kept, pipes, devices and folders are
+    refused, and temporaries of earlier killed saves are removed. Raises SessionFileError (the session
+    cannot be written) or OSError (the file cannot); either way the old file is unchanged."""
+    raw = session_file_bytes(session, source=str(path))
+    atomic_file.write_atomically(path, raw)
 
 
 # ---- reading ---------------------------------------------------------------------------------------
+# Every field is checked for its type and range before any value is built from it, and refused by its
+# place in the file (`mounts[3].part.box_size_mm[1]`) with what was expected. Anything the checks here
+# miss but a constructor refuses is still a SessionFileError (see load_session), marked `unexpected` so
+# the tests can tell a named refusal from a gap in these checks.
 
 def _require(condition: bool, where: str, message: str) -> None:
     if not condition:
         raise SessionFileError(f"{where}: {message}")
 
 
+def _at(where: str, key: str | int) -> str:
+    return where + (f"[{key}]" if isinstance(key, int) else f".{key}")
+
+
+def _object(value: Any, where: str, what: str = "an object") -> dict:
+    _require(isinstance(value, dict), where, f"expected {what}, got {_kind(value)}")
+    return value
+
+
+def _is_number(value: Any) -> bool:
+    return isinstance(value, (int, float)) and not isinstance(value, bool)
+
+
+def _number(value: Any, where: str, low: float, high: float | None, what: str = "a number") -> float:
+    """A number from low to high (high None: no bound but finiteness, which bounded_json has checked)."""
+    _require(_is_number(value), where, f"expected {what}, got {_kind(value)}")
+    number = float(value)     # bounded_json has already refused numbers a double cannot hold
+    if high is None:
+        _require(low <= number, where, f"expected {what} of at least {low:g}, got {number!r}")
+    else:
+        _require(low <= number <= high, where, f"expected {what} from {low:g} to {high:g}, got {number!r}")
+    return number
+
+
 def _numbers(value: Any, count: int, where: str) -> list[float]:
     _require(isinstance(value, list) and len(value) == count, where, f"expected a list of {count} numbers")
-    out = []
     for i, v in enumerate(value):
-        _require(isinstance(v, (int, float)) and not isinstance(v, bool), f"{where}[{i}]",
-                 f"expected a number, got {v!r}")
-        _require(math.isfinite(v), f"{where}[{i}]", "expected a finite number")
-        out.append(float(v))
-    return out
+        _require(_is_number(v), f"{where}[{i}]", f"expected a number, got {_kind(v)}")
+    return [float(v) for v in value]
+
+
+def _name(value: Any, where: str, empty_ok: bool = False) -> str:
+    problem = name_problem(value, empty_ok=empty_ok)
+    _require(problem is None, where, problem or "")
+    return value
+
+
+def _free_text(value: Any, where: str) -> str:
+    problem = free_text_problem(value)
+    _require(problem is None, where, problem or "")
+    return value
+
+
+def _choice(value: Any, where: str, choices) -> str:
+    _require(isinstance(value, str) and value in choices, where,
+             f"expected one of {', '.join(choices)}, got {value!r}" if isinstance(value, str)
+             else f"expected one of {', '.join(choices)}, got {_kind(value)}")
+    return value
+
+
+def _flag(value: Any, where: str) -> bool:
+    _require(isinstance(value, bool), where, f"expected true or false, got {_kind(value)}")
+    return value
+
+
+def _whole(value: Any, where: str, low: int, high: int) -> int:
+    _require(isinstance(value, int) and not isinstance(value, bool) and low <= value <= high, where,
+             f"expected a whole number from {low} to {high}, got {value!r}" if _is_number(value)
+             else f"expected a whole number from {low} to {high}, got {_kind(value)}")
+    return value
+
+
+def _unit_quaternion(value: Any, where: str) -> list[float]:
+    q = _numbers(value, 4, where)
+    scale = max(abs(v) for v in q)
+    norm = 0.0 if scale == 0 else scale * math.sqrt(sum((v / scale) ** 2 for v in q))  # scaled: never overflows
+    _require(abs(norm - 1.0) <= 1e-6, where,
+             f"expected a unit quaternion, its norm is {norm:.9g} (the file may be damaged)")
+    return q
+
+
+def _orientation(value: Any, where: str) -> Orientation:
+    orient = _object(value, where, 'an object {"quaternion_wxyz": [w, x, y, z]}')
+    _require("quaternion_wxyz" in orient, where, 'expected {"quaternion_wxyz": [w, x, y, z]}')
+    # One representation only: a second one beside it could disagree, and silently dropping it would hide
+    # that the file is not what it claims.
+    _require(set(orient) == {"quaternion_wxyz"}, where,
+             f'expected only "quaternion_wxyz", found also {sorted(set(orient) - {"quaternion_wxyz"})}')
+    return Orientation.from_quaternion(_unit_quaternion(orient["quaternion_wxyz"], _at(where, "quaternion_wxyz")))
+
+
+def _part_from_dict(value: Any, where: str) -> PartProperties:
+    data = _object(value, where)
+    sizes = data.get("box_size_mm", list(PartProperties.box_size_mm))
+    size_where = _at(where, "box_size_mm")
+    _require(isinstance(sizes, list) and len(sizes) == 3, size_where,
+             f"expected a list of 3 sizes in mm, got {_kind(sizes)}" if not isinstance(sizes, list)
+             else f"expected a list of 3 sizes in mm, got {len(sizes)}")
+    size = tuple(_number(v, f"{size_where}[{i}]", BOX_SIZE_RANGE_MM[0], BOX_SIZE_RANGE_MM[1], "a size in mm")
+                 for i, v in enumerate(sizes))
+    faces = _object(data.get("face_names", {}), _at(where, "face_names"), 'an object like {"+Z": "lens"}')
+    for key, face_name in faces.items():
+        _choice(key, f"{_at(where, 'face_names')} key", FACE_KEYS)
+        _name(face_name, f'{_at(where, "face_names")}["{key}"]', empty_ok=True)
+    boresight = _choice(data.get("boresight", "+Z"), _at(where, "boresight"), FACE_KEYS)
+    return PartProperties(box_size_mm=size, face_names=faces, boresight=boresight)
 
 
 def _mount_from_dict(data: Any, where: str) -> Mount:
-    _require(isinstance(data, dict), where, "expected an object with name and orientation")
-    name = data.get("name")
-    _require(isinstance(name, str) and name.strip() != "", f"{where}.name", "expected a non-empty text")
-    orient = data.get("orientation")
-    _require(isinstance(orient, dict) and "quaternion_wxyz" in orient, f"{where}.orientation",
-             'expected {"quaternion_wxyz": [w, x, y, z]}')
-    # One representation only: a second one beside it could disagree, and silently dropping it would hide
-    # that the file is not what it claims.
-    _require(set(orient) == {"quaternion_wxyz"}, f"{where}.orientation",
-             f'expected only "quaternion_wxyz", found also {sorted(set(orient) - {"quaternion_wxyz"})}')
-    q = _numbers(orient["quaternion_wxyz"], 4, f"{where}.orientation.quaternion_wxyz")
-    norm = math.sqrt(sum(v * v for v in q))
-    _require(abs(norm - 1.0) <= 1e-6, f"{where}.orientation.quaternion_wxyz",
-             f"expected a unit quaternion, its norm is {norm:.9g} (the file may be damaged)")
-    part_data = data.get("part", {})
-    _require(isinstance(part_data, dict), f"{where}.part", "expected an object")
+    data = _object(data, where, "an object with name and orientation")
+    _require("name" in data, where, "missing its name")
+    name = _name(data["name"], _at(where, "name"))
+    _require("orientation" in data, where, 'missing its orientation {"quaternion_wxyz": [w, x, y, z]}')
+    orientation = _orientation(data["orientation"], _at(where, "orientation"))
+    part = _part_from_dict(data.get("part", {}), _at(where, "part"))
+    notes = _free_text(data.get("notes", ""), _at(where, "notes"))
+    return Mount(name=name, orientation=orientation, part=part, notes=notes)
+
+
+def _preferences_from_dict(value: Any, where: str) -> Preferences:
+    from core.sequences import ALL_SEQUENCES
+
+    data = _object(value, where)
+    checks = {"angle_units": lambda v, w: _choice(v, w, ANGLE_UNITS),
+              "quaternion_order": lambda v, w: _choice(v, w, QUATERNION_ORDERS),
+              "matrix_meaning": lambda v, w: _choice(v, w, MATRIX_MEANINGS),
+              "sequence": lambda v, w: _choice(v, w, ALL_SEQUENCES),
+              "intrinsic": _flag,
+              "significant_digits": lambda v, w: _whole(v, w, 3, 17),
+              "amber_margin_deg": lambda v, w: _number(v, w, 0, 90, "an angle in degrees"),
+              "red_margin_deg": lambda v, w: _number(v, w, 0, 90, "an angle in degrees")}
+    for key, check in checks.items():
+        if key in data:
+            check(data[key], _at(where, key))
     try:
-        size = _numbers(part_data.get("box_size_mm", list(PartProperties.box_size_mm)), 3, f"{where}.part.box_size_mm")
-        faces = part_data.get("face_names", {})
-        _require(isinstance(faces, dict) and all(isinstance(v, str) for v in faces.values()),
-                 f"{where}.part.face_names", 'expected an object like {"+Z": "lens"}')
-        part = PartProperties(box_size_mm=tuple(size), face_names=faces,
-                              boresight=part_data.get("boresight", "+Z"))
-    except SessionFileError:
-        raise
+        return Preferences.from_dict(data)
     except FramewrightError as exc:
-        raise SessionFileError(f"{where}.part: {exc}") from None
-    notes = data.get("notes", "")
-    _require(isinstance(notes, str), f"{where}.notes", "expected text")
-    return Mount(name=name, orientation=Orientation.from_quaternion(q), part=part, notes=notes)
+        raise SessionFileError(f"{where}: {exc}") from None
+
+
+def _check_raw(value: Any, where: str) -> None:
+    """A check entry's fields, before SavedCheck and CheckSettings build it."""
+    from core.check import MODES
+
+    data = _object(value, where)
+    if "name" in data:
+        _name(data["name"], _at(where, "name"))
+    for key in ("nominal", "measured"):
+        if data.get(key) is not None:
+            _name(data[key], _at(where, key))
+    if "settings" not in data:
+        return
+    settings = _object(data["settings"], _at(where, "settings"))
+    here = _at(where, "settings")
+    if "mode" in settings:
+        _choice(settings["mode"], _at(here, "mode"), MODES)
+    for key in ("total_tolerance_deg", "pointing_tolerance_deg", "roll_tolerance_deg"):
+        if key in settings:
+            _number(settings[key], _at(here, key), 0, None, "a tolerance in degrees")
+    axis = settings.get("body_axis")
+    if axis is not None and not isinstance(axis, str):
+        _numbers(axis, 3, _at(here, "body_axis"))
+    elif isinstance(axis, str):
+        _name(axis, _at(here, "body_axis"))
+
+
+def _chain_raw(value: Any, where: str) -> None:
+    """A chain entry's fields, before Chain and ChainStep build it."""
+    data = _object(value, where)
+    if "name" in data:
+        _name(data["name"], _at(where, "name"))
+    steps = data.get("steps", [])
+    _require(isinstance(steps, list), _at(where, "steps"), f"expected a list, got {_kind(steps)}")
+    for i, step in enumerate(steps):
+        here = _at(_at(where, "steps"), i)
+        step = _object(step, here, "an object with name and orientation")
+        _require("name" in step, here, "missing its name")
+        _name(step["name"], _at(here, "name"), empty_ok=True)
+        _require("orientation" in step, here, 'missing its orientation {"quaternion_wxyz": [w, x, y, z]}')
+        _orientation(step["orientation"], _at(here, "orientation"))
+        for flag in ("inverted", "enabled"):
+            if flag in step:
+                _flag(step[flag], _at(here, flag))
 
 
 def session_from_dict(data: Any, source: str = "session") -> Session:
     _require(isinstance(data, dict), source, "expected a JSON object at the top level")
     fmt = data.get("format")
     _require(fmt == FORMAT_NAME, source,
-             f'not a Framewright session (its "format" is {fmt!r}, expected {FORMAT_NAME!r})')
+             f'not a Framewright session (its "format" is {fmt!r}, expected {FORMAT_NAME!r})'
+             if isinstance(fmt, str) and len(fmt) < 100 else
+             f'not a Framewright session (its "format" is {_kind(fmt)}, expected {FORMAT_NAME!r})')
     version = data.get("version")
     _require(isinstance(version, int) and not isinstance(version, bool), source,
              '"version" is missing or not a whole number')
@@ -383,46 +592,54 @@ def session_from_dict(data: Any, source: str = "session") -> Session:
     _require(isinstance(mounts_data, list) and len(mounts_data) > 0, f"{source}: mounts",
              "expected a list of at least one mount")
     mounts = tuple(_mount_from_dict(m, f"{source}: mounts[{i}]") for i, m in enumerate(mounts_data))
-    prefs_data = data.get("preferences", {})
-    _require(isinstance(prefs_data, dict), f"{source}: preferences", "expected an object")
-    try:
-        prefs = Preferences.from_dict(prefs_data)
-    except (FramewrightError, TypeError) as exc:
-        raise SessionFileError(f"{source}: {exc}") from None
+    prefs = _preferences_from_dict(data.get("preferences", {}), f"{source}: preferences")
     selected = data.get("selected", 0)
-    _require(isinstance(selected, int) and 0 <= selected < len(mounts), f"{source}: selected",
-             f"expected a mount index 0..{len(mounts) - 1}, got {selected!r}")
-    description = data.get("description", "")
-    _require(isinstance(description, str), f"{source}: description", "expected text")
+    _require(isinstance(selected, int) and not isinstance(selected, bool) and 0 <= selected < len(mounts),
+             f"{source}: selected", f"expected a mount index 0..{len(mounts) - 1}, got "
+             + (repr(selected) if _is_number(selected) else _kind(selected)))
+    description = _free_text(data.get("description", ""), f"{source}: description")
     from core.describe import FRAME_PRESETS
 
-    reference_frame = data.get("reference_frame", "enu")
-    _require(reference_frame in FRAME_PRESETS, f"{source}: reference_frame",
-             f"expected one of {', '.join(FRAME_PRESETS)}, got {reference_frame!r}")
+    reference_frame = _choice(data.get("reference_frame", "enu"), f"{source}: reference_frame", tuple(FRAME_PRESETS))
     known = {"format", "version", "description", "reference_frame", "selected", "preferences", "mounts"}
     extra = {k: v for k, v in data.items() if k not in known}
-    read_chains(extra, source)  # refuse damaged chains and checks now, naming the entry
+    # Refuse damaged chains and checks now, naming the entry and the field.
+    for key, check_raw in (("chains", _chain_raw), ("checks", _check_raw)):
+        if key in extra:
+            _require(isinstance(extra[key], list), f"{source}: {key}", f"expected a list, got {_kind(extra[key])}")
+            for i, entry in enumerate(extra[key]):
+                check_raw(entry, f"{source}: {key}[{i}]")
+    read_chains(extra, source)
     read_checks(extra, source)
     return Session(mounts=mounts, selected=selected, preferences=prefs, description=description, extra=extra,
                    reference_frame=reference_frame)
 
 
+_UNEXPECTED = (FramewrightError, TypeError, ValueError, OverflowError, KeyError, IndexError, AttributeError,
+               RecursionError, ZeroDivisionError, MemoryError)
+
+
+def _session_from_bytes(raw: bytes, source: str) -> Session:
+    try:
+        data = bounded_json.parse(raw)
+    except bounded_json.BoundedJsonError as exc:
+        raise SessionFileError(f"{source}: {exc}") from None
+    try:
+        return session_from_dict(data, source=source)
+    except SessionFileError:
+        raise
+    except _UNEXPECTED as exc:
+        # A value that passed the checks above but not a constructor: still a refusal, never a crash.
+        error = SessionFileError(f"{source}: not a valid session ({exc})"[:2000])
+        error.unexpected = True
+        raise error from None
+
+
 def load_session(path: str | os.PathLike) -> Session:
-    """Read a session file; every failure is a SessionFileError naming the file and the problem."""
-    path = Path(path)
+    """Read a session file; every failure, for any bytes in any file, is a SessionFileError naming the
+    file, the field and the problem."""
     try:
-        raw = path.read_bytes()
-    except OSError as exc:
-        raise SessionFileError(f"{path}: cannot be read ({exc.strerror or exc})") from None
-    try:
-        text = raw.decode("utf-8")
-    except UnicodeDecodeError as exc:
-        raise SessionFileError(f"{path}: not a text file in UTF-8 (byte {exc.start}); "
-                               "it may be damaged or not a session file") from None
-    if not text.strip():
-        raise SessionFileError(f"{path}: the file is empty")
-    try:
-        data = json.loads(text)
-    except json.JSONDecodeError as exc:
-        raise SessionFileError(f"{path}: damaged JSON at line {exc.lineno}, column {exc.colno}: {exc.msg}") from None
-    return session_from_dict(data, source=str(path))
+        raw = bounded_json.read_capped(path)
+    except bounded_json.BoundedJsonError as exc:
+        raise SessionFileError(f"{path}: {exc}") from None
+    return _session_from_bytes(raw, str(path))

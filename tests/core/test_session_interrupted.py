@@ -56,3 +56,42 @@ def test_a_save_killed_between_fsync_and_rename_leaves_the_old_file_intact(tmp_p
     leftovers = [p for p in tmp_path.iterdir() if p != path]
     assert len(leftovers) == 1 and leftovers[0].name.startswith(".rig.fwsession.json.")
     assert load_session(leftovers[0]).mounts[0].name == "new contents"
+
+
+def test_the_next_save_removes_the_temporary_a_killed_save_left(tmp_path):
+    path = tmp_path / "rig.fwsession.json"
+    save_session(_session(), path)
+    result = subprocess.run([sys.executable, "-c", KILLED_SAVE, str(path)], cwd=ROOT, capture_output=True,
+                            text=True, timeout=60, env={"PYTHONPATH": str(ROOT), "PATH": "/usr/bin:/bin"})
+    assert result.returncode == -9, result.stderr
+    assert len([p for p in tmp_path.iterdir() if p != path]) == 1        # the killed save's temporary
+    save_session(_session("saved again"), path)    # its process is gone: the temporary is stale
+    assert [p.name for p in tmp_path.iterdir()] == [path.name]
+    assert load_session(path).mounts[0].name == "saved again"
+
+
+KILLED_MID_WRITE = """
+import os, sys
+import core.atomic_file as atomic_file
+from core.session import Mount, Session, save_session
+
+real_write = os.write
+def die_half_way(fd, data):
+    real_write(fd, bytes(data[: len(data) // 2]))
+    os.kill(os.getpid(), 9)          # killed with half the new contents written
+
+atomic_file.os.write = die_half_way
+save_session(Session((Mount("new contents", notes="long notes " * 500),)), sys.argv[1])
+"""
+
+
+def test_a_save_killed_half_way_through_writing_leaves_the_old_file_intact(tmp_path):
+    path = tmp_path / "rig.fwsession.json"
+    save_session(_session(), path)
+    before = path.read_bytes()
+    result = subprocess.run([sys.executable, "-c", KILLED_MID_WRITE, str(path)], cwd=ROOT, capture_output=True,
+                            text=True, timeout=60, env={"PYTHONPATH": str(ROOT), "PATH": "/usr/bin:/bin"})
+    assert result.returncode == -9, result.stderr
+    assert path.read_bytes() == before
+    save_session(_session(), path)
+    assert [p.name for p in tmp_path.iterdir()] == [path.name]
