@@ -27,7 +27,8 @@ directions solves Wahba's problem (1965) by the SVD of the attitude profile matr
 Davenport's q-method). The angle between the pair is the quality figure: errors about the poorly
 seen axis grow like 1 / sin(angle); nearly parallel directions are refused.
 
-Any finite numbers are accepted: points are divided by a power of two near their largest magnitude
+Points, directions and weights are numbered from 1 in messages, as a person counts rows. Any finite
+numbers are accepted: points are divided by a power of two near their largest magnitude
 before any arithmetic (exact, so ordinary input gives the same digits), every step runs at unit scale,
 and lengths are multiplied back at the end. Only a result beyond the range of a double (a translation or
 residual above about 1.8e308) or point sets whose spread is lost against their coordinates are refused;
@@ -80,7 +81,7 @@ def _points(values, what):
         raise InvalidInputError(f"{what}: expected shape (N, 3), got {array.shape}")
     if not np.isfinite(array).all():
         row = int(np.argwhere(~np.isfinite(array))[0, 0])
-        raise InvalidInputError(f"{what}: point {row} has NaN or infinity; expected finite numbers")
+        raise InvalidInputError(f"{what}: point {row + 1} has NaN or infinity; expected finite numbers")
     return array
 
 
@@ -93,7 +94,7 @@ def _weights(weights, n, what="weights"):
     bad = ~np.isfinite(w) | (w < 0)
     if bad.any():
         i = int(np.argmax(bad))
-        raise InvalidInputError(f"{what}: weight {i} is {w[i]!r}; expected a finite number >= 0")
+        raise InvalidInputError(f"{what}: weight {i + 1} is {w[i]!r}; expected a finite number >= 0")
     return w / _binary_scale(_largest(w))    # only their ratios count; 1e308s must not overflow the sum
 
 

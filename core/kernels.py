@@ -117,12 +117,13 @@ def check_flag(value, name):
 def unit_vectors(v, what="direction"):
     """Unit vectors of `v` (..., n) and their lengths, scaled by the largest component first so that
     components of 1e200 or 1e-200 neither overflow nor underflow. A length beyond the largest double
-    comes back as inf (the direction is still right); a zero vector is refused, naming its index."""
+    comes back as inf (the direction is still right); a zero vector is refused, naming its number
+    (counted from 1)."""
     v = np.asarray(v, dtype=np.float64)
     scale = np.abs(v).max(axis=-1, keepdims=True)
     zero = scale[..., 0] == 0
     if np.any(zero):
-        at = f" {int(np.argmax(zero.ravel()))}" if v.ndim > 1 else ""
+        at = f" {int(np.argmax(zero.ravel())) + 1}" if v.ndim > 1 else ""   # counted from 1, as rows are
         raise InvalidInputError(f"{what}{at} has zero length; expected a non-zero (x, y, z)")
     scaled = v / scale
     norms = np.sqrt(np.einsum("...i,...i->...", scaled, scaled))[..., None]
