@@ -32,7 +32,7 @@ class PartDialog(QDialog):
             field = QLineEdit(f"{value:g}")
             field.setMaxLength(_LONGEST_SIZE_TEXT)
             field.setToolTip(f"Box size along body {axis}, in mm ('.' as the decimal point), from "
-                             f"{SMALLEST_BOX_MM:g} to {LARGEST_BOX_MM:g}.")
+                             f"{SMALLEST_BOX_MM:g} mm to {LARGEST_BOX_MM:,.0f} mm.")
             size_row.addWidget(QLabel(f"{axis}"))
             size_row.addWidget(field)
             self.size_fields.append(field)
@@ -76,8 +76,8 @@ class PartDialog(QDialog):
             except ValueError as exc:
                 raise ValueError(f"box size {axis}: {exc}") from None
             if not SMALLEST_BOX_MM <= size <= LARGEST_BOX_MM:
-                raise ValueError(f"box size {axis}: {field.text().strip()} mm is outside the sizes a part can have; expected "
-                                 f"a positive size from {SMALLEST_BOX_MM:g} to {LARGEST_BOX_MM:g} mm")
+                raise ValueError(f"box size {axis}: {field.text().strip()} mm is outside the sizes a part can have; "
+                                 f"expected a positive size from {SMALLEST_BOX_MM:g} mm to {LARGEST_BOX_MM:,.0f} mm")
             sizes.append(size)
         names = {key: f.text().strip() for key, f in self.name_fields.items() if f.text().strip()}
         return PartProperties(tuple(sizes), names, self.boresight_box.currentData())

@@ -133,9 +133,10 @@ def _spread_check(size, largest, scale, what, p, q):
     at the working scale; `scale` turns them back into the user's numbers)."""
     if size < _SPREAD_FLOOR * largest:
         raise FitRefusedError(
-            f"the {what} points spread over only {size * scale:.3g} while {_largest_entry(p, q)} "
-            f"(a ratio of {size / largest:.2g}): double precision cannot resolve the rotation; expected nominal and "
-            f"measured points in one unit, with no huge coordinate or common offset", "range")
+            f"{_largest_entry(p, q)} is out of all proportion to the spread of the {what} points, "
+            f"{size * scale:.3g} (a ratio of {size / largest:.2g}): double precision cannot resolve the "
+            f"rotation; expected nominal and measured points in one unit, with no huge coordinate (a mistyped "
+            f"exponent?) or common offset", "range")
 
 
 def _rotation_from_profile(h):

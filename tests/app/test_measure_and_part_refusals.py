@@ -167,7 +167,7 @@ def ok_button(dialog):
 @pytest.mark.parametrize("text, words, axis", [
     ("5e-324", "5e-324 mm is outside the sizes a part can have", 0),
     ("0.0001", "0.0001 mm is outside", 1), ("1e7", "1e7 mm is outside", 2), ("1e300", "1e300 mm is outside", 0),
-    ("0", "expected a positive size from 0.001 to 1e+06 mm", 1), ("-0", "positive", 2), ("-3", "positive", 0),
+    ("0", "expected a positive size from 0.001 mm to 1,000,000 mm", 1), ("-0", "positive", 2), ("-3", "positive", 0),
     ("nan", "not a finite number", 1), ("inf", "not a finite number", 2), ("1e400", "not a finite number", 0),
     ("0x10", "is not a number", 1), ("<b>9</b>", "is not a number", 2),
 ])
