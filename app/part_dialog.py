@@ -12,6 +12,11 @@ from core.number_text import parse_number
 from core.session import FACE_KEYS, PartProperties
 
 ERROR_STYLE = "color: #b00020;"
+# The sizes a box part can have, in mm: a micrometre to a kilometre. Smaller or larger is a typo or a unit
+# mix-up, and near zero the Scene's drawing scale (1 / size) would divide by nearly nothing. The session
+# loader holds saved sizes to the same range.
+SMALLEST_BOX_MM, LARGEST_BOX_MM = 1e-3, 1e6
+_LONGEST_SIZE_TEXT = 64
 
 
 class PartDialog(QDialog):
@@ -25,7 +30,9 @@ class PartDialog(QDialog):
         size_row = QHBoxLayout()
         for axis, value in zip("XYZ", part.box_size_mm):
             field = QLineEdit(f"{value:g}")
-            field.setToolTip(f"Box size along body {axis}, in mm ('.' as the decimal point).")
+            field.setMaxLength(_LONGEST_SIZE_TEXT)
+            field.setToolTip(f"Box size along body {axis}, in mm ('.' as the decimal point), from "
+                             f"{SMALLEST_BOX_MM:g} mm to {LARGEST_BOX_MM:,.0f} mm.")
             size_row.addWidget(QLabel(f"{axis}"))
             size_row.addWidget(field)
             self.size_fields.append(field)
@@ -65,9 +72,13 @@ class PartDialog(QDialog):
         sizes = []
         for axis, field in zip("XYZ", self.size_fields):
             try:
-                sizes.append(parse_number(field.text()))
+                size = parse_number(field.text())
             except ValueError as exc:
                 raise ValueError(f"box size {axis}: {exc}") from None
+            if not SMALLEST_BOX_MM <= size <= LARGEST_BOX_MM:
+                raise ValueError(f"box size {axis}: {field.text().strip()} mm is outside the sizes a part can have; "
+                                 f"expected a positive size from {SMALLEST_BOX_MM:g} mm to {LARGEST_BOX_MM:,.0f} mm")
+            sizes.append(size)
         names = {key: f.text().strip() for key, f in self.name_fields.items() if f.text().strip()}
         return PartProperties(tuple(sizes), names, self.boresight_box.currentData())
 

@@ -2,6 +2,7 @@
 
 from core.errors import (
     DecodeError,
+    FlagTypeError,
     FramewrightError,
     InvalidInputError,
     MatrixRefusedError,
@@ -12,6 +13,7 @@ from core.orientation import AngleSet, Orientation
 __all__ = [
     "AngleSet",
     "DecodeError",
+    "FlagTypeError",
     "FramewrightError",
     "InvalidInputError",
     "MatrixRefusedError",

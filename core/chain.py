@@ -15,15 +15,25 @@ Session-file form (to_dict / from_dict)::
      "steps": [{"name": "bracket", "orientation": {"quaternion_wxyz": [w, x, y, z]},
                 "inverted": false, "enabled": true}, ...]}
 
-The orientation entry has the same form as a mount's in core/session.py.
+The orientation entry has the same form as a mount's in core/session.py, and the same rule: a stored
+quaternion is unit within UNIT_TOLERANCE or the file is refused (naming the step), never normalised
+silently. A quaternion typed or pasted by a person is a different thing: the decoder and the editors
+normalise it and say so in a note before it ever becomes a step.
 """
 
 from __future__ import annotations
 
 from dataclasses import dataclass, replace
 
+import numpy as np
+
+from core import kernels
 from core.errors import FramewrightError, InvalidInputError
 from core.orientation import Orientation
+
+# As the session loader's mounts: a saved quaternion is unit to about 1e-16, so anything off by more
+# than this was edited by hand or damaged.
+UNIT_TOLERANCE = 1e-6
 
 
 @dataclass(frozen=True)
@@ -73,11 +83,31 @@ class ChainStep:
         if not isinstance(orientation, dict) or "quaternion_wxyz" not in orientation:
             raise FramewrightError(f"{where}: orientation must be {{\"quaternion_wxyz\": [w, x, y, z]}}, "
                                    f"got {orientation!r}")
+        if isinstance(data["name"], str):   # named, shortened: a name can be any length
+            name = data["name"]
+            where = f"{where} ({name[:40]!r}{'…' if len(name) > 40 else ''})"
         try:
+            _check_unit(orientation["quaternion_wxyz"])
             value = Orientation.from_quaternion(orientation["quaternion_wxyz"])
             return cls(data["name"], value, data.get("inverted", False), data.get("enabled", True))
         except FramewrightError as exc:
             raise type(exc)(f"{where}: {exc}") from exc
+
+
+def _check_unit(values):
+    """Refuse a stored quaternion whose norm (computed scaled, so 1e200 does not overflow) is not 1."""
+    if isinstance(values, (bool, str)) or not isinstance(values, (list, tuple)) or \
+            any(isinstance(v, bool) or not isinstance(v, (int, float)) for v in values):
+        raise InvalidInputError(f"quaternion_wxyz: expected a list of 4 numbers, got {values!r}")
+    q = kernels.check_array(values, (4,), "quaternion_wxyz")
+    if q.shape != (4,):
+        raise InvalidInputError(f"quaternion_wxyz: expected 4 numbers, got shape {q.shape}")
+    if not np.any(q):
+        raise InvalidInputError("quaternion of zero length; expected a unit (w, x, y, z)")
+    norm = float(kernels.unit_vectors(q, "quaternion")[1])
+    if not abs(norm - 1.0) <= UNIT_TOLERANCE:
+        raise InvalidInputError(f"quaternion_wxyz: expected a unit quaternion, its norm is {norm:.9g} "
+                                f"(the file may be damaged; limit 1 ± {UNIT_TOLERANCE:g})")
 
 
 @dataclass(frozen=True)

@@ -61,10 +61,9 @@ def axis_vector(spec, what="body axis"):
     v = kernels.check_array(spec, (3,), what)
     if v.shape != (3,):
         raise InvalidInputError(f"{what}: expected three numbers, got shape {v.shape}")
-    length = float(np.linalg.norm(v))
-    if length == 0:
+    if not np.any(v):
         raise InvalidInputError(f"{what}: zero-length direction; expected a non-zero (x, y, z)")
-    return v / length
+    return kernels.unit_vectors(v, what)[0]   # scaled: 1e200 or 1e-200 keeps its direction
 
 
 # --- array functions (radians) ---------------------------------------------------------------------

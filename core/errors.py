@@ -23,3 +23,9 @@ class MatrixRefusedError(FramewrightError):
 
 class DecodeError(FramewrightError):
     """Pasted text that cannot be read as an orientation."""
+
+
+class FlagTypeError(InvalidInputError, TypeError):
+    """A keyword flag (degrees, intrinsic, scalar_last, transposed, ...) given something other than
+    True or False: None, 1 or "yes" would otherwise be read by their truth value and could silently mean
+    the other convention."""

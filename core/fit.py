@@ -26,10 +26,18 @@ direction exactly and the plane of the pair; the least-squares answer for two or
 directions solves Wahba's problem (1965) by the SVD of the attitude profile matrix (the same optimum as
 Davenport's q-method). The angle between the pair is the quality figure: errors about the poorly
 seen axis grow like 1 / sin(angle); nearly parallel directions are refused.
+
+Points, directions and weights are numbered from 1 in messages, as a person counts rows. Any finite
+numbers are accepted: points are divided by a power of two near their largest magnitude
+before any arithmetic (exact, so ordinary input gives the same digits), every step runs at unit scale,
+and lengths are multiplied back at the end. Only a result beyond the range of a double (a translation or
+residual above about 1.8e308) or point sets whose spread is lost against their coordinates are refused;
+the linear algebra never sees an infinity, and its rare failures come back as a FitRefusedError.
 """
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass
 
 import numpy as np
@@ -40,17 +48,23 @@ from core.orientation import Orientation
 
 COLLINEAR_REFUSE = 1e-3
 COLLINEAR_NOTE = 5e-2
+MEASURED_COLLINEAR_REFUSE = 1e-6
 FLAG_Z = 3.5
 FLAG_MIN_POINTS = 5
 MIN_PAIR_ANGLE_DEG = 2.0
 WEAK_PAIR_ANGLE_DEG = 15.0
 _MAD_TO_Z = 0.6745
+# A point set whose spread is below this fraction of its largest coordinate is not resolved in double
+# precision (and its squares would underflow): refused as a unit or offset mistake.
+_SPREAD_FLOOR = 1e-100
+_NO_SCALE_BELOW, _NO_SCALE_ABOVE = 1e-50, 1e50
 
 
 class FitRefusedError(FramewrightError):
     """The measurements do not determine an orientation (collinear, mirrored, parallel, too few).
 
-    `reason` is one of 'too few', 'collinear', 'reflection', 'parallel'."""
+    `reason` is one of 'too few', 'collinear', 'reflection', 'parallel', 'range' (numbers a double cannot
+    carry through the fit) or 'numerical' (the linear algebra did not converge)."""
 
     def __init__(self, message, reason):
         super().__init__(message)
@@ -60,13 +74,14 @@ class FitRefusedError(FramewrightError):
 def _points(values, what):
     try:
         array = np.asarray(values, dtype=np.float64)
-    except (TypeError, ValueError) as exc:
-        raise InvalidInputError(f"{what}: expected rows of three numbers, got {values!r}") from exc
+    except (TypeError, ValueError, OverflowError) as exc:
+        raise InvalidInputError(f"{what}: expected rows of three numbers, got "
+                                f"{kernels.shortened_repr(values)}") from exc
     if array.ndim != 2 or array.shape[1] != 3:
         raise InvalidInputError(f"{what}: expected shape (N, 3), got {array.shape}")
     if not np.isfinite(array).all():
         row = int(np.argwhere(~np.isfinite(array))[0, 0])
-        raise InvalidInputError(f"{what}: point {row} has NaN or infinity; expected finite numbers")
+        raise InvalidInputError(f"{what}: point {row + 1} has NaN or infinity; expected finite numbers")
     return array
 
 
@@ -79,14 +94,61 @@ def _weights(weights, n, what="weights"):
     bad = ~np.isfinite(w) | (w < 0)
     if bad.any():
         i = int(np.argmax(bad))
-        raise InvalidInputError(f"{what}: weight {i} is {w[i]!r}; expected a finite number >= 0")
-    return w
+        raise InvalidInputError(f"{what}: weight {i + 1} is {w[i]!r}; expected a finite number >= 0")
+    return w / _binary_scale(_largest(w))    # only their ratios count; 1e308s must not overflow the sum
+
+
+def _largest(a):
+    """The largest magnitude in `a` (0 for an empty array), without an |a| temporary."""
+    return max(float(a.max()), -float(a.min())) if a.size else 0.0
+
+
+def _binary_scale(largest):
+    """A power of two s with largest / s in [1, 2): dividing by it is exact and brings any finite
+    magnitude, 5e-324 or 1.797e308, to unit scale (1 for zero)."""
+    return 1.0 if largest == 0 else math.ldexp(1.0, math.frexp(largest)[1] - 1)
+
+
+def _scaled_back(scale, *arrays, what="the fitted translation or residuals"):
+    """The unit-scale results times `scale` (arrays in place), refused when a length no longer fits in a
+    double."""
+    with np.errstate(over="ignore"):
+        out = [np.multiply(a, scale, out=a) if isinstance(a, np.ndarray) else a * scale for a in arrays]
+    if not all(np.isfinite(a).all() for a in out):
+        raise FitRefusedError(
+            f"{what} exceed the largest number a double holds (about 1.8e308); expected points that lie "
+            f"closer together than that", "range")
+    return out
+
+
+def _largest_entry(p, q):
+    """Words for where the largest magnitude of two (N, 3) point sets is: 'measured point 2, y'."""
+    which, points = max((("nominal", p), ("measured", q)), key=lambda item: _largest(item[1]))
+    row, column = np.unravel_index(int(np.argmax(np.abs(points))), points.shape)
+    return f"{which} point {row + 1}, {'xyz'[column]} = {points[row, column]:.4g}"
+
+
+def _spread_check(size, largest, scale, what, p, q):
+    """Refuse a point set whose spread (`size`) is lost against the largest coordinate (`largest`, both
+    at the working scale; `scale` turns them back into the user's numbers)."""
+    if size < _SPREAD_FLOOR * largest:
+        raise FitRefusedError(
+            f"{_largest_entry(p, q)} is out of all proportion to the spread of the {what} points, "
+            f"{size * scale:.3g} (a ratio of {size / largest:.2g}): double precision cannot resolve the "
+            f"rotation; expected nominal and measured points in one unit, with no huge coordinate (a mistyped "
+            f"exponent?) or common offset", "range")
 
 
 def _rotation_from_profile(h):
     """The proper rotation maximising trace(Rᵀ H), with the singular values and the sign d that was
     needed (d = −1: the best orthogonal matrix would have been a reflection)."""
-    u, s, vt = np.linalg.svd(h)
+    if not np.isfinite(h).all():   # never reached with unit-scale input; an SVD of inf would not return
+        raise FitRefusedError("the fit's sums overflowed; expected coordinates below about 1e308", "range")
+    try:
+        u, s, vt = np.linalg.svd(h)
+    except np.linalg.LinAlgError as exc:
+        raise FitRefusedError(f"the singular value decomposition did not converge ({exc}); expected "
+                              f"ordinary coordinates", "numerical") from None
     d = 1.0 if np.linalg.det(u) * np.linalg.det(vt) > 0 else -1.0
     u[:, 2] *= d
     return u @ vt, s, d
@@ -149,10 +211,18 @@ def fit_points(nominal, measured, weights=None):
     if used < 3:
         raise FitRefusedError(f"{used} point pair(s) with weight above zero; expected at least 3", "too few")
 
-    # Points as (3, N) rows, so every step below runs over contiguous memory, centred in place (large
-    # temporaries cost more in fresh pages than in arithmetic). Weights are normalised to sum 1.
+    # Points as (3, N) rows, so every step below runs over contiguous memory, scaled and centred in place
+    # (large temporaries cost more in fresh pages than in arithmetic). Weights are normalised to sum 1.
+    # Everything runs at unit scale (see the module docstring) and is scaled back at the end.
+    largest = max(_largest(p), _largest(q))
+    # Coordinates between 1e-50 and 1e50 keep every square and sum in range as they are (the common
+    # case costs nothing); beyond, they are brought to unit scale by a power of two.
+    scale = 1.0 if _NO_SCALE_BELOW <= largest <= _NO_SCALE_ABOVE or largest == 0 else _binary_scale(largest)
     Pc = np.array(p.T, order="C")
     Qc = np.array(q.T, order="C")
+    if scale != 1.0:
+        Pc /= scale
+        Qc /= scale
     weight = np.full(n, 1.0 / n) if w is None else w / w.sum()
     p_mean = Pc @ weight
     q_mean = Qc @ weight
@@ -169,11 +239,14 @@ def fit_points(nominal, measured, weights=None):
         energy_p = float(np.trace(scatter))
         del Pw
 
-    spread = np.linalg.eigvalsh(scatter)          # ascending
-    if spread[2] <= 0:
+    spread = _eigenvalues(scatter)
+    if spread[2] <= 0:   # every point of weight above zero at one place, or a spread lost to underflow
+        if _largest(Pc) > 0:
+            _spread_check(_largest(Pc), largest / scale, scale, "nominal", p, q)
         raise FitRefusedError("all nominal points coincide; expected points spread over the part", "collinear")
     spread_ratio = float(np.sqrt(max(spread[1], 0.0) / spread[2]))
     size = float(np.sqrt(spread[2]))
+    _spread_check(size, largest / scale, scale, "nominal", p, q)
     if spread_ratio < COLLINEAR_REFUSE:
         raise FitRefusedError(
             f"the nominal points lie on one line (off-line spread {spread_ratio:.2g} of the along-line "
@@ -181,6 +254,21 @@ def fit_points(nominal, measured, weights=None):
             f"expected at least one point well off the line", "collinear")
 
     r, s, d = _rotation_from_profile(h)
+    if s[0] == 0:
+        raise FitRefusedError("all measured points coincide: the rotation is not determined; expected the "
+                              "measured points spread like the nominal ones", "collinear")
+    _spread_check(float(s[0]) / size, largest / scale, scale, "measured", p, q)   # s0 ≈ both spreads
+    # Measured points on one line while the nominal ones are not (no rigid motion does that) leave the
+    # profile matrix of rank one, and the rotation about that line would be whatever the SVD returned.
+    # Only a degenerate set is refused; one far-off point is left to the residuals and the flags.
+    if s[1] <= MEASURED_COLLINEAR_REFUSE * s[0]:
+        farthest = int(np.argmax(np.einsum("ij,ij->j", Qc, Qc)))
+        raise FitRefusedError(
+            f"the measured points lie on one line (their second spread is {s[1] / s[0]:.2g} of the first, "
+            f"limit {MEASURED_COLLINEAR_REFUSE:g}) while the nominal points do not: no rotation takes one "
+            f"onto the other and the rotation about that line is not determined; the farthest from the "
+            f"others is measured point {farthest + 1}; expected the measured points spread like the "
+            f"nominal ones (a repeated or mistyped row?)", "collinear")
     if d < 0 and s[2] > 1e-9 * s[0]:
         # The best mirror fit and the best rotation differ in residual energy by 4 s3: refuse when the
         # mirror explains the points clearly better than any rotation could.
@@ -198,13 +286,18 @@ def fit_points(nominal, measured, weights=None):
     sq = np.einsum("ij,ij->j", residual_rows, residual_rows)
     rms = float(np.sqrt(sq @ weight))
     distances = np.sqrt(sq, out=sq)
-    residuals = residual_rows.T
     flagged, threshold = _flag(distances, size)
+    rms_unit_scale = rms
+    if scale != 1.0:
+        extra = () if threshold is None else (threshold,)
+        t, residual_rows, distances, rms, *extra = _scaled_back(scale, t, residual_rows, distances, rms, *extra)
+        rms, threshold = float(rms), float(extra[0]) if extra else None
+    residuals = residual_rows.T
 
     notes = []
     if spread_ratio < COLLINEAR_NOTE:
         off_line = float(np.sqrt(max(spread[1] + spread[0], 0.0)))
-        uncertainty = np.degrees(np.arctan2(rms, off_line * np.sqrt(used)))
+        uncertainty = np.degrees(np.arctan2(rms_unit_scale, off_line * np.sqrt(used)))
         notes.append(f"the nominal points are nearly collinear (off-line spread {spread_ratio:.2g} of the "
                      f"along-line spread): the rotation about their line is weakly determined, about "
                      f"±{uncertainty:.2g}° from the residuals")
@@ -215,6 +308,15 @@ def fit_points(nominal, measured, weights=None):
     orientation = Orientation(kernels.matrices_to_quaternions(r))
     return PointFit(orientation, t, residuals, distances, rms, int(np.argmax(distances)), flagged, threshold,
                     spread_ratio, tuple(notes))
+
+
+def _eigenvalues(symmetric):
+    """Ascending eigenvalues of a 3x3 symmetric matrix; a failure is the fit's own refusal."""
+    try:
+        return np.linalg.eigvalsh(symmetric)
+    except np.linalg.LinAlgError as exc:
+        raise FitRefusedError(f"the spread of the points could not be computed ({exc}); expected ordinary "
+                              f"coordinates", "numerical") from None
 
 
 def _median(values):
@@ -249,26 +351,34 @@ def frame_from_three_points(origin, on_x_axis, in_xy_plane):
     """The body frame from three measured points (reference frame): X from the origin towards the X-axis
     point, Z normal to the plane of the three (right-handed, so the third point is on the +Y side),
     Y = Z × X."""
-    o, a, b = _points([origin, on_x_axis, in_xy_plane], "three datum points")
-    x = a - o
-    x_distance = float(np.linalg.norm(x))
-    size = max(x_distance, float(np.linalg.norm(b - o)))
-    if x_distance == 0 or x_distance <= 1e-12 * size:
+    points = _points([origin, on_x_axis, in_xy_plane], "three datum points")
+    # At unit scale (a power of two, exact), so differences and lengths of any finite points are in range.
+    scale = _binary_scale(_largest(points))
+    o, a, b = points / scale
+    x, x_length = _length(a - o)
+    to_b, b_length = _length(b - o)
+    size = max(x_length, b_length)
+    if x_length == 0 or x_length <= 1e-12 * size:
         raise FitRefusedError("the X-axis point coincides with the origin; expected a point some way along "
                               "the body +X axis", "collinear")
-    x /= x_distance
-    z = np.cross(x, b - o)
-    off_axis = float(np.linalg.norm(z))
+    z, off_axis = _length(np.cross(x, to_b) * b_length)
     if off_axis <= 1e-9 * size:
         raise FitRefusedError("the XY-plane point lies on the X axis: the rotation about X is not "
                               "determined; expected a point well off the X axis, on the +Y side", "collinear")
-    z /= off_axis
     y = np.cross(z, x)
+    x_distance, off_axis_distance = _scaled_back(scale, x_length, off_axis, what="the distances between the points")
     notes = ()
-    if off_axis < COLLINEAR_NOTE * x_distance:
-        notes = (f"the XY-plane point is only {off_axis:.3g} off the X axis ({off_axis / x_distance:.2g} of "
-                 f"the X distance): the rotation about X is weakly determined",)
-    return PointFrame(Orientation(kernels.matrices_to_quaternions(np.column_stack([x, y, z]))), o, x_distance, off_axis, notes)
+    if off_axis < COLLINEAR_NOTE * x_length:
+        notes = (f"the XY-plane point is only {off_axis_distance:.3g} off the X axis ({off_axis / x_length:.2g} "
+                 f"of the X distance): the rotation about X is weakly determined",)
+    return PointFrame(Orientation(kernels.matrices_to_quaternions(np.column_stack([x, y, z]))), points[0],
+                      float(x_distance), float(off_axis_distance), notes)
+
+
+def _length(v):
+    """(unit vector, length) of a 3-vector at unit scale; (v, 0.0) for the zero vector."""
+    length = float(np.linalg.norm(v))
+    return (v / length if length > 0 else v), length
 
 
 # --- directions ------------------------------------------------------------------------------------
@@ -298,12 +408,8 @@ class DirectionFit:
 
 
 def _directions(values, what):
-    v = _points(values, what)
-    lengths = np.linalg.norm(v, axis=1)
-    if np.any(lengths == 0):
-        raise InvalidInputError(f"{what}: direction {int(np.argmin(lengths))} has zero length; "
-                                f"expected a non-zero (x, y, z)")
-    return v / lengths[:, None]
+    """Unit directions, scaled first: 1e200 or 1e-200 keeps its direction; zero is refused by index."""
+    return kernels.unit_vectors(_points(values, what), f"{what}: direction")[0]
 
 
 def _spread_angle_deg(unit):

@@ -12,6 +12,7 @@ import numpy as np
 
 from core import kernels
 from core.errors import InvalidInputError, MatrixRefusedError
+from core.kernels import check_flag
 from core.nearest import orthogonality_report
 from core.sequences import parse_sequence
 
@@ -28,6 +29,16 @@ def _check_angle_size(values, degrees, what):
         raise InvalidInputError(
             f"{what}: {largest:.3g}° is more than a million turns; expected an angle in "
             f"{'degrees' if degrees else 'radians'} (is a decimal point missing?)")
+
+
+def _unit_range(q, what):
+    """`q` scaled by its largest component when that lies outside 1e-150..1e150, so the squares of its
+    components neither overflow nor underflow; a zero vector is refused. In range it is left exactly as
+    it is (a saved unit quaternion must read back bit for bit)."""
+    scale = float(np.abs(q).max())
+    if scale == 0:
+        raise InvalidInputError(f"{what} of zero length; expected a non-zero (w, x, y, z)")
+    return q / scale if not 1e-150 < scale < 1e150 else q
 
 
 def _vector_length(v):
@@ -69,7 +80,7 @@ class Orientation:
         q = kernels.check_array(quaternion_wxyz, (4,), "quaternion")
         if q.shape != (4,):
             raise InvalidInputError(f"quaternion: expected 4 numbers, got shape {q.shape}")
-        q, _ = kernels.normalize_quaternions(q)
+        q, _ = kernels.normalize_quaternions(_unit_range(q, "quaternion"))
         q = kernels.canonical_quaternions(q)
         q.setflags(write=False)
         object.__setattr__(self, "_q", q)
@@ -104,7 +115,7 @@ class Orientation:
         q = kernels.check_array(quaternion, (4,), "quaternion")
         if q.shape != (4,):
             raise InvalidInputError(f"quaternion: expected 4 numbers, got shape {q.shape}")
-        if scalar_last:
+        if check_flag(scalar_last, "scalar_last"):
             q = np.roll(q, 1)
         norm = _vector_length(q)
         if norm == 0:
@@ -114,7 +125,7 @@ class Orientation:
 
     def as_quaternion(self, scalar_last=False):
         """Canonical unit quaternion: (w, x, y, z), or (x, y, z, w) with scalar_last=True."""
-        return np.roll(self._q, -1) if scalar_last else self._q.copy()
+        return np.roll(self._q, -1) if check_flag(scalar_last, "scalar_last") else self._q.copy()
 
     @property
     def quaternion(self):
@@ -138,7 +149,7 @@ class Orientation:
         m = kernels.check_array(matrix, (3, 3), "matrix")
         if m.shape != (3, 3):
             raise InvalidInputError(f"matrix: expected 3x3, got shape {m.shape}")
-        if transposed:
+        if check_flag(transposed, "transposed"):
             m = m.T
         report = orthogonality_report(m)
         if not report.accepted:
@@ -148,6 +159,7 @@ class Orientation:
 
     def as_matrix(self, transposed=False):
         """3x3 body -> reference matrix, or its transpose (reference -> body) with transposed=True."""
+        transposed = check_flag(transposed, "transposed")
         if self._matrix is None:
             m = kernels.quaternions_to_matrices(self._q)
             m.setflags(write=False)
@@ -159,6 +171,7 @@ class Orientation:
     @classmethod
     def from_axis_angle(cls, axis, angle, degrees=True):
         """Rotation by `angle` about `axis` (right-hand rule). A non-unit axis is normalised, noted."""
+        degrees = check_flag(degrees, "degrees")
         axis = kernels.check_array(axis, (3,), "axis")
         if axis.shape != (3,):
             raise InvalidInputError(f"axis: expected 3 numbers, got shape {axis.shape}")
@@ -174,11 +187,13 @@ class Orientation:
 
     def as_axis_angle(self, degrees=True):
         """(unit axis, angle) with the angle in [0, 180] degrees; the axis is (0, 0, 0) at angle 0."""
+        degrees = check_flag(degrees, "degrees")
         axis, angle = kernels.quaternions_to_axis_angles(self._q, assume_canonical=True)
         return axis, float(_angle_out(angle, degrees))
 
     @classmethod
     def from_rotation_vector(cls, rotation_vector, degrees=True):
+        degrees = check_flag(degrees, "degrees")
         rv = kernels.check_array(rotation_vector, (3,), "rotation vector")
         if rv.shape != (3,):
             raise InvalidInputError(f"rotation vector: expected 3 numbers, got shape {rv.shape}")
@@ -186,6 +201,7 @@ class Orientation:
         return cls._from_kernel(kernels.rotation_vectors_to_quaternions(_angle_in(rv, degrees)))
 
     def as_rotation_vector(self, degrees=True):
+        degrees = check_flag(degrees, "degrees")
         return _angle_out(kernels.quaternions_to_rotation_vectors(self._q, assume_canonical=True), degrees)
 
     # --- angle sequences ----------------------------------------------------------------------------
@@ -195,6 +211,7 @@ class Orientation:
         """From three angles about the axes of `sequence` ('ZYX', "Z-Y'-X''", ...). Intrinsic turns about
         the moving body axes; extrinsic about the fixed reference axes in the order written."""
         sequence = parse_sequence(sequence)
+        intrinsic, degrees = check_flag(intrinsic, "intrinsic"), check_flag(degrees, "degrees")
         values = kernels.check_array(angles, (3,), "angles")
         if values.shape != (3,):
             raise InvalidInputError(f"angles: expected 3 numbers, got shape {values.shape}")
@@ -203,6 +220,7 @@ class Orientation:
 
     def as_angles(self, sequence, intrinsic=True, degrees=True):
         sequence = parse_sequence(sequence)
+        intrinsic, degrees = check_flag(intrinsic, "intrinsic"), check_flag(degrees, "degrees")
         angles, locked = kernels.quaternions_to_angles(self._q, sequence, intrinsic)
         angles = _angle_out(angles, degrees)
         angles.setflags(write=False)
@@ -222,7 +240,17 @@ class Orientation:
     def apply(self, vectors):
         """Body-frame vectors, shape (3,) or (N, 3), written in the reference frame: R · v."""
         v = kernels.check_array(vectors, (3,), "vectors")
-        return kernels.rotate_vectors(self._q, v)
+        scale = float(np.abs(v).max()) if v.size else 0.0
+        if scale <= 1e150:
+            return kernels.rotate_vectors(self._q, v)
+        # Rotated at unit scale, so the products inside cannot overflow; only a length beyond the largest
+        # double (the rotated vector is as long as the given one) is refused.
+        with np.errstate(over="ignore"):
+            rotated = kernels.rotate_vectors(self._q, v / scale) * scale
+        if not np.isfinite(rotated).all():
+            raise InvalidInputError("vectors: a vector is too long to rotate (its length exceeds the largest "
+                                    "number a double holds); expected components below about 1e308")
+        return rotated
 
     @property
     def angle(self):
@@ -231,10 +259,16 @@ class Orientation:
 
     def angle_to(self, other, degrees=True):
         """Angle of the rotation that takes this orientation onto `other`."""
+        degrees = check_flag(degrees, "degrees")
+        if not isinstance(other, Orientation):
+            raise InvalidInputError(f"angle_to: expected an Orientation, got {type(other).__name__}")
         return float(_angle_out(kernels.angles_between(self._q, other._q), degrees))
 
     def isclose(self, other, atol=1e-12):
         """Same orientation within `atol` radians (q and −q are the same orientation)."""
+        if isinstance(atol, bool) or not isinstance(atol, (int, float, np.integer, np.floating)) \
+                or not (np.isfinite(atol) and atol >= 0):
+            raise InvalidInputError(f"atol={atol!r}: expected a finite number of radians >= 0")
         return self.angle_to(other, degrees=False) <= atol
 
     def with_notes(self, notes):

@@ -50,6 +50,7 @@ def preset_names(sequence, intrinsic):
 def spelled_sequence(sequence, intrinsic, ascii=False):
     """'Z-Y′-X″' for intrinsic (primes mark the moving axes), 'Z-Y-X' for extrinsic. ascii=True writes
     the primes as ' and '' (for text that must read back anywhere)."""
+    intrinsic, ascii = kernels.check_flag(intrinsic, "intrinsic"), kernels.check_flag(ascii, "ascii")
     primes = ("", "'", "''") if ascii else ("", "\u2032", "\u2033")
     return "-".join(f"{a}{primes[i] if intrinsic else ''}" for i, a in enumerate(sequence))
 

@@ -180,11 +180,20 @@ class MatrixEditor(EditorBase):
                 self.note.setText(f"Used the nearest rotation: {note}")
 
     def paste_grid(self, text: str) -> bool:
-        """Fill all nine cells from pasted text with nine numbers, as printed (rows in order). Returns
-        False when the text is not nine numbers, so the cell gets an ordinary paste."""
+        """Fill all nine cells from pasted text with nine numbers, as printed (rows in order). Several
+        numbers that are not nine (a 2 × 2 matrix, a quaternion) are refused with a note and change
+        nothing: no other count is ever read as a 3 × 3 matrix. Returns False when the text is not
+        numbers, or one or two (a decimal comma, "1,5", reads as two: the cell then says what is wrong
+        with it), so the cell gets an ordinary paste."""
         numbers = numbers_in_text(text)
-        if numbers is None or len(numbers) != 9:
+        if numbers is None or len(numbers) <= 2:
             return False
+        if len(numbers) != 9:
+            square = int(round(len(numbers) ** 0.5))
+            shape = f" (a {square} × {square} matrix?)" if square * square == len(numbers) else ""
+            self.note.setText(f"Paste refused: {len(numbers)} numbers{shape}; a rotation matrix is 3 × 3, "
+                              f"nine numbers. Nothing was changed.")
+            return True
         for cell, value in zip(self.flat_cells(), numbers):
             cell.set_text(repr(float(value)))  # what was pasted, not rounded to the display digits
         self._on_typed()

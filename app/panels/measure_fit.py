@@ -8,7 +8,8 @@ from dataclasses import dataclass
 import numpy as np
 
 from app.editors.number_field import format_number
-from core.fit import fit_directions, fit_points, frame_from_three_points, triad
+from core.fit import FitRefusedError, fit_directions, fit_points, frame_from_three_points, triad
+from core.kernels import unit_vectors
 from core.orientation import Orientation
 
 POINTS, THREE_POINTS, DIRECTIONS = "points", "three_points", "directions"
@@ -44,7 +45,11 @@ def fit_point_rows(values: np.ndarray, weights: np.ndarray | None, rows: list[in
     if weights is not None and np.all(weights == 1.0):
         weights = None  # plain RMS, as a person expects when no weight was typed
     fit = fit_points(nominal, measured, weights)
-    fitted = measured - fit.residuals
+    with np.errstate(over="ignore", invalid="ignore"):
+        fitted = measured - fit.residuals
+    if not np.isfinite(fitted).all():   # R p + t beyond the largest double: nothing to draw it with
+        raise FitRefusedError("the fitted points lie beyond the largest number a double holds (about 1.8e308); "
+                              "expected coordinates well inside that", "range")
     return MeasuredFit(POINTS, fit.orientation, fit.translation, tuple(rows), nominal, measured, fitted,
                        fit.residuals, fit.distances, fit.flagged, fit.worst_index, fit, unit)
 
@@ -63,8 +68,8 @@ def fit_direction_rows(values: np.ndarray, weights: np.ndarray | None, rows: lis
         fit = triad(body[0], body[1], reference[0], reference[1])
     else:
         fit = fit_directions(body, reference, weights)
-    unit_body = body / np.linalg.norm(body, axis=1)[:, None]
-    unit_ref = reference / np.linalg.norm(reference, axis=1)[:, None]
+    unit_body = unit_vectors(body, "body direction")[0]        # scaled: 1e200 and 1e-200 are directions too
+    unit_ref = unit_vectors(reference, "reference direction")[0]
     fitted = fit.orientation.apply(unit_body)
     residual = fit.residual_angles_deg
     return MeasuredFit(DIRECTIONS, fit.orientation, None, tuple(rows), unit_body, unit_ref, fitted,

@@ -9,6 +9,7 @@ from __future__ import annotations
 
 from pathlib import Path
 
+import numpy as np
 from PySide6.QtCore import Signal
 from PySide6.QtGui import QFontDatabase, QGuiApplication
 from PySide6.QtWidgets import (QComboBox, QFileDialog, QHBoxLayout, QLabel, QLineEdit, QPlainTextEdit,
@@ -190,11 +191,11 @@ class MeasurePanel(QWidget):
                 result = fit_three_points(values, rows, unit)
             else:
                 result = fit_direction_rows(values, weights, rows)
-        except TableInputError as exc:
+        except (TableInputError, FramewrightError) as exc:
             self._refuse(f"Not fitted: {exc}.")
             return
-        except FramewrightError as exc:
-            self._refuse(f"Not fitted: {exc}.")
+        except (np.linalg.LinAlgError, ArithmeticError) as exc:   # the core turns these into refusals; if one
+            self._refuse(f"Not fitted: the arithmetic failed ({exc}); check the numbers.")   # slips, say so
             return
         self.last_fit = result
         texts, marked = row_outputs(result)

@@ -13,6 +13,7 @@ from app.scene.stl_reader import StlError, read_stl
 DRAWN_HALF_EXTENT = 0.45  # the part is scaled so its farthest extent from the origin is this (axes are 1.0)
 DEFAULT_SIZE = (120.0, 80.0, 50.0)
 DEFAULT_BORESIGHT = "+Z"
+SMALLEST_DRAWN_SIZE, LARGEST_DRAWN_SIZE = 1e-9, 1e12   # any unit; the Part dialog holds mm to 1e-3..1e6
 _FACE_ALPHA = 0.42
 _BORESIGHT_ALPHA = 0.70
 _FRONT_FACES_ONLY = {**gl_helpers.SEE_THROUGH, GL.GL_CULL_FACE: True}
@@ -46,6 +47,11 @@ class PartModel:
         size = np.asarray(size, dtype=float)
         if size.shape != (3,) or not np.all(np.isfinite(size)) or np.any(size <= 0):
             raise ValueError(f"part dimensions must be three positive numbers (x, y, z), got {size.tolist()}")
+        if np.any(size < SMALLEST_DRAWN_SIZE) or np.any(size > LARGEST_DRAWN_SIZE):
+            # The drawing scale is 1 / size and the vertices go to the GPU in single precision: sizes far
+            # outside any part would divide by (nearly) zero or overflow there.
+            raise ValueError(f"part dimensions must lie between {SMALLEST_DRAWN_SIZE:g} and "
+                             f"{LARGEST_DRAWN_SIZE:g}, got {size.tolist()}")
         self.boresight_face = normalise_face_name(boresight_face)
         self.face_names = {normalise_face_name(k): str(v) for k, v in (face_names or {}).items() if str(v).strip()}
         self.size = size
@@ -66,10 +72,12 @@ class PartModel:
         coordinates and scaled with its origin fixed. Raises StlError with a plain message."""
         triangles = read_stl(path)
         points = triangles.reshape(-1, 3)
-        self.lower, self.upper = points.min(axis=0), points.max(axis=0)
         extent = float(np.max(np.abs(points)))
-        if extent == 0:
-            raise StlError(f"{path!s}: every vertex is at the origin")
+        if extent < SMALLEST_DRAWN_SIZE:   # refused before anything changes, so the last part stays drawn
+            raise StlError(f"{path!s}: every vertex is at the origin" if extent == 0 else
+                           f"{path!s}: every vertex lies within {extent:.3g} of the origin; expected a part at "
+                           f"least {SMALLEST_DRAWN_SIZE:g} units across")
+        self.lower, self.upper = points.min(axis=0), points.max(axis=0)
         self.scale = DRAWN_HALF_EXTENT / extent
         self.source = str(path)
         normals = np.cross(triangles[:, 1] - triangles[:, 0], triangles[:, 2] - triangles[:, 0])

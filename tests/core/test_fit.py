@@ -127,9 +127,9 @@ def test_too_few_and_mismatched_points_are_refused():
         fit_points([[0, 0, 0], [1, 0, 0]], [[0, 0, 0], [1, 0, 0]])
     with pytest.raises(InvalidInputError, match="differ in number"):
         fit_points(np.eye(3), np.eye(4)[:, :3])
-    with pytest.raises(InvalidInputError, match="point 1 has NaN"):
+    with pytest.raises(InvalidInputError, match="point 2 has NaN"):
         fit_points([[0, 0, 0], [np.nan, 0, 0], [0, 1, 0]], np.eye(3))
-    with pytest.raises(InvalidInputError, match="weight 0"):
+    with pytest.raises(InvalidInputError, match="weight 1 is"):
         fit_points(np.eye(3), np.eye(3), weights=[-1, 1, 1])
 
 
