@@ -97,3 +97,23 @@ def test_summary_and_margin_of_a_two_figure_check():
     assert total.pointing_deg is None and total.roll_deg is None and total.roll_defined
     with pytest.raises(InvalidInputError, match="two Orientation values"):
         check(nominal, measured.as_quaternion())
+
+
+def test_result_carries_the_deviation_and_names_an_undefined_roll():
+    nominal = Orientation.from_angles("ZYX", [30, 20, 10])
+    measured = Orientation.from_angles("ZYX", [31, 19, 12])
+    result = check(nominal, measured, CheckSettings(body_axis="+X"))
+    # SciPy: D = N⁻¹ M.
+    want = (Rotation.from_quat(nominal.as_quaternion(scalar_last=True)).inv()
+            * Rotation.from_quat(measured.as_quaternion(scalar_last=True)))
+    assert result.deviation.isclose(Orientation.from_quaternion(want.as_quat(scalar_first=True)), 1e-15)
+    assert result.notes == () and isinstance(result.pointing_deg, float) and isinstance(result.roll_deg, float)
+    flipped = nominal @ Orientation.from_axis_angle([1, 0, 0], 180)
+    settings = CheckSettings(mode="pointing_and_roll", body_axis="+Z", pointing_tolerance_deg=180.0,
+                             roll_tolerance_deg=10.0)
+    result = check(nominal, flipped, settings)
+    assert result.notes == ("the body axis points exactly backwards: the roll about it is undefined (shown as 0)",)
+    assert result.criteria[1].name == "roll (undefined, judged as 180°)"
+    assert result.criteria[1].tolerance_deg == 10.0 and result.margin_deg == pytest.approx(-170.0)
+    with pytest.raises(InvalidInputError, match="two Orientation values"):
+        check(nominal.as_quaternion(), measured)

@@ -130,3 +130,13 @@ def test_determinant_zero_and_negative_are_refused_with_their_own_words():
     assert r.band == "refused" and "reflection" in r.message and r.det == -1.0
     # A proper rotation with the tiniest positive determinant difference is still a rotation.
     assert orthogonality_report(np.diag([1.0, -1.0, -1.0])).band == "exact"
+
+
+def test_nearest_rotation_names_bad_input_as_a_matrix():
+    from core.nearest import nearest_rotation
+    with pytest.raises(Exception, match=r"matrix: expected shape \(\.\.\., 3, 3\)"):
+        nearest_rotation([[1.0, 0.0], [0.0, 1.0]])
+    with pytest.raises(Exception, match="matrix: contains NaN"):
+        orthogonality_report(np.full((3, 3), np.nan))
+    np.testing.assert_allclose(nearest_rotation(stretched(1e-3, BASE)), svd_nearest(stretched(1e-3, BASE)),
+                               atol=1e-12)
