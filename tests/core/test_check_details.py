@@ -117,3 +117,25 @@ def test_result_carries_the_deviation_and_names_an_undefined_roll():
     assert result.criteria[1].tolerance_deg == 10.0 and result.margin_deg == pytest.approx(-170.0)
     with pytest.raises(InvalidInputError, match="two Orientation values"):
         check(nominal.as_quaternion(), measured)
+
+
+def test_pointing_errors_on_arrays_against_scipy():
+    from core.check import pointing_errors
+    from tests.core.sampling import random_quaternions
+    qn, qm = random_quaternions(50, seed=31), random_quaternions(50, seed=32)
+    axis = np.array([0.0, 0.6, 0.8])
+    # SciPy: the angle between N a and M a.
+    n, m = Rotation.from_quat(qn[:, [1, 2, 3, 0]]), Rotation.from_quat(qm[:, [1, 2, 3, 0]])
+    na, ma = n.apply(axis), m.apply(axis)
+    want = np.arctan2(np.linalg.norm(np.cross(na, ma), axis=1), np.sum(na * ma, axis=1))
+    np.testing.assert_allclose(pointing_errors(qn, qm, axis), want, atol=1e-12)
+
+
+def test_refusal_messages_word_for_word():
+    with pytest.raises(FramewrightError) as caught:
+        CheckSettings.from_dict({"tolerance": 1, "axis": "+Z"})
+    assert str(caught.value) == ("check settings: unknown key(s) axis, tolerance; expected some of body_axis, "
+                                 "mode, pointing_tolerance_deg, roll_tolerance_deg, total_tolerance_deg")
+    with pytest.raises(InvalidInputError) as caught:
+        check(Orientation.identity(), None)
+    assert str(caught.value) == "check: expected two Orientation values (nominal, measured)"

@@ -140,3 +140,15 @@ def test_nearest_rotation_names_bad_input_as_a_matrix():
         orthogonality_report(np.full((3, 3), np.nan))
     np.testing.assert_allclose(nearest_rotation(stretched(1e-3, BASE)), svd_nearest(stretched(1e-3, BASE)),
                                atol=1e-12)
+
+
+def test_of_equally_bad_lines_the_first_is_named():
+    # By hand: diag(1.2, 1.2, 1): columns 1 and 2 (and rows 1 and 2) are equally long (badness 0.44).
+    problem = orthogonality_report(np.diag([1.2, 1.2, 1.0])).problem
+    assert problem == "row 1 has length 1.2 (expected 1); column 1 has length 1.2 (expected 1)"
+    # By hand: 0.5 in row 1 of columns 2 and 3: columns 1·2 = 1·3 = 0.5 (column 2·3 = 0.25, lengths² 1.25).
+    m = np.eye(3)
+    m[0, 1] = m[0, 2] = 0.5
+    problem = orthogonality_report(m).problem
+    assert "columns 1 and 2 are not perpendicular (dot product 0.5, expected 0)" in problem
+    assert "columns 1 and 3" not in problem
