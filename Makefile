@@ -6,7 +6,7 @@ PY := $(VENV)/bin/python
 STAMP := $(VENV)/.installed
 TEST_STAMP := $(VENV)/.installed-test
 
-.PHONY: run test bench screenshots system-packages clean
+.PHONY: run test bench screenshots system-packages clean fuzz mutate
 
 $(PY):
 	$(PYTHON) -m venv $(VENV)
@@ -32,8 +32,22 @@ test: system-packages $(TEST_STAMP)
 bench: system-packages $(TEST_STAMP)
 	$(PY) tests/bench/run_all.py
 
+# The property tests with the larger hypothesis budget (tests/conftest.py's `fuzz` profile).
+fuzz: system-packages $(TEST_STAMP)
+	HYPOTHESIS_PROFILE=fuzz $(PY) -m pytest tests/core/test_decode_fuzz.py tests/core/test_properties.py -q
+
+# Mutation run (mutmut, settings in setup.cfg; never part of `make test`). MODULE narrows it to some
+# files, e.g. `make mutate MODULE="core/check.py core/nearest.py"`; JOBS sets how many run at once.
+MODULE ?= core/ app/model.py app/commands.py app/copy_as.py
+JOBS ?= 2
+MUTANT_PATTERNS = $(foreach m,$(MODULE),$(if $(filter %.py,$(m)),$(subst /,.,$(basename $(m))).*,$(subst /,.,$(patsubst %/,%,$(m))).*))
+mutate: system-packages $(TEST_STAMP)
+	rm -rf mutants
+	$(VENV)/bin/mutmut run --max-children $(JOBS) $(MUTANT_PATTERNS) > mutants-run.log 2>&1 || true
+	$(PY) scripts/mutation_score.py $(MUTANT_PATTERNS)
+
 screenshots: system-packages $(TEST_STAMP)
 	$(PY) scripts/screenshots.py
 
 clean:
-	rm -rf $(VENV) build *.egg-info .pytest_cache .hypothesis
+	rm -rf $(VENV) build *.egg-info .pytest_cache .hypothesis mutants mutants-run.log

@@ -618,21 +618,23 @@ def compute_deviations(table, settings=CheckSettings(), progress=None):
     dev_axis = np.empty((n, 3))
     pointing = np.empty(n) if axis is not None else None
     roll = np.empty(n) if axis is not None else None
+    judged_roll = np.empty(n) if axis is not None else None   # an undefined roll is judged as 180° (check.py)
     for start in range(0, n, CHUNK_ROWS):
         part = slice(start, min(start + CHUNK_ROWS, n))
         d = deviation_quaternions(table.nominal[part], table.measured[part])
         total[part] = np.degrees(deviation_angles(d))
         dev_axis[part] = deviation_axes(d)
         if axis is not None:
-            swing, twist, _ = swing_twist_angles(d, axis)
+            swing, twist, defined = swing_twist_angles(d, axis)
             pointing[part] = np.degrees(swing)
             roll[part] = np.degrees(twist)
+            judged_roll[part] = np.where(defined, np.abs(roll[part]), 180.0)
         _report(progress, part.stop, n, "computing")
     if settings.mode == "total":
         margin = settings.total_tolerance_deg - total
     else:
         margin = np.minimum(settings.pointing_tolerance_deg - pointing,
-                            settings.roll_tolerance_deg - np.abs(roll))
+                            settings.roll_tolerance_deg - judged_roll)
     error = table.error_rows()
     problems = list(table.problems)
     figures = [total, dev_axis, margin] + ([pointing, roll] if axis is not None else [])

@@ -1,15 +1,15 @@
 """Fuzzing decode with arbitrary text and with mangled versions of valid snippets: it returns readings
 or raises our DecodeError; nothing else escapes and no NaN is returned. A hang would be reported by
-pytest's fault-handler timeout (pyproject.toml), not by a timed assertion."""
+pytest's fault-handler timeout (pyproject.toml), not by a timed assertion. The example budget is the
+hypothesis profile's (tests/conftest.py): `ci` by default, more with `make fuzz`."""
 
 import numpy as np
-from hypothesis import HealthCheck, given, settings
+from hypothesis import given
 from hypothesis import strategies as st
 
 from core.decode import MAX_INPUT_BYTES, DecodeError, decode, parse_numbers
 from tests.core.test_decode_snippets import SNIPPETS
 
-FUZZ = settings(max_examples=400, deadline=None, suppress_health_check=[HealthCheck.too_slow])
 VALID = [text for _, text, *_ in SNIPPETS]
 PASTE_ALPHABET = st.sampled_from(list("0123456789.,;:|-+eE \t\n[](){}=°'\"xyzwXYZW&\\") +
                                  ["\u2212", "\u2013", "\u00a0", "\u2009", "rad", "deg", "axis", "angle", "q",
@@ -32,13 +32,11 @@ def check_outcome(text, hints=None):
         assert r.orthogonality_error is None or np.isfinite(r.orthogonality_error)
 
 
-@FUZZ
 @given(st.text(max_size=300))
 def test_arbitrary_unicode_text(text):
     check_outcome(text)
 
 
-@FUZZ
 @given(st.lists(PASTE_ALPHABET, max_size=80).map("".join))
 def test_text_made_of_paste_fragments(text):
     check_outcome(text)
@@ -64,13 +62,11 @@ def mangled(draw):
     return text
 
 
-@FUZZ
 @given(mangled())
 def test_mangled_valid_snippets(text):
     check_outcome(text)
 
 
-@FUZZ
 @given(mangled(), st.fixed_dictionaries({}, optional={
     "kind": st.sampled_from(["matrix", "quaternion", "axis-angle", "rotation-vector", "angles"]),
     "sequence": st.sampled_from(["ZYX", "XYZ", "ZXZ", "yxy"]), "intrinsic": st.booleans(),
