@@ -7,26 +7,6 @@ from PySide6.QtCore import QPoint, Qt
 from tests.app.window_driver import type_into
 
 
-def test_the_chain_step_form_does_not_move_when_steps_are_added(qtbot, window):
-    window.resize(1280, 800)
-    qtbot.waitUntil(lambda: window.height() == 800, timeout=3000)
-    panel = window.chain_panel
-    window.side_tabs.setCurrentIndex(window.side_tabs.indexOf(panel.parentWidget().parentWidget()))
-    qtbot.wait(50)
-
-    def form_position():
-        return [b.mapTo(window, QPoint(0, 0)) for b in (panel.add_from_editors, panel.add_from_text, panel.pasted)]
-
-    before = form_position()
-    for _ in range(3):
-        qtbot.mouseClick(panel.add_from_editors, Qt.MouseButton.LeftButton)
-        qtbot.wait(20)
-        area = panel.parentWidget().parentWidget()
-        assert form_position() == before, (area.verticalScrollBar().value(), panel.height(), area.height(),
-                                           panel.table.height(), window.size())
-    assert len(window.model.chain.steps) == 3
-
-
 def test_a_duplicated_mount_names_its_original_instead_of_copying_its_note(qtbot, window):
     model = window.model
     original = model.current_mount()
