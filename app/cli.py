@@ -366,7 +366,7 @@ def _same_file(one: str, other: str) -> bool:
 
 
 def run_batch(args, stdin, stdout) -> int:
-    from core.atomic_write import write_text_atomically
+    from core.atomic_file import write_atomically
     from core.batch import run_batch as batch_check
     from core.check import CheckSettings
     from core.printable import printable
@@ -395,7 +395,7 @@ def run_batch(args, stdin, stdout) -> int:
                        f"{printable(result.problems[0].message)}; expected at least one readable row")
     if args.out:
         try:
-            write_text_atomically(args.out, table)
+            write_atomically(args.out, table.encode("utf-8"))
         except OSError as error:
             raise _Refused(f"--out {printable(args.out)}: cannot be written ({error.strerror or error}); "
                            f"nothing was written") from None

@@ -21,7 +21,7 @@ from app import plain_text
 from app.editors.number_field import NumberField, format_number
 from app.panels.batch_conventions_dialog import BatchConventionsDialog
 from app.panels.batch_table_model import BatchFilterProxy, BatchResultModel
-from core.atomic_write import write_text_atomically
+from core.atomic_file import write_atomically
 from core.batch import (BatchCancelledError, BatchFileError, SetConventions, compute_deviations, read_mounts,
                         write_results)
 from core.check import CheckSettings
@@ -219,7 +219,7 @@ class BatchPanel(QWidget):
                 text = write_results(self.result, progress=progress)
             finally:
                 self._end_progress()
-            write_text_atomically(path, text)
+            write_atomically(path, text.encode("utf-8"))
         except BatchCancelledError:
             self._problem("Export cancelled; no file was written.")
             return False

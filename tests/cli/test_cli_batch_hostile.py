@@ -9,7 +9,7 @@ import os
 import pytest
 
 import app.cli as cli
-from core import atomic_write
+from core import atomic_file
 from tests.cli.test_cli import framewright
 
 HEADER = "name,nominal_qw,nominal_qx,nominal_qy,nominal_qz,measured_qw,measured_qx,measured_qy,measured_qz\n"
@@ -75,7 +75,7 @@ def test_a_failed_write_leaves_neither_a_partial_file_nor_a_temporary(tmp_path, 
 
     def full_disk(fd):
         raise OSError(28, "No space left on device")
-    monkeypatch.setattr(atomic_write.os, "fsync", full_disk)
+    monkeypatch.setattr(atomic_file.os, "fsync", full_disk)
     stdout, stderr = io.StringIO(), io.StringIO()
     status = cli.main(["batch", str(path), "--tolerance", "1", "--out", str(out)], stdout=stdout, stderr=stderr)
     assert status == 2 and stdout.getvalue() == ""
