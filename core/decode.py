@@ -417,6 +417,7 @@ class DecodeHints:
     sequence: 'ZYX', "Z-Y'-X''", ...; intrinsic: True / False
     order: quaternion order 'wxyz', 'xyzw' (both Hamilton) or 'jpl' (scalar last, JPL convention)
     units: 'deg' or 'rad'; transposed: False = matrix is body -> reference, True = reference -> body
+    name: which transform to read when the text holds several named ones
     """
     kind: str | None = None
     sequence: str | None = None
@@ -424,6 +425,7 @@ class DecodeHints:
     order: str | None = None
     units: str | None = None
     transposed: bool | None = None
+    name: str | None = None
 
     @classmethod
     def coerce(cls, hints) -> "DecodeHints":
@@ -461,7 +463,9 @@ class DecodeHints:
         for name in ("intrinsic", "transposed"):
             if getattr(self, name) not in (None, True, False):
                 raise DecodeError(f"the {name} hint must be true, false or not given; got {getattr(self, name)!r}")
-        return DecodeHints(kind, sequence, self.intrinsic, order, units, self.transposed)
+        if self.name is not None and not isinstance(self.name, str):
+            raise DecodeError(f"the name hint must be text; got {type(self.name).__name__}")
+        return DecodeHints(kind, sequence, self.intrinsic, order, units, self.transposed, self.name)
 
 
 @dataclass(frozen=True, eq=False)
@@ -481,6 +485,11 @@ class Reading:
     label: str
     numbers: tuple[float, ...]
     orthogonality_error: float | None = None
+    # A pose's translation as written (x, y, z), its unit when the text names one ('m', 'mm', ...), and
+    # the transform's name when the text holds several ('base_link -> imu', a YAML key); None otherwise.
+    translation: tuple[float, float, float] | None = None
+    translation_unit: str | None = None
+    name: str | None = None
 
 
 @dataclass
