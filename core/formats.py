@@ -1,5 +1,5 @@
 """Export renderers for the Copy as menu and the command line. Every format parses back through
-core/decode.py: `round_trip_error` decodes a rendered text with hints that match the format and reports
+core/decode: `round_trip_error` decodes a rendered text with hints that match the format and reports
 the angle between what was rendered and what came back, before anything is called verified.
 
     render(orientation, "python", FormatOptions(representation="quaternion")) -> str

@@ -1,0 +1,41 @@
+"""Pasted text -> ranked readings of an orientation (or a pose: an orientation and a translation).
+
+Two layers:
+- `parse_numbers(text)` finds the numbers in text pasted from a drawing, PDF, spreadsheet, e-mail or a
+  program, with their line, unit mark and label, and notes on what it set aside. A points-table paste
+  can reuse it.
+- `decode(text, hints)` turns those numbers into every plausible reading (matrix as written or
+  transposed, quaternion w-first or w-last, degrees or radians, which sequence), ranked by plausibility.
+
+Nothing here guesses silently: every assumption a reading makes is in its `conventions`, every repair
+in its `notes`, and the reason for its rank in `why`. The modules, in the order text passes through them:
+characters (clean-up, comments, size) -> numbers (+ number_refusals) -> clues and named (what the words
+say) -> candidates (readings per count) -> readings (ranking); our_json reads our own export.
+"""
+
+from __future__ import annotations
+
+from core.decode.characters import MAX_INPUT_BYTES, _check_size
+from core.decode.hints import KINDS, DecodeHints, Reading
+from core.decode.numbers import (UNDERSTOOD_COUNTS, FoundNumber, ParsedNumbers, _MAX_NUMBERS, extract_numbers,
+                                 parse_numbers)
+from core.decode.our_json import _decode_our_json
+from core.decode.readings import readings_from_numbers
+from core.errors import DecodeError
+
+__all__ = ["MAX_INPUT_BYTES", "KINDS", "UNDERSTOOD_COUNTS", "DecodeError", "DecodeHints", "FoundNumber",
+           "ParsedNumbers", "Reading", "decode", "extract_numbers", "parse_numbers", "readings_from_numbers"]
+
+
+def decode(text: str, hints=None) -> list[Reading]:
+    """Every plausible reading of `text`, most plausible first. With every hint given there is one.
+
+    Raises DecodeError (with a message that says what is wrong and where) when the text cannot be read:
+    no numbers or a count other than 9, 4 or 3, a refused matrix, conflicting unit marks, over 100 kB."""
+    hints = DecodeHints.coerce(hints)
+    _check_size(text)
+    from_json = _decode_our_json(text, hints)
+    if from_json is not None:
+        return from_json
+    parsed = parse_numbers(text, max_numbers=_MAX_NUMBERS)
+    return readings_from_numbers(parsed, hints)

@@ -1,0 +1,244 @@
+"""Candidate readings for 9, 4 and 3 numbers, each with its score and the reasons for it."""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass, field
+
+import numpy as np
+
+from core.errors import DecodeError
+from core.decode.clues import _Clues
+from core.decode.hints import DecodeHints
+
+_TWO_PI = 2 * math.pi
+_MAX_MAGNITUDE = 1e9
+_NEAR_LOCK_DEG = 5.0
+_COMMON_SEQUENCES = (   # (sequence, intrinsic, prior, why) when the text names none
+    ("ZYX", True, 1.5, "yaw-pitch-roll (intrinsic Z-Y'-X''), the most common sequence"),
+    ("XYZ", False, 1.2, "roll-pitch-yaw about fixed axes (extrinsic X-Y-Z), common in robotics"),
+    ("XYZ", True, 0.5, "intrinsic X-Y'-Z''"),
+    ("ZYX", False, 0.5, "extrinsic Z-Y-X"),
+    ("ZXZ", True, 0.3, "proper Euler Z-X'-Z''"),
+    ("ZYZ", True, 0.3, "proper Euler Z-Y'-Z''"),
+    ("ZXZ", False, 0.1, "proper Euler, extrinsic Z-X-Z"),
+    ("ZYZ", False, 0.1, "proper Euler, extrinsic Z-Y-Z"),
+)
+
+
+@dataclass
+class _Candidate:
+    kind: str
+    conventions: dict
+    make: object                 # () -> Orientation; may raise FramewrightError
+    label: str
+    score: float = 0.0
+    reasons: list = field(default_factory=list)
+    notes: list = field(default_factory=list)
+    orthogonality_error: float | None = None
+
+    def plus(self, points: float, reason: str) -> "_Candidate":
+        self.score += points
+        if reason:
+            self.reasons.append(reason)
+        return self
+
+
+def _unit_choices(values, hints: DecodeHints, clues: _Clues, fixed: str | None):
+    """[(units, points, reason)]: the rule of thumb is that whole numbers above 2π are degrees, and
+    numbers all within ±2π with decimals may well be radians."""
+    if hints.units:
+        return [(hints.units, 0.0, "units given")]
+    if fixed:
+        return [(fixed, 0.0, "units named with the numbers")]
+    if clues.units:
+        return [(clues.units, 0.0, clues.units_reason)]
+    values = [float(v) for v in values]
+    if any(abs(v) > _TWO_PI + 1e-9 for v in values):
+        return [("deg", 0.0, "a value beyond ±2π: degrees")]
+    if any(v != round(v) for v in values):
+        points = 0.6
+        if any(v != 0 and abs(v / (math.pi / 12) - round(v / (math.pi / 12))) < 2e-4 for v in values):
+            points = 1.0
+        return [("rad", points, "all within ±2π with decimals: may be radians"),
+                ("deg", 0.0, "degrees, the default")]
+    return [("deg", 0.6, "whole numbers: degrees more likely"), ("rad", 0.0, "radians")]
+
+
+def _unit_word(units: str) -> str:
+    return "degrees" if units == "deg" else "radians"
+
+
+def _matrix_candidates(values, parsed, hints, clues, keyed):
+    from core.nearest import orthogonality_report
+    from core.orientation import Orientation
+    m = np.array(values, dtype=float).reshape(3, 3)
+    report = orthogonality_report(m)
+    if not report.accepted:
+        lines = [parsed.numbers[3 * i].line for i in range(3)] if len(parsed.numbers) == 9 else []
+        where = f" (rows as written: lines {', '.join(map(str, lines))})" if len(set(lines)) == 3 else \
+            " (rows and columns as written)"
+        raise DecodeError(f"matrix {report.message}{where}")
+    out = []
+    for transposed in (False, True):
+        c = _Candidate(
+            "matrix", {"matrix": "reference-to-body" if transposed else "body-to-reference"},
+            lambda t=transposed: Orientation.from_matrix(m, transposed=t),
+            "matrix transposed (reference -> body: rows are the body axes)" if transposed
+            else "matrix as written (body -> reference: columns are the body axes)")
+        if clues.transposed is None:
+            c.plus(0.0, "as written and transposed are equally likely: the text does not say which")
+        elif clues.transposed == transposed:
+            c.plus(2.0, clues.transposed_reason)
+        else:
+            c.plus(0.0, f"the other direction: {clues.transposed_reason}")
+        if report.band != "exact":
+            c.notes.append(report.message)
+        c.orthogonality_error = report.error
+        out.append(c)
+    return out
+
+
+def _four_candidates(values, parsed, hints, clues, keyed):
+    from core.orientation import Orientation
+    v = np.array(values, dtype=float)
+    out = []
+    norm = float(np.linalg.norm(v))
+    unit_like = abs(norm - 1.0) < 1e-3
+    mags = np.abs(v)
+    first_largest = mags[0] > mags[1:].max()
+    last_largest = mags[3] > mags[:3].max()
+    fixed_order = keyed.order if keyed and keyed.kind == "quaternion" else None
+    orders = (("wxyz", "Hamilton"), ("xyzw", "Hamilton"), ("xyzw", "JPL"))
+    if fixed_order:   # the names said which is w; the values are already in w, x, y, z order
+        orders = (("wxyz", "Hamilton"), ("wxyz", "JPL"))
+    for order, convention in orders:
+        jpl = convention == "JPL"
+        if jpl:
+            # named components are already in w, x, y, z order; bare numbers are read scalar last
+            make = lambda: Orientation.from_quaternion(v, scalar_last=not fixed_order).inverse()
+            label = "quaternion (x, y, z, w), JPL convention: the inverse of the Hamilton reading"
+        else:
+            make = lambda s=(order == "xyzw"): Orientation.from_quaternion(v, scalar_last=s)
+            label = f"quaternion ({', '.join(order)}), Hamilton"
+        conventions = {"order": fixed_order or order, "convention": convention}
+        if fixed_order:
+            conventions["named"] = True
+            label = "quaternion by named components, " + (
+                "JPL convention: the inverse of the Hamilton reading" if jpl else "Hamilton")
+        c = _Candidate("quaternion", conventions, make, label)
+        if unit_like:
+            c.plus(1.0, f"norm {norm:.6g}: a unit quaternion")
+        elif abs(norm - 1.0) < 0.05:
+            c.plus(0.3, f"norm {norm:.6g}: close to 1")
+        else:
+            c.plus(-1.5, f"norm {norm:.6g} is far from 1")
+        if fixed_order:
+            c.plus(0.0 if jpl else 1.0, keyed.note)
+        elif not jpl:
+            if order == "wxyz" and first_largest:
+                c.plus(1.0, "the first number is the largest in magnitude: likely w first")
+            elif order == "xyzw" and last_largest:
+                c.plus(1.0, "the last number is the largest in magnitude: likely w last")
+            elif order == "wxyz" and not last_largest:
+                c.plus(0.2, "w first is the default order")
+        if jpl:
+            c.plus(-3.0, "the JPL convention is offered last, never assumed")
+        tag = "jpl" if jpl else order
+        if clues.order == tag:
+            c.plus(6.0 if jpl else 2.0, "the text names this order")
+        if "quaternion" in clues.kinds:
+            c.plus(1.5, "the text says quaternion")
+        out.append(c)
+    if hints.order:
+        if fixed_order:   # names decide the order; the hint can still choose Hamilton or JPL
+            out = [c for c in out if (c.conventions["convention"] == "JPL") == (hints.order == "jpl")]
+        else:
+            out = [c for c in out if ("jpl" if c.conventions["convention"] == "JPL" else c.conventions["order"])
+                   == hints.order]
+    # axis and angle (axis first, angle last)
+    axis, angle = v[:3], float(v[3])
+    axis_length = float(np.linalg.norm(axis))
+    if (axis_length > 0 or angle == 0) and not (hints.order and not hints.kind):
+        fixed_units = keyed.units if keyed and keyed.kind == "axis-angle" else None
+        for units, points, unit_reason in _unit_choices([angle], hints, clues, fixed_units):
+            c = _Candidate("axis-angle", {"order": "axis, angle", "units": units},
+                           lambda u=units: Orientation.from_axis_angle(axis, angle, degrees=(u == "deg")),
+                           f"axis (x, y, z) and angle in {_unit_word(units)}")
+            c.plus(points, unit_reason)
+            if abs(axis_length - 1.0) < 1e-3:
+                c.plus(1.0, "the first three numbers have unit length, as an axis has")
+            else:
+                c.plus(-1.5 if 0.5 < axis_length < 2 else -2.5, f"the axis has length {axis_length:.6g}, not 1")
+            if abs(angle) > 1.0 + 1e-9:
+                c.plus(2.5, f"the last number ({angle:g}) is beyond ±1: an angle, not a quaternion part")
+            elif unit_like:
+                c.plus(-1.0, "the four numbers have unit norm, as a quaternion has")
+            if keyed and keyed.kind == "axis-angle":
+                c.plus(3.0, keyed.note)
+            if "axis-angle" in clues.kinds:
+                c.plus(1.5, "the text says axis and angle")
+            out.append(c)
+    if keyed and keyed.kind == "quaternion":
+        out = [c for c in out if c.kind == "quaternion"]
+    if keyed and keyed.kind == "axis-angle":
+        out = [c for c in out if c.kind == "axis-angle"]
+    return out
+
+
+def _three_candidates(values, parsed, hints, clues, keyed):
+    from core.orientation import Orientation
+    from core.sequences import is_proper_euler
+    v = np.array(values, dtype=float)
+    out = []
+    fixed_units = keyed.units if keyed else None
+    if keyed and keyed.kind == "angles":
+        if (hints.sequence and hints.sequence != keyed.sequence) or \
+                (hints.intrinsic is not None and hints.intrinsic != keyed.intrinsic):
+            raise DecodeError("the text names yaw, pitch and roll (intrinsic Z-Y'-X''), which the sequence"
+                              " options contradict; drop the options or the names")
+        sequences = [(keyed.sequence, keyed.intrinsic, 1.0, keyed.note)]
+    elif hints.sequence or clues.sequence:
+        sequence = hints.sequence or clues.sequence
+        why = "sequence given" if hints.sequence else f"the text names {sequence}"
+        sequences = [(sequence, True, 0.6, why + "; intrinsic is the usual reading"),
+                     (sequence, False, 0.3, why)]
+    else:
+        sequences = list(_COMMON_SEQUENCES)
+    intrinsic_wanted = hints.intrinsic if hints.intrinsic is not None else clues.intrinsic
+    if intrinsic_wanted is not None and not (keyed and keyed.kind == "angles"):
+        sequences = [s for s in sequences if s[1] == intrinsic_wanted]
+    unit_choices = _unit_choices(v, hints, clues, fixed_units)
+    for sequence, intrinsic, prior, why in sequences:
+        for units, points, unit_reason in unit_choices:
+            spelled = "-".join(sequence[:1]) + ("-" + sequence[1] + "'-" + sequence[2] + "''" if intrinsic
+                                                 else "-" + sequence[1] + "-" + sequence[2])
+            c = _Candidate(
+                "angles", {"sequence": sequence, "intrinsic": intrinsic, "units": units},
+                lambda s=sequence, i=intrinsic, u=units: Orientation.from_angles(s, v, intrinsic=i,
+                                                                                 degrees=(u == "deg")),
+                f"angles {spelled} {'intrinsic' if intrinsic else 'extrinsic'}, {_unit_word(units)}")
+            c.plus(prior, why).plus(points, unit_reason)
+            middle = math.degrees(v[1]) if units == "rad" else float(v[1])
+            if is_proper_euler(sequence) and not 0 <= middle <= 180:
+                c.plus(-0.7, "middle angle outside 0..180°, unusual for proper Euler angles")
+            elif not is_proper_euler(sequence) and abs(middle) > 90:
+                c.plus(-1.0, "middle angle beyond ±90°, unusual for Tait-Bryan angles")
+            if "angles" in clues.kinds:
+                c.plus(1.0, "the text says angles")
+            out.append(c)
+    sequence_named = bool(hints.sequence or clues.sequence or (keyed and keyed.kind == "angles"))
+    if not sequence_named or (keyed and keyed.kind == "rotation-vector"):
+        for units, points, unit_reason in unit_choices:
+            c = _Candidate("rotation-vector", {"units": units},
+                           lambda u=units: Orientation.from_rotation_vector(v, degrees=(u == "deg")),
+                           f"rotation vector in {_unit_word(units)} (axis times angle)")
+            c.plus(0.9, "").plus(points, unit_reason)
+            if keyed and keyed.kind == "rotation-vector":
+                c.plus(3.0, keyed.note)
+            if "rotation-vector" in clues.kinds:
+                c.plus(3.0, "the text says rotation vector")
+            out.append(c)
+    if keyed and keyed.kind == "rotation-vector":
+        out = [c for c in out if c.kind == "rotation-vector"]
+    return out

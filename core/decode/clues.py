@@ -1,0 +1,102 @@
+"""What the words around the numbers say: units, matrix direction, sequence, quaternion order, kind."""
+
+from __future__ import annotations
+
+import re
+from dataclasses import dataclass, field
+
+from core.errors import DecodeError, FramewrightError
+from core.decode.numbers import ParsedNumbers
+
+@dataclass
+class _Clues:
+    """What the words around the numbers say."""
+    units: str | None = None
+    units_reason: str = ""
+    transposed: bool | None = None
+    transposed_reason: str = ""
+    sequence: str | None = None
+    intrinsic: bool | None = None
+    order: str | None = None
+    kinds: set = field(default_factory=set)
+    notes: list = field(default_factory=list)
+
+
+_REF = r"(?:reference|ref|world|nav(?:igation)?|ned|enu|local|vehicle|platform|base|parent|earth|inertial|fixed)"
+_ARROW = r"[ _-]*(?:frame[ _-]*)?(?:->|→|=>|to|2)[ _-]*"
+_BODY_TO_REF = re.compile(rf"(?<![a-z])(?:body|sensor|part){_ARROW}{_REF}(?![a-z])|(?<![a-z])[cr]_\{{?b\}}?\^\{{?[nwre]\}}?"
+                          r"|(?<![a-z])b2[nwre](?![a-z])")
+_REF_TO_BODY = re.compile(rf"(?<![a-z]){_REF}{_ARROW}(?:body|sensor|part)(?![a-z])|(?<![a-z])[cr]_\{{?[nwre]\}}?\^\{{?b\}}?"
+                          r"|(?<![a-z])[nwre]2b(?![a-z])")
+_DCM = re.compile(r"(?<![a-z])dcm(?![a-z])|direction[ _-]?cosine")
+_SEQUENCE_WORD = re.compile(r"(?<![a-z])([xyz])-?('*)-?([xyz])-?('*)-?([xyz])('*)(?![a-z])")
+_INTRINSIC_WORD = re.compile(r"intrinsic|rotating axes|moving axes|body[ -]fixed axes")
+_EXTRINSIC_WORD = re.compile(r"extrinsic|fixed axes|static axes|space[ -]fixed")
+_WXYZ = re.compile(r"(?<![a-z])q?_?wxyz(?![a-z])|(?<![a-z])q?w\W{1,3}q?x\W{1,3}q?y\W{1,3}q?z(?![a-z])"
+                   r"|scalar[ _-]?(?:part[ _-]?)?first|(?<![a-z])w[ _-]first")
+_XYZW = re.compile(r"(?<![a-z])q?_?xyzw(?![a-z])|(?<![a-z])q?x\W{1,3}q?y\W{1,3}q?z\W{1,3}q?w(?![a-z])"
+                   r"|scalar[ _-]?(?:part[ _-]?)?last|(?<![a-z])w[ _-]last")
+_KIND_WORDS = {
+    "quaternion": re.compile(r"quaternion|(?<![a-z])quat(?![a-z])|versor"),
+    "rotation-vector": re.compile(r"rotation[ _-]?vector|rotvec|(?<![a-z])rvec(?![a-z])"),
+    "angles": re.compile(r"euler|tait|(?<![a-z])(?:yaw|pitch|roll|heading)(?![a-z])|(?<![a-z])angles(?![a-z])"),
+    "axis-angle": re.compile(r"axis[ _-]?(?:and[ _-]?)?angle|angle[ _-]?axis"),
+}
+_DEG_WORD = re.compile(r"°|(?<![a-z])deg(?:s|rees?)?(?![a-z])")
+_RAD_WORD = re.compile(r"(?<![a-z])rad(?:s|ians?)?(?![a-z])")
+
+
+def _read_clues(parsed: ParsedNumbers) -> _Clues:
+    words = parsed.words
+    clues = _Clues()
+    marked = {n.unit for n in parsed.numbers if n.unit}
+    if len(marked) > 1:
+        raise DecodeError("the numbers are marked in both degrees and radians; expected one unit for all")
+    if marked:
+        clues.units = marked.pop()
+        clues.units_reason = f"the numbers are marked in {'degrees' if clues.units == 'deg' else 'radians'}"
+    else:
+        deg, rad = bool(_DEG_WORD.search(words)), bool(_RAD_WORD.search(words))
+        if deg != rad:
+            clues.units = "deg" if deg else "rad"
+            clues.units_reason = f"the text says {'degrees' if deg else 'radians'}"
+    body_to_ref, ref_to_body = _BODY_TO_REF.search(words), _REF_TO_BODY.search(words)
+    if body_to_ref and not ref_to_body:
+        clues.transposed, clues.transposed_reason = False, f"the text says '{body_to_ref.group()}'"
+    elif ref_to_body and not body_to_ref:
+        clues.transposed, clues.transposed_reason = True, f"the text says '{ref_to_body.group()}'"
+    elif not body_to_ref and _DCM.search(words):
+        clues.transposed = True
+        clues.transposed_reason = "the text calls it a direction cosine matrix, usually reference -> body"
+    elif body_to_ref and ref_to_body:
+        clues.notes.append("the text names both directions (body to reference and reference to body)")
+    from core.sequences import parse_sequence
+    found = set()
+    primes = False
+    for m in _SEQUENCE_WORD.finditer(words):
+        try:
+            found.add(parse_sequence(m.group(1) + m.group(3) + m.group(5)))
+            primes = primes or bool(m.group(4) or m.group(6))
+        except FramewrightError:
+            pass
+    if len(found) == 1:
+        clues.sequence = found.pop()
+    elif len(found) > 1:
+        clues.notes.append(f"the text names several sequences ({', '.join(sorted(found))}); none was assumed")
+    intrinsic, extrinsic = bool(_INTRINSIC_WORD.search(words)) or primes, bool(_EXTRINSIC_WORD.search(words))
+    if intrinsic != extrinsic:
+        clues.intrinsic = intrinsic
+    if clues.sequence is None:
+        yaw, pitch, roll = (words.find(w) for w in ("yaw", "pitch", "roll"))
+        if min(yaw, pitch, roll) >= 0:
+            if yaw < pitch < roll:
+                clues.sequence, clues.intrinsic = "ZYX", True
+            elif roll < pitch < yaw and clues.intrinsic is not True:
+                clues.sequence, clues.intrinsic = "XYZ", False
+    wxyz, xyzw = bool(_WXYZ.search(words)), bool(_XYZW.search(words))
+    if wxyz != xyzw:
+        clues.order = "wxyz" if wxyz else "xyzw"
+    if re.search(r"(?<![a-z])jpl(?![a-z])", words):
+        clues.order = "jpl"
+    clues.kinds = {kind for kind, pattern in _KIND_WORDS.items() if pattern.search(words)}
+    return clues

@@ -1,0 +1,66 @@
+"""Values on a line that decode refuses rather than misreads: empty cells, non-finite values,
+named constants, words between numbers."""
+
+from __future__ import annotations
+
+import re
+
+from core.errors import DecodeError
+from core.decode.characters import _shorten
+
+_TOKEN = re.compile(r"[^\s,;|\[\](){}&<>=:\"]+")   # a run between separators; filtered, never backtracked
+
+
+# Words that stand for a value we will not guess at: non-finite values, named constants, substitutions
+_NON_FINITE = re.compile(r"(?<![\w.])[+-]?(?:nan|inf(?:inity)?)(?!\w)", re.IGNORECASE)
+_CONSTANT = re.compile(r"(?<![A-Za-z0-9])(?:M_)?PI(?![A-Za-z0-9_])|π|\$\{|\$\(", re.IGNORECASE)
+# Words allowed between two numbers on a line (besides keys): units, component and angle names, 'and'
+_BETWEEN_WORDS = frozenset("""deg degs degree degrees rad rads radian radians and w x y z i j k qw qx qy qz
+    yaw pitch roll heading bank elevation axis angle theta phi psi""".split())
+_NUMBER_TYPE = re.compile(r"(?:np\.|numpy\.)?(?:float|int|uint|double)\d*", re.IGNORECASE)  # np.float64(0.5)
+
+
+_BETWEEN_DIGITS = re.compile(r"[^\d\n]+")
+_EMPTY_PLACE = re.compile(r",[ ]*,|;[ ]*;|\|[ ]*\|")
+
+
+def _refuse_empty_cells(line: str, line_no: int) -> None:
+    """'0.7071, , 0' or '| 1 | | 0 |': a number is missing between two others; reading on would shift
+    every later number into the wrong place. Each run of non-digits is looked at once (linear time)."""
+    for run in _BETWEEN_DIGITS.finditer(line):
+        if run.start() == 0 or run.end() == len(line):
+            continue                    # not between two digits
+        m = _EMPTY_PLACE.search(line, run.start(), run.end())
+        if m:
+            raise DecodeError(f"line {line_no}, column {m.start() + 1}: an empty place between numbers"
+                              f" ('{m.group()}'): a number seems to be missing")
+
+
+def _refuse_values_we_will_not_guess(line: str, line_no: int) -> None:
+    """NaN, inf, PI, M_PI, π, ${…}: dropping them would shift the other numbers into another reading, and
+    reading 'PI/2' as 2 loses the sign and π. Refused by name, with the line."""
+    m = _NON_FINITE.search(line)
+    if m:
+        raise DecodeError(f"line {line_no}: '{m.group()}' is not a finite number; every number must be a"
+                          " finite decimal value")
+    m = _CONSTANT.search(line)
+    if m:
+        token = _shorten(line[m.start():].split()[0], 24)
+        raise DecodeError(f"line {line_no}: '{token}' is a named constant or an expression; Framewright reads"
+                          " plain numbers only: paste decimal values")
+
+
+def _words_between_numbers(rest: str, found: list, key_matches: list, line_no: int) -> list:
+    """Words between the first and the last number of a line that are no key, unit or component name:
+    '30 abc 20 10' must not be read as three angles with 'abc' dropped."""
+    first, last = found[0].column - 1, found[-1].column - 1 + len(found[-1].text)
+    keyed = [(m.start(), m.end()) for m in key_matches]
+    out = []
+    for t in _TOKEN.finditer(rest, first, last):
+        word = t.group().strip("'\"*+-^°×·\\")
+        if not any(c.isalnum() for c in word) or word.lower() in _BETWEEN_WORDS or _NUMBER_TYPE.fullmatch(word):
+            continue
+        if any(a <= t.start() < b for a, b in keyed):
+            continue
+        out.append((line_no, word))
+    return out

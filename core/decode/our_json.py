@@ -1,0 +1,59 @@
+"""Our own JSON object (the export and `decode --json`): read the representation asked for."""
+
+from __future__ import annotations
+
+import json
+
+import numpy as np
+
+from core.errors import DecodeError
+from core.decode.characters import _normalise_characters
+from core.decode.hints import DecodeHints, Reading
+from core.decode.numbers import parse_numbers
+from core.decode.readings import readings_from_numbers
+
+def _decode_our_json(text: str, hints: DecodeHints):
+    """Our own JSON object (the export and `decode --json`) holds every representation: read the one
+    the hints ask for, or the quaternion, which is exact."""
+    stripped = text.strip()
+    if not stripped.startswith("{") or "quaternion_wxyz" not in stripped:
+        return None
+    try:
+        data = json.loads(_normalise_characters(stripped))
+    except (ValueError, RecursionError):
+        return None
+    if not isinstance(data, dict) or "quaternion_wxyz" not in data:
+        return None
+
+    def numbers(key, size):
+        value = data.get(key)
+        flat = np.array(value, dtype=float).ravel() if value is not None else None
+        if flat is None or flat.size != size or not np.all(np.isfinite(flat)):
+            raise DecodeError(f"JSON key '{key}' should hold {size} finite numbers")
+        return " ".join(repr(float(x)) for x in flat)
+
+    try:
+        kind = hints.kind or "quaternion"
+        if kind == "matrix":
+            body, extra = numbers("matrix", 9), {"transposed": False}
+        elif kind == "axis-angle":
+            body, extra = numbers("axis", 3) + " " + numbers("angle_deg", 1), {"units": "deg"}
+        elif kind == "rotation-vector":
+            body, extra = numbers("rotation_vector_deg", 3), {"units": "deg"}
+        elif kind == "angles":
+            body = numbers("angles_deg", 3)
+            extra = {"units": "deg", "sequence": data.get("sequence", "ZYX"),
+                     "intrinsic": bool(data.get("intrinsic", True))}
+        else:
+            body, extra = numbers("quaternion_wxyz", 4), {"order": "wxyz"}
+    except (TypeError, ValueError) as error:
+        raise DecodeError(f"the JSON object has a malformed representation: {error}") from None
+    merged = {**{k: v for k, v in hints.__dict__.items() if v is not None}, **extra, "kind": kind}
+    readings = readings_from_numbers(parse_numbers(body), DecodeHints.coerce(merged))
+    return [_with_note(r, f"read the '{ {'quaternion': 'quaternion_wxyz', 'matrix': 'matrix'}.get(kind, kind)}'"
+                          " entry of a Framewright JSON object") for r in readings]
+
+
+def _with_note(reading: Reading, note: str) -> Reading:
+    from dataclasses import replace
+    return replace(reading, notes=(note,) + reading.notes)
