@@ -46,8 +46,8 @@ def _refuse_values_we_will_not_guess(line: str, line_no: int) -> None:
     m = _CONSTANT.search(line)
     if m:
         token = _shorten(line[m.start():].split()[0], 24)
-        raise DecodeError(f"line {line_no}: '{token}' is a named constant or an expression; Framewright reads"
-                          " plain numbers only: paste decimal values")
+        raise DecodeError(f"line {line_no}: '{token}' is a name or substitution Framewright cannot evaluate (an"
+                          " expression may hold numbers, pi, + - * / and parentheses): paste its value")
 
 
 def _words_between_numbers(rest: str, found: list, key_matches: list, line_no: int) -> list:

@@ -10,6 +10,7 @@ import numpy as np
 
 from core.errors import DecodeError
 from core.decode.characters import _check_size, _normalise_characters, _shorten, _strip_comments
+from core.decode.expressions import substitute
 from core.decode.number_refusals import (_TOKEN, _refuse_empty_cells, _refuse_values_we_will_not_guess,
                                          _words_between_numbers)
 
@@ -34,7 +35,7 @@ _MINUTES = re.compile(r"[ ]?(?P<m>\d+(?:\.\d*)?)[ ]?'(?:[ ]?(?P<s>\d+(?:\.\d*)?)
 # A key before its value: `w = 0.7`, `"qx": 0`, `X:`, `angle (deg) =`, `yaw [deg]:`
 _KEY = re.compile(r"""(?<![\w.:])["']?(?P<key>[A-Za-z_][\w.]*(?:[ ]?[(\[][A-Za-z]+[)\]])?)["']?[ ]*(?::(?!:)|=(?!=))""")
 # Expressions we refuse rather than misread: 1/√2, sqrt(2)/2, pi/2, cos(30°)
-_EXPRESSION = re.compile(r"(?:\d[ ]*/[ ]*[\d.(\\a-zA-Z√π])|(?:\)[ ]*/)|√|π|\\frac|\\sqrt|(?<![A-Za-z])(?:sqrt|pi|sin|cos|tan)"
+_EXPRESSION = re.compile(r"(?:(?<![A-Za-z_\d.])\d[\d.]*[ ]*/[ ]*[\d.(\\a-zA-Z√π])|(?:\)[ ]*/)|√|π|\\frac|\\sqrt|(?<![A-Za-z])(?:sqrt|pi|sin|cos|tan)"
                          r"(?![A-Za-z])[ ]*[(\d/*]", re.IGNORECASE)
 
 
@@ -155,11 +156,13 @@ def parse_numbers(text: str, max_numbers: int | None = None) -> ParsedNumbers:
             line = _C_DIMENSIONS.sub(" ", _TEMPLATE_ARGS.sub(" ", line))
         if "-" in line or "+" in line:
             line = _join_detached_signs(line, notes, line_no)
+        line = substitute(line, line_no, notes)         # pi/2, ${-M_PI/2}: evaluated, with a note
         expression = _EXPRESSION.search(line)
         if expression and _NUMBER.search(line):
             start = max(0, expression.start() - 6)
-            raise DecodeError(f"line {line_no} holds an expression ('{_shorten(line[start:expression.end() + 6].strip())}');"
-                              " Framewright reads plain numbers only: paste decimal values")
+            raise DecodeError(f"line {line_no} holds an expression Framewright does not evaluate"
+                              f" ('{_shorten(line[start:expression.end() + 6].strip())}'): it evaluates numbers, pi,"
+                              " + - * / and parentheses only; paste decimal values")
         if "," in line or ";" in line or "|" in line:
             _refuse_empty_cells(line, line_no)
         _refuse_values_we_will_not_guess(line, line_no)

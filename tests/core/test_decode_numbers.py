@@ -1,6 +1,8 @@
 """parse_numbers: the numbers people paste, and what is set aside. Expected values are the numbers as
 written (common practice: what the text says), so each check is against the text itself."""
 
+import math
+
 import pytest
 
 from core.decode import MAX_INPUT_BYTES, DecodeError, extract_numbers, parse_numbers
@@ -70,11 +72,31 @@ def test_c_array_sizes_and_template_arguments_are_not_numbers():
     assert extract_numbers("std::array<double, 3> v{1, 2, 3};") == [1, 2, 3]
 
 
-@pytest.mark.parametrize("text", ["1/√2, 0, 0, 1/√2", "sqrt(2)/2 0 0 sqrt(2)/2", "pi/2 0 0", "cos(30) 1 2",
+@pytest.mark.parametrize("text", ["1/√2, 0, 0, 1/√2", "sqrt(2)/2 0 0 sqrt(2)/2", "cos(30) 1 2",
                                   "\\frac{1}{2} 0 0"])
-def test_expressions_are_refused_rather_than_misread(text):
+def test_expressions_outside_the_evaluated_arithmetic_are_refused_rather_than_misread(text):
     with pytest.raises(DecodeError, match="expression"):
         parse_numbers(text)
+
+
+# The values are Python's math module's; the spellings are those of description files and launch
+# arguments (common practice).
+@pytest.mark.parametrize("text, values", [
+    ("pi/2 0 0", [math.pi / 2, 0, 0]),
+    ("PI/2 0 0", [math.pi / 2, 0, 0]),
+    ("${-M_PI/2} 0 0", [-math.pi / 2, 0, 0]),
+    ('<origin xyz="0 0 0" rpy="0 ${pi/4} ${-pi}"/>', [0, 0, 0, 0, math.pi / 4, -math.pi]),
+    ("0 0 π", [0, 0, math.pi]),
+    ("yaw: Pi", [math.pi]),
+    ("3*pi / 4, -0.5, 1", [3 * math.pi / 4, -0.5, 1]),
+    ("/base_link base/imu 0 0 pi/2", [0, 0, math.pi / 2]),
+    ("cam0/imu 1 2 3", [1, 2, 3]),
+])
+def test_the_small_arithmetic_is_evaluated_and_said(text, values):
+    parsed = parse_numbers(text)
+    assert [n.value for n in parsed.numbers] == pytest.approx(values, abs=1e-15)
+    if any(w in text for w in ("pi", "PI", "Pi", "π")):
+        assert any("evaluated" in note for note in parsed.notes)
 
 
 def test_text_over_100_kB_is_refused_with_a_message():
