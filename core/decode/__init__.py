@@ -20,8 +20,17 @@ from core.decode.hints import KINDS, DecodeHints, Reading
 from core.decode.numbers import (UNDERSTOOD_COUNTS, FoundNumber, ParsedNumbers, _MAX_NUMBERS, extract_numbers,
                                  parse_numbers)
 from core.decode.our_json import _decode_our_json
+from core.decode.pose_keys import keyed_poses
+from core.decode.pose_lines import argument_poses, column_poses, origin_poses, quaternion_sum
+from core.decode.pose_matrices import matrix_poses
+from core.decode.poses import pose_readings
+from core.decode.printouts import echo_poses
 from core.decode.readings import readings_from_numbers
 from core.errors import DecodeError
+
+# Readers of structured text, tried in this order before the numbers are read bare: each says None when
+# the text is not its kind, and refuses (DecodeError) when it is but something in it cannot be read.
+_POSE_READERS = (echo_poses, origin_poses, argument_poses, quaternion_sum, keyed_poses, column_poses)
 
 __all__ = ["MAX_INPUT_BYTES", "KINDS", "UNDERSTOOD_COUNTS", "DecodeError", "DecodeHints", "FoundNumber",
            "ParsedNumbers", "Reading", "decode", "extract_numbers", "parse_numbers", "readings_from_numbers"]
@@ -30,6 +39,10 @@ __all__ = ["MAX_INPUT_BYTES", "KINDS", "UNDERSTOOD_COUNTS", "DecodeError", "Deco
 def decode(text: str, hints=None) -> list[Reading]:
     """Every plausible reading of `text`, most plausible first. With every hint given there is one.
 
+    A pose (a 4x4 or 3x4 transform, a position with a quaternion or angles, a description-file origin, a
+    transform printout, keyed calibration text) gives readings of its rotation that carry its translation,
+    its unit and, when the text holds several, the transform's name.
+
     Raises DecodeError (with a message that says what is wrong and where) when the text cannot be read:
     no numbers or a count other than 9, 4 or 3, a refused matrix, conflicting unit marks, over 100 kB."""
     hints = DecodeHints.coerce(hints)
@@ -37,5 +50,14 @@ def decode(text: str, hints=None) -> list[Reading]:
     from_json = _decode_our_json(text, hints)
     if from_json is not None:
         return from_json
+    for reader in _POSE_READERS:
+        poses = reader(text)
+        if poses:
+            return pose_readings(poses, hints, [])
     parsed = parse_numbers(text, max_numbers=_MAX_NUMBERS)
+    poses = matrix_poses(parsed)
+    if poses:
+        return pose_readings(poses, hints, list(parsed.notes))
+    if hints.name is not None:
+        raise DecodeError(f"the text holds no named transforms; the name hint '{hints.name[:40]}' picks nothing")
     return readings_from_numbers(parsed, hints)

@@ -124,7 +124,7 @@ def _has_digit(word: str) -> bool:
     return any(c.isdigit() for c in word)
 
 
-def parse_numbers(text: str, max_numbers: int | None = None) -> ParsedNumbers:
+def parse_numbers(text: str, max_numbers: int | None = None, first_line: int = 1) -> ParsedNumbers:
     """Find the numbers in pasted text.
 
     Accepts integers, decimals, scientific notation (6.123e-17, 6.1×10⁻¹⁷, Fortran 1D-3), a leading '+',
@@ -132,6 +132,7 @@ def parse_numbers(text: str, max_numbers: int | None = None) -> ParsedNumbers:
     degree marks (°, deg, d°m's") and 'rad'. Words, labels and lines with no numbers are set aside with a
     note. Raises DecodeError for text over 100 kB, for expressions (1/√2, pi/2) it will not guess at, and
     for more than `max_numbers` numbers when given (the decoder's early stop on a flood of numbers).
+    `first_line` numbers the lines of a piece of a larger text as they are numbered in the whole.
     """
     _check_size(text)
     notes = _Notes()
@@ -148,7 +149,7 @@ def parse_numbers(text: str, max_numbers: int | None = None) -> ParsedNumbers:
     row = 0
     skipped_titles = 0
     previous_text = None
-    for line_no, raw_line in enumerate(clean.split("\n"), start=1):
+    for line_no, raw_line in enumerate(clean.split("\n"), start=first_line):
         if not raw_line or raw_line.isspace():
             continue                    # a blank line holds nothing (and must stay cheap: 100 kB of them)
         line = raw_line

@@ -1,0 +1,144 @@
+"""Keyed values in a text: YAML and INI-like `key: value` lines (nested by indentation, inline `{…}`,
+lists over several lines, `- […]` rows), JSON objects, XML attributes and `--flag value` pairs. The pose
+readers find translations and rotations among these by their keys."""
+
+from __future__ import annotations
+
+import json
+import re
+from dataclasses import dataclass
+
+from core.decode.characters import _normalise_characters, _strip_comments
+
+_MAX_FIELDS = 2000
+_KEY_LINE = re.compile(r"""^(?P<indent>[ ]*)(?:-[ ]+)?["']?(?P<key>[A-Za-z_][\w.\-/]{0,60}(?:[ ][A-Za-z_(\[][\w)\]]{0,20}){0,3}?)["']?"""
+                       r"""[ ]*(?::(?!:)|=(?!=))[ ]*(?P<rest>.*)$""")
+_INLINE_PAIR = re.compile(r"""["']?(?P<key>[A-Za-z_][\w.\-]{0,40})["']?[ ]*:[ ]*(?P<value>[^,{}]*)""")
+_ATTRIBUTE = re.compile(r"""(?P<key>[A-Za-z_][\w.\-:]{0,40})[ ]*=[ ]*(?P<q>["'])(?P<value>[^"'<>\n]{0,400})(?P=q)""")
+_TAG = re.compile(r"<(?P<tag>[A-Za-z_][\w.\-:]{0,40})(?P<body>[^<>]{0,2000})>")
+_FLAG = re.compile(r"(?<!\S)--(?P<key>[A-Za-z][\w\-]{0,40})(?:[ ]+|=)(?P<value>[^\s-][^\s]*|-[\d.][^\s]*)")
+
+
+@dataclass(frozen=True)
+class Field:
+    """One key with its value text, where it is and the keys it sits under (lower case)."""
+    key: str
+    value: str
+    line: int
+    path: tuple[str, ...] = ()
+
+    @property
+    def name(self) -> str:
+        return self.key.lower()
+
+
+def yaml_like_fields(text: str) -> list[Field]:
+    """`key: value` lines. A key with nothing after it opens a group for the lines indented below it."""
+    clean, _ = _strip_comments(_normalise_characters(text))
+    lines = clean.split("\n")
+    fields: list[Field] = []
+    stack: list[tuple[int, str]] = []          # (indent, key) of the open groups
+    i = 0
+    while i < len(lines) and len(fields) < _MAX_FIELDS:
+        raw = lines[i].replace("\t", "    ")
+        i += 1
+        m = _KEY_LINE.match(raw)
+        if m is None:
+            continue
+        indent, key, rest = len(m.group("indent")), m.group("key").strip(), m.group("rest").strip()
+        if raw.lstrip().startswith("- "):
+            indent += 2                      # '- key: v' is one level in
+        while stack and stack[-1][0] >= indent:
+            stack.pop()
+        path = tuple(k for _, k in stack)
+        start = i
+        if rest.startswith("!!"):            # a YAML tag such as !!opencv-matrix: the group follows
+            rest = ""
+        if not rest:
+            rows, j = _rows_below(lines, i, indent)
+            if rows:                         # '- [a, b, c, d]' rows under the key: one value
+                fields.append(Field(key, " ; ".join(rows), start, path))
+                i = j
+                continue
+            stack.append((indent, key.lower()))
+            continue
+        if rest.startswith("{") and "}" in rest:
+            for pair in _INLINE_PAIR.finditer(rest[1:rest.rfind("}")]):
+                fields.append(Field(pair.group("key"), pair.group("value").strip(), start, path + (key.lower(),)))
+            continue
+        while rest.count("[") > rest.count("]") and i < len(lines) and i - start < 200:
+            rest += " ; " + lines[i].strip()  # a list over several lines; rows keep their breaks
+            i += 1
+        fields.append(Field(key, rest, start, path))
+    return fields
+
+
+def _rows_below(lines: list[str], i: int, indent: int) -> tuple[list[str], int]:
+    rows = []
+    while i < len(lines) and len(rows) < 16:
+        stripped = lines[i].strip()
+        if not stripped:
+            i += 1
+            continue
+        if not stripped.startswith("- [") and not stripped.startswith("-["):
+            break
+        rows.append(stripped[1:].strip())
+        i += 1
+    return rows, i
+
+
+def json_fields(text: str) -> list[Field] | None:
+    """A JSON object (or a list of them) flattened to fields; None when the text is no JSON."""
+    stripped = text.strip()
+    if not stripped.startswith(("{", "[")):
+        return None
+    try:
+        data = json.loads(_normalise_characters(stripped))
+    except (ValueError, RecursionError):
+        return None
+    fields: list[Field] = []
+
+    def walk(value, path, key):
+        if len(fields) >= _MAX_FIELDS or len(path) > 12:
+            return
+        if isinstance(value, dict):
+            for k, v in value.items():
+                walk(v, path + ((key.lower(),) if key else ()), str(k))
+        elif isinstance(value, list) and value and all(isinstance(v, list) for v in value):
+            fields.append(Field(key or "value", " ; ".join(_json_list(v) for v in value), 1, path))
+        elif isinstance(value, list) and value and any(isinstance(v, dict) for v in value):
+            for n, v in enumerate(value):
+                walk(v, path + ((key.lower(),) if key else ()), f"{key or 'item'}[{n}]")
+        elif isinstance(value, (list, int, float, str)) and not isinstance(value, bool):
+            shown = _json_list(value) if isinstance(value, list) else str(value)
+            fields.append(Field(key or "value", shown, 1, path))
+    walk(data, (), "")
+    return fields
+
+
+def _json_list(values) -> str:
+    return "[" + ", ".join(json.dumps(v) if not isinstance(v, str) else v for v in values) + "]"
+
+
+def xml_fields(text: str) -> list[Field]:
+    """XML attributes, each under (its tag, the tag's place in the text), in the order written."""
+    fields: list[Field] = []
+    clean = _normalise_characters(text)
+    for index, tag in enumerate(_TAG.finditer(clean)):
+        line = clean.count("\n", 0, tag.start()) + 1
+        for a in _ATTRIBUTE.finditer(tag.group("body")):
+            fields.append(Field(a.group("key"), a.group("value"), line, (tag.group("tag").lower(), str(index))))
+            if len(fields) >= _MAX_FIELDS:
+                return fields
+    return fields
+
+
+def flag_fields(text: str) -> list[Field]:
+    """`--x 1 --yaw 0.5 --frame-id base`: one field per flag."""
+    clean = _normalise_characters(text)
+    out = []
+    for m in _FLAG.finditer(clean):
+        out.append(Field(m.group("key").replace("-", "_"), m.group("value"), clean.count("\n", 0, m.start()) + 1))
+        if len(out) >= _MAX_FIELDS:
+            break
+    return out

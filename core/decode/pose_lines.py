@@ -1,0 +1,203 @@
+"""Poses written on lines: description-file origins (`<origin xyz=… rpy=…/>`), transform-publisher
+argument lists (`x y z yaw pitch roll parent child`, `x y z qx qy qz qw parent child`), pose lines under
+a header naming their columns (`# timestamp tx ty tz qx qy qz qw`, a CSV header row), and quaternions
+written as a sum (`0.7071 + 0i + 0.7071j + 0k`)."""
+
+from __future__ import annotations
+
+import re
+
+from core.decode.characters import _normalise_characters, _strip_comments
+from core.decode.pose_fields import xml_fields
+from core.decode.poses import PoseText, checked_translation, values_in
+from core.errors import DecodeError
+
+_URDF_NOTE = ("a description file's origin: rpy in radians as roll, pitch, yaw about fixed X, Y, Z; the format's"
+              " lengths are metres (common practice), but the text does not say so")
+_NAME = r"[A-Za-z_/][\w/.\-]{0,80}"
+_NUM = r"(?:[-+]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?|\$\{[^{}\s]{1,80}\}|[-+]?(?:M_PI|PI|pi)(?:/\d+)?)"
+_ARGS = re.compile(rf"(?<![\w.])(?P<numbers>(?:{_NUM}[ ]+){{5,6}}{_NUM})[ ]+(?P<parent>{_NAME})[ ]+(?P<child>{_NAME})"
+                   rf"(?:[ ]+(?P<period>\d+(?:\.\d*)?))?(?=[ \"']*(?:$|/>|>|\n))")
+_SUM_TERM = re.compile(r"(?P<sign>[-+]?)[ ]*(?P<value>(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?)[ ]*\*?[ ]*(?P<unit>[ijk])?(?![\w.])")
+_SUM = re.compile(r"(?:^|[^\w.])[-+]?[ ]*(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?[ ]*(?:[-+][ ]*(?:\d+(?:\.\d*)?|\.\d+)"
+                  r"(?:[eE][-+]?\d+)?[ ]*\*?[ ]*[ijk](?![\w])[ ]*){3}")
+_TIME_COLUMN = re.compile(r"#?(?:timestamp|time|t|stamp|sec|secs|nsec|ns|field\.header\.stamp)")
+_Q_COLUMN = re.compile(r"(?:q|quat|quaternion|orientation|rot|rotation)[\w.]*?[_.]?([wxyz])|q([wxyz])")
+_T_COLUMN = re.compile(r"(?:t|p|pos|position|trans|translation)?[\w.]*?[_.]?([xyz])|(?:t|p)([xyz])")
+_COLUMN_UNIT = re.compile(r"[ ]*(?:\[(?P<unit>[^\[\]()]{0,12})\]|\((?P<unit2>[^\[\]()]{0,12})\))$")
+_MAX_LINE = 400             # a pose line or a header is short; longer lines are not one (and stay cheap)
+
+
+def origin_poses(text: str) -> list[PoseText] | None:
+    """Every `<origin …/>` of the joints in a description file (or a bare origin element)."""
+    if "<origin" not in text:
+        return None
+    fields = xml_fields(text)
+    has_joints = any(f.path[0] == "joint" for f in fields)
+    tags: dict[tuple, dict] = {}
+    for f in fields:
+        tags.setdefault(f.path, {})[f.name] = f
+    poses, owners, joint, links, set_aside = [], [], None, {}, 0
+    for (tag, _), attrs in tags.items():
+        if tag == "joint" and "name" in attrs:
+            joint, links = attrs["name"].value, {}
+        elif tag == "link":
+            joint = None                    # a link's visual, collision and inertial origins follow
+        elif tag in ("parent", "child") and "link" in attrs and joint is not None:
+            links[tag] = attrs["link"].value
+        if tag != "origin":
+            continue
+        if joint is None and has_joints:
+            set_aside += 1
+            continue
+        line = next(iter(attrs.values())).line
+        xyz = values_in(attrs["xyz"].value, line) if "xyz" in attrs else [0.0, 0.0, 0.0]
+        rpy = values_in(attrs["rpy"].value, line) if "rpy" in attrs else [0.0, 0.0, 0.0]
+        if len(rpy) != 3:
+            raise DecodeError(f"line {line}: rpy holds {len(rpy)} numbers; it needs roll, pitch and yaw")
+        notes = [_URDF_NOTE] + [f"{k} not written: 0 0 0 (the description format's default)"
+                                for k in ("xyz", "rpy") if k not in attrs]
+        poses.append(PoseText(tuple(rpy), "description-file origin", line,
+                              {"kind": "angles", "sequence": "XYZ", "intrinsic": False, "units": "rad"},
+                              checked_translation(xyz, line), None, joint, notes))
+        owners.append(links)
+    if not poses:
+        return None
+    for pose, joint_links in zip(poses, owners):     # parent and child may follow the origin
+        if pose.name is not None and len(joint_links) == 2:
+            pose.name = f"{joint_links['parent']} -> {joint_links['child']}"
+        if set_aside:
+            pose.notes.append(f"{set_aside} origin(s) outside a joint (visual, collision or inertial offsets) not read")
+    return poses
+
+
+def argument_poses(text: str) -> list[PoseText] | None:
+    """`x y z yaw pitch roll parent child` or `x y z qx qy qz qw parent child` (and an optional period)."""
+    clean = _normalise_characters(text)
+    found = list(_ARGS.finditer(clean))
+    if not found:
+        return None
+    poses = []
+    for m in found:
+        line = clean.count("\n", 0, m.start()) + 1
+        values = values_in(" ".join(m.group("numbers").split()), line)
+        translation = checked_translation(values[:3], line)
+        notes = ["transform arguments are in radians; their lengths are metres (common practice), but the text does not say so"]
+        if m.group("period"):
+            notes.append(f"the last argument ({m.group('period')}) is the publishing period, not part of the pose")
+        if len(values) == 6:
+            fixed = {"kind": "angles", "sequence": "ZYX", "intrinsic": True, "units": "rad"}
+            notes.append("arguments x y z yaw pitch roll: yaw-pitch-roll, intrinsic Z-Y'-X''")
+            rotation = values[3:]
+        else:
+            fixed = {"kind": "quaternion", "order": "xyzw"}
+            notes.append("arguments x y z qx qy qz qw: the quaternion is written w last")
+            rotation = values[3:]
+        poses.append(PoseText(tuple(rotation), "transform arguments", line, fixed, translation, None,
+                              f"{m.group('parent')} -> {m.group('child')}", notes))
+    return poses
+
+
+def quaternion_sum(text: str) -> list[PoseText] | None:
+    """`0.7071 + 0i + 0.7071j + 0k` (also with `*i`): the scalar is the term without i, j or k."""
+    if not re.search(r"\d[ ]*\*?[ ]*[ijk](?![\w.])", text):
+        return None
+    clean = _normalise_characters(text)
+    m = next((found for line in clean.split("\n") if len(line) <= _MAX_LINE and (found := _SUM.search(line))), None)
+    if m is None:
+        return None
+    parts: dict[str, float] = {}
+    for term in _SUM_TERM.finditer(m.group()):
+        value = float(term.group("value")) * (-1.0 if term.group("sign") == "-" else 1.0)
+        part = term.group("unit") or "w"
+        if part in parts:
+            raise DecodeError(f"the quaternion '{m.group().strip()[:40]}' names {part} twice")
+        parts[part] = value
+    if sorted(parts) != ["i", "j", "k", "w"]:
+        return None
+    line = next(k for k, text_line in enumerate(clean.split("\n"), start=1) if m.group() in text_line)
+    return [PoseText((parts["w"], parts["i"], parts["j"], parts["k"]), "quaternion written as a sum", line,
+                     {"kind": "quaternion", "order": "wxyz"}, None, None, None,
+                     ["written as w + xi + yj + zk: the term without i, j or k is the scalar part"])]
+
+
+def column_poses(text: str) -> list[PoseText] | None:
+    """Lines of numbers under a header that names their columns (in a comment or a CSV header row):
+    time, position x y z, quaternion x y z w in any order, or roll pitch yaw. The last line is read."""
+    clean = _normalise_characters(text)
+    lines = clean.split("\n")
+    header, header_line, start = None, 0, 0
+    for i, raw in enumerate(lines):
+        stripped = raw.strip().lstrip("#%/").strip()
+        if not stripped or len(stripped) > _MAX_LINE:
+            continue
+        if re.search(r"\d", stripped.replace("_", "")) and not re.search(r"[A-Za-z]", stripped):
+            break                                    # data begins
+        separators = r"[,;|]" if re.search(r"[,;|]", stripped) else r"\s+"
+        names = [n.strip() for n in re.split(separators, stripped) if n.strip()]
+        roles = [_role(n) for n in names]
+        if sum(1 for r in roles if r and r[0] in "tq") >= 6 or \
+                (sum(1 for r in roles if r and r[0] == "t") == 3 and sum(1 for r in roles if r and r[0] == "a") == 3):
+            header, header_line, start = names, i + 1, i + 1
+    if header is None:
+        return None
+    roles = [_role(n) for n in header]
+    if None in roles:
+        unknown = header[roles.index(None)]
+        raise DecodeError(f"line {header_line}: the column '{unknown[:24]}' is not a time, position, quaternion or"
+                          " angle column Framewright knows")
+    body = "\n".join(lines[start:])
+    data, _ = _strip_comments(body)
+    rows = []
+    for k, raw in enumerate(data.split("\n"), start=start + 1):
+        if raw.strip():
+            values = values_in(raw, k)
+            if len(values) != len(header):
+                raise DecodeError(f"line {k}: {len(values)} numbers under a header of {len(header)} columns")
+            rows.append((k, values))
+    if not rows:
+        return None
+    line, values = rows[-1]
+    by = {role: v for role, v in zip(roles, values)}
+    units = {u for n in header if (u := _column_unit(n))}
+    unit = "m" if "m" in units else "mm" if "mm" in units else None
+    translation = checked_translation([by.get("tx"), by.get("ty"), by.get("tz")], line) if \
+        all(k in by for k in ("tx", "ty", "tz")) else None
+    notes = [f"columns named by the header on line {header_line}: {' '.join(header)[:120]}"]
+    if "time" in by:
+        notes.append(f"the time column ({values[roles.index('time')]:.15g}) was set aside")
+    if len(rows) > 1:
+        notes.append(f"the text holds {len(rows)} pose lines; read the last (line {line})")
+    if all(k in by for k in ("qw", "qx", "qy", "qz")):
+        rotation = (by["qw"], by["qx"], by["qy"], by["qz"])
+        fixed = {"kind": "quaternion", "order": "wxyz"}
+        notes.append("the quaternion's columns are named; read as w, x, y, z")
+    elif all(k in by for k in ("ayaw", "apitch", "aroll")):
+        rotation = (by["ayaw"], by["apitch"], by["aroll"])
+        fixed = {"kind": "angles", "sequence": "ZYX", "intrinsic": True}
+        notes.append("roll, pitch and yaw read by name (yaw-pitch-roll, intrinsic Z-Y'-X'')")
+    else:
+        return None
+    return [PoseText(rotation, "pose line", line, fixed, translation, unit, None, notes)]
+
+
+def _column_unit(name: str) -> str | None:
+    m = _COLUMN_UNIT.search(name)
+    return (m.group("unit") or m.group("unit2") or "").strip().lower() or None if m else None
+
+
+def _role(name: str) -> str | None:
+    if len(name) > 60:
+        return None
+    bare = _COLUMN_UNIT.sub("", name).strip().lower()
+    if _TIME_COLUMN.fullmatch(bare):
+        return "time"
+    if bare in ("roll", "pitch", "yaw"):
+        return "a" + bare
+    m = _Q_COLUMN.fullmatch(bare)
+    if m and not re.fullmatch(r"[xyz]", bare):
+        return "q" + (m.group(1) or m.group(2))
+    m = _T_COLUMN.fullmatch(bare)
+    if m:
+        return "t" + (m.group(1) or m.group(2))
+    return None
