@@ -115,8 +115,8 @@ class MainWindow(QMainWindow):
         grid.addWidget(self.quaternion, 0, 1)
         grid.addWidget(self.angles, 0, 2)
         grid.addWidget(self.matrix, 1, 0, 1, 2)
-        grid.addWidget(self.meter, 1, 2)
-        grid.addWidget(self.position, 2, 0, 1, 3)   # the pose's other half, one row under them all
+        grid.addWidget(self.meter, 1, 2, 2, 1)
+        grid.addWidget(self.position, 2, 0, 1, 2)   # the pose's other half, under the Matrix, beside the meter
         centre = QSplitter(Qt.Orientation.Vertical)
         centre.addWidget(self.scene)
         centre.addWidget(_scrollable(editors, min_width=0, across=False))

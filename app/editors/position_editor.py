@@ -8,9 +8,9 @@ per commit. The editor renders from the model and ignores the change it made its
 from __future__ import annotations
 
 from PySide6.QtCore import Qt
-from PySide6.QtWidgets import QApplication, QComboBox, QFrame, QHBoxLayout, QLabel
+from PySide6.QtWidgets import QApplication, QComboBox, QFrame, QHBoxLayout, QLabel, QVBoxLayout
 
-from app.editors.base import EditorBase
+from app.editors.base import EditorBase, focus_left
 from app.editors.number_field import NumberField, format_number
 from app.model import MOUNTS, POSITION, PREFERENCES, SELECTION, Change, SessionModel
 from core.errors import FramewrightError
@@ -22,8 +22,8 @@ _TIP = ("{axis} of the body origin in the reference frame, in the unit chosen be
 
 
 class PositionEditor(QFrame):
-    """One row under the orientation editors (a title, three fields, the unit, a note), so the pose's
-    other half costs the Scene one line of height."""
+    """A title, three fields and the unit on one line, a note under them: small enough to sit under the
+    Matrix beside the Gimbal margin meter, so the pose's other half takes no height from the Scene."""
 
     def __init__(self, model: SessionModel, parent=None):
         super().__init__(parent)
@@ -36,17 +36,20 @@ class PositionEditor(QFrame):
             self.unit_box.addItem(_UNIT_WORDS[unit], unit)
         self.unit_box.setToolTip("Unit of the position shown and typed. Changing it keeps the same place.")
         self.note = EditorBase.note_label(lines=1)
+        self.note.hide()            # shown only when it has something to say, so it costs no height
         self.note.setAlignment(Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter)
-        self.note.setMinimumWidth(self.note.fontMetrics().horizontalAdvance("0" * 24))
         title = QLabel("Position")
-        title.setToolTip("Where the body origin is in the reference frame (with the orientation, a pose).")
-        row = QHBoxLayout(self)
+        title.setToolTip("Where the body origin is in the reference frame (with the orientation, a pose). "
+                         "Enter or leaving the fields sets it; Ctrl+Z takes it back. Empty: no position.")
+        layout = QVBoxLayout(self)
+        row = QHBoxLayout()
         row.addWidget(title)
         for axis, field in zip("xyz", self.fields):
             row.addWidget(QLabel(axis))
-            row.addWidget(field)
+            row.addWidget(field, 1)
         row.addWidget(self.unit_box)
-        row.addWidget(self.note, 1)
+        layout.addLayout(row)
+        layout.addWidget(self.note)
         for field in self.fields:
             field.edited.connect(self._on_typed)
             field.committed.connect(self.commit)
@@ -74,8 +77,9 @@ class PositionEditor(QFrame):
         values = position.shown() if position is not None else ("", "", "")
         for field, value in zip(self.fields, values):
             field.set_text(value if value == "" else format_number(value, digits))
-        self.note.setText("Body origin in the reference frame." if position is not None else
-                          "No position: type x, y and z to give this mount one.")
+        for field in self.fields:
+            field.lineEdit().setPlaceholderText("none")
+        self._say("")
 
     # ---- fields -> model -------------------------------------------------------------------------
     def _unit(self) -> str:
@@ -102,7 +106,7 @@ class PositionEditor(QFrame):
             if problem is not None and problem[:2] in ("x:", "y:", "z:"):
                 self.fields["xyz".index(problem[0])].set_problem(problem[3:])
         if problem is not None:
-            self.note.setText(f"Not used: {problem}. The last good position stays in use.")
+            self._say(f"Not used: {problem}. The last good position stays in use.")
             return False, None
         return True, Position.from_shown(values, self._unit())
 
@@ -110,7 +114,7 @@ class PositionEditor(QFrame):
         self._editing = True
         ok, _ = self.read_position()
         if ok:
-            self.note.setText("Enter (or leaving the fields) sets this position; Ctrl+Z takes it back.")
+            self._say("")
 
     def commit(self) -> None:
         """Enter or focus out: send the position when all three fields are good (or all empty)."""
@@ -123,9 +127,13 @@ class PositionEditor(QFrame):
         try:
             self.model.set_position(position, origin=self)
         except FramewrightError as exc:
-            self.note.setText(f"Not used: {exc}. The last good position stays in use.")
+            self._say(f"Not used: {exc}. The last good position stays in use.")
             return
         self.render()
+
+    def _say(self, text: str) -> None:
+        self.note.setText(text)
+        self.note.setVisible(bool(text))
 
     def _unit_chosen(self, _index: int) -> None:
         position = self.model.current_mount().position
@@ -137,9 +145,5 @@ class PositionEditor(QFrame):
             self.render()
 
     def _on_focus_changed(self, old, new) -> None:
-        if not self._editing:
-            return
-        was_inside = old is not None and self.isAncestorOf(old)
-        now_inside = new is not None and self.isAncestorOf(new)
-        if was_inside and not now_inside:
+        if self._editing and focus_left(self, old, new):
             self.commit()
