@@ -87,3 +87,22 @@ class ReplaceValueCommand(QUndoCommand):
 
     def undo(self) -> None:
         self._model._apply_value(self.key, self.old, None)
+
+
+class SetPositionCommand(QUndoCommand):
+    """Set, change or clear one mount's position (None: no position), before and after."""
+
+    def __init__(self, model, index, old, new, text, origin):
+        super().__init__(text)
+        self._model = model
+        self.index = index
+        self.old = old
+        self.new = new
+        self._first_origin = origin
+
+    def redo(self) -> None:
+        origin, self._first_origin = self._first_origin, None
+        self._model._apply_position(self.index, self.new, origin)
+
+    def undo(self) -> None:
+        self._model._apply_position(self.index, self.old, None)

@@ -1,5 +1,6 @@
 """Copy as: put the current orientation on the clipboard in a chosen format, then decode the copy back
-and report its round-trip error before calling it verified."""
+and report its round-trip error before calling it verified. A mount with a position can also be copied
+as a pose (core/pose_formats.py): its round trip checks the position as well as the orientation."""
 
 from __future__ import annotations
 
@@ -21,10 +22,16 @@ FORMATS = {
     "c": "C / C++ initializer",
     "matlab": "MATLAB / Octave",
     "report": "Report (every representation)",
+    "pose-matrix": "4×4 pose matrix (needs a position)",
+    "pose-line": "Pose line: position, quaternion (needs a position)",
 }
+POSE_FORMATS = ("pose-matrix", "pose-line")
 JSON_MIME = "application/json"
 # A copy whose decoded value is farther than this from the original is not called verified.
 VERIFIED_LIMIT_DEG = 1e-9
+# ... or whose decoded position is farther than this (a nanometre: far below any bench measurement,
+# far above the rounding of a shortest decimal).
+VERIFIED_LIMIT_M = 1e-9
 
 
 @dataclass(frozen=True)
@@ -34,10 +41,13 @@ class CopyResult:
     json_text: str | None
     round_trip_error_deg: float | None
     status_message: str
+    round_trip_error_m: float | None = None      # pose formats only
 
     @property
     def verified(self) -> bool:
-        return self.round_trip_error_deg is not None and self.round_trip_error_deg <= VERIFIED_LIMIT_DEG
+        return (self.round_trip_error_deg is not None and self.round_trip_error_deg <= VERIFIED_LIMIT_DEG
+                and (self.fmt not in POSE_FORMATS
+                     or self.round_trip_error_m is not None and self.round_trip_error_m <= VERIFIED_LIMIT_M))
 
 
 def _options(model, editor) -> dict:
@@ -66,12 +76,31 @@ def _editor_representation(editor) -> str:
     return {"QuaternionEditor": "quaternion", "MatrixEditor": "matrix", "AnglesEditor": "angles"}.get(name, "quaternion")
 
 
+def offered(model, fmt: str) -> bool:
+    """Whether the menu offers `fmt` for the selected mount (a pose needs a position)."""
+    return fmt not in POSE_FORMATS or model.current_mount().position is not None
+
+
+def render_pose_copy(model, fmt: str) -> tuple[str, float, float]:
+    """(text, round-trip error in degrees, in metres) of the selected mount as a pose."""
+    from core import pose_formats  # late: only needed when copying
+
+    mount = model.current_mount()
+    scalar_last = model.preferences.quaternion_order == "xyzw"
+    text = pose_formats.render_pose(mount.orientation, mount.position, fmt, scalar_last)
+    angle, distance = pose_formats.pose_round_trip(mount.orientation, mount.position, text, fmt, scalar_last)
+    return text, float(angle), float(distance)
+
+
 def render_copy(model, fmt: str, editor=None) -> tuple[str, str | None, float]:
     """(text, JSON for the JSON MIME type or None, round-trip error in degrees)."""
     from core import formats  # late: only needed when copying
 
     if fmt not in FORMATS:
         raise KeyError(f"unknown copy format {fmt!r}; expected one of {', '.join(FORMATS)}")
+    if fmt in POSE_FORMATS:
+        text, error, _ = render_pose_copy(model, fmt)
+        return text, None, error
     orientation = model.current_orientation()
     options = _options(model, editor)
     text = formats.render(orientation, fmt, options)
@@ -81,8 +110,13 @@ def render_copy(model, fmt: str, editor=None) -> tuple[str, str | None, float]:
 
 
 def copy_to_clipboard(model, fmt: str, editor=None) -> CopyResult:
+    distance = None
     try:
-        text, json_text, error = render_copy(model, fmt, editor)
+        if fmt in POSE_FORMATS:
+            text, error, distance = render_pose_copy(model, fmt)
+            json_text = None
+        else:
+            text, json_text, error = render_copy(model, fmt, editor)
     except Exception as exc:  # a failing renderer must never lose the user's clipboard silently
         return CopyResult(fmt, "", None, None, f"Nothing copied: {FORMATS.get(fmt, fmt)} failed ({exc}).")
     mime = QMimeData()
@@ -95,9 +129,12 @@ def copy_to_clipboard(model, fmt: str, editor=None) -> CopyResult:
             pass
     QGuiApplication.clipboard().setMimeData(mime)
     label = FORMATS[fmt]
-    if error <= VERIFIED_LIMIT_DEG:
-        message = f"Copied as {label}; decoded back, round-trip error {error:.1e}° — verified."
+    result = CopyResult(fmt, text, json_text, error, "", distance)
+    moved = "" if distance is None else f" and {distance * 1e3:.1e} mm"
+    if result.verified:
+        message = f"Copied as {label}; decoded back, round-trip error {error:.1e}°{moved} — verified."
     else:
-        message = (f"Copied as {label}, but decoded back it differs by {error:.3g}° — NOT verified; "
+        moved = "" if distance is None else f" and {distance * 1e3:.3g} mm"
+        message = (f"Copied as {label}, but decoded back it differs by {error:.3g}°{moved} — NOT verified; "
                    "check the digits before handing it on.")
-    return CopyResult(fmt, text, json_text, error, message)
+    return CopyResult(fmt, text, json_text, error, message, distance)

@@ -23,11 +23,13 @@ from app import commands
 from core import describe
 from core.chain import Chain
 from core.orientation import Orientation
+from core.position import Position
 from core.session import (Mount, Preferences, SavedCheck, Session, read_chains, read_checks,
                           with_chains_and_checks)
 
 # What a change can touch.
 ORIENTATION = "orientation"  # the selected mount's orientation
+POSITION = "position"  # the selected mount's position (or that it has none)
 MOUNTS = "mounts"  # the list of mounts: count, names, order, properties
 SELECTION = "selection"  # which mount is selected (so the current orientation changed too)
 PREFERENCES = "preferences"  # how numbers are shown
@@ -167,7 +169,7 @@ class SessionModel(QObject):
             self._preferences = session.preferences
         self.file_path = file_path
         self.undo_stack.setClean()
-        self._emit({ORIENTATION, MOUNTS, SELECTION, PREFERENCES, CHAIN, CHECK, WORDS}, None)
+        self._emit({ORIENTATION, POSITION, MOUNTS, SELECTION, PREFERENCES, CHAIN, CHECK, WORDS}, None)
 
     # ---- view state (not undoable: it changes no data) -----------------------------------------
     def select(self, index: int, origin: object | None = None) -> None:
@@ -177,7 +179,7 @@ class SessionModel(QObject):
             return
         self.end_continuous()
         self._selected = index
-        self._emit({SELECTION, ORIENTATION}, origin)
+        self._emit({SELECTION, ORIENTATION, POSITION}, origin)
 
     def set_preferences(self, origin: object | None = None, **changes) -> None:
         """Change how numbers are shown (units, orders, sequence, digits, thresholds)."""
@@ -229,6 +231,29 @@ class SessionModel(QObject):
             self._idle.stop()
         else:
             self.end_continuous()
+
+    def set_position(self, position, origin: object | None = None, index: int | None = None,
+                     text: str | None = None) -> None:
+        """Set a mount's position (a core.position.Position), or clear it with None: one undo step."""
+        if position is not None and not isinstance(position, Position):
+            raise TypeError("set_position needs a Position or None")
+        index = self._selected if index is None else index
+        mount = self._mounts[index]
+        old = mount.position
+        if position == old:
+            return
+        if text is None:
+            text = (f"Clear the position of “{mount.name}”" if position is None else
+                    f"Set the position of “{mount.name}”" if old is None else f"Edit the position of “{mount.name}”")
+        self.end_continuous()
+        self.undo_stack.push(commands.SetPositionCommand(self, index, old, position, text, origin))
+
+    def apply_pose(self, orientation: Orientation, position, text: str, origin: object | None = None) -> None:
+        """Set the selected mount's orientation and position together: one undo step."""
+        self.undo_stack.beginMacro(text)
+        self.set_orientation(orientation, origin=origin, text=text)
+        self.set_position(position, origin=origin, text=text)
+        self.undo_stack.endMacro()
 
     def end_continuous(self) -> None:
         """End the current run of merging edits; the next edit starts a new undo step."""
@@ -319,7 +344,10 @@ class SessionModel(QObject):
         """Add the chain's product as a new mount, named after the chain, and select it (one undo step)."""
         chain = self.chain
         base = chain.name if chain.name and chain.name != "chain" else "Chain"
-        self.add_mount(self.unused_name(f"{base} product"), chain.product(), origin=origin)
+        orientation, position = chain.pose_product()
+        name = self.unused_name(f"{base} product")
+        mount = Mount(name, orientation, position=position)
+        self._push_mounts(self._mounts + (mount,), len(self._mounts), f"Add mount “{name}”", origin)
 
     def snap_to_right_angle(self, origin: object | None = None) -> None:
         """Set the selected mount to the nearest of the 24 right-angle orientations (one undo step)."""
@@ -374,10 +402,19 @@ class SessionModel(QObject):
         self._mounts = self._mounts[:index] + (mount.with_orientation(orientation),) + self._mounts[index + 1:]
         self._emit(what, origin)
 
+    def _apply_position(self, index: int, position, origin: object | None) -> None:
+        what = {POSITION}
+        if index != self._selected:  # undo of an edit on another mount: show that mount again
+            self._selected = index
+            what |= {SELECTION, ORIENTATION}
+        mount = self._mounts[index]
+        self._mounts = self._mounts[:index] + (mount.with_position(position),) + self._mounts[index + 1:]
+        self._emit(what, origin)
+
     def _apply_mounts(self, mounts: tuple[Mount, ...], selected: int, origin: object | None) -> None:
         self._mounts = mounts
         self._selected = selected
-        self._emit({MOUNTS, SELECTION, ORIENTATION}, origin)
+        self._emit({MOUNTS, SELECTION, ORIENTATION, POSITION}, origin)
 
     def _emit(self, what, origin) -> None:
         self.changed.emit(Change(frozenset(what), origin))

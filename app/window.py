@@ -20,6 +20,7 @@ from app.editors.angles_editor import AnglesEditor
 from app.editors.axis_angle_editor import AxisAngleEditor
 from app.editors.base import EditorBase
 from app.editors.matrix_editor import MatrixEditor
+from app.editors.position_editor import PositionEditor
 from app.editors.quaternion_editor import QuaternionEditor
 from app.model import PREFERENCES, Change, SessionModel
 from app.panels.batch_panel import BatchPanel
@@ -85,6 +86,7 @@ class MainWindow(QMainWindow):
         self.quaternion = QuaternionEditor(model)
         self.matrix = MatrixEditor(model)
         self.angles = AnglesEditor(model)
+        self.position = PositionEditor(model)
         self.meter = GimbalMeter(model)
         self.decode_panel = DecodePanel(model)
         self.measure_panel = MeasurePanel(model)
@@ -103,7 +105,7 @@ class MainWindow(QMainWindow):
         grid = QGridLayout(editors)
         grid.setContentsMargins(0, 0, 0, 0)
         grid.setSpacing(4)
-        for box in self.editors + [self.meter]:
+        for box in self.editors + [self.meter, self.position]:
             # Tighter than the default frame, so all five fit under the Scene on an 800-pixel screen.
             box.layout().setContentsMargins(6, 4, 6, 4)
             box.layout().setSpacing(4)
@@ -113,7 +115,8 @@ class MainWindow(QMainWindow):
         grid.addWidget(self.quaternion, 0, 1)
         grid.addWidget(self.angles, 0, 2)
         grid.addWidget(self.matrix, 1, 0, 1, 2)
-        grid.addWidget(self.meter, 1, 2)
+        grid.addWidget(self.meter, 1, 2, 2, 1)
+        grid.addWidget(self.position, 2, 0, 1, 2)   # the pose's other half, under the Matrix, beside the meter
         centre = QSplitter(Qt.Orientation.Vertical)
         centre.addWidget(self.scene)
         centre.addWidget(_scrollable(editors, min_width=0, across=False))
@@ -256,6 +259,8 @@ class MainWindow(QMainWindow):
             action.triggered.connect(lambda _=False, k=key: self.copy_as(k))
             self.copy_as_menu.addAction(action)
             self.copy_as_actions[key] = action
+        self.copy_as_menu.aboutToShow.connect(self._offer_copy_formats)  # the pose ones need a position
+        self._offer_copy_formats()
         edit_menu.addAction(self.copy_again_action)
         edit_menu.addAction(self.paste_action)
         edit_menu.addSeparator()
@@ -317,7 +322,12 @@ class MainWindow(QMainWindow):
         self.redo_action.setText(f"&Redo {text}".strip())
 
     # ---- model -> window -----------------------------------------------------------------------
+    def _offer_copy_formats(self) -> None:
+        for key, action in self.copy_as_actions.items():
+            action.setEnabled(copy_as.offered(self.model, key))
+
     def _on_model_changed(self, change: Change) -> None:
+        self._offer_copy_formats()
         if change.touches(PREFERENCES):
             self._render_toolbar()
             settings.save_preferences(self.model.preferences, self._settings)
@@ -491,7 +501,8 @@ class MainWindow(QMainWindow):
         PartDialog(self.model, self).exec()
 
     def show_preferences(self) -> None:
-        dialog = PreferencesDialog(self.model, copy_as.FORMATS, self.default_copy_format, self)
+        everyday = {k: v for k, v in copy_as.FORMATS.items() if k not in copy_as.POSE_FORMATS}
+        dialog = PreferencesDialog(self.model, everyday, self.default_copy_format, self)
         if dialog.exec():
             self.default_copy_format = dialog.chosen_copy_default
             settings.save_text("copy/default_format", self.default_copy_format, self._settings)

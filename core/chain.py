@@ -6,6 +6,12 @@ the one fixed to the reference. A step marked `inverted` contributes R_stepᵀ: 
 other way round (parent in child), as some drawings do. A disabled step contributes nothing (identity),
 e.g. a spacer that is not fitted.
 
+A step may also carry a position: where the child frame's origin is in the parent frame, so the step is a
+rigid transform p_parent = R_step · p_child + t_step. The chain then composes full transforms
+(CONVENTIONS.md "Composition"): R = R_1 · R_2 · ..., t = t_1 + R_1 · t_2 + R_1 · R_2 · t_3 + ...; a step
+without a position moves nothing (t = 0), an inverted one contributes (R_stepᵀ, −R_stepᵀ · t_step). The
+product has a position exactly when some enabled step has one.
+
 Every edit (add, remove, move, reorder, invert, enable) returns a new Chain; nothing is changed in place,
 which is what the undo stack above us needs.
 
@@ -13,6 +19,7 @@ Session-file form (to_dict / from_dict)::
 
     {"name": "antenna mast",
      "steps": [{"name": "bracket", "orientation": {"quaternion_wxyz": [w, x, y, z]},
+                "position": {"metres": [x, y, z], "unit": "mm"},      # optional (session version 2)
                 "inverted": false, "enabled": true}, ...]}
 
 The orientation entry has the same form as a mount's in core/session.py, and the same rule: a stored
@@ -23,6 +30,7 @@ normalise it and say so in a note before it ever becomes a step.
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass, replace
 
 import numpy as np
@@ -30,6 +38,7 @@ import numpy as np
 from core import kernels
 from core.errors import FramewrightError, InvalidInputError
 from core.orientation import Orientation
+from core.position import DEFAULT_UNIT, LIMIT_M, Position
 
 # As the session loader's mounts: a saved quaternion is unit to about 1e-16, so anything off by more
 # than this was edited by hand or damaged.
@@ -44,6 +53,7 @@ class ChainStep:
     orientation: Orientation
     inverted: bool = False
     enabled: bool = True
+    position: Position | None = None      # the child frame's origin in the parent frame
 
     def __post_init__(self):
         if not isinstance(self.name, str):
@@ -51,6 +61,9 @@ class ChainStep:
         if not isinstance(self.orientation, Orientation):
             raise InvalidInputError(
                 f"step {self.name!r}: expected an Orientation, got {type(self.orientation).__name__}")
+        if self.position is not None and not isinstance(self.position, Position):
+            raise InvalidInputError(f"step {self.name!r}: expected a Position or none, "
+                                    f"got {type(self.position).__name__}")
         for flag in ("inverted", "enabled"):
             if not isinstance(getattr(self, flag), bool):
                 raise InvalidInputError(f"step {self.name!r}: {flag} must be true or false, "
@@ -63,13 +76,25 @@ class ChainStep:
             return Orientation.identity()
         return self.orientation.inverse() if self.inverted else self.orientation
 
+    @property
+    def translation(self) -> np.ndarray:
+        """What this step adds to the chain's translation, in its parent frame (metres): t, −Rᵀ t when
+        inverted, zero when disabled or without a position."""
+        if not self.enabled or self.position is None:
+            return np.zeros(3)
+        t = np.array(self.position.metres)
+        return -(self.orientation.as_matrix().T @ t) if self.inverted else t
+
     def to_dict(self):
-        return {
+        data = {
             "name": self.name,
             "orientation": {"quaternion_wxyz": [float(v) for v in self.orientation.quaternion]},
             "inverted": self.inverted,
             "enabled": self.enabled,
         }
+        if self.position is not None:
+            data["position"] = self.position.to_dict()
+        return data
 
     @classmethod
     def from_dict(cls, data, where="step"):
@@ -78,7 +103,7 @@ class ChainStep:
         for key in ("name", "orientation"):
             if key not in data:
                 raise FramewrightError(f"{where}: missing {key!r}; expected keys name, orientation, "
-                                       f"inverted, enabled")
+                                       f"position, inverted, enabled")
         orientation = data["orientation"]
         if not isinstance(orientation, dict) or "quaternion_wxyz" not in orientation:
             raise FramewrightError(f"{where}: orientation must be {{\"quaternion_wxyz\": [w, x, y, z]}}, "
@@ -89,7 +114,8 @@ class ChainStep:
         try:
             _check_unit(orientation["quaternion_wxyz"])
             value = Orientation.from_quaternion(orientation["quaternion_wxyz"])
-            return cls(data["name"], value, data.get("inverted", False), data.get("enabled", True))
+            position = Position.from_dict(data["position"]) if "position" in data else None
+            return cls(data["name"], value, data.get("inverted", False), data.get("enabled", True), position)
         except FramewrightError as exc:
             raise type(exc)(f"{where}: {exc}") from exc
 
@@ -112,11 +138,13 @@ def _check_unit(values):
 
 @dataclass(frozen=True)
 class Frame:
-    """An intermediate frame: the cumulative orientation (this frame -> reference) after step `index`."""
+    """An intermediate frame: the cumulative orientation (this frame -> reference) after step `index`,
+    and where its origin is in the reference frame (None while no step so far has a position)."""
 
     index: int
     name: str
     orientation: Orientation
+    position: Position | None = None
 
 
 @dataclass(frozen=True)
@@ -133,6 +161,12 @@ class Chain:
                 raise InvalidInputError(f"chain step {i}: expected a ChainStep, got {type(step).__name__}")
         if not isinstance(self.name, str):
             raise InvalidInputError(f"chain name: expected text, got {self.name!r}")
+        # A frame's distance from the reference is at most the sum of the steps' distances (a turn keeps
+        # lengths): within the limit of one position, every frame is a valid position too.
+        reach = sum(math.dist(s.position.metres, (0.0, 0.0, 0.0)) for s in steps if s.position is not None)
+        if reach > LIMIT_M:
+            raise InvalidInputError(f"chain {self.name!r}: its steps' positions add up to {reach:.6g} m, farther "
+                                    f"than {LIMIT_M:g} m from the reference; expected mounting distances")
         object.__setattr__(self, "steps", steps)
 
     def __len__(self):
@@ -155,15 +189,38 @@ class Chain:
             result = result @ step.contribution
         return result
 
+    def has_position(self) -> bool:
+        """Whether some enabled step has a position (so the product has one)."""
+        return any(step.enabled and step.position is not None for step in self.steps)
+
+    def position_unit(self) -> str:
+        """The unit the product's position is shown in: that of the first step that has one."""
+        return next((s.position.unit for s in self.steps if s.enabled and s.position is not None), DEFAULT_UNIT)
+
+    def pose_product(self):
+        """(orientation, position): the whole chain as one rigid transform body -> reference; the position
+        is None when no enabled step has one."""
+        frames = self.frames()
+        if not frames:
+            return Orientation.identity(), None
+        return frames[-1].orientation, frames[-1].position
+
     def frames(self):
-        """The cumulative orientation after each enabled step, reference side first; the last one is the
-        product (or there are none when no step is enabled)."""
+        """The cumulative orientation (and position, from the first step that has one) after each enabled
+        step, reference side first; the last one is the product (none when no step is enabled)."""
         frames = []
         cumulative = Orientation.identity()
+        translation = np.zeros(3)
+        placed = False
+        unit = self.position_unit()
         for i, step in enumerate(self.steps):
             if step.enabled:
+                # t = t_so_far + R_so_far · t_step, with R_so_far before this step
+                translation = translation + cumulative.as_matrix() @ step.translation
+                placed = placed or step.position is not None
                 cumulative = cumulative @ step.contribution
-                frames.append(Frame(i, step.name, cumulative))
+                position = Position(tuple(translation), unit) if placed else None
+                frames.append(Frame(i, step.name, cumulative, position))
         return tuple(frames)
 
     # --- edits (each returns a new chain) -------------------------------------------------------------

@@ -26,6 +26,7 @@ import numpy as np
 from core import kernels
 from core.errors import FramewrightError, InvalidInputError
 from core.orientation import Orientation
+from core.position import LIMIT_M, Position
 
 MODES = ("total", "pointing_and_roll")
 
@@ -130,6 +131,23 @@ def _tolerance(value, what):
     return number
 
 
+# A position tolerance beyond the farthest position there is (core/position.py) cannot fail: a typo.
+POSITION_TOLERANCE_LIMIT_MM = LIMIT_M * 1e3
+
+
+def _length_tolerance(value):
+    if isinstance(value, (bool, str)):
+        raise InvalidInputError(f"position tolerance: expected a number of mm, got {value!r}")
+    try:
+        number = float(value)
+    except (TypeError, ValueError) as exc:
+        raise InvalidInputError(f"position tolerance: expected a number of mm, got {value!r}") from exc
+    if not math.isfinite(number) or not 0 <= number <= POSITION_TOLERANCE_LIMIT_MM:
+        raise InvalidInputError(f"position tolerance: expected a distance from 0 to "
+                                f"{POSITION_TOLERANCE_LIMIT_MM:g} mm, got {value!r}")
+    return number
+
+
 @dataclass(frozen=True)
 class CheckSettings:
     """What a check compares against.
@@ -137,6 +155,9 @@ class CheckSettings:
     mode: 'total' (the total deviation against total_tolerance_deg) or 'pointing_and_roll' (the pointing
     error of body_axis against pointing_tolerance_deg and |roll| about it against roll_tolerance_deg).
     body_axis: a named axis ('+Z') or three numbers; None reports no pointing figures (mode 'total' only).
+    position_tolerance_mm: None (positions are not judged) or the largest distance (mm) the measured
+    position may be from the nominal one; judged only when both mounts have a position
+    (`check_position`), and reported after the orientation verdict.
     """
 
     mode: str = "total"
@@ -144,8 +165,11 @@ class CheckSettings:
     pointing_tolerance_deg: float = 0.5
     roll_tolerance_deg: float = 1.0
     body_axis: str | tuple | None = None
+    position_tolerance_mm: float | None = None
 
     def __post_init__(self):
+        if self.position_tolerance_mm is not None:
+            object.__setattr__(self, "position_tolerance_mm", _length_tolerance(self.position_tolerance_mm))
         if self.mode not in MODES:
             raise InvalidInputError(f"check mode {self.mode!r} is unknown; expected one of {', '.join(MODES)}")
         for name in ("total_tolerance_deg", "pointing_tolerance_deg", "roll_tolerance_deg"):
@@ -175,6 +199,7 @@ class CheckSettings:
             "pointing_tolerance_deg": self.pointing_tolerance_deg,
             "roll_tolerance_deg": self.roll_tolerance_deg,
             "body_axis": list(axis) if isinstance(axis, tuple) else axis,
+            **({} if self.position_tolerance_mm is None else {"position_tolerance_mm": self.position_tolerance_mm}),
         }
 
     @classmethod
@@ -182,7 +207,8 @@ class CheckSettings:
         """Settings from to_dict's form; missing keys take the defaults, unknown keys are refused."""
         if not isinstance(data, dict):
             raise FramewrightError(f"check settings: expected a JSON object, got {type(data).__name__}")
-        known = {"mode", "total_tolerance_deg", "pointing_tolerance_deg", "roll_tolerance_deg", "body_axis"}
+        known = {"mode", "total_tolerance_deg", "pointing_tolerance_deg", "roll_tolerance_deg", "body_axis",
+                 "position_tolerance_mm"}
         unknown = sorted(set(data) - known)
         if unknown:
             raise FramewrightError(
@@ -272,3 +298,63 @@ def check(nominal, measured, settings=CheckSettings()):
         criteria = (Criterion("pointing error", pointing, settings.pointing_tolerance_deg), roll_criterion)
     return CheckResult(Orientation(d), total, axis, body_axis, pointing, roll, roll_defined, criteria,
                        tuple(notes))
+
+
+# --- positions -------------------------------------------------------------------------------------
+
+# As ROUNDING_ALLOWANCE_DEG: a distance equal to its tolerance passes; a nanometre absorbs the rounding
+# of metres to millimetres and back.
+ROUNDING_ALLOWANCE_MM = 1e-6
+
+
+@dataclass(frozen=True)
+class PositionOffset:
+    """Where the measured origin is from the nominal one. distance_mm: the straight distance;
+    along_nominal_mm: the offset in the nominal body axes, Nᵀ (t_M − t_N); along_reference_mm: the same
+    in reference axes; tolerance_mm: None when positions are not judged."""
+
+    distance_mm: float
+    along_nominal_mm: tuple[float, float, float]
+    along_reference_mm: tuple[float, float, float]
+    tolerance_mm: float | None
+
+    @property
+    def judged(self) -> bool:
+        return self.tolerance_mm is not None
+
+    @property
+    def passed(self) -> bool | None:
+        return None if self.tolerance_mm is None else self.distance_mm <= self.tolerance_mm + ROUNDING_ALLOWANCE_MM
+
+    @property
+    def margin_mm(self) -> float | None:
+        return None if self.tolerance_mm is None else self.tolerance_mm - self.distance_mm
+
+    def summary(self) -> str:
+        """One line for a person, e.g. 'position offset 0.412 mm within 0.500 mm (margin +0.088 mm)'."""
+        x, y, z = self.along_nominal_mm
+        axes = f"(x {x:+.3f}, y {y:+.3f}, z {z:+.3f} mm along the nominal body axes)"
+        if self.tolerance_mm is None:
+            return f"position offset {self.distance_mm:.3f} mm {axes}, not judged (no position tolerance)"
+        word = "within" if self.passed else "exceeds"
+        return (f"{'PASS' if self.passed else 'FAIL'}: position offset {self.distance_mm:.3f} mm {word} "
+                f"{self.tolerance_mm:.3f} mm (margin {self.margin_mm:+.3f} mm) {axes}")
+
+
+def check_position(nominal, nominal_position, measured_position, tolerance_mm=None):
+    """The offset of the measured origin from the nominal one, or None when either has no position.
+
+    nominal: the nominal Orientation N (its body axes are the frame of the per-axis figures);
+    positions: Position values (or None); tolerance_mm: None, or the distance judged."""
+    if nominal_position is None or measured_position is None:
+        return None
+    if not isinstance(nominal, Orientation) or not all(isinstance(p, Position)
+                                                      for p in (nominal_position, measured_position)):
+        raise InvalidInputError("check_position: expected an Orientation and two Position values")
+    if tolerance_mm is not None:
+        tolerance_mm = _length_tolerance(tolerance_mm)
+    offset_m = np.array(measured_position.metres) - np.array(nominal_position.metres)
+    along_nominal = nominal.as_matrix().T @ offset_m
+    distance_m = float(np.linalg.norm(offset_m))
+    return PositionOffset(distance_m * 1e3, tuple(float(v) * 1e3 + 0.0 for v in along_nominal),
+                          tuple(float(v) * 1e3 + 0.0 for v in offset_m), tolerance_mm)

@@ -1,7 +1,7 @@
 """A session as plain data: named mounts, the selected one and display preferences, with our own
 versioned JSON file format (``*.fwsession.json``). Numpy only; never imports Qt.
 
-File layout (version 1)::
+File layout (version 2; version 1 is the same without positions)::
 
     {
       "format": "framewright-session",
@@ -13,6 +13,7 @@ File layout (version 1)::
       "mounts": [
         {"name": "...",
          "orientation": {"quaternion_wxyz": [w, x, y, z]},   # Hamilton, body -> reference
+         "position": {"metres": [x, y, z], "unit": "mm"},    # optional (version 2): origin in reference
          "part": {"box_size_mm": [x, y, z], "face_names": {"+X": "connector", ...},
                   "boresight": "+Z"},
          "notes": "..."}
@@ -49,9 +50,12 @@ from core.chain import Chain
 from core.check import CheckSettings
 from core.errors import FramewrightError
 from core.orientation import Orientation
+from core.position import LENGTH_UNITS, LIMIT_M, Position
 
 FORMAT_NAME = "framewright-session"
-FORMAT_VERSION = 1
+FORMAT_VERSION = 2
+# Version 2 added the mounts' and chain steps' optional positions; a version-1 file holds none.
+FIRST_VERSION_WITH_POSITIONS = 2
 FILE_SUFFIX = ".fwsession.json"
 
 # Keys reserved for settings other parts of the program will add; listed so readers know where they go.
@@ -149,17 +153,21 @@ class PartProperties:
 
 @dataclass(frozen=True)
 class Mount:
-    """One named orientation of a part on the equipment."""
+    """One named orientation of a part on the equipment, and optionally its position (with the
+    orientation, a pose): where the body frame's origin is in the reference frame."""
 
     name: str
     orientation: Orientation = field(default_factory=Orientation.identity)
     part: PartProperties = field(default_factory=PartProperties)
     notes: str = ""
+    position: Position | None = None
 
     def __post_init__(self):
         problem = name_problem(self.name)
         if problem:
             raise FramewrightError(f"mount name: {problem}")
+        if self.position is not None and not isinstance(self.position, Position):
+            raise FramewrightError(f"mount {self.name!r} position: expected a Position or none")
         problem = free_text_problem(self.notes)
         if problem:
             raise FramewrightError(f"mount {self.name!r} notes: {problem}")
@@ -169,6 +177,9 @@ class Mount:
 
     def with_orientation(self, orientation: Orientation) -> "Mount":
         return replace(self, orientation=orientation)
+
+    def with_position(self, position: Position | None) -> "Mount":
+        return replace(self, position=position)
 
 
 @dataclass(frozen=True)
@@ -331,7 +342,7 @@ def with_chains_and_checks(session: "Session", chains, checks) -> "Session":
 # ---- writing ---------------------------------------------------------------------------------------
 
 def _mount_to_dict(mount: Mount) -> dict[str, Any]:
-    return {
+    data = {
         "name": mount.name,
         "orientation": {"quaternion_wxyz": [float(v) for v in mount.orientation.as_quaternion()]},
         "part": {
@@ -341,6 +352,9 @@ def _mount_to_dict(mount: Mount) -> dict[str, Any]:
         },
         "notes": mount.notes,
     }
+    if mount.position is not None:       # no key at all for a mount without one
+        data["position"] = mount.position.to_dict()
+    return data
 
 
 def session_to_dict(session: Session) -> dict[str, Any]:
@@ -481,6 +495,22 @@ def _orientation(value: Any, where: str) -> Orientation:
     return Orientation.from_quaternion(_unit_quaternion(orient["quaternion_wxyz"], _at(where, "quaternion_wxyz")))
 
 
+def _position(value: Any, where: str, version: int) -> Position:
+    """A stored position, checked field by field: finite metres within LIMIT_M and a known unit."""
+    _require(version >= FIRST_VERSION_WITH_POSITIONS, where,
+             f"a position needs format version {FIRST_VERSION_WITH_POSITIONS}; this file says version {version} "
+             "(the file may have been edited by hand)")
+    data = _object(value, where, 'an object {"metres": [x, y, z], "unit": "mm"}')
+    _require("metres" in data, where, 'expected {"metres": [x, y, z], "unit": "mm"}')
+    unknown = sorted(set(data) - {"metres", "unit"})
+    _require(not unknown, where, f'expected only "metres" and "unit", found also {unknown}')
+    metres = _numbers(data["metres"], 3, _at(where, "metres"))
+    for i, v in enumerate(metres):
+        _number(v, f"{_at(where, 'metres')}[{i}]", -LIMIT_M, LIMIT_M, "a distance in metres")
+    unit = _choice(data.get("unit", "mm"), _at(where, "unit"), tuple(LENGTH_UNITS))
+    return Position(tuple(metres), unit)
+
+
 def _part_from_dict(value: Any, where: str) -> PartProperties:
     data = _object(value, where)
     sizes = data.get("box_size_mm", list(PartProperties.box_size_mm))
@@ -498,7 +528,7 @@ def _part_from_dict(value: Any, where: str) -> PartProperties:
     return PartProperties(box_size_mm=size, face_names=faces, boresight=boresight)
 
 
-def _mount_from_dict(data: Any, where: str) -> Mount:
+def _mount_from_dict(data: Any, where: str, version: int = FORMAT_VERSION) -> Mount:
     data = _object(data, where, "an object with name and orientation")
     _require("name" in data, where, "missing its name")
     name = _name(data["name"], _at(where, "name"))
@@ -506,7 +536,8 @@ def _mount_from_dict(data: Any, where: str) -> Mount:
     orientation = _orientation(data["orientation"], _at(where, "orientation"))
     part = _part_from_dict(data.get("part", {}), _at(where, "part"))
     notes = _free_text(data.get("notes", ""), _at(where, "notes"))
-    return Mount(name=name, orientation=orientation, part=part, notes=notes)
+    position = _position(data["position"], _at(where, "position"), version) if "position" in data else None
+    return Mount(name=name, orientation=orientation, part=part, notes=notes, position=position)
 
 
 def _preferences_from_dict(value: Any, where: str) -> Preferences:
@@ -530,7 +561,7 @@ def _preferences_from_dict(value: Any, where: str) -> Preferences:
         raise SessionFileError(f"{where}: {exc}") from None
 
 
-def _check_raw(value: Any, where: str) -> None:
+def _check_raw(value: Any, where: str, version: int = FORMAT_VERSION) -> None:
     """A check entry's fields, before SavedCheck and CheckSettings build it."""
     from core.check import MODES
 
@@ -549,6 +580,12 @@ def _check_raw(value: Any, where: str) -> None:
     for key in ("total_tolerance_deg", "pointing_tolerance_deg", "roll_tolerance_deg"):
         if key in settings:
             _number(settings[key], _at(here, key), 0, None, "a tolerance in degrees")
+    if settings.get("position_tolerance_mm") is not None:
+        _require(version >= FIRST_VERSION_WITH_POSITIONS, _at(here, "position_tolerance_mm"),
+                 f"a position tolerance needs format version {FIRST_VERSION_WITH_POSITIONS}; this file says "
+                 f"version {version}")
+        _number(settings["position_tolerance_mm"], _at(here, "position_tolerance_mm"), 0, LIMIT_M * 1e3,
+                "a tolerance in mm")
     axis = settings.get("body_axis")
     if axis is not None and not isinstance(axis, str):
         _numbers(axis, 3, _at(here, "body_axis"))
@@ -556,7 +593,7 @@ def _check_raw(value: Any, where: str) -> None:
         _name(axis, _at(here, "body_axis"))
 
 
-def _chain_raw(value: Any, where: str) -> None:
+def _chain_raw(value: Any, where: str, version: int = FORMAT_VERSION) -> None:
     """A chain entry's fields, before Chain and ChainStep build it."""
     data = _object(value, where)
     if "name" in data:
@@ -570,6 +607,8 @@ def _chain_raw(value: Any, where: str) -> None:
         _name(step["name"], _at(here, "name"), empty_ok=True)
         _require("orientation" in step, here, 'missing its orientation {"quaternion_wxyz": [w, x, y, z]}')
         _orientation(step["orientation"], _at(here, "orientation"))
+        if "position" in step:
+            _position(step["position"], _at(here, "position"), version)
         for flag in ("inverted", "enabled"):
             if flag in step:
                 _flag(step[flag], _at(here, flag))
@@ -591,7 +630,7 @@ def session_from_dict(data: Any, source: str = "session") -> Session:
     mounts_data = data.get("mounts")
     _require(isinstance(mounts_data, list) and len(mounts_data) > 0, f"{source}: mounts",
              "expected a list of at least one mount")
-    mounts = tuple(_mount_from_dict(m, f"{source}: mounts[{i}]") for i, m in enumerate(mounts_data))
+    mounts = tuple(_mount_from_dict(m, f"{source}: mounts[{i}]", version) for i, m in enumerate(mounts_data))
     prefs = _preferences_from_dict(data.get("preferences", {}), f"{source}: preferences")
     selected = data.get("selected", 0)
     _require(isinstance(selected, int) and not isinstance(selected, bool) and 0 <= selected < len(mounts),
@@ -608,7 +647,7 @@ def session_from_dict(data: Any, source: str = "session") -> Session:
         if key in extra:
             _require(isinstance(extra[key], list), f"{source}: {key}", f"expected a list, got {_kind(extra[key])}")
             for i, entry in enumerate(extra[key]):
-                check_raw(entry, f"{source}: {key}[{i}]")
+                check_raw(entry, f"{source}: {key}[{i}]", version)
     read_chains(extra, source)
     read_checks(extra, source)
     return Session(mounts=mounts, selected=selected, preferences=prefs, description=description, extra=extra,

@@ -17,6 +17,11 @@ from app.model import ORIENTATION, PREFERENCES, Change, SessionModel
 ANGLE_LIMIT_DEG = 720.0
 
 
+def focus_left(widget: QWidget, old, new) -> bool:
+    """Whether a focus change from `old` to `new` leaves `widget` (focus was inside it, now is not)."""
+    return old is not None and widget.isAncestorOf(old) and not (new is not None and widget.isAncestorOf(new))
+
+
 class EditorBase(QGroupBox):
     def __init__(self, model: SessionModel, title: str, parent: QWidget | None = None):
         super().__init__(title, parent)
@@ -117,11 +122,7 @@ class EditorBase(QGroupBox):
         self.render()
 
     def _on_focus_changed(self, old, new) -> None:
-        if not self._editing:
-            return
-        was_inside = old is not None and self.isAncestorOf(old)
-        now_inside = new is not None and self.isAncestorOf(new)
-        if was_inside and not now_inside:
+        if self._editing and focus_left(self, old, new):
             self.finish_editing()
 
     def finish_editing(self) -> None:

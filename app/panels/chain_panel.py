@@ -26,6 +26,12 @@ COLUMNS = ("#", "On", "Step", "Orientation", "Inverted")
 ON_COLUMN, NAME_COLUMN, INVERTED_COLUMN = 1, 2, 4
 
 
+def _position_words(position) -> str:
+    """'x 120, y −35.5, z 8.25 mm': a position in its own unit, for a person."""
+    x, y, z = (f"{v + 0.0:.6g}".replace("-", "−") for v in position.shown())
+    return f"x {x}, y {y}, z {z} {position.unit}"
+
+
 class ChainPanel(QWidget):
     def __init__(self, model: SessionModel, parent=None):
         super().__init__(parent)
@@ -294,11 +300,15 @@ class ChainPanel(QWidget):
                    "pasted text."
         if not frames:
             return "Every step is switched off: the product is the identity (the body is the reference)."
-        product = chain.product()
+        product, position = chain.pose_product()
         lines = [f"Product body {describe.ARROW} reference: {axis_angle_summary(product)}"]
+        if position is not None:     # some step has a position: the chain is a full rigid transform
+            lines.append(f"Product position (body origin in the reference): {_position_words(position)}")
         lines.extend(f"    {w}" for w in describe.describe_orientation(product, preset))
         for k, frame in enumerate(frames, start=1):   # plain text: step names are shown as typed
             lines.append(f"Frame {k}, after “{frame.name}”: {axis_angle_summary(frame.orientation)}")
+            if frame.position is not None:
+                lines.append(f"    origin at {_position_words(frame.position)}")
             lines.append("    " + "; ".join(describe.describe_axes(frame.orientation, preset)))
         return "\n".join(lines)
 

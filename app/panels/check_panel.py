@@ -19,9 +19,9 @@ from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QHBoxLayout, Q
 
 from app import plain_text
 from app.editors.number_field import NumberField, parse_number
-from app.model import CHECK, MOUNTS, ORIENTATION, SELECTION, Change, SessionModel
+from app.model import CHECK, MOUNTS, ORIENTATION, POSITION, SELECTION, Change, SessionModel
 from core import describe
-from core.check import CheckSettings, axis_name, check
+from core.check import POSITION_TOLERANCE_LIMIT_MM, CheckSettings, axis_name, check, check_position
 from core.errors import FramewrightError
 
 PASS_STYLE = "background:#2e7d32; color:white; padding:6px 18px; border-radius:4px"
@@ -107,6 +107,13 @@ class CheckPanel(QWidget):
         self.roll_field = self._tolerance_field(
             "Roll tolerance in degrees: the largest turn about the body axis (after the pointing is corrected) "
             "that passes, either sign.")
+        self.position_field = NumberField(
+            "Position tolerance in mm: the largest distance of the measured origin from the nominal one that "
+            "passes, judged when both mounts have a position. Empty: positions are reported, not judged. "
+            "'.' is the decimal point; Enter to use it.", steppable=False)
+        self.position_field.set_range(0.0, POSITION_TOLERANCE_LIMIT_MM,
+                                      f"0 to {POSITION_TOLERANCE_LIMIT_MM:g} mm")
+        self.position_field.fit_digits(4)
         self.message = plain_text.plain_label()   # quotes typed text
         self.message.setWordWrap(True)
 
@@ -129,6 +136,11 @@ class CheckPanel(QWidget):
             row.addWidget(field)
             row.addStretch(1)
             t_form.addRow(label, row)
+        position_row = QHBoxLayout()
+        position_row.addWidget(self.position_field)
+        position_row.addWidget(QLabel("mm (empty: not judged)"))
+        position_row.addStretch(1)
+        t_form.addRow("Position", position_row)
         # What is wrong with a typed tolerance is said here, under the tolerances, not under the axis.
         self.tolerance_note = QLabel("")
         self.tolerance_note.setWordWrap(True)
@@ -143,7 +155,8 @@ class CheckPanel(QWidget):
         font.setBold(True)
         self.verdict.setFont(font)
         self.verdict.setAlignment(Qt.AlignmentFlag.AlignCenter)
-        self.verdict.setToolTip("PASS when every figure judged is within its tolerance, else FAIL.")
+        self.verdict.setToolTip("PASS when every figure judged (the orientation first, then the position when a position "
+                                "tolerance is given) is within its tolerance, else FAIL.")
         self.margin_label = QLabel("")
         margin_font = QFont(self.font())
         margin_font.setBold(True)
@@ -164,6 +177,13 @@ class CheckPanel(QWidget):
         result_layout.addLayout(verdict_row)
         result_layout.addWidget(self.margin_label)
         result_layout.addWidget(self.details)
+        # After the orientation's figures: the position offset, when both mounts have a position.
+        self.position_result = plain_text.plain_label()
+        self.position_result.setWordWrap(True)
+        self.position_result.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
+        self.position_result.setToolTip("Offset of the measured origin from the nominal one: the distance, and "
+                                        "its parts along the nominal body axes, Nᵀ (t_measured − t_nominal).")
+        result_layout.addWidget(self.position_result)
 
         layout = QVBoxLayout(self)
         layout.addWidget(choose)
@@ -183,8 +203,23 @@ class CheckPanel(QWidget):
             field.editingFinished.connect(lambda f=field, k=key: self._tolerance_typed(f, k))
             field.stepped.connect(lambda v, f=field, k=key: self._set_settings(
                 f"{k}", min(TOLERANCE_MAX_DEG, max(0.0, round(v, 9)))))
+        self.position_field.committed.connect(self._position_tolerance_typed)
+        self.position_field.editingFinished.connect(self._position_tolerance_typed)
         model.changed.connect(self._on_model_changed)
         self.render()
+
+    def _position_tolerance_typed(self) -> None:
+        text = self.position_field.text().strip()
+        try:
+            value = None if not text else self.position_field.value()
+        except ValueError as exc:
+            self.position_field.set_problem(str(exc))
+            self.tolerance_note.setText(f"{exc} (kept the last good position tolerance)")
+            return
+        self.tolerance_note.setText("")
+        self.position_field.set_problem(None)
+        if value != self.model.check.settings.position_tolerance_mm:
+            self.position_field.set_problem(self._set_settings("position_tolerance_mm", value))
 
     @staticmethod
     def _tolerance_field(tip: str) -> NumberField:
@@ -282,7 +317,7 @@ class CheckPanel(QWidget):
     def _on_model_changed(self, change: Change) -> None:
         if change.touches(CHECK, MOUNTS):
             self.render()
-        elif change.touches(ORIENTATION, SELECTION):
+        elif change.touches(ORIENTATION, SELECTION, POSITION):
             self._render_result()
 
     def render(self) -> None:
@@ -317,6 +352,9 @@ class CheckPanel(QWidget):
             if not field.hasFocus() or field.problem is None:
                 field.set_text(f"{getattr(settings, key):g}")
             field.setEnabled(used)
+        if not self.position_field.hasFocus() or self.position_field.problem is None:
+            tolerance = settings.position_tolerance_mm
+            self.position_field.set_text("" if tolerance is None else f"{tolerance:g}")
         self._rendering = False
         self._render_result()
 
@@ -329,8 +367,12 @@ class CheckPanel(QWidget):
         mounts = self.model.mounts
         settings = self.model.check.settings
         result = check(mounts[nominal].orientation, mounts[measured].orientation, settings)
-        self.verdict.setText("PASS" if result.passed else "FAIL")
-        self.verdict.setStyleSheet(PASS_STYLE if result.passed else FAIL_STYLE)
+        offset = check_position(mounts[nominal].orientation, mounts[nominal].position, mounts[measured].position,
+                                settings.position_tolerance_mm)
+        passed = result.passed and (offset is None or offset.passed is not False)
+        self.verdict.setText("PASS" if passed else "FAIL")
+        self.verdict.setStyleSheet(PASS_STYLE if passed else FAIL_STYLE)
+        self.position_result.setText(self._position_words(offset, mounts[nominal], mounts[measured], settings))
         deciding = min(result.criteria, key=lambda c: c.margin_deg)
         self.margin_label.setText(
             f"Margin {_signed_deg(result.margin_deg)}: {deciding.name} {_deg(deciding.value_deg)} "
@@ -356,7 +398,25 @@ class CheckPanel(QWidget):
         lines.extend(result.notes)
         self.details.setText("\n".join(lines))
 
+    @staticmethod
+    def _position_words(offset, nominal, measured, settings) -> str:
+        if offset is None:
+            if settings.position_tolerance_mm is None:
+                return ""
+            missing = " and ".join(m for m, mount in (("nominal", nominal), ("measured", measured))
+                                   if mount.position is None)
+            return f"Position not judged: the {missing} mount has no position."
+        x, y, z = (f"{v + 0.0:+.3f}".replace("-", "−") for v in offset.along_nominal_mm)
+        along = f"along the nominal body axes x {x}, y {y}, z {z} mm"
+        if offset.tolerance_mm is None:
+            return f"Position offset {offset.distance_mm:.3f} mm, {along} (not judged: no position tolerance)."
+        word = "within" if offset.passed else "exceeds"
+        margin = f"{offset.margin_mm + 0.0:+.3f}".replace("-", "−")
+        return (f"Position {'PASS' if offset.passed else 'FAIL'}: offset {offset.distance_mm:.3f} mm {word} "
+                f"{offset.tolerance_mm:.3f} mm (margin {margin} mm), {along}.")
+
     def _idle(self, text: str) -> None:
+        self.position_result.setText("")
         self.verdict.setText("—")
         self.verdict.setStyleSheet(IDLE_STYLE)
         self.margin_label.setText("")

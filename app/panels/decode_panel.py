@@ -4,12 +4,23 @@ from __future__ import annotations
 
 from PySide6.QtCore import QObject, QRunnable, QThreadPool, QTimer, Signal
 from PySide6.QtGui import QGuiApplication
-from PySide6.QtWidgets import (QHBoxLayout, QLabel, QListWidget, QListWidgetItem, QPlainTextEdit,
+from PySide6.QtWidgets import (QComboBox, QHBoxLayout, QLabel, QListWidget, QListWidgetItem, QPlainTextEdit,
                                QPushButton, QVBoxLayout, QWidget)
 
 from app import plain_text
 from app.model import SessionModel
 from core.errors import FramewrightError
+from core.position import LENGTH_UNITS, Position
+
+# Units a decoded translation may state, in metres; the position is then shown in the nearest one the
+# window offers (core/position.py). The decoder names the unit; nothing here guesses one.
+_STATED_UNITS = {**LENGTH_UNITS, "cm": 1e-2}
+_SHOWN_FOR = {"cm": "mm"}
+
+
+def _translation_words(reading) -> str:
+    t = reading.translation
+    return ", ".join(f"{v:.6g}" for v in t) + (f" {reading.translation_unit}" if reading.translation_unit else "")
 
 
 def _words(value) -> str:
@@ -90,6 +101,21 @@ class DecodePanel(QWidget):
         self.apply_button = QPushButton("Apply reading")
         self.apply_button.setToolTip("Set the selected mount's orientation to the chosen reading (undoable).")
         self.apply_button.setEnabled(False)
+        # A translation without a unit in the text: the person says which unit it is before Apply.
+        self.unit_label = plain_text.plain_label()
+        self.unit_label.setWordWrap(True)
+        self.unit_box = QComboBox()
+        self.unit_box.addItem("choose the unit…", None)
+        for unit in LENGTH_UNITS:
+            self.unit_box.addItem(f"read it as {unit}", unit)
+        self.unit_box.setToolTip("The text gives the translation without a unit. Say which unit it is; "
+                                 "Framewright does not guess.")
+        self.unit_row = QWidget()
+        unit_layout = QHBoxLayout(self.unit_row)
+        unit_layout.setContentsMargins(0, 0, 0, 0)
+        unit_layout.addWidget(self.unit_label, 1)
+        unit_layout.addWidget(self.unit_box)
+        self.unit_row.hide()
 
         layout = QVBoxLayout(self)
         layout.addWidget(self.paste_box)
@@ -100,6 +126,7 @@ class DecodePanel(QWidget):
         layout.addLayout(row)
         layout.addWidget(self.message)
         layout.addWidget(self.list, 1)
+        layout.addWidget(self.unit_row)
         layout.addWidget(self.apply_button)
 
         self._generation = 0            # a newer read makes an older worker's result stale
@@ -115,7 +142,8 @@ class DecodePanel(QWidget):
         self.apply_button.clicked.connect(self.apply_selected)
         self.list.itemActivated.connect(lambda *_: self.apply_selected())  # Enter
         self.list.itemDoubleClicked.connect(lambda *_: self.apply_selected())
-        self.list.currentItemChanged.connect(lambda *_: self.apply_button.setEnabled(self.list.currentItem() is not None))
+        self.list.currentItemChanged.connect(lambda *_: self._reading_chosen())
+        self.unit_box.activated.connect(lambda *_: self._reading_chosen())
 
     def paste_from_clipboard(self) -> None:
         self.set_text(QGuiApplication.clipboard().text())
@@ -158,6 +186,9 @@ class DecodePanel(QWidget):
         plain_text.say(self.message, f"{len(self.readings)} reading{plural}, most plausible first.")
         for rank, reading in enumerate(self.readings, start=1):
             lines = [f"{rank}. {reading.kind}: {_conventions(reading)}"]
+            if getattr(reading, "translation", None) is not None:
+                lines.append(f"    translation {_translation_words(reading)}"
+                             + ("" if reading.translation_unit else " (no unit in the text)"))
             if _words(reading.notes):
                 lines.append(f"    {_words(reading.notes)}")
             item = QListWidgetItem("\n".join(lines))
@@ -168,11 +199,56 @@ class DecodePanel(QWidget):
             self.list.addItem(item)
         self.list.setCurrentRow(0)
 
-    def apply_selected(self) -> None:
+    def _current_reading(self):
         item = self.list.currentItem()
-        if item is None:
+        return None if item is None else self.readings[self.list.row(item)]
+
+    def _needs_unit(self, reading) -> bool:
+        return getattr(reading, "translation", None) is not None and not getattr(reading, "translation_unit", None)
+
+    def _reading_chosen(self) -> None:
+        """Apply is offered for the chosen reading; one with a translation but no unit waits for the unit."""
+        reading = self._current_reading()
+        needs_unit = reading is not None and self._needs_unit(reading)
+        if needs_unit:
+            plain_text.say(self.unit_label, f"Translation {_translation_words(reading)}: the text gives no unit.")
+        else:
+            self.unit_box.setCurrentIndex(0)
+        self.unit_row.setVisible(needs_unit)
+        self.apply_button.setEnabled(reading is not None and (not needs_unit or self.unit_box.currentData() is not None))
+
+    def _position_of(self, reading):
+        """(Position or None, words saying how its unit was known); FramewrightError when unusable."""
+        t = getattr(reading, "translation", None)
+        if t is None:
+            return None, ""
+        unit = getattr(reading, "translation_unit", None)
+        if unit:
+            if unit not in _STATED_UNITS:
+                raise FramewrightError(f"the translation is in {unit!r}, which Framewright cannot convert yet "
+                                       f"(expected {', '.join(_STATED_UNITS)})")
+            shown = _SHOWN_FOR.get(unit, unit)
+            metres = tuple(float(v) * _STATED_UNITS[unit] for v in t)
+            return Position.from_shown([m / LENGTH_UNITS[shown] for m in metres], shown), f"in {unit}, as the text says"
+        unit = self.unit_box.currentData()
+        if unit is None:
+            raise FramewrightError("the text gives the translation without a unit: choose mm or m first")
+        return Position.from_shown(t, unit), f"read as {unit} (you chose it: the text gives no unit)"
+
+    def apply_selected(self) -> None:
+        reading = self._current_reading()
+        if reading is None:
             return
-        reading = self.readings[self.list.row(item)]
-        self.model.set_orientation(reading.orientation, origin=self,
-                                   text=f"Apply decoded reading ({reading.kind})")
-        plain_text.say(self.message, f"Applied: {reading.kind}, {_conventions(reading)}.")
+        text = f"Apply decoded reading ({reading.kind})"
+        try:
+            position, how = self._position_of(reading)
+        except FramewrightError as exc:
+            plain_text.say(self.message, f"Not applied: {exc}. The mount is unchanged.", problem=True)
+            return
+        if position is None:
+            self.model.set_orientation(reading.orientation, origin=self, text=text)
+            plain_text.say(self.message, f"Applied: {reading.kind}, {_conventions(reading)}.")
+            return
+        self.model.apply_pose(reading.orientation, position, text=text, origin=self)
+        plain_text.say(self.message, f"Applied: {reading.kind}, {_conventions(reading)}; translation "
+                       f"{_translation_words(reading)} {how}.")

@@ -14,7 +14,10 @@ from core.decode import decode
 from tests.app.window_driver import focus, leave_editor, scipy_rotation
 
 
-@pytest.mark.parametrize("fmt", list(copy_as.FORMATS))
+ORIENTATION_FORMATS = [f for f in copy_as.FORMATS if f not in copy_as.POSE_FORMATS]  # poses: test_copy_as_pose.py
+
+
+@pytest.mark.parametrize("fmt", ORIENTATION_FORMATS)
 @pytest.mark.parametrize("editor_name", ["axis_angle", "quaternion", "matrix", "angles"])
 def test_every_format_round_trips_from_every_editor(qtbot, window, fmt, editor_name):
     editor = getattr(window, editor_name)
@@ -66,8 +69,9 @@ def test_ctrl_shift_c_copies_again_in_the_last_format_used(qtbot, window):
 
 def test_copy_as_menu_lists_every_format_in_plain_words(window):
     labels = [a.text() for a in window.copy_as_menu.actions()]
-    assert len(labels) == 7
+    assert len(labels) == 9      # seven for the orientation, two for a pose (offered with a position)
     assert any("JSON" in t for t in labels) and any("C / C++" in t for t in labels)
+    assert any("4×4 pose matrix" in t for t in labels) and any("Pose line" in t for t in labels)
 
 
 def test_a_copy_of_an_orientation_from_scipy_round_trips_exactly(window):
@@ -76,5 +80,5 @@ def test_a_copy_of_an_orientation_from_scipy_round_trips_exactly(window):
     rotation = Rotation.from_euler("ZXZ", [10, 100, -30], degrees=True)
     x, y, z, w = rotation.as_quat()
     window.model.set_orientation(Orientation.from_quaternion((w, x, y, z)))
-    for fmt in copy_as.FORMATS:
+    for fmt in ORIENTATION_FORMATS:
         assert window.copy_as(fmt).verified

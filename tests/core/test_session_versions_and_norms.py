@@ -53,11 +53,13 @@ def test_versions_this_program_cannot_read_are_refused_by_name(version, words):
 
 
 def test_the_current_version_reads_and_the_newer_message_names_both_versions():
-    assert FORMAT_VERSION == 1
+    # Version 2 added positions; version-1 files still read.
+    assert FORMAT_VERSION == 2
     assert session_from_dict(file_with(version=1)).mounts[0].name == "a"
+    assert session_from_dict(file_with(version=2)).mounts[0].name == "a"
     with pytest.raises(SessionFileError) as caught:
-        session_from_dict(file_with(version=2))
-    assert "format version 2; this one reads up to 1" in str(caught.value)
+        session_from_dict(file_with(version=3))
+    assert "format version 3; this one reads up to 2" in str(caught.value)
 
 
 def test_a_file_of_another_kind_is_refused_whatever_its_version():

@@ -1,0 +1,207 @@
+"""The mount's position as a user meets it: typed key by key into the three fields beside the orientation
+editors, one undo step (Ctrl+Z), hostile text refused with a visible note, saved and reopened, a version-1
+file opening without one, copied as a 4×4 or a pose line, applied from a decoded pose, and judged by the
+Check panel.
+
+Check values: 1 mm = 1e-3 m (SI brochure); the 4×4 copy against numpy and SciPy's Rotation (a
+general-purpose reference library); CONVENTIONS.md "Poses" for [[R, t], [0 0 0 1]]."""
+
+import dataclasses
+import json
+
+import numpy as np
+import pytest
+from PySide6.QtCore import Qt
+from PySide6.QtGui import QGuiApplication
+
+from app.panels import decode_panel
+from core.decode import decode
+from core.position import Position
+from core.session import FORMAT_NAME
+from tests.app.window_driver import focus, leave_editor, scipy_rotation, type_into
+
+
+def _type_position(qtbot, window, x, y, z, enter=True):
+    editor = window.position
+    for field, text in zip(editor.fields, (x, y, z)):
+        type_into(qtbot, field, text)
+    if enter:
+        qtbot.keyClick(editor.fields[2].lineEdit(), Qt.Key.Key_Return)
+
+
+def _ctrl_z(qtbot, window):
+    focus(qtbot, window.mounts.list)
+    qtbot.keyClick(window.mounts.list, Qt.Key.Key_Z, Qt.KeyboardModifier.ControlModifier)
+
+
+def test_a_typed_position_is_kept_in_metres_and_one_ctrl_z_takes_it_back(qtbot, window):
+    assert window.model.current_mount().position is None
+    assert [f.lineEdit().placeholderText() for f in window.position.fields] == ["none"] * 3
+    steps = window.model.undo_stack.count()
+    _type_position(qtbot, window, "125.5", "-40.25", "812")
+    position = window.model.current_mount().position
+    assert position.unit == "mm"
+    assert position.metres == pytest.approx((0.1255, -0.04025, 0.812), abs=1e-15)   # 1 mm = 1e-3 m
+    assert window.model.undo_stack.count() == steps + 1                             # one undo step
+    assert [f.text() for f in window.position.fields] == ["125.5", "-40.25", "812"]
+    _ctrl_z(qtbot, window)
+    assert window.model.current_mount().position is None
+    assert [f.text() for f in window.position.fields] == ["", "", ""]
+
+
+def test_half_typed_numbers_are_not_sent_until_enter(qtbot, window):
+    _type_position(qtbot, window, "1", "2", "3", enter=False)
+    assert window.model.current_mount().position is None       # typing alone commits nothing
+    leave_editor(qtbot, window)                                 # leaving the fields commits
+    assert window.model.current_mount().position.shown() == pytest.approx((1.0, 2.0, 3.0))
+
+
+@pytest.mark.parametrize("text, words", [("nan", "not a finite number"), ("1e308", "farther than 1e+06 m"),
+                                         ("abc", "is not a number"), ("1,5", "use '.' as the decimal point")])
+def test_hostile_text_is_refused_with_a_visible_note_and_the_last_position_stays(qtbot, window, text, words):
+    _type_position(qtbot, window, "10", "20", "30")
+    good = window.model.current_mount().position
+    steps = window.model.undo_stack.count()
+    type_into(qtbot, window.position.fields[1], text)
+    qtbot.keyClick(window.position.fields[1].lineEdit(), Qt.Key.Key_Return)
+    leave_editor(qtbot, window)
+    assert window.model.current_mount().position == good
+    assert window.model.undo_stack.count() == steps
+    assert words in window.position.note.text() and window.position.note.isVisible()
+    assert window.position.fields[1].problem is not None       # the red frame on the bad field
+
+
+def test_one_empty_field_is_refused_and_all_three_empty_clear_the_position(qtbot, window):
+    _type_position(qtbot, window, "10", "20", "30")
+    type_into(qtbot, window.position.fields[0], "")
+    qtbot.keyClick(window.position.fields[0].lineEdit(), Qt.Key.Key_Delete)
+    qtbot.keyClick(window.position.fields[0].lineEdit(), Qt.Key.Key_Return)
+    assert "type all three" in window.position.note.text()
+    assert window.model.current_mount().position is not None
+    for field in window.position.fields:
+        type_into(qtbot, field, "x")
+        qtbot.keyClick(field.lineEdit(), Qt.Key.Key_Backspace)
+    qtbot.keyClick(window.position.fields[2].lineEdit(), Qt.Key.Key_Return)
+    assert window.model.current_mount().position is None
+
+
+def test_the_unit_box_shows_the_same_place_in_metres(qtbot, window):
+    _type_position(qtbot, window, "1500", "0", "-250")
+    box = window.position.unit_box
+    focus(qtbot, box)
+    qtbot.keyClick(box, Qt.Key.Key_Down)        # mm -> m
+    position = window.model.current_mount().position
+    assert position.unit == "m" and position.metres == pytest.approx((1.5, 0.0, -0.25))
+    assert [f.text() for f in window.position.fields] == ["1.5", "0", "-0.25"]
+
+
+def test_a_session_with_a_position_saves_and_reopens(qtbot, window, tmp_path):
+    _type_position(qtbot, window, "125.5", "-40.25", "812")
+    path = tmp_path / "with-position.fwsession.json"
+    assert window.save_file_as(str(path))
+    assert json.loads(path.read_text())["version"] == 2
+    window.new_session()
+    assert window.model.current_mount().position is None
+    assert window.open_file(str(path))
+    assert window.model.current_mount().position.shown() == pytest.approx((125.5, -40.25, 812.0))
+    assert [f.text() for f in window.position.fields] == ["125.5", "-40.25", "812"]
+
+
+def test_a_version_1_file_opens_without_a_position(qtbot, window, tmp_path):
+    path = tmp_path / "old.fwsession.json"
+    path.write_text(json.dumps({"format": FORMAT_NAME, "version": 1, "mounts": [
+        {"name": "old mount", "orientation": {"quaternion_wxyz": [1, 0, 0, 0]}}]}))
+    assert window.open_file(str(path))
+    assert window.model.current_mount().name == "old mount"
+    assert [f.text() for f in window.position.fields] == ["", "", ""]
+    assert not window.copy_as_actions["pose-matrix"].isEnabled()
+
+
+def test_copy_as_offers_the_pose_formats_only_with_a_position_and_verifies_them(qtbot, window):
+    assert not window.copy_as_actions["pose-matrix"].isEnabled()
+    _type_position(qtbot, window, "125.5", "-40.25", "812")
+    assert window.copy_as_actions["pose-matrix"].isEnabled() and window.copy_as_actions["pose-line"].isEnabled()
+    window.copy_as_actions["pose-matrix"].trigger()
+    assert "verified" in window.statusBar().currentMessage()
+    text = QGuiApplication.clipboard().text()
+    h = np.array([[float(v) for v in line.split()] for line in text.splitlines()[1:]])
+    # numpy and SciPy: [[R, t], [0 0 0 1]] with R from SciPy's view of the orientation, t in mm.
+    np.testing.assert_allclose(h[:3, :3], scipy_rotation(window.model.current_orientation()).as_matrix(), atol=1e-12)
+    np.testing.assert_allclose(h[:3, 3], (125.5, -40.25, 812.0), atol=1e-12)
+    np.testing.assert_array_equal(h[3], (0, 0, 0, 1))
+    window.copy_as_actions["pose-line"].trigger()
+    assert "verified" in window.statusBar().currentMessage()
+    assert QGuiApplication.clipboard().text().splitlines()[1].startswith("125.5, -40.25, 812.0, ")
+
+
+def _readings_with_translation(translation, unit):
+    """Real readings of a quaternion's text, carrying a pose's translation as the decoder's pose readers
+    will (core/decode.py has the fields; its pose readers are being written alongside this work)."""
+    def decode_with_translation(text):
+        return [dataclasses.replace(r, translation=translation, translation_unit=unit) for r in decode(text)]
+    return decode_with_translation
+
+
+def _read_in_decode(qtbot, window, monkeypatch, translation, unit):
+    monkeypatch.setattr(decode_panel, "_decode_or_error", _readings_with_translation(translation, unit))
+    panel = window.decode_panel
+    window.side_tabs.setCurrentWidget(panel)
+    focus(qtbot, panel.paste_box)
+    qtbot.keyClicks(panel.paste_box, "quaternion w x y z: 0.7071068, 0, 0, 0.7071068")
+    qtbot.mouseClick(panel.read_button, Qt.MouseButton.LeftButton)
+    return panel
+
+
+def test_a_decoded_translation_without_a_unit_waits_for_the_user_to_choose_one(qtbot, window, monkeypatch):
+    panel = _read_in_decode(qtbot, window, monkeypatch, (0.1, 0.2, 0.3), None)
+    assert panel.unit_row.isVisible() and "gives no unit" in panel.unit_label.text()
+    assert not panel.apply_button.isEnabled()        # nothing is guessed
+    focus(qtbot, panel.unit_box)
+    qtbot.keyClick(panel.unit_box, Qt.Key.Key_Down)  # "read it as mm"
+    assert panel.unit_box.currentData() == "mm" and panel.apply_button.isEnabled()
+    steps = window.model.undo_stack.count()
+    qtbot.mouseClick(panel.apply_button, Qt.MouseButton.LeftButton)
+    position = window.model.current_mount().position
+    assert position.unit == "mm" and position.metres == pytest.approx((1e-4, 2e-4, 3e-4), abs=1e-18)
+    assert "read as mm (you chose it: the text gives no unit)" in panel.message.text()
+    assert window.model.undo_stack.count() == steps + 1      # orientation and position: one step
+    _ctrl_z(qtbot, window)
+    assert window.model.current_mount().position is None
+
+
+def test_a_decoded_translation_with_a_unit_is_converted_to_metres(qtbot, window, monkeypatch):
+    panel = _read_in_decode(qtbot, window, monkeypatch, (1.5, -2.0, 0.25), "m")
+    assert not panel.unit_row.isVisible() and panel.apply_button.isEnabled()
+    qtbot.mouseClick(panel.apply_button, Qt.MouseButton.LeftButton)
+    position = window.model.current_mount().position
+    assert position.unit == "m" and position.metres == pytest.approx((1.5, -2.0, 0.25))
+    assert "in m, as the text says" in panel.message.text()
+
+
+def test_a_decoded_translation_in_an_unknown_unit_applies_nothing(qtbot, window, monkeypatch):
+    before = window.model.current_mount()
+    panel = _read_in_decode(qtbot, window, monkeypatch, (1.0, 2.0, 3.0), "furlong")
+    qtbot.mouseClick(panel.apply_button, Qt.MouseButton.LeftButton)
+    assert window.model.current_mount() == before
+    assert "Not applied" in panel.message.text() and "furlong" in panel.message.text()
+
+
+def test_the_check_reports_the_position_offset_after_the_orientation(qtbot, window):
+    model = window.model
+    nominal, measured = model.mounts[0], model.mounts[1]
+    model.set_position(Position.from_shown((100.0, 0.0, 0.0), "mm"), index=0)
+    model.set_position(Position.from_shown((100.3, 0.4, 0.0), "mm"), index=1)
+    from core.session import SavedCheck
+    model.set_check(SavedCheck(nominal=nominal.name, measured=measured.name))
+    panel = window.check_panel
+    window.side_tabs.setCurrentIndex(2)
+    assert "not judged" in panel.position_result.text()
+    type_into(qtbot, panel.position_field, "0.4")
+    qtbot.keyClick(panel.position_field.lineEdit(), Qt.Key.Key_Return)
+    assert model.check.settings.position_tolerance_mm == 0.4
+    text = panel.position_result.text()
+    assert text.startswith("Position FAIL: offset 0.500 mm exceeds 0.400 mm"), text
+    type_into(qtbot, panel.position_field, "nan")
+    qtbot.keyClick(panel.position_field.lineEdit(), Qt.Key.Key_Return)
+    assert model.check.settings.position_tolerance_mm == 0.4
+    assert "not a finite number" in panel.tolerance_note.text()

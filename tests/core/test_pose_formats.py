@@ -1,0 +1,87 @@
+"""The pose copies: a 4×4 homogeneous matrix and a pose line (position, then quaternion) with a header
+that names the order, units and convention; each is read back before it is called verified, and a copy
+changed by one digit, a wrong last row or a missing unit is caught.
+
+Check values: CONVENTIONS.md "Poses" (p_ref = R · p_body + t, [[R, t], [0 0 0 1]]); the 4×4 is compared
+with one built by numpy from SciPy's Rotation (a general-purpose reference library), and used on a point
+against SciPy's apply plus t; the quaternion against SciPy's as_quat."""
+
+import numpy as np
+import pytest
+from scipy.spatial.transform import Rotation
+
+from core.errors import FramewrightError
+from core.orientation import Orientation
+from core.pose_formats import pose_round_trip, read_pose, render_pose
+from core.position import Position
+
+ROTATION = Rotation.from_euler("ZYX", [123.4, -41.0, 7.25], degrees=True)
+ORIENTATION = Orientation.from_quaternion(ROTATION.as_quat(scalar_first=True))
+POSITION = Position.from_shown((250.0, -12.5, 1001.75), "mm")
+
+
+def _numbers(text):
+    return np.array([[float(v) for v in line.replace(",", " ").split()] for line in text.splitlines()[1:]])
+
+
+def test_the_4x4_copy_is_the_homogeneous_matrix_numpy_builds_from_scipy():
+    text = render_pose(ORIENTATION, POSITION, "pose-matrix")
+    assert text.startswith("# Pose as a 4x4 homogeneous matrix [[R, t], [0, 0, 0, 1]], p_ref = R p_body + t")
+    assert "t in mm" in text.splitlines()[0]
+    h = _numbers(text)
+    want = np.eye(4)
+    want[:3, :3] = ROTATION.as_matrix()
+    want[:3, 3] = (250.0, -12.5, 1001.75)
+    np.testing.assert_allclose(h, want, atol=1e-12)
+    # Used on a body point it moves it as SciPy's rotation plus the translation does (mm).
+    point = np.array([10.0, -3.0, 4.5])
+    np.testing.assert_allclose((h @ np.append(point, 1.0))[:3], ROTATION.apply(point) + want[:3, 3], atol=1e-9)
+
+
+@pytest.mark.parametrize("scalar_last", [False, True])
+def test_the_pose_line_names_its_order_and_holds_position_then_quaternion(scalar_last):
+    text = render_pose(ORIENTATION, POSITION.in_unit("m"), "pose-line", scalar_last)
+    header, line = text.splitlines()
+    assert "position x, y, z in m" in header
+    assert ("x, y, z, w" if scalar_last else "w, x, y, z") in header
+    values = [float(v) for v in line.split(",")]
+    np.testing.assert_allclose(values[:3], (0.25, -0.0125, 1.00175), atol=1e-15)
+    q = ROTATION.as_quat(scalar_first=not scalar_last)
+    assert abs(abs(np.dot(values[3:], q)) - 1.0) < 1e-15        # q and −q are one orientation
+
+
+@pytest.mark.parametrize("fmt", ["pose-matrix", "pose-line"])
+@pytest.mark.parametrize("unit", ["mm", "m"])
+def test_every_pose_copy_reads_back_exactly(fmt, unit):
+    position = POSITION.in_unit(unit)
+    text = render_pose(ORIENTATION, position, fmt)
+    angle, distance = pose_round_trip(ORIENTATION, position, text, fmt)
+    assert angle < 1e-9 and distance < 1e-12
+
+
+def test_a_copy_changed_by_one_digit_is_caught_by_the_round_trip():
+    text = render_pose(ORIENTATION, POSITION, "pose-matrix")
+    changed = text.replace("1001.75", "1001.76")
+    assert pose_round_trip(ORIENTATION, POSITION, changed, "pose-matrix")[1] == pytest.approx(1e-5, rel=1e-6)
+    line = render_pose(ORIENTATION, POSITION, "pose-line")
+    _, distance = pose_round_trip(ORIENTATION, POSITION, line.replace("250.0", "251.0"), "pose-line")
+    assert distance == pytest.approx(1e-3, rel=1e-9)
+
+
+@pytest.mark.parametrize("change, words", [
+    (lambda t: t.replace("0.0  0.0  0.0  1.0", "0.0  0.0  0.1  1.0"), "last row"),
+    (lambda t: t.replace("t in mm", "t in cubits"), "names no length unit"),
+    (lambda t: t.replace("# Pose", "Pose"), "no header line"),
+    (lambda t: t.replace("1001.75", "1001.75 nan"), "not a finite number"),
+    (lambda t: t.replace("1001.75", "1001.75 7"), "four rows of four"),
+    (lambda t: t.replace("1001.75", "NaN"), "not a number"),
+    (lambda t: "\n".join(t.splitlines()[:-1]), "four rows of four"),
+])
+def test_a_damaged_4x4_copy_is_refused_not_read(change, words):
+    with pytest.raises(FramewrightError, match=words):
+        read_pose(change(render_pose(ORIENTATION, POSITION, "pose-matrix")), "pose-matrix")
+
+
+def test_a_pose_copy_needs_a_position():
+    with pytest.raises(FramewrightError, match="needs a mount with a position"):
+        render_pose(ORIENTATION, None, "pose-line")
