@@ -57,11 +57,13 @@ def add_reading_options(parser: argparse.ArgumentParser) -> None:
                          help="the matrix is reference -> body (rows are the body axes)")
     meaning.add_argument("--as-written", dest="transposed", action="store_const", const=False,
                          help="the matrix is body -> reference (columns are the body axes)")
+    group.add_argument("--name", metavar="NAME",
+                       help="which transform to read when the text holds several (as decode lists them)")
 
 
 def hints_from(args) -> DecodeHints:
     return DecodeHints(kind=args.kind, sequence=args.sequence, intrinsic=args.intrinsic, order=args.order,
-                       units=args.units, transposed=args.transposed)
+                       units=args.units, transposed=args.transposed, name=getattr(args, "name", None))
 
 
 def read_text(argument: str | None, stdin) -> str:
@@ -107,7 +109,9 @@ def reading_object(reading, args) -> dict:
     else:
         intrinsic = conventions["intrinsic"] if reading.kind == "angles" and not args.sequence else True
     summary = formats.summary(reading.orientation, sequence, intrinsic)
+    translation = None if reading.translation is None else [float(v) for v in reading.translation]
     return {"kind": reading.kind, "label": reading.label, "conventions": dict(conventions), **summary,
+            "translation": translation, "translation_unit": reading.translation_unit, "name": reading.name,
             "orthogonality_error": reading.orthogonality_error, "notes": list(reading.notes),
             "why": reading.why}
 
@@ -141,9 +145,17 @@ def _n4(value: float) -> str:
     return "0" if text == "-0" else text
 
 
-def reading_text(reading, args, rank: int, total: int) -> str:
+def reading_text(reading, args, rank: int, total: int, best=None) -> str:
     data = reading_object(reading, args)
-    lines = [f"Reading {rank} of {total}: {reading.label}"] + orientation_lines(data)
+    lines = [f"Reading {rank} of {total}: {reading.label}"]
+    if reading.name is not None:
+        lines.append(f"  transform: {reading.name}")
+    if reading.translation is not None:
+        unit = f"in {reading.translation_unit}" if reading.translation_unit else "unit not stated in the text"
+        lines.append(f"  translation (x, y, z): {', '.join(_n(v) for v in reading.translation)} ({unit})")
+    lines += orientation_lines(data)
+    if best is not None and best is not reading and best.name == reading.name:
+        lines.append(f"  differs from reading 1 by {_n(best.orientation.angle_to(reading.orientation))} deg")
     if data["orthogonality_error"] is not None:
         lines.append(f"  orthogonality error of the numbers as given: {data['orthogonality_error']:.2g}")
     lines.append(f"  why: {reading.why}")
@@ -164,15 +176,27 @@ def add_decode_arguments(parser: argparse.ArgumentParser) -> None:
 
 def run_decode(args, stdin, stdout) -> int:
     readings = decode_or_refuse(read_text(args.text, stdin), hints_from(args))
+    # the best reading of each transform when the text holds several named ones (in the text's order)
+    firsts = list({r.name: r for r in reversed(readings)}.values())[::-1] if readings[0].name is not None else []
+    transforms = firsts if len(firsts) > 1 else []
     if args.json:
         data = reading_object(readings[0], args)
+        if transforms:
+            data["transforms"] = [reading_object(r, args) for r in transforms]
         if args.all:
             data["readings"] = [reading_object(r, args) for r in readings]
         stdout.write(formats.json_object_text(data))
         return EXIT_OK
-    shown = readings if args.all else readings[:1]
-    stdout.write("\n\n".join(reading_text(r, args, i, len(readings)) for i, r in enumerate(shown, 1)) + "\n")
-    if not args.all and len(readings) > 1:
+    shown = readings if args.all else (transforms or readings[:1])
+    best = {}
+    for r in readings:
+        best.setdefault(r.name, r)
+    stdout.write("\n\n".join(reading_text(r, args, readings.index(r) + 1, len(readings), best[r.name])
+                             for r in shown) + "\n")
+    if transforms and not args.all:
+        stdout.write(f"(the text holds {len(transforms)} transforms; --name picks one, --all shows every"
+                     " reading)\n")
+    elif not args.all and len(readings) > 1:
         stdout.write(f"({len(readings) - 1} more reading{'s' if len(readings) > 2 else ''}: --all shows them,"
                      " options such as --kind narrow them)\n")
     return EXIT_OK

@@ -15,22 +15,27 @@ say) -> candidates (readings per count) -> readings (ranking); our_json reads ou
 
 from __future__ import annotations
 
+import re
+from dataclasses import replace
+
 from core.decode.characters import MAX_INPUT_BYTES, _check_size
 from core.decode.hints import KINDS, DecodeHints, Reading
 from core.decode.numbers import (UNDERSTOOD_COUNTS, FoundNumber, ParsedNumbers, _MAX_NUMBERS, extract_numbers,
                                  parse_numbers)
 from core.decode.our_json import _decode_our_json
 from core.decode.pose_keys import keyed_poses
-from core.decode.pose_lines import argument_poses, column_poses, origin_poses, quaternion_sum
+from core.decode.pose_lines import argument_poses, column_poses, origin_poses, quaternion_sum, sdf_poses
 from core.decode.pose_matrices import matrix_poses
 from core.decode.poses import pose_readings
 from core.decode.printouts import echo_poses
 from core.decode.readings import readings_from_numbers
 from core.errors import DecodeError
 
+_COMMENT_MARK = re.compile(r"^[ \t]*(?://+|#+|%+)[ \t]?|/\*|\*/", re.MULTILINE)
+
 # Readers of structured text, tried in this order before the numbers are read bare: each says None when
 # the text is not its kind, and refuses (DecodeError) when it is but something in it cannot be read.
-_POSE_READERS = (echo_poses, origin_poses, argument_poses, quaternion_sum, keyed_poses, column_poses)
+_POSE_READERS = (echo_poses, origin_poses, sdf_poses, argument_poses, quaternion_sum, keyed_poses, column_poses)
 
 __all__ = ["MAX_INPUT_BYTES", "KINDS", "UNDERSTOOD_COUNTS", "DecodeError", "DecodeHints", "FoundNumber",
            "ParsedNumbers", "Reading", "decode", "extract_numbers", "parse_numbers", "readings_from_numbers"]
@@ -55,6 +60,12 @@ def decode(text: str, hints=None) -> list[Reading]:
         if poses:
             return pose_readings(poses, hints, [])
     parsed = parse_numbers(text, max_numbers=_MAX_NUMBERS)
+    if not parsed.numbers and "numbers inside comments were not read" in parsed.notes:
+        uncommented = _COMMENT_MARK.sub("", text)
+        if uncommented != text:     # the comments hold the only data: read it, and say so
+            readings = decode(uncommented, hints)
+            note = "the only numbers are inside comments (#, //, %): they were read"
+            return [replace(r, notes=(note,) + r.notes) for r in readings]
     poses = matrix_poses(parsed)
     if poses:
         return pose_readings(poses, hints, list(parsed.notes))

@@ -156,33 +156,50 @@ def _four_candidates(values, parsed, hints, clues, keyed):
         else:
             out = [c for c in out if ("jpl" if c.conventions["convention"] == "JPL" else c.conventions["order"])
                    == hints.order]
-    # axis and angle (axis first, angle last)
-    axis, angle = v[:3], float(v[3])
-    axis_length = float(np.linalg.norm(axis))
-    if (axis_length > 0 or angle == 0) and not (hints.order and not hints.kind):
-        fixed_units = keyed.units if keyed and keyed.kind == "axis-angle" else None
-        for units, points, unit_reason in _unit_choices([angle], hints, clues, fixed_units):
-            c = _Candidate("axis-angle", {"order": "axis, angle", "units": units},
-                           lambda u=units: Orientation.from_axis_angle(axis, angle, degrees=(u == "deg")),
-                           f"axis (x, y, z) and angle in {_unit_word(units)}")
-            c.plus(points, unit_reason)
-            if abs(axis_length - 1.0) < 1e-3:
-                c.plus(1.0, "the first three numbers have unit length, as an axis has")
-            else:
-                c.plus(-1.5 if 0.5 < axis_length < 2 else -2.5, f"the axis has length {axis_length:.6g}, not 1")
-            if abs(angle) > 1.0 + 1e-9:
-                c.plus(2.5, f"the last number ({angle:g}) is beyond ±1: an angle, not a quaternion part")
-            elif unit_like:
-                c.plus(-1.0, "the four numbers have unit norm, as a quaternion has")
-            if keyed and keyed.kind == "axis-angle":
-                c.plus(3.0, keyed.note)
-            if "axis-angle" in clues.kinds:
-                c.plus(1.5, "the text says axis and angle")
-            out.append(c)
+    # axis and angle: axis first, angle last; and angle first when the text writes it so
+    layouts = [("axis, angle", v[:3], float(v[3]))]
+    if clues.angle_first and not (keyed and keyed.kind == "axis-angle"):
+        layouts.append(("angle, axis", v[1:], float(v[0])))
+    for order, axis, angle in layouts:
+        out += _axis_angle_candidates(order, axis, angle, hints, clues, keyed, unit_like)
     if keyed and keyed.kind == "quaternion":
         out = [c for c in out if c.kind == "quaternion"]
     if keyed and keyed.kind == "axis-angle":
         out = [c for c in out if c.kind == "axis-angle"]
+    return out
+
+
+def _axis_angle_candidates(order, axis, angle, hints, clues, keyed, unit_like):
+    from core.orientation import Orientation
+    out = []
+    axis_length = float(np.linalg.norm(axis))
+    if not (axis_length > 0 or angle == 0) or (hints.order and not hints.kind):
+        return out
+    fixed_units = keyed.units if keyed and keyed.kind == "axis-angle" else None
+    angle_first = order == "angle, axis"
+    for units, points, unit_reason in _unit_choices([angle], hints, clues, fixed_units):
+        c = _Candidate("axis-angle", {"order": order, "units": units},
+                       lambda u=units, n=axis, a=angle: Orientation.from_axis_angle(n, a, degrees=(u == "deg")),
+                       f"angle in {_unit_word(units)}, then axis (x, y, z)" if angle_first
+                       else f"axis (x, y, z) and angle in {_unit_word(units)}")
+        c.plus(points, unit_reason)
+        if abs(axis_length - 1.0) < 1e-3:
+            c.plus(1.0, "the axis numbers have unit length, as an axis has")
+        else:
+            c.plus(-1.5 if 0.5 < axis_length < 2 else -2.5, f"the axis has length {axis_length:.6g}, not 1")
+            if angle_first:
+                c.notes.append(f"the axis (length {axis_length:.6g}) was scaled to unit length")
+        if abs(angle) > 1.0 + 1e-9:
+            c.plus(2.5, f"the angle ({angle:g}) is beyond ±1: an angle, not a quaternion part")
+        elif unit_like:
+            c.plus(-1.0, "the four numbers have unit norm, as a quaternion has")
+        if keyed and keyed.kind == "axis-angle":
+            c.plus(3.0, keyed.note)
+        if "axis-angle" in clues.kinds:
+            c.plus(1.5, "the text says axis and angle")
+        if angle_first:
+            c.plus(3.5, "the text writes the angle before the axis")
+        out.append(c)
     return out
 
 

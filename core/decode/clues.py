@@ -20,6 +20,7 @@ class _Clues:
     order: str | None = None
     kinds: set = field(default_factory=set)
     notes: list = field(default_factory=list)
+    angle_first: bool = False
 
 
 _REF = r"(?:reference|ref|world|nav(?:igation)?|ned|enu|local|vehicle|platform|base|parent|earth|inertial|fixed)"
@@ -38,10 +39,16 @@ _XYZW = re.compile(r"(?<![a-z])q?_?xyzw(?![a-z])|(?<![a-z])q?x\W{1,3}q?y\W{1,3}q
                    r"|scalar[ _-]?(?:part[ _-]?)?last|(?<![a-z])w[ _-]last")
 _KIND_WORDS = {
     "quaternion": re.compile(r"quaternion|(?<![a-z])quat(?![a-z])|versor"),
-    "rotation-vector": re.compile(r"rotation[ _-]?vector|rotvec|(?<![a-z])rvec(?![a-z])"),
+    "rotation-vector": re.compile(r"rotation[ _-]?vector|rotvec|(?<![a-z])rvecs?(?![a-z])|(?<![a-z])om(?![a-z])"),
     "angles": re.compile(r"euler|tait|(?<![a-z])(?:yaw|pitch|roll|heading)(?![a-z])|(?<![a-z])angles(?![a-z])"),
     "axis-angle": re.compile(r"axis[ _-]?(?:and[ _-]?)?angle|angle[ _-]?axis"),
 }
+# The angle written before the axis: 'angle (rad), axis:', '(angle, axis) =', 'theta, n =', 'AngleAxisd aa(…)',
+# '[angle first]', '30° about [x, y, z]'
+_ANGLE_FIRST = re.compile(r"(?<![a-z])(?:angle|theta|phi)(?![a-z])[ _,/()a-z-]{0,16}?(?<![a-z])(?:axis|n)(?![a-z])"
+                          r"|angleaxis|angle[ _-]first|(?<![a-z])about[ ]*[\[(]")
+_AXIS_FIRST = re.compile(r"(?<![a-z])axis(?![a-z])[ _,/()a-z-]{0,16}?(?<![a-z])(?:angle|theta|phi)(?![a-z])|axis[ _-]first")
+_RADIAN_VECTOR = re.compile(r"(?<![a-z])(?:rvecs?|om)(?![a-z])")
 _DEG_WORD = re.compile(r"°|(?<![a-z])deg(?:s|rees?)?(?![a-z])")
 _RAD_WORD = re.compile(r"(?<![a-z])rad(?:s|ians?)?(?![a-z])")
 
@@ -99,4 +106,42 @@ def _read_clues(parsed: ParsedNumbers) -> _Clues:
     if re.search(r"(?<![a-z])jpl(?![a-z])", words):
         clues.order = "jpl"
     clues.kinds = {kind for kind, pattern in _KIND_WORDS.items() if pattern.search(words)}
+    caption = " ".join(c for _, c in parsed.captions[:1])
+    angle_first = _ANGLE_FIRST.search(caption) or _ANGLE_FIRST.search(words)
+    axis_first = _AXIS_FIRST.search(caption)
+    if angle_first and not (axis_first and axis_first.start() < angle_first.start()):
+        clues.angle_first = True
+        clues.kinds.add("axis-angle")
+    if clues.units is None and _RADIAN_VECTOR.search(words):
+        clues.units, clues.units_reason = "rad", "rvec and om rotation vectors are in radians (common practice)"
+    _library_clues(parsed, clues)
     return clues
+
+
+def _library_clues(parsed: ParsedNumbers, clues: _Clues) -> None:
+    call = parsed.library_call
+    if call is None:
+        return
+    kind, seq, degrees, scalar_first = call
+    marked = "degrees=True" if degrees else "radians, the library's default"
+    if kind == "euler":
+        from core.sequences import parse_sequence
+        try:
+            clues.sequence = parse_sequence(seq.upper())
+        except FramewrightError:
+            return
+        clues.intrinsic = seq.isupper()
+        clues.kinds.add("angles")
+        case = "upper case, intrinsic" if seq.isupper() else "lower case, extrinsic"
+        clues.notes.append(f"a library call names '{seq}': {case} (SciPy's documented meaning), {marked}")
+    elif kind == "quat":
+        clues.order = "wxyz" if scalar_first else "xyzw"
+        clues.kinds.add("quaternion")
+        clues.notes.append("a library call: from_quat is scalar last unless scalar_first=True (SciPy's documented"
+                           " meaning)")
+    else:
+        clues.kinds.add("rotation-vector")
+        clues.notes.append(f"a library call: a rotation vector in {marked}")
+    if not any(n.unit for n in parsed.numbers) and kind != "quat":
+        clues.units = "deg" if degrees else "rad"
+        clues.units_reason = f"the library call says {marked}"

@@ -94,7 +94,7 @@ def _keyed(parsed: ParsedNumbers) -> _Keyed | None:
             by = dict(zip(named, values))
             return _Keyed([by["yaw"], by["pitch"], by["roll"]], "angles", sequence="ZYX", intrinsic=True,
                           units=unit, note="read by their names as yaw, pitch, roll (intrinsic Z-Y'-X'')")
-        if all(k in ("rotvec", "rotation vector", "rotation_vector", "rvec") for k in keys):
+        if all(k in ("rotvec", "rotation vector", "rotation_vector", "rvec", "rvecs", "om") for k in keys):
             return _Keyed(values, "rotation-vector", units=unit, note="named a rotation vector")
         comps = [k for k in keys if k]
         if len(comps) == 3 and {c.removeprefix("rotvec_").removeprefix("rv_") for c in comps} == {"x", "y", "z"} \

@@ -12,12 +12,13 @@ _TOKEN = re.compile(r"[^\s,;|\[\](){}&<>=:\"]+")   # a run between separators; f
 
 
 # Words that stand for a value we will not guess at: non-finite values, named constants, substitutions
-_NON_FINITE = re.compile(r"(?<![\w.])[+-]?(?:nan|inf(?:inity)?)(?!\w)", re.IGNORECASE)
+_NON_FINITE = re.compile(r"(?<![\w.])[+-]?\.?(?:nan|inf(?:inity)?)(?!\w)", re.IGNORECASE)   # YAML .nan, -.inf too
 _CONSTANT = re.compile(r"(?<![A-Za-z0-9])(?:M_)?PI(?![A-Za-z0-9_])|π|\$\{|\$\(", re.IGNORECASE)
 # Words allowed between two numbers on a line (besides keys): units, component and angle names, 'and'
 _BETWEEN_WORDS = frozenset("""deg degs degree degrees rad rads radian radians and w x y z i j k qw qx qy qz
-    yaw pitch roll heading bank elevation axis angle theta phi psi""".split())
-_NUMBER_TYPE = re.compile(r"(?:np\.|numpy\.)?(?:float|int|uint|double)\d*", re.IGNORECASE)  # np.float64(0.5)
+    yaw pitch roll heading bank elevation axis angle theta phi psi about n eigen""".split())
+_NUMBER_TYPE = re.compile(r"(?:np\.|numpy\.)?(?:float|int|uint|double)\d*|vector3[dfi]?|vec3[df]?|angleaxis[df]?",
+                          re.IGNORECASE)  # np.float64(0.5)
 
 
 _BETWEEN_DIGITS = re.compile(r"[^\d\n]+")

@@ -67,6 +67,7 @@ class ParsedNumbers:
     decimal_commas: bool = False                 # '0,7071' seen: maybe decimal commas (read as separators)
     line_words: tuple[tuple[int, str], ...] = ()  # (data line, its text with the numbers blanked out)
     strays: tuple[tuple[int, str], ...] = ()      # (line, word) between two numbers that we do not know
+    library_call: tuple[str, str, bool, bool] | None = None   # ('euler', 'xyz', degrees=, scalar_first=)
 
     @property
     def values(self) -> np.ndarray:
@@ -251,7 +252,22 @@ def parse_numbers(text: str, max_numbers: int | None = None, first_line: int = 1
     if skipped_titles > 3:
         notes.add(f"{skipped_titles - 3} more lines without numbers were ignored")
     return ParsedNumbers(tuple(numbers), tuple(notes), " ".join(words), tuple(captions), tuple(headers),
-                         bool(re.search(r"\d,\d", clean)), tuple(line_words), tuple(strays))
+                         bool(re.search(r"\d,\d", clean)), tuple(line_words), tuple(strays), _library_call(clean))
+
+
+# SciPy's Rotation spells its conventions in its calls: from_euler('xyz', …) is extrinsic, 'XYZ' intrinsic,
+# radians unless degrees=True; from_quat is scalar last unless scalar_first=True (SciPy documentation).
+_LIBRARY_CALL = re.compile(r"(?:from|as)_(?P<kind>euler|quat|rotvec)[ ]*\([ ]*(?:['\"](?P<seq>[xyzXYZ]{3})['\"])?")
+
+
+def _library_call(clean: str):
+    m = _LIBRARY_CALL.search(clean)
+    if m is None or (m.group("kind") == "euler" and not m.group("seq")):
+        return None
+    rest = clean[m.end():m.end() + 400]
+    degrees = re.search(r"degrees[ ]*=[ ]*True", rest) is not None
+    scalar_first = re.search(r"scalar_first[ ]*=[ ]*True", rest) is not None
+    return m.group("kind"), m.group("seq") or "", degrees, scalar_first
 
 
 def extract_numbers(text: str) -> list[float]:

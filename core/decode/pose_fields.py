@@ -11,10 +11,11 @@ from dataclasses import dataclass
 from core.decode.characters import _normalise_characters, _strip_comments
 
 _MAX_FIELDS = 2000
-_KEY_LINE = re.compile(r"""^(?P<indent>[ ]*)(?:-[ ]+)?["']?(?P<key>[A-Za-z_][\w.\-/]{0,60}(?:[ ][A-Za-z_(\[][\w)\]]{0,20}){0,3}?)["']?"""
+_KEY_LINE = re.compile(r"""^(?P<indent>[ ]*)(?P<dash>-[ ]+)?["']?(?P<key>[A-Za-z_][\w.\-/]{0,60}"""
+                       r"""(?:[ ][A-Za-z_][\w]{0,20}){0,3}(?:[ ]?[(\[][^()\[\]\n]{0,30}[)\]])?)["']?"""
                        r"""[ ]*(?::(?!:)|=(?!=))[ ]*(?P<rest>.*)$""")
 _INLINE_PAIR = re.compile(r"""["']?(?P<key>[A-Za-z_][\w.\-]{0,40})["']?[ ]*:[ ]*(?P<value>[^,{}]*)""")
-_ATTRIBUTE = re.compile(r"""(?P<key>[A-Za-z_][\w.\-:]{0,40})[ ]*=[ ]*(?P<q>["'])(?P<value>[^"'<>\n]{0,400})(?P=q)""")
+_ATTRIBUTE = re.compile(r"""(?P<key>[A-Za-z_][\w.\-:]{0,40})[ ]*=[ ]*(?:"(?P<value>[^"<>\n]{0,400})"|'(?P<value2>[^'<>\n]{0,400})')""")
 _TAG = re.compile(r"<(?P<tag>[A-Za-z_][\w.\-:]{0,40})(?P<body>[^<>]{0,2000})>")
 _FLAG = re.compile(r"(?<!\S)--(?P<key>[A-Za-z][\w\-]{0,40})(?:[ ]+|=)(?P<value>[^\s-][^\s]*|-[\d.][^\s]*)")
 
@@ -26,6 +27,7 @@ class Field:
     value: str
     line: int
     path: tuple[str, ...] = ()
+    shape: tuple[int, int] | None = None     # rows and columns when the text writes them beside the data
 
     @property
     def name(self) -> str:
@@ -33,11 +35,13 @@ class Field:
 
 
 def yaml_like_fields(text: str) -> list[Field]:
-    """`key: value` lines. A key with nothing after it opens a group for the lines indented below it."""
+    """`key: value` lines. A key with nothing after it opens a group for the lines indented below it, or
+    takes the lines of numbers that follow it (`R =` above a printed array); `- ` starts a list item."""
     clean, _ = _strip_comments(_normalise_characters(text))
     lines = clean.split("\n")
     fields: list[Field] = []
-    stack: list[tuple[int, str]] = []          # (indent, key) of the open groups
+    stack: list[tuple[float, str]] = []        # (indent, key) of the open groups; items are '#0', '#1', …
+    items: dict[tuple, int] = {}
     i = 0
     while i < len(lines) and len(fields) < _MAX_FIELDS:
         raw = lines[i].replace("\t", "    ")
@@ -46,8 +50,13 @@ def yaml_like_fields(text: str) -> list[Field]:
         if m is None:
             continue
         indent, key, rest = len(m.group("indent")), m.group("key").strip(), m.group("rest").strip()
-        if raw.lstrip().startswith("- "):
-            indent += 2                      # '- key: v' is one level in
+        if m.group("dash"):                  # '- key: v' starts a list item one level in
+            while stack and stack[-1][0] > indent:
+                stack.pop()
+            parent = tuple(k for _, k in stack)
+            items[parent] = items.get(parent, -1) + 1
+            stack.append((indent + 0.5, f"#{items[parent]}"))
+            indent += len(m.group("dash"))
         while stack and stack[-1][0] >= indent:
             stack.pop()
         path = tuple(k for _, k in stack)
@@ -55,16 +64,16 @@ def yaml_like_fields(text: str) -> list[Field]:
         if rest.startswith("!!"):            # a YAML tag such as !!opencv-matrix: the group follows
             rest = ""
         if not rest:
-            rows, j = _rows_below(lines, i, indent)
-            if rows:                         # '- [a, b, c, d]' rows under the key: one value
+            rows, j = _rows_below(lines, i)
+            if rows:                         # '- [a, b, c, d]' rows or printed lines of numbers under the key
                 fields.append(Field(key, " ; ".join(rows), start, path))
                 i = j
                 continue
-            stack.append((indent, key.lower()))
+            stack.append((indent, key))
             continue
         if rest.startswith("{") and "}" in rest:
             for pair in _INLINE_PAIR.finditer(rest[1:rest.rfind("}")]):
-                fields.append(Field(pair.group("key"), pair.group("value").strip(), start, path + (key.lower(),)))
+                fields.append(Field(pair.group("key"), pair.group("value").strip(), start, path + (key,)))
             continue
         while rest.count("[") > rest.count("]") and i < len(lines) and i - start < 200:
             rest += " ; " + lines[i].strip()  # a list over several lines; rows keep their breaks
@@ -73,16 +82,17 @@ def yaml_like_fields(text: str) -> list[Field]:
     return fields
 
 
-def _rows_below(lines: list[str], i: int, indent: int) -> tuple[list[str], int]:
+_NUMBER_LINE = re.compile(r"^[ \t]*(?:-[ ]*)?[\[(]*[ ]*[-+]?(?:\d|\.\d)[-+\d.eE \t,;\[\]()]*$")
+
+
+def _rows_below(lines: list[str], i: int) -> tuple[list[str], int]:
+    """The lines of numbers right below a key ('- [a, b]' rows, '[[ 0. -1.  0.]' printouts)."""
     rows = []
     while i < len(lines) and len(rows) < 16:
         stripped = lines[i].strip()
-        if not stripped:
-            i += 1
-            continue
-        if not stripped.startswith("- [") and not stripped.startswith("-["):
+        if not stripped or not _NUMBER_LINE.match(stripped) or _KEY_LINE.match(lines[i]):
             break
-        rows.append(stripped[1:].strip())
+        rows.append(stripped[1:].strip() if stripped.startswith(("- ", "-[")) else stripped)
         i += 1
     return rows, i
 
@@ -103,12 +113,12 @@ def json_fields(text: str) -> list[Field] | None:
             return
         if isinstance(value, dict):
             for k, v in value.items():
-                walk(v, path + ((key.lower(),) if key else ()), str(k))
+                walk(v, path + ((key,) if key else ()), str(k))
         elif isinstance(value, list) and value and all(isinstance(v, list) for v in value):
             fields.append(Field(key or "value", " ; ".join(_json_list(v) for v in value), 1, path))
         elif isinstance(value, list) and value and any(isinstance(v, dict) for v in value):
             for n, v in enumerate(value):
-                walk(v, path + ((key.lower(),) if key else ()), f"{key or 'item'}[{n}]")
+                walk(v, path + ((key,) if key else ()), f"#{n}")
         elif isinstance(value, (list, int, float, str)) and not isinstance(value, bool):
             shown = _json_list(value) if isinstance(value, list) else str(value)
             fields.append(Field(key or "value", shown, 1, path))
@@ -127,7 +137,8 @@ def xml_fields(text: str) -> list[Field]:
     for index, tag in enumerate(_TAG.finditer(clean)):
         line = clean.count("\n", 0, tag.start()) + 1
         for a in _ATTRIBUTE.finditer(tag.group("body")):
-            fields.append(Field(a.group("key"), a.group("value"), line, (tag.group("tag").lower(), str(index))))
+            value = a.group("value") if a.group("value") is not None else a.group("value2")
+            fields.append(Field(a.group("key"), value, line, (tag.group("tag").lower(), str(index))))
             if len(fields) >= _MAX_FIELDS:
                 return fields
     return fields

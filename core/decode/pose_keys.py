@@ -1,12 +1,12 @@
 """Poses written with keys: calibration YAML and JSON (position/translation beside orientation/rotation,
 named components, `rows`/`cols`/`data` matrices, 4x4 lists under a key), INI-like calibration text
-(`R:` beside `T:`, `Tr:` with 12 numbers, `R_00`/`T_00` pairs), and flag lists (`--x 1 --yaw 0.5`).
-Keys that hold no part of a pose are named in a note, never read as numbers."""
+(`R:` beside `T:`, `Tr:` with 12 numbers, `R_00`/`T_00` pairs, rectifying rotations), and flag lists
+(`--x 1 --yaw 0.5`). Keys that hold no part of a pose are named in a note, never read as numbers."""
 
 from __future__ import annotations
 
 import re
-
+from core.decode.clues import _WXYZ, _XYZW
 from core.decode.pose_fields import Field, flag_fields, json_fields, yaml_like_fields
 from core.decode.poses import AS_WRITTEN, PoseText, checked_translation, homogeneous, values_in
 from core.errors import DecodeError
@@ -14,14 +14,18 @@ from core.errors import DecodeError
 _TRANSLATION = {"translation", "position", "trans", "t", "xyz", "p", "pos", "tvec", "tvecs", "origin", "offset",
                 "translation_vector", "location"}
 _ROTATION = {"rotation", "orientation", "quaternion", "quat", "q", "rot", "r", "attitude", "rotation_matrix",
-             "rotationmatrix", "dcm", "rpy", "ypr", "euler", "angles", "rvec", "rvecs", "om", "rotvec",
-             "rotation_vector", "q_wxyz", "q_xyzw", "quaternion_wxyz", "quaternion_xyzw"}
-_WHOLE = re.compile(r"(?:t|tr|h|transform|transformation|pose|extrinsics?|matrix|t_\w+|tr_\w+|\w+_to_\w+|"
-                    r"\w+2\w+|t\d\w*)")
-_UNIT_MARK = re.compile(r"[ _]?[\[(]?(mm|m|cm|in)[\])]?$")
+             "dcm", "rpy", "ypr", "rvec", "rvecs", "om", "rotvec", "rotation_vector", "q_wxyz", "q_xyzw",
+             "quaternion_wxyz", "quaternion_xyzw"}
+_WHOLE = re.compile(r"t|tr|rt|r_t|rt_\w+|\w+_rt|h|transform|transformation|pose|extrinsics?|matrix|t_\w+|tr_\w+|\w+_to_\w+|"
+                    r"transform_\w+|\w+_transform|\w+_pose|pose_\w+|extrinsics?_\w+")
+_ROTATION_ONLY = re.compile(r"r\d*_rect\w*|r_rect\w*|rectification\w*|r_\w+|rotation_\w+|\w+_rotation|rot_\w+")
+_UNIT_MARK = re.compile(r"(?:\[(mm|m|cm)\]|\((mm|m|cm)\)|_(mm|m|cm))$")
+_UNIT_IN_CAPTION = re.compile(r"[(\[][^()\[\]]*?(?<![a-z])(mm|millimet(?:re|er)s?|m|met(?:re|er)s?|cm)(?![a-z])[^()\[\]]*[)\]]")
+_UNIT_WORDS = {"millimetre": "mm", "millimeter": "mm", "metre": "m", "meter": "m"}
 _ROTATION_VECTOR = {"rvec", "rvecs", "om", "rotvec", "rotation_vector"}
 _COMPONENTS_Q = {"x", "y", "z", "w", "qx", "qy", "qz", "qw"}
 _COMPONENTS_T = ("x", "y", "z")
+_GENERIC_NAMES = {"transform", "pose", "data", "value", "extrinsics", "calibration"}
 _SET_ASIDE_NOTE = 12
 
 
@@ -30,106 +34,140 @@ def keyed_poses(text: str) -> list[PoseText] | None:
     fields = json_fields(text)
     layout = "pose (JSON)"
     if fields is None:
-        fields = yaml_like_fields(text)
-        layout = "pose (keyed text)"
         flags = flag_fields(text)
         if len(flags) >= 4:
             return _flag_pose(flags)
+        fields = yaml_like_fields(text)
+        layout = "pose (keyed text)"
     if not fields:
         return None
+    fields = _with_shaped_matrices(fields)
     groups: dict[tuple, dict[str, Field]] = {}
     for f in fields:
-        for depth in range(len(f.path)):        # every enclosing group, so 'pose:' sees its 'position:'
-            groups.setdefault(f.path[:depth], {})
-        groups.setdefault(f.path, {})[_bare(f.name)] = f
+        lowered = tuple(p.lower() for p in f.path)
+        for depth in range(len(lowered)):        # every enclosing group, so 'pose:' sees its 'position:'
+            groups.setdefault(lowered[:depth], {})
+        groups.setdefault(lowered, {})[_bare(f.name)] = f
     poses: list[PoseText] = []
     used: set[int] = set()
     for path, group in groups.items():
         poses += _group_poses(path, group, groups, used, layout)
     if not poses:
         return None
-    unused = [f.key for f in fields if id(f) not in used]
-    if unused:
-        shown = ", ".join(dict.fromkeys(unused[:_SET_ASIDE_NOTE])) + (" …" if len(unused) > _SET_ASIDE_NOTE else "")
-        for p in poses:
+    unused = [f.key for f in fields if id(f) not in used and f.key not in ("rows", "cols", "dt")]
+    for p in poses:
+        if unused:
+            shown = ", ".join(dict.fromkeys(unused[:_SET_ASIDE_NOTE])) + (" …" if len(unused) > _SET_ASIDE_NOTE else "")
             p.notes.append(f"keys not read (no part of a pose): {shown}")
     return sorted(poses, key=lambda p: p.line)
 
 
 def _bare(name: str) -> str:
-    """'translation [m]' -> 'translation'; 'orientation.x' -> 'x'."""
+    """'Translation (mm)' -> 'translation'; 'orientation.x' -> 'x'; 'Rotation matrix' -> 'rotation_matrix'."""
     name = name.split(".")[-1]
-    return re.sub(r"[ ]*[\[(].*$", "", name).strip()
+    name = re.sub(r"[ ]*[\[(].*$", "", name).strip()
+    return re.sub(r"[ ]+", "_", name)
+
+
+def _with_shaped_matrices(fields: list[Field]) -> list[Field]:
+    """A group holding rows, cols and data becomes one field under its own name, with its shape."""
+    by_path: dict[tuple, dict[str, Field]] = {}
+    for f in fields:
+        by_path.setdefault(f.path, {})[f.name] = f
+    out, done = [], set()
+    for f in fields:
+        group = by_path[f.path]
+        if f.path and all(k in group for k in ("rows", "cols", "data")):
+            if f.path in done:
+                continue
+            done.add(f.path)
+            shape = [values_in(group[k].value, group[k].line) for k in ("rows", "cols")]
+            if any(len(v) != 1 or v[0] != int(v[0]) or not 1 <= v[0] <= 16 for v in shape):
+                raise DecodeError(f"line {group['rows'].line}: rows and cols must be whole numbers from 1 to 16")
+            rows, cols = (int(v[0]) for v in shape)
+            data = group["data"]
+            count = len(values_in(data.value, data.line))
+            if rows * cols != count:
+                raise DecodeError(f"line {data.line}: rows {rows} x cols {cols} is {rows * cols} numbers; 'data'"
+                                  f" holds {count}")
+            out.append(Field(f.path[-1], data.value, data.line, f.path[:-1], (rows, cols)))
+            continue
+        out.append(f)
+    return out
 
 
 def _unit_of(field: Field, group: dict) -> str | None:
-    m = _UNIT_MARK.search(field.key.lower())
-    if m and m.group(1) != field.name:
-        return m.group(1)
+    m = _UNIT_MARK.search(field.key.lower().strip())
+    if m:
+        return next(g for g in m.groups() if g)
+    m = _UNIT_IN_CAPTION.search(field.key.lower())       # 'T_base_cam (translation in mm)'
+    if m:
+        word = m.group(1).rstrip("s")
+        return _UNIT_WORDS.get(word, word)
     for key in ("unit", "units", "length_unit"):
         if key in group and group[key].value.strip().strip("'\"").lower() in ("m", "mm", "cm", "in"):
             return group[key].value.strip().strip("'\"").lower()
     return None
 
 
+def _frames(path: tuple, groups: dict) -> str | None:
+    """'parent -> child' from frame_id / child_frame_id beside the transform or in its header."""
+    for depth in range(len(path), -1, -1):
+        here = groups.get(path[:depth], {})
+        child = here.get("child_frame_id")
+        parent = here.get("frame_id") or groups.get(path[:depth] + ("header",), {}).get("frame_id")
+        if child is not None and parent is not None:
+            return f"{parent.value.strip(chr(34) + chr(39))} -> {child.value.strip(chr(34) + chr(39))}"
+    return None
+
+
+def _group_name(path: tuple, groups: dict, display: Field | None) -> str | None:
+    frames = _frames(path, groups)
+    if frames:
+        return frames
+    if display is not None and display.path:
+        for part in reversed(display.path):
+            if not part.startswith("#") and part.lower() not in _GENERIC_NAMES:
+                return part
+    return None
+
+
 def _group_poses(path, group, groups, used, layout) -> list[PoseText]:
-    name = path[-1] if path else None
     out: list[PoseText] = []
-    # rows / cols / data: a matrix with its shape written beside it
-    if "data" in group and "rows" in group and "cols" in group:
-        shape = [values_in(group[k].value, group[k].line) for k in ("rows", "cols")]
-        data = values_in(group["data"].value, group["data"].line)
-        used.update(id(group[k]) for k in ("rows", "cols", "data"))
-        used.update(id(f) for k, f in group.items() if k == "dt")
-        rows, cols = (int(v[0]) if len(v) == 1 else -1 for v in shape)
-        if rows * cols != len(data):
-            raise DecodeError(f"line {group['data'].line}: rows {rows} x cols {cols} is {rows * cols} numbers;"
-                              f" 'data' holds {len(data)}")
-        matrix = [data[r * cols:(r + 1) * cols] for r in range(rows)]
-        note = f"a {rows}x{cols} matrix with its shape written beside it (rows, cols, data); the shape is not data"
-        if (rows, cols) in ((4, 4), (3, 4)):
-            rotation, t = homogeneous(matrix, group["data"].line, f"{rows}x{cols} transform")
-            out.append(PoseText(tuple(rotation), f"{rows}x{cols} transform", group["data"].line, {"kind": "matrix"},
-                                t, _unit_of(group["data"], group), name, [note], AS_WRITTEN))
-        elif (rows, cols) == (3, 3):
-            out.append(PoseText(tuple(data), "3x3 matrix", group["data"].line, {"kind": "matrix"}, None, None,
-                                name, [note], AS_WRITTEN))
-        elif rows * cols == 3 and name:
-            pass                            # a vector (rvec / tvec) read with its sibling below
-        else:
-            raise DecodeError(f"line {group['data'].line}: a {rows}x{cols} matrix is no rotation or transform")
-        if out:
-            return out
-    # whole transforms under one key: 16 or 12 numbers
-    for key, f in group.items():
-        if _WHOLE.fullmatch(key) and key not in _TRANSLATION and key not in _ROTATION:
-            values = values_in(f.value, f.line)
-            if len(values) in (16, 12):
-                rows = [values[i:i + 4] for i in range(0, len(values), 4)]
-                shape = "4x4" if len(values) == 16 else "3x4"
-                rotation, t = homogeneous(rows, f.line, f"{shape} transform")
-                used.add(id(f))
-                out.append(PoseText(tuple(rotation), f"{shape} transform", f.line, {"kind": "matrix"}, t,
-                                    _unit_of(f, group), f.key if len(group) > 1 or not name else name,
-                                    [f"read '{f.key}' as a {shape} transform, rows written one after another"],
-                                    AS_WRITTEN))
-    # a translation beside a rotation (keys, or sub-groups of named components)
-    pose = _translation_and_rotation(path, group, groups, used, layout)
+    for key, f in group.items():                       # whole transforms under one key: 16 or 12 numbers
+        if not (_WHOLE.fullmatch(key.lower()) or f.shape == (4, 4)):   # a 3x4 projection_matrix is no pose
+            continue
+        values = values_in(f.value, f.line)
+        if len(values) not in (16, 12) or (f.shape and f.shape not in ((4, 4), (3, 4))):
+            continue
+        rows = [values[i:i + 4] for i in range(0, len(values), 4)]
+        shape = "4x4" if len(values) == 16 else "3x4"
+        rotation, t = homogeneous(rows, f.line, f"{shape} transform", f.line)
+        used.add(id(f))
+        note = (f"a {shape} matrix with its shape written beside it (rows, cols, data); the shape is not data"
+                if f.shape else f"read '{f.key}' as a {shape} transform, rows written one after another")
+        name = _frames(path, groups) or (f.key if key not in _GENERIC_NAMES else _group_name(path, groups, f))
+        out.append(PoseText(tuple(rotation), f"{shape} transform", f.line, {"kind": "matrix"}, t,
+                            _unit_of(f, group), name, [note], AS_WRITTEN))
+    pose = _translation_and_rotation(path, group, groups, used, layout, whole=bool(out))
     if pose:
         out.append(pose)
     out += _suffix_pairs(group, used)
+    out += _rotations_alone(group, used, bool(out) or len(groups) > 1)
     return out
 
 
-
-def _translation_and_rotation(path, group, groups, used, layout) -> PoseText | None:
-    name = path[-1] if path else None
-    t_field = next((group[k] for k in group if k in _TRANSLATION), None)
-    r_field = next((group[k] for k in group if k in _ROTATION), None)
+def _translation_and_rotation(path, group, groups, used, layout, whole: bool) -> PoseText | None:
+    t_field = next((group[k] for k in group if k.lower() in _TRANSLATION and id(group[k]) not in used), None)
+    r_field = next((group[k] for k in group if k.lower() in _ROTATION and id(group[k]) not in used), None)
     t_sub = next((k for k in _TRANSLATION if _components(groups.get(path + (k,), {}), _COMPONENTS_T)), None)
     r_sub = next((k for k in _ROTATION if _components(groups.get(path + (k,), {}), _COMPONENTS_Q)), None)
-    translation = unit = None
-    line = None
+    has_translation = t_field is not None or t_sub is not None
+    if not has_translation and (whole or not path or (r_field is None and r_sub is None)):
+        return None                         # a lone rotation (not under a name): the ordinary decoder reads it
+    if has_translation and r_field is None and r_sub is None and not _flat_names(group):
+        return None
+    translation = unit = line = None
     notes: list[str] = []
     if t_field is not None:
         translation = checked_translation(values_in(t_field.value, t_field.line), t_field.line)
@@ -140,8 +178,6 @@ def _translation_and_rotation(path, group, groups, used, layout) -> PoseText | N
         translation = checked_translation([_one(sub[c]) for c in _COMPONENTS_T], sub["x"].line)
         unit, line = _unit_of(sub["x"], sub) or _unit_of(sub["x"], group), sub["x"].line
         used.update(id(sub[c]) for c in _COMPONENTS_T)
-    if translation is None and t_sub is None and (r_field is None or not path):
-        return None                         # a lone rotation (not under a name): the ordinary decoder reads it
     if r_field is not None:
         rotation, fixed, prefer, more = _rotation_from_key(r_field)
         used.add(id(r_field))
@@ -158,15 +194,16 @@ def _translation_and_rotation(path, group, groups, used, layout) -> PoseText | N
         fixed, prefer = {"kind": "quaternion", "order": "wxyz"}, ()
         notes.append(f"the quaternion's components are named ({', '.join(names)}); read as w, x, y, z")
         line = min(line or sub[names[0]].line, sub[names[0]].line)
-    elif translation is not None:
-        flat = _flat_rotation(group, used)
-        if flat is None:
-            return None
-        rotation, fixed, prefer, more = flat
-        notes += more
     else:
-        return None
-    return PoseText(tuple(rotation), layout, line or 1, fixed, translation, unit, name, notes, prefer)
+        rotation, fixed, prefer, more = _flat_rotation(group, used)
+        notes += more
+    display = t_field or r_field or next(iter(group.values()), None)
+    return PoseText(tuple(rotation), layout, line or 1, fixed, translation, unit,
+                    _group_name(path, groups, display), notes, prefer)
+
+
+def _flat_names(group) -> bool:
+    return all(k in group for k in ("qx", "qy", "qz", "qw")) or all(k in group for k in ("roll", "pitch", "yaw"))
 
 
 def _components(group: dict, names) -> bool:
@@ -184,10 +221,12 @@ def _rotation_from_key(field: Field):
     """(numbers, fixed hints, ranking bonuses, notes) of a rotation written under one key."""
     values = values_in(field.value, field.line)
     key = _bare(field.name)
+    caption = field.key.lower()
     notes = []
     if key in _ROTATION_VECTOR:
         if len(values) != 3:
-            raise DecodeError(f"line {field.line}: '{field.key}' (a rotation vector) needs 3 numbers; found {len(values)}")
+            raise DecodeError(f"line {field.line}: '{field.key}' (a rotation vector) needs 3 numbers; found"
+                              f" {len(values)}")
         return values, {"kind": "rotation-vector", "units": "rad"}, (), [
             f"'{field.key}' is a rotation vector; its length is in radians (common practice)"]
     if key == "rpy":
@@ -197,9 +236,9 @@ def _rotation_from_key(field: Field):
         return values, {"kind": "angles", "sequence": "ZYX", "intrinsic": True}, (), []
     if len(values) == 4:
         fixed = {"kind": "quaternion"}
-        if "wxyz" in key:
+        if "wxyz" in caption or _WXYZ.search(caption):
             fixed["order"] = "wxyz"
-        elif "xyzw" in key:
+        elif "xyzw" in caption or _XYZW.search(caption):
             fixed["order"] = "xyzw"
         prefer = ()
         if "order" not in fixed:
@@ -217,29 +256,28 @@ def _rotation_from_key(field: Field):
 
 
 def _flat_rotation(group, used):
-    """x, y, z beside qx…qw or roll, pitch, yaw in one group (a flat pose block)."""
+    """qx…qw or roll, pitch, yaw beside x, y, z in one group (a flat pose block)."""
     if all(k in group for k in ("qx", "qy", "qz", "qw")):
         keys = ("qw", "qx", "qy", "qz")
         used.update(id(group[k]) for k in keys)
         return [_one(group[k]) for k in keys], {"kind": "quaternion", "order": "wxyz"}, (), [
             "the quaternion's components are named (qx, qy, qz, qw); read as w, x, y, z"]
-    if all(k in group for k in ("roll", "pitch", "yaw")):
-        keys = ("yaw", "pitch", "roll")
-        used.update(id(group[k]) for k in keys)
-        return [_one(group[k]) for k in keys], {"kind": "angles", "sequence": "ZYX", "intrinsic": True}, (), [
-            "roll, pitch and yaw read by name (yaw-pitch-roll, intrinsic Z-Y'-X'')"]
-    return None
+    keys = ("yaw", "pitch", "roll")
+    used.update(id(group[k]) for k in keys)
+    return [_one(group[k]) for k in keys], {"kind": "angles", "sequence": "ZYX", "intrinsic": True}, (), [
+        "roll, pitch and yaw read by name (yaw-pitch-roll, intrinsic Z-Y'-X'')"]
 
 
 def _suffix_pairs(group: dict, used: set) -> list[PoseText]:
     """`R: …` with `T: …`, and `R_00`/`T_00` pairs: one transform per suffix (the suffix names it)."""
     out = []
-    for key, f in group.items():
+    lowered = {k.lower(): f for k, f in group.items()}
+    for key, f in lowered.items():
         m = re.fullmatch(r"r(_\w+)?", key)
         if not m or id(f) in used:
             continue
         suffix = m.group(1) or ""
-        t = group.get("t" + suffix)
+        t = lowered.get("t" + suffix)
         if t is None or id(t) in used:
             continue
         rotation = values_in(f.value, f.line)
@@ -253,9 +291,31 @@ def _suffix_pairs(group: dict, used: set) -> list[PoseText]:
     return out
 
 
+def _rotations_alone(group: dict, used: set, among_others: bool) -> list[PoseText]:
+    """A rectifying rotation (R0_rect, rectification_matrix, R_rect_00) among other transforms, or a
+    rotation written with its shape: a transform without a translation, named by its key."""
+    out = []
+    for key, f in group.items():
+        if id(f) in used or not (_ROTATION_ONLY.fullmatch(key.lower()) or (f.shape == (3, 3) and key in _ROTATION)):
+            continue
+        if not (among_others or f.shape):
+            continue
+        values = values_in(f.value, f.line)
+        if len(values) != 9:
+            continue
+        used.add(id(f))
+        out.append(PoseText(tuple(values), "rotation", f.line, {"kind": "matrix"}, None, None, f.key,
+                            [f"read '{f.key}' as a 3x3 rotation (no translation is written with it)"], AS_WRITTEN))
+    vectors = [f for k, f in group.items() if id(f) not in used and f.shape in ((3, 1), (1, 3)) and k in _ROTATION]
+    for f in vectors:
+        rotation, fixed, prefer, notes = _rotation_from_key(f)
+        used.add(id(f))
+        out.append(PoseText(tuple(rotation), "rotation", f.line, fixed, None, None, f.key, notes, prefer))
+    return out
+
+
 def _flag_pose(flags: list[Field]) -> list[PoseText] | None:
-    """--x --y --z with --qx --qy --qz --qw or --roll --pitch --yaw (or --yaw --pitch --roll), and the
-    frame flags for the name."""
+    """--x --y --z with --qx --qy --qz --qw or --roll --pitch --yaw, and the frame flags for the name."""
     by = {f.name: f for f in flags}
     if not all(k in by for k in _COMPONENTS_T):
         return None

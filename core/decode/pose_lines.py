@@ -17,14 +17,17 @@ _URDF_NOTE = ("a description file's origin: rpy in radians as roll, pitch, yaw a
 _NAME = r"[A-Za-z_/][\w/.\-]{0,80}"
 _NUM = r"(?:[-+]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?|\$\{[^{}\s]{1,80}\}|[-+]?(?:M_PI|PI|pi)(?:/\d+)?)"
 _ARGS = re.compile(rf"(?<![\w.])(?P<numbers>(?:{_NUM}[ ]+){{5,6}}{_NUM})[ ]+(?P<parent>{_NAME})[ ]+(?P<child>{_NAME})"
-                   rf"(?:[ ]+(?P<period>\d+(?:\.\d*)?))?(?=[ \"']*(?:$|/>|>|\n))")
+                   rf"(?:[ ]+(?P<period>\d+(?:\.\d*)?))?(?=[ \"')]*(?:$|/>|>|\n|\)))")
 _SUM_TERM = re.compile(r"(?P<sign>[-+]?)[ ]*(?P<value>(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?)[ ]*\*?[ ]*(?P<unit>[ijk])?(?![\w.])")
 _SUM = re.compile(r"(?:^|[^\w.])[-+]?[ ]*(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?[ ]*(?:[-+][ ]*(?:\d+(?:\.\d*)?|\.\d+)"
                   r"(?:[eE][-+]?\d+)?[ ]*\*?[ ]*[ijk](?![\w])[ ]*){3}")
 _TIME_COLUMN = re.compile(r"#?(?:timestamp|time|t|stamp|sec|secs|nsec|ns|field\.header\.stamp)")
 _Q_COLUMN = re.compile(r"(?:q|quat|quaternion|orientation|rot|rotation)[\w.]*?[_.]?([wxyz])|q([wxyz])")
-_T_COLUMN = re.compile(r"(?:t|p|pos|position|trans|translation)?[\w.]*?[_.]?([xyz])|(?:t|p)([xyz])")
+_T_COLUMN = re.compile(r"(?:t|p|pos|position|trans|translation)[\w.]*?[_.]?([xyz])|([xyz])")
+_UNIT_SUFFIX = re.compile(r"_(mm|m|cm)$")
 _COLUMN_UNIT = re.compile(r"[ ]*(?:\[(?P<unit>[^\[\]()]{0,12})\]|\((?P<unit2>[^\[\]()]{0,12})\))$")
+_INLINE_HEADER = re.compile(r"^[^\d\n\[(]{0,80}[\[(](?P<names>[A-Za-z_][^\[\]()\n]{0,200})[\])][ ]*[:=][ ]*(?P<data>[^\n]+)$",
+                            re.MULTILINE)
 _MAX_LINE = 400             # a pose line or a header is short; longer lines are not one (and stay cheap)
 
 
@@ -65,7 +68,7 @@ def origin_poses(text: str) -> list[PoseText] | None:
         return None
     for pose, joint_links in zip(poses, owners):     # parent and child may follow the origin
         if pose.name is not None and len(joint_links) == 2:
-            pose.name = f"{joint_links['parent']} -> {joint_links['child']}"
+            pose.notes.append(f"joint '{pose.name}': {joint_links['parent']} -> {joint_links['child']}")
         if set_aside:
             pose.notes.append(f"{set_aside} origin(s) outside a joint (visual, collision or inertial offsets) not read")
     return poses
@@ -73,7 +76,7 @@ def origin_poses(text: str) -> list[PoseText] | None:
 
 def argument_poses(text: str) -> list[PoseText] | None:
     """`x y z yaw pitch roll parent child` or `x y z qx qy qz qw parent child` (and an optional period)."""
-    clean = _normalise_characters(text)
+    clean = re.sub(r"['\",\[\]]", " ", _normalise_characters(text))   # arguments=['0', '0', …, 'base', 'imu']
     found = list(_ARGS.finditer(clean))
     if not found:
         return None
@@ -96,6 +99,34 @@ def argument_poses(text: str) -> list[PoseText] | None:
         poses.append(PoseText(tuple(rotation), "transform arguments", line, fixed, translation, None,
                               f"{m.group('parent')} -> {m.group('child')}", notes))
     return poses
+
+
+_SDF_POSE = re.compile(r"<pose(?P<attrs>[^<>]{0,200})>(?P<body>[^<>]{0,400})</pose>")
+
+
+def sdf_poses(text: str) -> list[PoseText] | None:
+    """`<pose>x y z roll pitch yaw</pose>` of the SDFormat description files (radians unless the element
+    says degrees="true"; roll, pitch, yaw about fixed X, Y, Z, as in description-file origins)."""
+    if "<pose" not in text:
+        return None
+    clean = _normalise_characters(text)
+    poses = []
+    for m in _SDF_POSE.finditer(clean):
+        line = clean.count("\n", 0, m.start()) + 1
+        values = values_in(m.group("body"), line)
+        if len(values) != 6:
+            raise DecodeError(f"line {line}: a <pose> holds {len(values)} numbers; it needs x y z roll pitch yaw")
+        degrees = re.search(r"degrees[ ]*=[ ]*[\"']true", m.group("attrs")) is not None
+        relative = re.search(r"relative_to[ ]*=[ ]*[\"']([^\"']{1,80})", m.group("attrs"))
+        unit_words = "degrees (the element says degrees)" if degrees else "radians"
+        notes = [f"a <pose> element: x y z, then roll, pitch, yaw about fixed X, Y, Z in {unit_words}"]
+        if relative:
+            notes.append(f"relative to '{relative.group(1)}'")
+        poses.append(PoseText(tuple(values[3:]), "description-file pose", line,
+                              {"kind": "angles", "sequence": "XYZ", "intrinsic": False,
+                               "units": "deg" if degrees else "rad"},
+                              checked_translation(values[:3], line), None, None, notes))
+    return poses or None
 
 
 def quaternion_sum(text: str) -> list[PoseText] | None:
@@ -125,6 +156,13 @@ def column_poses(text: str) -> list[PoseText] | None:
     """Lines of numbers under a header that names their columns (in a comment or a CSV header row):
     time, position x y z, quaternion x y z w in any order, or roll pitch yaw. The last line is read."""
     clean = _normalise_characters(text)
+    inline = _INLINE_HEADER.search(clean)
+    if inline and len(inline.group()) <= _MAX_LINE:   # 'pose [x, y, z, qx, qy, qz, qw] = [2.0, …]'
+        names = [n.strip() for n in inline.group("names").split(",") if n.strip()]
+        roles = [_role(n) for n in names]
+        if sum(1 for r in roles if r and r[0] in "tq") >= 6:
+            line = clean.count("\n", 0, inline.start()) + 1
+            return _pose_from_columns(names, [(line, values_in(inline.group("data"), line))], line)
     lines = clean.split("\n")
     header, header_line, start = None, 0, 0
     for i, raw in enumerate(lines):
@@ -141,11 +179,6 @@ def column_poses(text: str) -> list[PoseText] | None:
             header, header_line, start = names, i + 1, i + 1
     if header is None:
         return None
-    roles = [_role(n) for n in header]
-    if None in roles:
-        unknown = header[roles.index(None)]
-        raise DecodeError(f"line {header_line}: the column '{unknown[:24]}' is not a time, position, quaternion or"
-                          " angle column Framewright knows")
     body = "\n".join(lines[start:])
     data, _ = _strip_comments(body)
     rows = []
@@ -157,13 +190,23 @@ def column_poses(text: str) -> list[PoseText] | None:
             rows.append((k, values))
     if not rows:
         return None
+    return _pose_from_columns(header, rows, header_line)
+
+
+def _pose_from_columns(header: list[str], rows: list, header_line: int) -> list[PoseText] | None:
+    roles = [_role(n) or f"other {k}" for k, n in enumerate(header)]
+    others = [n for n, r in zip(header, roles) if r.startswith("other")]
     line, values = rows[-1]
+    if len(values) != len(header):
+        raise DecodeError(f"line {line}: {len(values)} numbers under a header of {len(header)} columns")
     by = {role: v for role, v in zip(roles, values)}
     units = {u for n in header if (u := _column_unit(n))}
     unit = "m" if "m" in units else "mm" if "mm" in units else None
     translation = checked_translation([by.get("tx"), by.get("ty"), by.get("tz")], line) if \
         all(k in by for k in ("tx", "ty", "tz")) else None
     notes = [f"columns named by the header on line {header_line}: {' '.join(header)[:120]}"]
+    if others:
+        notes.append(f"columns not read (no part of a pose): {', '.join(others)[:160]}")
     if "time" in by:
         notes.append(f"the time column ({values[roles.index('time')]:.15g}) was set aside")
     if len(rows) > 1:
@@ -182,6 +225,9 @@ def column_poses(text: str) -> list[PoseText] | None:
 
 
 def _column_unit(name: str) -> str | None:
+    suffix = _UNIT_SUFFIX.search(name.lower())
+    if suffix:
+        return suffix.group(1)
     m = _COLUMN_UNIT.search(name)
     return (m.group("unit") or m.group("unit2") or "").strip().lower() or None if m else None
 
@@ -189,7 +235,7 @@ def _column_unit(name: str) -> str | None:
 def _role(name: str) -> str | None:
     if len(name) > 60:
         return None
-    bare = _COLUMN_UNIT.sub("", name).strip().lower()
+    bare = _UNIT_SUFFIX.sub("", _COLUMN_UNIT.sub("", name).strip().lower())
     if _TIME_COLUMN.fullmatch(bare):
         return "time"
     if bare in ("roll", "pitch", "yaw"):

@@ -6,7 +6,8 @@ from __future__ import annotations
 import re
 
 from core.decode.numbers import ParsedNumbers
-from core.decode.poses import AS_WRITTEN, PoseText, homogeneous
+from core.errors import DecodeError
+from core.decode.poses import AS_WRITTEN, PoseText, homogeneous, unit_said
 
 _COLUMN_MAJOR = re.compile(r"column[ _-]?major|col[ _-]?major|fortran order|order=['\"]?f")
 
@@ -19,6 +20,10 @@ def matrix_poses(parsed: ParsedNumbers) -> list[PoseText] | None:
     shapes = [len(r) for r in rows]
     if shapes not in ([4] * (count // 4), [count]):
         return None                          # 16 numbers in another layout: not a transform we recognise
+    if parsed.strays:
+        line, word = parsed.strays[0]
+        raise DecodeError(f"line {line}: '{word[:24]}' between numbers is not a number, key, unit or component"
+                          " name; Framewright will not guess what it stands for (remove it)")
     values = [n.value for n in parsed.numbers]
     layout = "4x4 transform" if count == 16 else "3x4 transform [R | t]"
     notes = []
@@ -32,8 +37,8 @@ def matrix_poses(parsed: ParsedNumbers) -> list[PoseText] | None:
             grid = [list(col) for col in zip(*grid)]
             notes.append("the text says column-major: read column after column")
     if grid is None:
-        from core.errors import DecodeError
         raise DecodeError("a column-major 3x4 matrix is ambiguous (3 columns of 4 or 4 of 3?): write it row-major")
-    rotation, translation = homogeneous(grid, parsed.numbers[0].line, layout, parsed.numbers[12].line)
-    return [PoseText(tuple(rotation), layout, parsed.numbers[0].line, {"kind": "matrix"}, translation, None,
+    rotation, translation = homogeneous(grid, parsed.numbers[0].line, layout, parsed.numbers[-1].line)
+    return [PoseText(tuple(rotation), layout, parsed.numbers[0].line, {"kind": "matrix"}, translation,
+                     unit_said(parsed.words),
                      None, notes, AS_WRITTEN)]

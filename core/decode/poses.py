@@ -10,6 +10,7 @@ rotation maps child-frame vectors into the parent frame: v_parent = R v_child + 
 from __future__ import annotations
 
 import math
+import re
 from dataclasses import dataclass, field, replace
 
 import numpy as np
@@ -38,6 +39,20 @@ class PoseText:
     notes: list = field(default_factory=list)
     # ranking bonuses the format's context gives: ((conventions that must match, points, reason), ...)
     prefer: tuple = ()
+
+
+_UNIT_SAID = re.compile(r"(?<![a-z])(?:t|translation|position|offset)[ ]*(?:\(|\[|is[ ]+|in[ ]+)[ ]*"
+                        r"(mm|millimet(?:re|er)s?|m|met(?:re|er)s?|cm)(?![a-z])")
+_UNIT_WORDS = {"millimetre": "mm", "millimeter": "mm", "metre": "m", "meter": "m"}
+
+
+def unit_said(words: str) -> str | None:
+    """The translation's unit when the words name it: 't in mm', 'translation (m)', 'position [mm]'."""
+    found = set()
+    for m in _UNIT_SAID.finditer(words.lower()):
+        word = m.group(1)[:-1] if m.group(1).endswith("s") else m.group(1)
+        found.add(_UNIT_WORDS.get(word, word))
+    return found.pop() if len(found) == 1 else None
 
 
 def checked_translation(values, line: int) -> tuple[float, float, float]:
@@ -86,7 +101,9 @@ def pose_readings(poses: list[PoseText], hints: DecodeHints, notes: list[str]) -
             score, why = r.score, r.why
             for wanted, points, reason in pose.prefer:
                 if all(r.conventions.get(k) == v for k, v in wanted.items()):
-                    score, why = score + points, f"{why}; {reason}"
+                    score, why = score + points, f"{reason}; {why}"
+                why = why.replace("; as written and transposed are equally likely: the text does not say which", "")
+                why = why.replace("as written and transposed are equally likely: the text does not say which; ", "")
             scored.append(replace(
                 r, score=round(score, 6), why=why, label=f"{pose.layout}: {r.label}",
                 notes=tuple(dict.fromkeys(list(notes) + list(pose.notes) + list(r.notes))),

@@ -97,6 +97,7 @@ def _readings(parsed: ParsedNumbers, hints: DecodeHints) -> list[Reading]:
     if len(values) not in _COUNT_KINDS:
         picked = _labelled_quaternion_line(parsed)
         if picked is None:
+            _refuse_strays(parsed, {n.line for n in parsed.numbers})   # a stray word says more than a count
             raise DecodeError(_count_message(parsed, hints))
         values, line, caption_order = picked
         _refuse_strays(parsed, {line})
@@ -158,7 +159,8 @@ def _implausible_angle(c: _Candidate, values) -> str | None:
     units = c.conventions.get("units")
     if units is None:
         return None
-    angles = {"axis-angle": values[3:], "rotation-vector": [float(np.linalg.norm(values))]}.get(c.kind, values)
+    angle_part = values[:1] if c.conventions.get("order") == "angle, axis" else values[3:]
+    angles = {"axis-angle": angle_part, "rotation-vector": [float(np.linalg.norm(values))]}.get(c.kind, values)
     worst = max(abs(float(a)) for a in angles)
     worst_deg = worst if units == "deg" else math.degrees(worst)
     if worst_deg > _MAX_TURNS_DEG:

@@ -633,9 +633,10 @@ DESCRIPTION = [
              '<joint name="camera_optical_joint" type="fixed">\n  <origin xyz="0 0 0" rpy="-1.5708 0 -1.5708"/>\n'
              '  <parent link="camera_link"/>\n  <child link="camera_optical_frame"/>\n</joint>',
              euler("xyz", [-1.5708, 0, -1.5708]), (0.0, 0.0, 0.0), None, "angles"),
+    # The URDF XML specification gives xyz a default of the zero vector when it is not written (from memory).
     PoseCase("urdf-origin-rpy-only", "description-origin",
-             "invented values; origin without xyz (the text gives no translation)",
-             '<origin rpy="0 0.7854 0"/>', euler("xyz", [0, 0.7854, 0]), None, None, "angles"),
+             "invented values; origin without xyz (the format's default translation is zero)",
+             '<origin rpy="0 0.7854 0"/>', euler("xyz", [0, 0.7854, 0]), (0.0, 0.0, 0.0), None, "angles"),
     PoseCase("urdf-origin-scientific", "description-origin", "invented values; exponent notation in attributes",
              '<origin xyz="1.2e-3 -4.5e-2 0.0" rpy="0.0 -1.0e-1 2.5e-1"/>',
              euler("xyz", [0, -0.1, 0.25]), (1.2e-3, -4.5e-2, 0.0), None, "angles"),

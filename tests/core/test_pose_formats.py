@@ -41,8 +41,9 @@ def test_the_4x4_copy_is_the_homogeneous_matrix_numpy_builds_from_scipy():
 @pytest.mark.parametrize("scalar_last", [False, True])
 def test_the_pose_line_names_its_order_and_holds_position_then_quaternion(scalar_last):
     text = render_pose(ORIENTATION, POSITION.in_unit("m"), "pose-line", scalar_last)
-    header, line = text.splitlines()
+    header, columns, line = text.splitlines()
     assert "position x, y, z in m" in header
+    assert columns == "# x_m y_m z_m " + ("qx qy qz qw" if scalar_last else "qw qx qy qz")
     assert ("x, y, z, w" if scalar_last else "w, x, y, z") in header
     values = [float(v) for v in line.split(",")]
     np.testing.assert_allclose(values[:3], (0.25, -0.0125, 1.00175), atol=1e-15)
@@ -71,11 +72,11 @@ def test_a_copy_changed_by_one_digit_is_caught_by_the_round_trip():
 @pytest.mark.parametrize("change, words", [
     (lambda t: t.replace("0.0  0.0  0.0  1.0", "0.0  0.0  0.1  1.0"), "last row"),
     (lambda t: t.replace("t in mm", "t in cubits"), "names no length unit"),
-    (lambda t: t.replace("# Pose", "Pose"), "no header line"),
+    (lambda t: t.replace("# Pose", "Pose"), "20 numbers"),          # the header's [0, 0, 0, 1] becomes data
     (lambda t: t.replace("1001.75", "1001.75 nan"), "not a finite number"),
-    (lambda t: t.replace("1001.75", "1001.75 7"), "four rows of four"),
-    (lambda t: t.replace("1001.75", "NaN"), "not a number"),
-    (lambda t: "\n".join(t.splitlines()[:-1]), "four rows of four"),
+    (lambda t: t.replace("1001.75", "1001.75 7"), "17 numbers"),
+    (lambda t: t.replace("1001.75", "NaN"), "not a finite number"),
+    (lambda t: "\n".join(t.splitlines()[:-1]), "not as a 4x4 transform"),
 ])
 def test_a_damaged_4x4_copy_is_refused_not_read(change, words):
     with pytest.raises(FramewrightError, match=words):
