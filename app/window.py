@@ -10,11 +10,12 @@ from pathlib import Path
 
 from PySide6.QtCore import QEvent, QLocale, Qt, QTimer
 from PySide6.QtGui import QAction, QKeySequence
-from PySide6.QtWidgets import (QAbstractSpinBox, QApplication, QComboBox, QFileDialog, QFrame, QGridLayout,
-                               QHBoxLayout, QLabel, QLineEdit, QMainWindow, QMessageBox, QPlainTextEdit,
-                               QScrollArea, QSpinBox, QSplitter, QTabWidget, QTextEdit, QVBoxLayout, QWidget)
+from PySide6.QtWidgets import (QAbstractSpinBox, QApplication, QComboBox, QFileDialog, QFrame, QHBoxLayout,
+                               QLabel, QLineEdit, QMainWindow, QMessageBox, QPlainTextEdit, QScrollArea,
+                               QSpinBox, QSplitter, QTabWidget, QTextEdit, QWidget)
 
 from app import about, copy_as, plain_text, recent_files, recovery, settings
+from app.editor_rows import EditorRows
 from core import atomic_file
 from app.editors.angles_editor import AnglesEditor
 from app.editors.axis_angle_editor import AxisAngleEditor
@@ -100,34 +101,25 @@ class MainWindow(QMainWindow):
         self.current_editor: EditorBase = self.axis_angle
 
         editors = QWidget()
-        grid = QGridLayout(editors)
+        grid = EditorRows(editors)
         grid.setContentsMargins(0, 0, 0, 0)
         grid.setSpacing(4)
         for box in self.editors + [self.meter]:
-            # Tighter than the default frame, so all five fit under the Scene on an 800-pixel screen.
+            # Tighter than the default frame, so the row stays short and the Scene keeps its height.
             box.layout().setContentsMargins(6, 4, 6, 4)
             box.layout().setSpacing(4)
-        # Two rows of three narrow columns, so the editors fit a laptop's width: the matrix's three cells
-        # span under the two narrow editors, the meter sits under the Angles it speaks of.
-        grid.addWidget(self.axis_angle, 0, 0)
-        grid.addWidget(self.quaternion, 0, 1)
-        grid.addWidget(self.angles, 0, 2)
-        grid.addWidget(self.matrix, 1, 0, 1, 2)
-        grid.addWidget(self.meter, 1, 2)
-        centre = QSplitter(Qt.Orientation.Vertical)
-        centre.addWidget(self.scene)
-        centre.addWidget(_scrollable(editors, min_width=0, across=False))
-        centre.setStretchFactor(0, 1)
-        centre.setStretchFactor(1, 0)
-        centre.setChildrenCollapsible(False)
-        # The editors keep their full height (stretch 0); the Scene takes what is left.
-        centre.setSizes([1000, editors.sizeHint().height()])
-        self.centre = centre
+        # Side by side under the whole window, in as few rows as its width allows: one row from a laptop's
+        # 1280 px up; on a narrower window the matrix and the meter (beside the Angles it speaks of) wrap.
+        grid.addWidget(self.axis_angle)
+        grid.addWidget(self.quaternion)
+        grid.addWidget(self.angles)
+        grid.addWidget(self.matrix)
+        grid.addWidget(self.meter)
         self._editors_box = editors
         editors.installEventFilter(self)  # a note that wraps to one more line gets its room (_fit_editors)
 
         # Side area: one tab per panel, in the order of the job: decode, chain, check (and level), then
-        # measure and batch.
+        # measure and batch. Each scrolls up and down when it is taller than the room, never sideways.
         self.side_tabs = QTabWidget()
         self.side_tabs.addTab(self.decode_panel, "Decode")
         self.side_tabs.addTab(_scrollable(self.chain_panel), "Chain")
@@ -137,20 +129,34 @@ class MainWindow(QMainWindow):
         self.side_tabs.addTab(_scrollable(self.measure_panel), "Measure")
         self.side_tabs.addTab(_scrollable(self.batch_panel), "Batch")
 
+        # Top: Mounts, the Scene and the side panels side by side; below them, across the whole width,
+        # the editors. The Scene takes whatever height the editors leave.
         splitter = QSplitter(Qt.Orientation.Horizontal)
         splitter.addWidget(self.mounts)
-        splitter.addWidget(centre)
+        splitter.addWidget(self.scene)
         splitter.addWidget(self.side_tabs)
         splitter.setStretchFactor(0, 0)
         splitter.setStretchFactor(1, 1)
         splitter.setStretchFactor(2, 0)
-        splitter.setSizes([160, 900, 500])  # the centre keeps its minimum; the panels get the rest
+        splitter.setSizes([160, 900, 500])  # the Scene keeps its minimum; the panels get the rest
         # The Mounts list and the side panels fold away (drag their edge, or View ▸ Side panels) to give
-        # the Scene and the editors a small screen's whole width; the centre never folds.
+        # the Scene a small screen's whole width; the Scene never folds.
         splitter.setChildrenCollapsible(True)
         splitter.setCollapsible(1, False)
         self.splitter = splitter
-        self.setCentralWidget(splitter)
+
+        centre = QSplitter(Qt.Orientation.Vertical)
+        centre.addWidget(splitter)
+        centre.addWidget(_scrollable(editors, min_width=0, across=False))
+        centre.setStretchFactor(0, 1)
+        centre.setStretchFactor(1, 0)
+        centre.setChildrenCollapsible(False)
+        # The editors keep their full height (stretch 0); the Scene and the panels take what is left.
+        centre.setSizes([1000, editors.sizeHint().height()])
+        self.centre = centre
+        self._editors_dragged = 0  # the editors' height the user dragged the handle to (0: not dragged)
+        centre.splitterMoved.connect(lambda *_: setattr(self, "_editors_dragged", centre.sizes()[1]))
+        self.setCentralWidget(centre)
 
         self._build_toolbar()
         self._build_menus()
@@ -173,9 +179,12 @@ class MainWindow(QMainWindow):
 
     # ---- building ------------------------------------------------------------------------------
     def _build_toolbar(self) -> None:
-        bar = self.addToolBar("Display")
-        bar.setObjectName("DisplayToolbar")
-        bar.setMovable(False)
+        """The angle unit and the digits, in the menu bar's free corner rather than a toolbar row of
+        their own: the row's height goes to the Scene."""
+        corner = self._display_corner = QWidget(self.menuBar())  # kept: the menu bar does not own it
+        row = QHBoxLayout(corner)
+        row.setContentsMargins(0, 0, 6, 0)
+        row.setSpacing(4)
         self.units_box = QComboBox()
         self.units_box.addItem("degrees", "deg")
         self.units_box.addItem("radians", "rad")
@@ -183,10 +192,13 @@ class MainWindow(QMainWindow):
         self.digits_box = QSpinBox()
         self.digits_box.setRange(3, 17)
         self.digits_box.setToolTip("Significant digits shown in the editors.")
-        bar.addWidget(QLabel(" Angles in "))
-        bar.addWidget(self.units_box)
-        bar.addWidget(QLabel("   Digits "))
-        bar.addWidget(self.digits_box)
+        row.addWidget(QLabel("Angles in"))
+        row.addWidget(self.units_box)
+        row.addSpacing(8)
+        row.addWidget(QLabel("Digits"))
+        row.addWidget(self.digits_box)
+        self.menuBar().setCornerWidget(corner, Qt.Corner.TopRightCorner)
+        corner.show()
         self.units_box.activated.connect(
             lambda i: self.model.set_preferences(origin=self, angle_units=self.units_box.itemData(i)))
         self.digits_box.valueChanged.connect(
@@ -282,21 +294,21 @@ class MainWindow(QMainWindow):
         help_menu.addAction(self.about_action)
 
     def eventFilter(self, watched, event) -> bool:
-        if watched is self._editors_box and event.type() == QEvent.Type.LayoutRequest:
+        if watched is self._editors_box and event.type() in (QEvent.Type.LayoutRequest, QEvent.Type.Resize):
             QTimer.singleShot(0, self._fit_editors)
         return super().eventFilter(watched, event)
 
     def _fit_editors(self) -> None:
-        """Give the editors the height their text now needs, taken from the Scene down to its minimum, so
-        no field or button of theirs is hidden below a scroll; never shrinks what the user gave them."""
+        """Give the editors the height their text needs at the width they have now (more when a note wraps
+        or the row wraps, less when the window widens), so no field or button of theirs is hidden below a
+        scroll; never less than the user dragged them to, never the Scene below its minimum."""
         box = self._editors_box
-        need = box.heightForWidth(box.width()) if box.hasHeightForWidth() else -1
-        need = max(need, box.sizeHint().height())
-        scene_h, editors_h = self.centre.sizes()
-        room = scene_h + editors_h - self.scene.minimumSizeHint().height()
-        wanted = min(need, room)
-        if wanted > editors_h:
-            self.centre.setSizes([scene_h + editors_h - wanted, wanted])
+        need = max(box.heightForWidth(box.width()), box.layout().minimumSize().height())
+        top_h, editors_h = self.centre.sizes()
+        room = top_h + editors_h - self.splitter.minimumSizeHint().height()
+        wanted = min(max(need, self._editors_dragged), room)
+        if wanted != editors_h and top_h + editors_h > 0:
+            self.centre.setSizes([top_h + editors_h - wanted, wanted])
 
     def show_side_panels(self, shown: bool) -> None:
         sizes = self.splitter.sizes()
