@@ -122,7 +122,11 @@ class MainWindow(QMainWindow):
         # measure and batch. Each scrolls up and down when it is taller than the room, never sideways.
         self.side_tabs = QTabWidget()
         self.side_tabs.addTab(self.decode_panel, "Decode")
-        self.side_tabs.addTab(_scrollable(self.chain_panel), "Chain")
+        chain_area = _scrollable(self.chain_panel)
+        # Its scroll bar is always there: the result grows with each step, and a bar that appeared then
+        # would narrow the panel and shift the step form under the user's next click.
+        chain_area.setVerticalScrollBarPolicy(Qt.ScrollBarPolicy.ScrollBarAlwaysOn)
+        self.side_tabs.addTab(chain_area, "Chain")
         self.side_tabs.addTab(_scrollable(self.check_panel), "Check")
         self.side_tabs.addTab(_scrollable(self.adjust_panel), "Adjust")
         self.side_tabs.addTab(_scrollable(self.level_panel), "Level")
