@@ -10,11 +10,11 @@ from pathlib import Path
 
 from PySide6.QtCore import QEvent, QLocale, Qt, QTimer
 from PySide6.QtGui import QAction, QKeySequence
-from PySide6.QtWidgets import (QAbstractSpinBox, QApplication, QComboBox, QFileDialog, QFrame, QHBoxLayout,
+from PySide6.QtWidgets import (QAbstractSpinBox, QApplication, QComboBox, QFrame, QHBoxLayout,
                                QLabel, QLineEdit, QMainWindow, QMessageBox, QPlainTextEdit, QScrollArea,
                                QSpinBox, QSplitter, QTabWidget, QTextEdit, QWidget)
 
-from app import about, copy_as, plain_text, recent_files, recovery, settings
+from app import about, copy_as, dialog_folder, plain_text, recent_files, recovery, settings
 from app.editor_rows import EditorRows
 from core import atomic_file
 from app.editors.angles_editor import AnglesEditor
@@ -41,6 +41,9 @@ from core.session import FILE_SUFFIX, Session, load_session, save_session
 
 RESOURCES = Path(__file__).resolve().parents[1] / "resources"
 DEMO_SESSION = RESOURCES / "demo.fwsession.json"
+# What was open when the window last closed, for the next launch: a session file's path, "demo", or "new"
+# (an empty session never saved). Not there at all: the first launch, which opens the demo.
+LAST_SESSION_KEY = "session/last"
 FILE_FILTER = f"Framewright sessions (*{FILE_SUFFIX});;All files (*)"
 
 
@@ -72,6 +75,7 @@ class MainWindow(QMainWindow):
         if model.parent() is None:
             model.setParent(self)  # lives and dies with the window
         self.setWindowTitle("Framewright")
+        self.showing_demo = True  # the invented demo session, not a file of the user's (make_window says)
         self._settings = settings.open_settings()
         self.last_copy_format = settings.load_text("copy/last_format", "json", self._settings)
         self.default_copy_format = settings.load_text("copy/default_format", "text", self._settings)
@@ -294,6 +298,9 @@ class MainWindow(QMainWindow):
         view_menu.addAction(self.side_action)
 
         help_menu = self.menuBar().addMenu("&Help")
+        self.demo_action = self._action("Open the &demo", self.open_demo, None,
+                                        "Open the demo session (an invented scenario; asks about unsaved changes)")
+        help_menu.addAction(self.demo_action)
         self.about_action = self._action("&About Framewright", lambda: about.show_about(self))
         help_menu.addAction(self.about_action)
 
@@ -347,7 +354,10 @@ class MainWindow(QMainWindow):
         self.digits_box.blockSignals(False)
 
     def _update_title(self, *_) -> None:
-        name = Path(self.model.file_path).name if self.model.file_path else "demo session"
+        if self.model.file_path:
+            name = Path(self.model.file_path).name
+        else:
+            name = "demo session" if self.showing_demo else "new session"
         dirty = "" if self.model.undo_stack.isClean() else " (changed)"
         self.setWindowTitle(f"Framewright — {name}{dirty}")
 
@@ -422,14 +432,50 @@ class MainWindow(QMainWindow):
         if not self._confirm_discard():
             return False
         self.model.load_session(dataclasses.replace(Session.single(), reference_frame=self.model.words_preset))
+        self.showing_demo = False
+        self._update_title()
+        self._remember_session()
         self.statusBar().showMessage("New session: one mount, not saved yet.")
         return True
+
+    def open_demo(self) -> bool:
+        """The demo session again (Help ▸ Open the demo), after asking about unsaved changes."""
+        if not self._confirm_discard():
+            return False
+        self.model.load_session(demo_session())
+        self.showing_demo = True
+        self._update_title()
+        self._remember_session()
+        self.statusBar().showMessage("Demo session (an invented scenario): verify every value against the "
+                                     "governing drawing and procedure.")
+        return True
+
+    def _remember_session(self) -> None:
+        where = self.model.file_path or ("demo" if self.showing_demo else "new")
+        settings.save_text(LAST_SESSION_KEY, str(where), self._settings)
+
+    def reopen_last_session(self) -> str:
+        """At launch: the session that was open when the window last closed (its file, an empty session,
+        or the demo); the demo on the first launch. Returns what was opened, in words."""
+        last = settings.load_text(LAST_SESSION_KEY, "demo", self._settings)
+        if last == "new":
+            self.model.load_session(dataclasses.replace(Session.single(), reference_frame=self.model.words_preset))
+            self.showing_demo = False
+            self._update_title()
+            return "A new session (the last one was never saved)"
+        if last != "demo":
+            if not Path(last).is_file():
+                return f"The last session {last} is no longer there: demo session (an invented scenario)"
+            if self.open_file(last):
+                return f"Reopened {last}"
+            return "The last session could not be opened: demo session (an invented scenario)"
+        return "Demo session (an invented scenario)"
 
     def open_file(self, path: str | None = None) -> bool:
         if not self._confirm_discard():
             return False
         if not path:
-            path, _ = QFileDialog.getOpenFileName(self, "Open session", "", FILE_FILTER)
+            path = dialog_folder.open_file_name(self, "Open session", FILE_FILTER)
             if not path:
                 return False
         try:
@@ -439,7 +485,9 @@ class MainWindow(QMainWindow):
             self._tell("Cannot open session", f"{exc}\n\nThe session you had open is unchanged.")
             return False
         self.model.load_session(session, file_path=str(path))
+        self.showing_demo = False
         recent_files.add_recent(str(path), self._settings)
+        self._remember_session()
         self.statusBar().showMessage(f"Opened {path}: {len(session.mounts)} mounts.")
         return True
 
@@ -465,7 +513,7 @@ class MainWindow(QMainWindow):
 
     def save_file_as(self, path: str | None = None) -> bool:
         if not path:
-            path, _ = QFileDialog.getSaveFileName(self, "Save session", f"session{FILE_SUFFIX}", FILE_FILTER)
+            path = dialog_folder.save_file_name(self, "Save session", f"session{FILE_SUFFIX}", FILE_FILTER)
             if not path:
                 return False
         if not str(path).endswith(FILE_SUFFIX):
@@ -487,8 +535,10 @@ class MainWindow(QMainWindow):
                        "Choose File ▸ Save as… to save them somewhere else.")
             return False
         self.model.file_path = str(path)
+        self.showing_demo = False
         self.model.undo_stack.setClean()  # also removes the recovery file
         recent_files.add_recent(str(path), self._settings)
+        self._remember_session()
         self._update_title()
         self.statusBar().showMessage(f"Saved {path}.")
         return True
@@ -517,6 +567,7 @@ class MainWindow(QMainWindow):
             event.ignore()
             return
         settings.save_window_state(self.saveGeometry(), self.saveState(), self._settings)
+        self._remember_session()
         settings.save_preferences(self.model.preferences, self._settings)
         self.recovery.discard()  # a clean close: nothing to recover next time
         event.accept()
@@ -531,22 +582,29 @@ def make_window(session: Session | None = None) -> MainWindow:
     QLocale.setDefault(QLocale.c())  # '.' as the decimal point in every Qt number widget
     model = SessionModel(session or demo_session())
     model.set_preferences(**settings.load_preferences().to_dict())
-    return MainWindow(model)
+    window = MainWindow(model)
+    window.showing_demo = session is None
+    window._update_title()
+    return window
 
 
 def run_window(path: str | None = None) -> int:
-    """Show the window on the session file `path` (or the demo session) and run until it closes. A
-    recovery file left by a run that crashed is offered first."""
+    """Show the window on the session file `path` (or else the session open when it last closed; the demo
+    on the first launch) and run until it closes. A recovery file left by a run that crashed is offered
+    first."""
     started = time.perf_counter()
     app = QApplication.instance() or QApplication(sys.argv)
     app.setOrganizationName(settings.ORGANISATION)
     app.setApplicationName(settings.APPLICATION)
     window = make_window()
     window.show()
-    if path is not None and window.open_file(path):
-        message = f"Opened {path} in {time.perf_counter() - started:.2f} s."
+    if path is None:
+        opened = window.reopen_last_session()
+    elif window.open_file(path):
+        opened = f"Opened {path}"
     else:
-        message = f"Demo session (an invented scenario) opened in {time.perf_counter() - started:.2f} s."
+        opened = "Demo session (an invented scenario)"
+    message = f"{opened} in {time.perf_counter() - started:.2f} s."
     QTimer.singleShot(0, lambda: window.statusBar().showMessage(
         f"{message} Verify every value against the governing drawing and procedure."))
     QTimer.singleShot(0, lambda: recovery.offer_recovery(window))

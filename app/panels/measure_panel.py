@@ -12,10 +12,10 @@ from pathlib import Path
 import numpy as np
 from PySide6.QtCore import Signal
 from PySide6.QtGui import QFontDatabase, QGuiApplication
-from PySide6.QtWidgets import (QComboBox, QFileDialog, QHBoxLayout, QLabel, QLineEdit, QPlainTextEdit,
+from PySide6.QtWidgets import (QComboBox, QHBoxLayout, QLabel, QLineEdit, QPlainTextEdit,
                                QPushButton, QStackedWidget, QVBoxLayout, QWidget)
 
-from app import plain_text
+from app import dialog_folder, plain_text
 from app.model import MOUNTS, PREFERENCES, Change, SessionModel
 from app.panels.measure_fit import (DIRECTIONS, POINTS, THREE_POINTS, MeasuredFit, fit_direction_rows,
                                     fit_point_rows, fit_three_points, result_lines, row_outputs)
@@ -159,7 +159,7 @@ class MeasurePanel(QWidget):
 
     def import_csv(self, path: str | None = None) -> None:
         if path is None:
-            path, _ = QFileDialog.getOpenFileName(self, "Import rows", "", "CSV files (*.csv *.txt);;All files (*)")
+            path = dialog_folder.open_file_name(self, "Import rows", "CSV files (*.csv *.txt);;All files (*)")
             if not path:
                 return
         table = self.current_table()
