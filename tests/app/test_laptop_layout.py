@@ -6,7 +6,7 @@ scrolling; the window can shrink to 1200×720; the side panels fold away."""
 from pathlib import Path
 
 import pytest
-from PySide6.QtCore import QPoint, QRect
+from PySide6.QtCore import QPoint, QRect, Qt
 from PySide6.QtWidgets import QScrollArea
 
 from app.editors.number_field import NumberField
@@ -133,3 +133,27 @@ def test_the_side_panels_fold_away_and_come_back_from_the_view_menu(qtbot, windo
     qtbot.wait(20)
     assert window.splitter.sizes()[2] >= window.side_tabs.minimumSizeHint().width()
     assert window.side_action.isChecked()
+
+
+@pytest.mark.parametrize("size", LAPTOPS)
+def test_the_measure_tables_show_every_title_and_number_whole_on_a_laptop(qtbot, window, size):
+    from app.panels.measure_table import MeasureTable
+
+    points = Path(__file__).resolve().parents[2] / "resources" / "demo_points.csv"   # invented demo points
+    settle(qtbot, window, size)
+    show_tab(window, window.measure_panel)
+    window.measure_panel.set_method("points")
+    window.measure_panel.import_csv(str(points))
+    window.measure_panel.fit()
+    qtbot.wait(50)
+    tables = [t for t in window.measure_panel.findChildren(MeasureTable) if t.isVisible()]
+    assert tables
+    for table in tables:
+        header = table.horizontalHeader()
+        for column in range(header.count()):
+            title = table.horizontalHeaderItem(column).text()
+            assert header.sectionSize(column) >= header.sectionSizeHint(column), f"title {title!r} is cut"
+            assert header.sectionSize(column) >= table.sizeHintForColumn(column), f"a number under {title!r} is cut"
+        assert table.textElideMode() == Qt.TextElideMode.ElideNone   # a cut number is never shown shortened
+    area = scroll_area_of(window.measure_panel)
+    assert area.horizontalScrollBar().maximum() == 0
