@@ -17,7 +17,7 @@ from core import describe
 FORMATS = {
     "text": "Plain text (editor in use)",
     "json": "JSON",
-    "csv": "CSV row",
+    "csv": "CSV (header and row)",
     "python": "Python / numpy",
     "c": "C / C++ initializer",
     "matlab": "MATLAB / Octave",
@@ -104,6 +104,10 @@ def render_copy(model, fmt: str, editor=None) -> tuple[str, str | None, float]:
     orientation = model.current_orientation()
     options = _options(model, editor)
     text = formats.render(orientation, fmt, options)
+    if fmt == "csv":
+        # the header names each column with its unit and convention (qw…/qx… order, r11… body -> reference
+        # or dcm11… reference -> body, the sequence and intrinsic/extrinsic), and is decoded back with the row
+        text = formats.csv_header(options) + text
     error = float(formats.round_trip_error(orientation, text, fmt, options))
     json_text = formats.render(orientation, "json", options) if fmt in ("json", "report") else None
     return text, json_text, error

@@ -17,7 +17,8 @@ def main(argv=None) -> int:
 
 
 def open_window(path: str | None = None) -> int:
-    """Run the window (on the session file `path`, or the demo session) until it closes."""
+    """Run the window (on the session file `path`, or the last session; the demo the first time) until
+    it closes."""
     from app import window   # imported only here: the command line never loads Qt
     status = window.run_window() if path is None else window.run_window(path)
     return status if isinstance(status, int) else 0

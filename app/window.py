@@ -10,11 +10,12 @@ from pathlib import Path
 
 from PySide6.QtCore import QEvent, QLocale, Qt, QTimer
 from PySide6.QtGui import QAction, QKeySequence
-from PySide6.QtWidgets import (QAbstractSpinBox, QApplication, QComboBox, QFileDialog, QFrame, QGridLayout,
-                               QHBoxLayout, QLabel, QLineEdit, QMainWindow, QMessageBox, QPlainTextEdit,
-                               QScrollArea, QSpinBox, QSplitter, QTabWidget, QTextEdit, QVBoxLayout, QWidget)
+from PySide6.QtWidgets import (QAbstractSpinBox, QApplication, QComboBox, QFrame, QHBoxLayout,
+                               QLabel, QLineEdit, QMainWindow, QMessageBox, QPlainTextEdit, QScrollArea,
+                               QSpinBox, QSplitter, QTabWidget, QTextEdit, QVBoxLayout, QWidget)
 
-from app import about, copy_as, plain_text, recent_files, recovery, settings
+from app import about, copy_as, dialog_folder, plain_text, recent_files, recovery, settings
+from app.editor_rows import EditorRows
 from core import atomic_file
 from app.editors.angles_editor import AnglesEditor
 from app.editors.axis_angle_editor import AxisAngleEditor
@@ -41,6 +42,9 @@ from core.session import FILE_SUFFIX, Session, load_session, save_session
 
 RESOURCES = Path(__file__).resolve().parents[1] / "resources"
 DEMO_SESSION = RESOURCES / "demo.fwsession.json"
+# What was open when the window last closed, for the next launch: a session file's path, "demo", or "new"
+# (an empty session never saved). Not there at all: the first launch, which opens the demo.
+LAST_SESSION_KEY = "session/last"
 FILE_FILTER = f"Framewright sessions (*{FILE_SUFFIX});;All files (*)"
 
 
@@ -72,6 +76,7 @@ class MainWindow(QMainWindow):
         if model.parent() is None:
             model.setParent(self)  # lives and dies with the window
         self.setWindowTitle("Framewright")
+        self.showing_demo = True  # the invented demo session, not a file of the user's (make_window says)
         self._settings = settings.open_settings()
         self.last_copy_format = settings.load_text("copy/last_format", "json", self._settings)
         self.default_copy_format = settings.load_text("copy/default_format", "text", self._settings)
@@ -102,58 +107,74 @@ class MainWindow(QMainWindow):
         self.current_editor: EditorBase = self.axis_angle
 
         editors = QWidget()
-        grid = QGridLayout(editors)
+        grid = EditorRows(editors)
         grid.setContentsMargins(0, 0, 0, 0)
         grid.setSpacing(4)
         for box in self.editors + [self.meter, self.position]:
-            # Tighter than the default frame, so all five fit under the Scene on an 800-pixel screen.
+            # Tighter than the default frame, so the row stays short and the Scene keeps its height.
             box.layout().setContentsMargins(6, 4, 6, 4)
             box.layout().setSpacing(4)
-        # Two rows of three narrow columns, so the editors fit a laptop's width: the matrix's three cells
-        # span under the two narrow editors, the meter sits under the Angles it speaks of.
-        grid.addWidget(self.axis_angle, 0, 0)
-        grid.addWidget(self.quaternion, 0, 1)
-        grid.addWidget(self.angles, 0, 2)
-        grid.addWidget(self.matrix, 1, 0, 1, 2)
-        grid.addWidget(self.meter, 1, 2, 2, 1)
-        grid.addWidget(self.position, 2, 0, 1, 2)   # the pose's other half, under the Matrix, beside the meter
-        centre = QSplitter(Qt.Orientation.Vertical)
-        centre.addWidget(self.scene)
-        centre.addWidget(_scrollable(editors, min_width=0, across=False))
-        centre.setStretchFactor(0, 1)
-        centre.setStretchFactor(1, 0)
-        centre.setChildrenCollapsible(False)
-        # The editors keep their full height (stretch 0); the Scene takes what is left.
-        centre.setSizes([1000, editors.sizeHint().height()])
-        self.centre = centre
+        # Side by side under the whole window, in as few rows as its width allows: one row from a laptop's
+        # 1280 px up; on a narrower window the matrix and the meter (beside the Angles it speaks of) wrap.
+        grid.addWidget(self.axis_angle)
+        grid.addWidget(self.quaternion)
+        grid.addWidget(self.angles)
+        grid.addWidget(self.matrix)
+        grid.addWidget(self.meter)
         self._editors_box = editors
         editors.installEventFilter(self)  # a note that wraps to one more line gets its room (_fit_editors)
 
         # Side area: one tab per panel, in the order of the job: decode, chain, check (and level), then
-        # measure and batch.
+        # measure and batch. Each scrolls up and down when it is taller than the room, never sideways.
         self.side_tabs = QTabWidget()
         self.side_tabs.addTab(self.decode_panel, "Decode")
-        self.side_tabs.addTab(_scrollable(self.chain_panel), "Chain")
+        chain_area = _scrollable(self.chain_panel)
+        # Its scroll bar is always there: the result grows with each step, and a bar that appeared then
+        # would narrow the panel and shift the step form under the user's next click.
+        chain_area.setVerticalScrollBarPolicy(Qt.ScrollBarPolicy.ScrollBarAlwaysOn)
+        self.side_tabs.addTab(chain_area, "Chain")
         self.side_tabs.addTab(_scrollable(self.check_panel), "Check")
         self.side_tabs.addTab(_scrollable(self.adjust_panel), "Adjust")
         self.side_tabs.addTab(_scrollable(self.level_panel), "Level")
         self.side_tabs.addTab(_scrollable(self.measure_panel), "Measure")
         self.side_tabs.addTab(_scrollable(self.batch_panel), "Batch")
 
+        # Top: Mounts, the Scene and the side panels side by side; below them, across the whole width,
+        # the editors. The Scene takes whatever height the editors leave.
         splitter = QSplitter(Qt.Orientation.Horizontal)
-        splitter.addWidget(self.mounts)
-        splitter.addWidget(centre)
+        # The selected mount's position sits under the Mounts list: it belongs to the mount, and the
+        # editor row under the Scene keeps its five boxes (and the Scene its height).
+        mounts_column = QWidget()
+        column = QVBoxLayout(mounts_column)
+        column.setContentsMargins(0, 0, 0, 0)
+        column.setSpacing(4)
+        column.addWidget(self.mounts, 1)
+        column.addWidget(self.position, 0)
+        splitter.addWidget(mounts_column)
+        splitter.addWidget(self.scene)
         splitter.addWidget(self.side_tabs)
         splitter.setStretchFactor(0, 0)
         splitter.setStretchFactor(1, 1)
         splitter.setStretchFactor(2, 0)
-        splitter.setSizes([160, 900, 500])  # the centre keeps its minimum; the panels get the rest
+        splitter.setSizes([160, 900, 500])  # the Scene keeps its minimum; the panels get the rest
         # The Mounts list and the side panels fold away (drag their edge, or View ▸ Side panels) to give
-        # the Scene and the editors a small screen's whole width; the centre never folds.
+        # the Scene a small screen's whole width; the Scene never folds.
         splitter.setChildrenCollapsible(True)
         splitter.setCollapsible(1, False)
         self.splitter = splitter
-        self.setCentralWidget(splitter)
+
+        centre = QSplitter(Qt.Orientation.Vertical)
+        centre.addWidget(splitter)
+        centre.addWidget(_scrollable(editors, min_width=0, across=False))
+        centre.setStretchFactor(0, 1)
+        centre.setStretchFactor(1, 0)
+        centre.setChildrenCollapsible(False)
+        # The editors keep their full height (stretch 0); the Scene and the panels take what is left.
+        centre.setSizes([1000, editors.sizeHint().height()])
+        self.centre = centre
+        self._editors_dragged = 0  # the editors' height the user dragged the handle to (0: not dragged)
+        centre.splitterMoved.connect(lambda *_: setattr(self, "_editors_dragged", centre.sizes()[1]))
+        self.setCentralWidget(centre)
 
         self._build_toolbar()
         self._build_menus()
@@ -176,9 +197,12 @@ class MainWindow(QMainWindow):
 
     # ---- building ------------------------------------------------------------------------------
     def _build_toolbar(self) -> None:
-        bar = self.addToolBar("Display")
-        bar.setObjectName("DisplayToolbar")
-        bar.setMovable(False)
+        """The angle unit and the digits, in the menu bar's free corner rather than a toolbar row of
+        their own: the row's height goes to the Scene."""
+        corner = self._display_corner = QWidget(self.menuBar())  # kept: the menu bar does not own it
+        row = QHBoxLayout(corner)
+        row.setContentsMargins(0, 0, 6, 0)
+        row.setSpacing(4)
         self.units_box = QComboBox()
         self.units_box.addItem("degrees", "deg")
         self.units_box.addItem("radians", "rad")
@@ -186,10 +210,13 @@ class MainWindow(QMainWindow):
         self.digits_box = QSpinBox()
         self.digits_box.setRange(3, 17)
         self.digits_box.setToolTip("Significant digits shown in the editors.")
-        bar.addWidget(QLabel(" Angles in "))
-        bar.addWidget(self.units_box)
-        bar.addWidget(QLabel("   Digits "))
-        bar.addWidget(self.digits_box)
+        row.addWidget(QLabel("Angles in"))
+        row.addWidget(self.units_box)
+        row.addSpacing(8)
+        row.addWidget(QLabel("Digits"))
+        row.addWidget(self.digits_box)
+        self.menuBar().setCornerWidget(corner, Qt.Corner.TopRightCorner)
+        corner.show()
         self.units_box.activated.connect(
             lambda i: self.model.set_preferences(origin=self, angle_units=self.units_box.itemData(i)))
         self.digits_box.valueChanged.connect(
@@ -283,25 +310,28 @@ class MainWindow(QMainWindow):
         view_menu.addAction(self.side_action)
 
         help_menu = self.menuBar().addMenu("&Help")
+        self.demo_action = self._action("Open the &demo", self.open_demo, None,
+                                        "Open the demo session (an invented scenario; asks about unsaved changes)")
+        help_menu.addAction(self.demo_action)
         self.about_action = self._action("&About Framewright", lambda: about.show_about(self))
         help_menu.addAction(self.about_action)
 
     def eventFilter(self, watched, event) -> bool:
-        if watched is self._editors_box and event.type() == QEvent.Type.LayoutRequest:
+        if watched is self._editors_box and event.type() in (QEvent.Type.LayoutRequest, QEvent.Type.Resize):
             QTimer.singleShot(0, self._fit_editors)
         return super().eventFilter(watched, event)
 
     def _fit_editors(self) -> None:
-        """Give the editors the height their text now needs, taken from the Scene down to its minimum, so
-        no field or button of theirs is hidden below a scroll; never shrinks what the user gave them."""
+        """Give the editors the height their text needs at the width they have now (more when a note wraps
+        or the row wraps, less when the window widens), so no field or button of theirs is hidden below a
+        scroll; never less than the user dragged them to, never the Scene below its minimum."""
         box = self._editors_box
-        need = box.heightForWidth(box.width()) if box.hasHeightForWidth() else -1
-        need = max(need, box.sizeHint().height())
-        scene_h, editors_h = self.centre.sizes()
-        room = scene_h + editors_h - self.scene.minimumSizeHint().height()
-        wanted = min(need, room)
-        if wanted > editors_h:
-            self.centre.setSizes([scene_h + editors_h - wanted, wanted])
+        need = max(box.heightForWidth(box.width()), box.layout().minimumSize().height())
+        top_h, editors_h = self.centre.sizes()
+        room = top_h + editors_h - self.splitter.minimumSizeHint().height()
+        wanted = min(max(need, self._editors_dragged), room)
+        if wanted != editors_h and top_h + editors_h > 0:
+            self.centre.setSizes([top_h + editors_h - wanted, wanted])
 
     def show_side_panels(self, shown: bool) -> None:
         sizes = self.splitter.sizes()
@@ -341,7 +371,10 @@ class MainWindow(QMainWindow):
         self.digits_box.blockSignals(False)
 
     def _update_title(self, *_) -> None:
-        name = Path(self.model.file_path).name if self.model.file_path else "demo session"
+        if self.model.file_path:
+            name = Path(self.model.file_path).name
+        else:
+            name = "demo session" if self.showing_demo else "new session"
         dirty = "" if self.model.undo_stack.isClean() else " (changed)"
         self.setWindowTitle(f"Framewright — {name}{dirty}")
 
@@ -416,14 +449,50 @@ class MainWindow(QMainWindow):
         if not self._confirm_discard():
             return False
         self.model.load_session(dataclasses.replace(Session.single(), reference_frame=self.model.words_preset))
+        self.showing_demo = False
+        self._update_title()
+        self._remember_session()
         self.statusBar().showMessage("New session: one mount, not saved yet.")
         return True
+
+    def open_demo(self) -> bool:
+        """The demo session again (Help ▸ Open the demo), after asking about unsaved changes."""
+        if not self._confirm_discard():
+            return False
+        self.model.load_session(demo_session())
+        self.showing_demo = True
+        self._update_title()
+        self._remember_session()
+        self.statusBar().showMessage("Demo session (an invented scenario): verify every value against the "
+                                     "governing drawing and procedure.")
+        return True
+
+    def _remember_session(self) -> None:
+        where = self.model.file_path or ("demo" if self.showing_demo else "new")
+        settings.save_text(LAST_SESSION_KEY, str(where), self._settings)
+
+    def reopen_last_session(self) -> str:
+        """At launch: the session that was open when the window last closed (its file, an empty session,
+        or the demo); the demo on the first launch. Returns what was opened, in words."""
+        last = settings.load_text(LAST_SESSION_KEY, "demo", self._settings)
+        if last == "new":
+            self.model.load_session(dataclasses.replace(Session.single(), reference_frame=self.model.words_preset))
+            self.showing_demo = False
+            self._update_title()
+            return "A new session (the last one was never saved)"
+        if last != "demo":
+            if not Path(last).is_file():
+                return f"The last session {last} is no longer there: demo session (an invented scenario)"
+            if self.open_file(last):
+                return f"Reopened {last}"
+            return "The last session could not be opened: demo session (an invented scenario)"
+        return "Demo session (an invented scenario)"
 
     def open_file(self, path: str | None = None) -> bool:
         if not self._confirm_discard():
             return False
         if not path:
-            path, _ = QFileDialog.getOpenFileName(self, "Open session", "", FILE_FILTER)
+            path = dialog_folder.open_file_name(self, "Open session", FILE_FILTER)
             if not path:
                 return False
         try:
@@ -433,7 +502,9 @@ class MainWindow(QMainWindow):
             self._tell("Cannot open session", f"{exc}\n\nThe session you had open is unchanged.")
             return False
         self.model.load_session(session, file_path=str(path))
+        self.showing_demo = False
         recent_files.add_recent(str(path), self._settings)
+        self._remember_session()
         self.statusBar().showMessage(f"Opened {path}: {len(session.mounts)} mounts.")
         return True
 
@@ -459,7 +530,7 @@ class MainWindow(QMainWindow):
 
     def save_file_as(self, path: str | None = None) -> bool:
         if not path:
-            path, _ = QFileDialog.getSaveFileName(self, "Save session", f"session{FILE_SUFFIX}", FILE_FILTER)
+            path = dialog_folder.save_file_name(self, "Save session", f"session{FILE_SUFFIX}", FILE_FILTER)
             if not path:
                 return False
         if not str(path).endswith(FILE_SUFFIX):
@@ -481,8 +552,10 @@ class MainWindow(QMainWindow):
                        "Choose File ▸ Save as… to save them somewhere else.")
             return False
         self.model.file_path = str(path)
+        self.showing_demo = False
         self.model.undo_stack.setClean()  # also removes the recovery file
         recent_files.add_recent(str(path), self._settings)
+        self._remember_session()
         self._update_title()
         self.statusBar().showMessage(f"Saved {path}.")
         return True
@@ -512,6 +585,7 @@ class MainWindow(QMainWindow):
             event.ignore()
             return
         settings.save_window_state(self.saveGeometry(), self.saveState(), self._settings)
+        self._remember_session()
         settings.save_preferences(self.model.preferences, self._settings)
         self.recovery.discard()  # a clean close: nothing to recover next time
         event.accept()
@@ -526,22 +600,29 @@ def make_window(session: Session | None = None) -> MainWindow:
     QLocale.setDefault(QLocale.c())  # '.' as the decimal point in every Qt number widget
     model = SessionModel(session or demo_session())
     model.set_preferences(**settings.load_preferences().to_dict())
-    return MainWindow(model)
+    window = MainWindow(model)
+    window.showing_demo = session is None
+    window._update_title()
+    return window
 
 
 def run_window(path: str | None = None) -> int:
-    """Show the window on the session file `path` (or the demo session) and run until it closes. A
-    recovery file left by a run that crashed is offered first."""
+    """Show the window on the session file `path` (or else the session open when it last closed; the demo
+    on the first launch) and run until it closes. A recovery file left by a run that crashed is offered
+    first."""
     started = time.perf_counter()
     app = QApplication.instance() or QApplication(sys.argv)
     app.setOrganizationName(settings.ORGANISATION)
     app.setApplicationName(settings.APPLICATION)
     window = make_window()
     window.show()
-    if path is not None and window.open_file(path):
-        message = f"Opened {path} in {time.perf_counter() - started:.2f} s."
+    if path is None:
+        opened = window.reopen_last_session()
+    elif window.open_file(path):
+        opened = f"Opened {path}"
     else:
-        message = f"Demo session (an invented scenario) opened in {time.perf_counter() - started:.2f} s."
+        opened = "Demo session (an invented scenario)"
+    message = f"{opened} in {time.perf_counter() - started:.2f} s."
     QTimer.singleShot(0, lambda: window.statusBar().showMessage(
         f"{message} Verify every value against the governing drawing and procedure."))
     QTimer.singleShot(0, lambda: recovery.offer_recovery(window))

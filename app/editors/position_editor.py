@@ -8,7 +8,7 @@ per commit. The editor renders from the model and ignores the change it made its
 from __future__ import annotations
 
 from PySide6.QtCore import Qt
-from PySide6.QtWidgets import QApplication, QComboBox, QFrame, QHBoxLayout, QLabel, QVBoxLayout
+from PySide6.QtWidgets import QApplication, QComboBox, QFrame, QGridLayout, QLabel, QVBoxLayout
 
 from app.editors.base import EditorBase, focus_left
 from app.editors.number_field import NumberField, format_number
@@ -22,8 +22,8 @@ _TIP = ("{axis} of the body origin in the reference frame, in the unit chosen be
 
 
 class PositionEditor(QFrame):
-    """A title, three fields and the unit on one line, a note under them: small enough to sit under the
-    Matrix beside the Gimbal margin meter, so the pose's other half takes no height from the Scene."""
+    """A title with the unit, then x, y, z one per line and a note under them: it sits under the Mounts
+    list (a position belongs to the selected mount), so the pose's other half takes no height from the Scene."""
 
     def __init__(self, model: SessionModel, parent=None):
         super().__init__(parent)
@@ -42,13 +42,14 @@ class PositionEditor(QFrame):
         title.setToolTip("Where the body origin is in the reference frame (with the orientation, a pose). "
                          "Enter or leaving the fields sets it; Ctrl+Z takes it back. Empty: no position.")
         layout = QVBoxLayout(self)
-        row = QHBoxLayout()
-        row.addWidget(title)
-        for axis, field in zip("xyz", self.fields):
-            row.addWidget(QLabel(axis))
-            row.addWidget(field, 1)
-        row.addWidget(self.unit_box)
-        layout.addLayout(row)
+        grid = QGridLayout()
+        grid.addWidget(title, 0, 0, 1, 2)
+        grid.addWidget(self.unit_box, 0, 2)
+        for row, (axis, field) in enumerate(zip("xyz", self.fields), start=1):
+            grid.addWidget(QLabel(axis), row, 0)
+            grid.addWidget(field, row, 1, 1, 2)
+        grid.setColumnStretch(1, 1)
+        layout.addLayout(grid)
         layout.addWidget(self.note)
         for field in self.fields:
             field.edited.connect(self._on_typed)

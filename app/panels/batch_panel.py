@@ -13,11 +13,11 @@ from pathlib import Path
 import numpy as np
 
 from PySide6.QtCore import Qt, QTimer, Signal
-from PySide6.QtWidgets import (QAbstractItemView, QApplication, QCheckBox, QFileDialog, QHBoxLayout,
+from PySide6.QtWidgets import (QAbstractItemView, QApplication, QCheckBox, QHBoxLayout,
                                QHeaderView, QLabel, QProgressDialog, QPushButton, QTableView, QVBoxLayout,
                                QWidget)
 
-from app import plain_text
+from app import dialog_folder, plain_text
 from app.editors.number_field import NumberField, format_number
 from app.panels.batch_conventions_dialog import BatchConventionsDialog
 from app.panels.batch_table_model import BatchFilterProxy, BatchResultModel
@@ -157,8 +157,7 @@ class BatchPanel(QWidget):
     # ---- files ------------------------------------------------------------------------------------
     def open_file(self, path: str | None = None) -> bool:
         if path is None:
-            path, _ = QFileDialog.getOpenFileName(self, "Open a CSV of mounts", "",
-                                                  "CSV files (*.csv *.txt);;All files (*)")
+            path = dialog_folder.open_file_name(self, "Open a CSV of mounts", "CSV files (*.csv *.txt);;All files (*)")
             if not path:
                 return False
         try:
@@ -209,7 +208,7 @@ class BatchPanel(QWidget):
         if path is None:
             suggested = str(Path(self.file_path).with_name(Path(self.file_path).stem + "-deviations.csv")) \
                 if self.file_path and os.sep in str(self.file_path) else "deviations.csv"
-            path, _ = QFileDialog.getSaveFileName(self, "Export results", suggested, "CSV files (*.csv)")
+            path = dialog_folder.save_file_name(self, "Export results", suggested, "CSV files (*.csv)")
             if not path:
                 return False
         large = len(self.result.names) > LARGE_FILE_ROWS

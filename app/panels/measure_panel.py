@@ -12,11 +12,11 @@ from pathlib import Path
 import numpy as np
 from PySide6.QtCore import Signal
 from PySide6.QtGui import QFontDatabase, QGuiApplication
-from PySide6.QtWidgets import (QComboBox, QFileDialog, QHBoxLayout, QLabel, QLineEdit, QPlainTextEdit,
+from PySide6.QtWidgets import (QComboBox, QHBoxLayout, QLabel, QLineEdit, QPlainTextEdit,
                                QPushButton, QStackedWidget, QVBoxLayout, QWidget)
 
-from app import plain_text
-from app.model import MOUNTS, PREFERENCES, Change, SessionModel
+from app import dialog_folder, plain_text
+from app.model import MOUNTS, PREFERENCES, SELECTION, Change, SessionModel
 from app.panels.measure_fit import (DIRECTIONS, POINTS, THREE_POINTS, MeasuredFit, fit_direction_rows,
                                     fit_point_rows, fit_three_points, result_lines, row_outputs)
 from app.panels.measure_rows import RowsError, rows_from_csv
@@ -44,6 +44,7 @@ class MeasurePanel(QWidget):
         super().__init__(parent)
         self.model = model
         self.last_fit: MeasuredFit | None = None
+        self._fit_mount = None   # the name of the mount selected when the fit was made: the Scene shows it on that one only
 
         self.method = QComboBox()
         for key, label, help_text in METHODS:
@@ -159,7 +160,7 @@ class MeasurePanel(QWidget):
 
     def import_csv(self, path: str | None = None) -> None:
         if path is None:
-            path, _ = QFileDialog.getOpenFileName(self, "Import rows", "", "CSV files (*.csv *.txt);;All files (*)")
+            path = dialog_folder.open_file_name(self, "Import rows", "CSV files (*.csv *.txt);;All files (*)")
             if not path:
                 return
         table = self.current_table()
@@ -204,6 +205,7 @@ class MeasurePanel(QWidget):
         flagged = len(result.flagged)
         self._show_info("Fitted." + (f" {flagged} row(s) flagged: look at them again." if flagged else ""))
         self.make_mount_button.setEnabled(True)
+        self._fit_mount = self.model.current_mount().name
         self.fit_changed.emit(result)
 
     def make_mount(self) -> None:
@@ -268,4 +270,8 @@ class MeasurePanel(QWidget):
             self._suggest_name()
         if change.touches(PREFERENCES):
             self._render_result()
+        if change.touches(SELECTION) and self.last_fit is not None:
+            # the measured points belong to the mount they were fitted on: hidden on any other, back on it
+            on_its_mount = self.model.current_mount().name == self._fit_mount
+            self.fit_changed.emit(self.last_fit if on_its_mount else None)
 

@@ -15,6 +15,13 @@ BAD_CELL = QColor("#ffcdd2")
 FLAGGED_ROW = QColor("#ffe0b2")
 
 
+def two_line_title(title: str) -> str:
+    """A column title on two lines at its last space ("Measured x" over "Measured" and "x"), so a column
+    of short numbers is not widened by its title."""
+    head, space, tail = title.rpartition(" ")
+    return f"{head}\n{tail}" if space else title
+
+
 class TableInputError(ValueError):
     """A cell that is not a number: 0-based table row and column, and a message naming both."""
 
@@ -38,11 +45,16 @@ class MeasureTable(QTableWidget):
         self.outputs = [i for i, c in enumerate(columns) if c.kind == "output"]
         self._filling = False
         for index, column in enumerate(columns):
-            item = QTableWidgetItem(column.title)
+            item = QTableWidgetItem(two_line_title(column.title))
             item.setToolTip(column.tooltip)
             self.setHorizontalHeaderItem(index, item)
-        self.horizontalHeader().setSectionResizeMode(QHeaderView.ResizeMode.Stretch)
-        self.horizontalHeader().setMinimumSectionSize(64)
+        # Each column as wide as its title and its numbers, so neither is ever cut ("1249.7…" hides digits);
+        # titles take two lines to stay narrow; the last column takes any spare width, and a table wider
+        # than the panel scrolls inside itself.
+        self.horizontalHeader().setSectionResizeMode(QHeaderView.ResizeMode.ResizeToContents)
+        self.horizontalHeader().setStretchLastSection(True)
+        self.horizontalHeader().setMinimumSectionSize(40)
+        self.setTextElideMode(Qt.TextElideMode.ElideNone)
         self.verticalHeader().setDefaultSectionSize(self.fontMetrics().height() + 8)
         self.setSelectionMode(QAbstractItemView.SelectionMode.ExtendedSelection)
         self.setAlternatingRowColors(True)

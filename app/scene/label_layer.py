@@ -13,6 +13,7 @@ from PySide6.QtOpenGL import QOpenGLPaintDevice
 from pyqtgraph.opengl.GLGraphicsItem import GLGraphicsItem
 
 from app.scene import palette
+from app.scene.label_placement import leader_end, place_labels, stack_panels
 
 _BASE_HEIGHT = 800.0  # label sizes are chosen for an 800-pixel-high view and scale with the image
 
@@ -35,9 +36,16 @@ class OverlayPanel:
     optional: bool = False  # left out when it would leave the 3D labels too little room (a small view)
 
 
-# An optional panel (the legend) is drawn only while the panels together take at most this share of the
-# view's height, so a short view keeps room for the axis and angle labels it explains.
-_OPTIONAL_PANEL_SHARE = 0.6
+# Which labels win when there is no room for all (higher first): the body axes and the rotation axis the
+# view is about, then the tracked vector, the angle and flagged points, then the reference axes, and last
+# the names of faces and chain frames and the ghost's. A key's family is its name without the digits.
+_IMPORTANCE = {"body": 5, "n": 5, "r": 4, "phi": 4, "flag": 4, "alpha": 3, "ref": 3, "face": 2, "chain": 2,
+               "ghost": 1}
+
+
+def importance(key: str) -> int:
+    family = "face" if key.startswith("face") else key.rstrip("0123456789")
+    return _IMPORTANCE.get(family, 2)
 
 
 class LabelLayer(GLGraphicsItem):
@@ -48,6 +56,8 @@ class LabelLayer(GLGraphicsItem):
         self.setDepthValue(10_000)  # drawn after every 3D item
         self._fonts = {}
         self._panel_rects = []
+        self.drawn_labels: dict[str, QtCore.QRectF] = {}   # where each label went in the last paint
+        self.drawn_panels: dict[str, QtCore.QRectF] = {}
         self._label_box = QtGui.QColor(*palette.LABEL_BOX_RGBA)
         self._panel_box = QtGui.QColor(*palette.OVERLAY_BOX_RGBA)
         self._device = None
@@ -96,76 +106,78 @@ class LabelLayer(GLGraphicsItem):
         painter = QtGui.QPainter(self._device)
         try:
             painter.setRenderHints(QtGui.QPainter.RenderHint.Antialiasing | QtGui.QPainter.RenderHint.TextAntialiasing)
-            self._paint_panels(painter, width, height, scale)
-            self._paint_labels(painter, view, width, height, scale)
+            panels = self._layout_panels(width, height, scale)
+            # leader lines under the panels and the labels, so no line crosses a text
+            self._paint_labels(painter, view, width, height, scale,
+                               before_boxes=lambda: self._paint_panels(painter, panels, scale))
         finally:
             painter.end()
 
-    def _paint_labels(self, painter, view, width, height, scale):
-        shown = [lab for lab in self.labels.values() if lab.visible and lab.text]
+    def _paint_labels(self, painter, view, width, height, scale, before_boxes):
+        self.drawn_labels = {}
+        shown = [(key, lab) for key, lab in self.labels.items() if lab.visible and lab.text]
         if not shown:
+            before_boxes()
             return
         mvp = view.currentProjection() * view.currentModelView()
         m = np.array(mvp.data(), dtype=float).reshape(4, 4).T  # QMatrix4x4.data() is column-major
-        points = np.array([lab.pos for lab in shown])
-        clip = np.c_[points, np.ones(len(points))] @ m.T
+        clip = np.c_[np.array([lab.pos for _, lab in shown]), np.ones(len(shown))] @ m.T
         pad = round(3 * scale)
         camera = np.array(view.cameraPosition().toTuple(), dtype=float)
-        placed = list(self._panel_rects)  # labels keep clear of the corner panels and of each other
-        for lab, c in zip(shown, clip):
+        keys, anchors, sizes, fonts = [], [], [], []
+        for (key, lab), c in zip(shown, clip):
             if c[3] <= 1e-9:
                 continue  # behind the camera
             if lab.normal is not None and np.dot(lab.normal, camera - lab.pos) <= 0:
                 continue  # a face turned away from the camera
-            x = (c[0] / c[3] + 1.0) * 0.5 * width
-            y = (1.0 - c[1] / c[3]) * 0.5 * height
             font, metrics = self._font(round(15 * scale), lab.bold, False)
-            rect = metrics.boundingRect(lab.text)
-            w, h = rect.width() + 2 * pad, metrics.height() + 2 * pad
-            box = _free_spot(x, y, w, h, width, height, placed)
-            placed.append(box)
-            painter.fillRect(box, self._label_box)  # square boxes: far cheaper than rounded paths on GL
+            keys.append(key)
+            anchors.append(((c[0] / c[3] + 1.0) * 0.5 * width, (1.0 - c[1] / c[3]) * 0.5 * height))
+            sizes.append((metrics.boundingRect(lab.text).width() + 2 * pad, metrics.height() + 2 * pad))
+            fonts.append(font)
+        # labels keep clear of the corner panels and of each other (label_placement.py)
+        places = place_labels(anchors, sizes, [importance(k) for k in keys], width, height, self._panel_rects)
+        for key, (x, y), place in zip(keys, anchors, places):
+            if place.rect is not None and place.leader:
+                lab = self.labels[key]
+                painter.setPen(QtGui.QPen(QtGui.QColor(*lab.rgb, 170), max(1.0, scale)))
+                painter.drawLine(QtCore.QPointF(x, y), QtCore.QPointF(*leader_end(place.rect, x, y)))
+                painter.setBrush(QtGui.QColor(*lab.rgb))
+                painter.drawEllipse(QtCore.QPointF(x, y), 2.0 * scale, 2.0 * scale)
+        painter.setBrush(QtCore.Qt.BrushStyle.NoBrush)
+        before_boxes()
+        for key, font, place in zip(keys, fonts, places):
+            if place.rect is None:
+                continue  # no room near its anchor: the less important label is left out
+            lab = self.labels[key]
+            self.drawn_labels[key] = place.rect
+            painter.fillRect(place.rect, self._label_box)  # square boxes: far cheaper than rounded paths on GL
             painter.setFont(font)
             painter.setPen(QtGui.QColor(*lab.rgb))
-            painter.drawText(box, QtCore.Qt.AlignmentFlag.AlignCenter, lab.text)
+            painter.drawText(place.rect, QtCore.Qt.AlignmentFlag.AlignCenter, lab.text)
 
-    def _paint_panels(self, painter, width, height, scale):
-        self._panel_rects = []
+    def _layout_panels(self, width, height, scale):
+        """Where each shown overlay panel goes, as (panel, rect) pairs; also kept for the labels to avoid."""
         margin, pad = round(10 * scale), round(8 * scale)
+        _, metrics = self._font(round(14 * scale), False, True)
+        line_h = metrics.height()
+        # the required panels first, so an optional one (the legend) gives way when they meet
+        shown = sorted(((k, p) for k, p in self.panels.items() if p.visible and p.lines), key=lambda kp: kp[1].optional)
+        sizes = [(max(metrics.horizontalAdvance(text) for text, _ in p.lines) + 2 * pad, line_h * len(p.lines) + 2 * pad)
+                 for _, p in shown]
+        rects = stack_panels(sizes, [p.corner for _, p in shown], [p.optional for _, p in shown], width, height,
+                             margin)
+        self._panel_rects = [r for r in rects if r is not None]
+        self.drawn_panels = {k: r for (k, _), r in zip(shown, rects) if r is not None}
+        return [(p, r) for (_, p), r in zip(shown, rects) if r is not None]
+
+    def _paint_panels(self, painter, panels, scale):
+        pad = round(8 * scale)
         font, metrics = self._font(round(14 * scale), False, True)
         painter.setFont(font)
-        line_h = metrics.height()
-        shown = [p for p in self.panels.values() if p.visible and p.lines]
-        for side in ("left", "right"):   # the panels stacked on one side, top and bottom corner
-            stacked = [p for p in shown if side in p.corner]
-            used = sum(line_h * len(p.lines) + 2 * pad + margin for p in stacked)
-            if used > _OPTIONAL_PANEL_SHARE * height:
-                shown = [p for p in shown if not (p.optional and side in p.corner)]
-        for panel in shown:
-            w = max(metrics.horizontalAdvance(text) for text, _ in panel.lines) + 2 * pad
-            h = line_h * len(panel.lines) + 2 * pad
-            left = margin if "left" in panel.corner else width - w - margin
-            top = margin if "top" in panel.corner else height - h - margin
-            painter.fillRect(QtCore.QRectF(left, top, w, h), self._panel_box)
-            self._panel_rects.append(QtCore.QRectF(left, top, w, h))
+        for panel, rect in panels:
+            painter.fillRect(rect, self._panel_box)
             for i, (text, rgb) in enumerate(panel.lines):
                 painter.setPen(QtGui.QColor(*rgb))
-                painter.drawText(QtCore.QPointF(left + pad, top + pad + i * line_h + metrics.ascent()), text)
-
-
-def _free_spot(x, y, w, h, width, height, placed):
-    """A w x h box near the anchor (x, y) that overlaps no placed box if one of a few nearby spots is free,
-    always wholly inside the image (never clipped)."""
-    def box_at(cx, cy):
-        left = min(max(cx - w / 2, 2), width - w - 2)
-        top = min(max(cy - h / 2, 2), height - h - 2)
-        return QtCore.QRectF(left, top, w, h)
-
-    step = h * 1.05
-    offsets = [(0, 0), (0, -step), (0, step), (w * 0.6, 0), (-w * 0.6, 0), (0, -2 * step), (0, 2 * step),
-               (w * 0.6, -step), (-w * 0.6, step), (w * 0.6, step), (-w * 0.6, -step)]
-    for dx, dy in offsets:
-        box = box_at(x + dx, y + dy)
-        if not any(box.intersects(other) for other in placed):
-            return box
-    return box_at(x, y)
+                painter.drawText(QtCore.QPointF(rect.left() + pad, rect.top() + pad + i * metrics.height() + metrics.ascent()),
+                                 text)

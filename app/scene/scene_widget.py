@@ -13,6 +13,7 @@ from OpenGL import GL
 from PySide6 import QtCore, QtGui, QtWidgets
 from PySide6.QtOpenGL import QOpenGLFramebufferObject, QOpenGLFramebufferObjectFormat
 
+from app import dialog_folder
 from app.scene import camera, gl_helpers, overlay_text, palette
 from app.scene.chain_frames import ChainFrames
 from app.scene.frame_triad import FrameTriad
@@ -456,8 +457,7 @@ class SceneWidget(QtWidgets.QWidget):
             self.toolbar.play.setChecked(False)
 
     def _export_dialog(self):
-        path, _ = QtWidgets.QFileDialog.getSaveFileName(self, "Export the scene as PNG", "scene.png",
-                                                        "PNG image (*.png)")
+        path = dialog_folder.save_file_name(self, "Export the scene as PNG", "scene.png", "PNG image (*.png)")
         if not path:
             return
         size, ok = QtWidgets.QInputDialog.getText(self, "Image size", "Width x height in pixels:",
@@ -478,7 +478,7 @@ class SceneWidget(QtWidgets.QWidget):
             self.toolbar.show_message(str(exc))
 
     def _stl_dialog(self):
-        path, _ = QtWidgets.QFileDialog.getOpenFileName(self, "Part model from STL", "", "STL files (*.stl)")
+        path = dialog_folder.open_file_name(self, "Part model from STL", "STL files (*.stl)")
         if not path:
             return
         try:

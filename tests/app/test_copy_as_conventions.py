@@ -56,6 +56,9 @@ def test_copies_follow_the_preferences_and_agree_with_scipy(qtbot, window, repre
         text = QGuiApplication.clipboard().text()
         message = window.statusBar().currentMessage()
         assert message.endswith("verified.") and "NOT" not in message, message
+        if fmt == "csv":   # a header row naming units and convention, then the row of numbers
+            header, text = text.splitlines()
+            assert header == formats.csv_header(FormatOptions(representation=representation, **claimed)).strip()
         np.testing.assert_allclose(numbers_in(fmt, text), want, atol=1e-12, err_msg=f"{fmt}: {text}")
     window.copy_as_actions["json"].trigger()
     data = json.loads(QGuiApplication.clipboard().text())
@@ -63,6 +66,32 @@ def test_copies_follow_the_preferences_and_agree_with_scipy(qtbot, window, repre
     sequence = window.model.preferences.sequence
     name = sequence if window.model.preferences.intrinsic else sequence.lower()
     np.testing.assert_allclose(data["angles_deg"], ROTATION.as_euler(name, degrees=True), atol=1e-12)
+
+
+# The CSV header's words for each convention, as CONVENTIONS.md names them: r = body -> reference,
+# dcm = reference -> body; the quaternion order as written; yaw/pitch/roll only for intrinsic Z-Y-X (common
+# practice), else the sequence and its kind; the angle unit on every angle column.
+CSV_HEADERS = [
+    ("matrix", {"matrix_meaning": "reference_to_body"}, "dcm11,dcm12,dcm13,dcm21,dcm22,dcm23,dcm31,dcm32,dcm33"),
+    ("quaternion", {"quaternion_order": "xyzw"}, "qx,qy,qz,qw"),
+    ("angles", {"sequence": "ZYX", "intrinsic": True, "angle_units": "deg"}, "yaw_deg,pitch_deg,roll_deg"),
+    ("angles", {"sequence": "ZXZ", "intrinsic": False, "angle_units": "rad"},
+     "zxz_extrinsic_angle1_rad,zxz_extrinsic_angle2_rad,zxz_extrinsic_angle3_rad"),
+    ("axis-angle", {"angle_units": "deg"}, "axis_x,axis_y,axis_z,angle_deg"),
+]
+
+
+@pytest.mark.parametrize("representation, preferences, header", CSV_HEADERS)
+def test_a_csv_copy_starts_with_a_header_naming_units_and_convention(qtbot, window, representation,
+                                                                     preferences, header):
+    window.model.set_orientation(Orientation.from_quaternion(ROTATION.as_quat(scalar_first=True)))
+    window.model.set_preferences(**preferences)
+    use_editor(qtbot, window, EDITORS[representation])
+    window.copy_as_actions["csv"].trigger()
+    lines = QGuiApplication.clipboard().text().splitlines()
+    assert len(lines) == 2 and lines[0] == header
+    assert len(lines[1].split(",")) == len(header.split(","))
+    assert "verified." in window.statusBar().currentMessage()
 
 
 def test_a_renderer_that_writes_a_wrong_value_is_not_verified(qtbot, window, monkeypatch):

@@ -131,29 +131,33 @@ def test_copy_as_offers_the_pose_formats_only_with_a_position_and_verifies_them(
     np.testing.assert_array_equal(h[3], (0, 0, 0, 1))
     window.copy_as_actions["pose-line"].trigger()
     assert "verified" in window.statusBar().currentMessage()
-    assert QGuiApplication.clipboard().text().splitlines()[1].startswith("125.5, -40.25, 812.0, ")
+    assert QGuiApplication.clipboard().text().splitlines()[2].startswith("125.5, -40.25, 812.0, ")
 
 
 def _readings_with_translation(translation, unit):
-    """Real readings of a quaternion's text, carrying a pose's translation as the decoder's pose readers
-    will (core/decode.py has the fields; its pose readers are being written alongside this work)."""
+    """Real readings of a quaternion's text carrying a translation in a unit the decoder never gives (it
+    names only mm, cm and m): the panel's defence against a unit it cannot convert."""
     def decode_with_translation(text):
         return [dataclasses.replace(r, translation=translation, translation_unit=unit) for r in decode(text)]
     return decode_with_translation
 
 
-def _read_in_decode(qtbot, window, monkeypatch, translation, unit):
-    monkeypatch.setattr(decode_panel, "_decode_or_error", _readings_with_translation(translation, unit))
+def _read_in_decode(qtbot, window, text):
     panel = window.decode_panel
     window.side_tabs.setCurrentWidget(panel)
     focus(qtbot, panel.paste_box)
-    qtbot.keyClicks(panel.paste_box, "quaternion w x y z: 0.7071068, 0, 0, 0.7071068")
+    qtbot.keyClicks(panel.paste_box, text)
     qtbot.mouseClick(panel.read_button, Qt.MouseButton.LeftButton)
     return panel
 
 
-def test_a_decoded_translation_without_a_unit_waits_for_the_user_to_choose_one(qtbot, window, monkeypatch):
-    panel = _read_in_decode(qtbot, window, monkeypatch, (0.1, 0.2, 0.3), None)
+# A transform-argument list (x y z qx qy qz qw parent child) says no unit; a header with x_m columns does.
+NO_UNIT = "0.1 0.2 0.3 0 0 0.7071068 0.7071068 base_link imu"
+IN_METRES = "pose [x_m, y_m, z_m, qx, qy, qz, qw] = [1.5, -2.0, 0.25, 0, 0, 0.7071068, 0.7071068]"
+
+
+def test_a_decoded_translation_without_a_unit_waits_for_the_user_to_choose_one(qtbot, window):
+    panel = _read_in_decode(qtbot, window, NO_UNIT)
     assert panel.unit_row.isVisible() and "gives no unit" in panel.unit_label.text()
     assert not panel.apply_button.isEnabled()        # nothing is guessed
     focus(qtbot, panel.unit_box)
@@ -169,8 +173,8 @@ def test_a_decoded_translation_without_a_unit_waits_for_the_user_to_choose_one(q
     assert window.model.current_mount().position is None
 
 
-def test_a_decoded_translation_with_a_unit_is_converted_to_metres(qtbot, window, monkeypatch):
-    panel = _read_in_decode(qtbot, window, monkeypatch, (1.5, -2.0, 0.25), "m")
+def test_a_decoded_translation_with_a_unit_is_converted_to_metres(qtbot, window):
+    panel = _read_in_decode(qtbot, window, IN_METRES)
     assert not panel.unit_row.isVisible() and panel.apply_button.isEnabled()
     qtbot.mouseClick(panel.apply_button, Qt.MouseButton.LeftButton)
     position = window.model.current_mount().position
@@ -180,7 +184,8 @@ def test_a_decoded_translation_with_a_unit_is_converted_to_metres(qtbot, window,
 
 def test_a_decoded_translation_in_an_unknown_unit_applies_nothing(qtbot, window, monkeypatch):
     before = window.model.current_mount()
-    panel = _read_in_decode(qtbot, window, monkeypatch, (1.0, 2.0, 3.0), "furlong")
+    monkeypatch.setattr(decode_panel, "_decode_or_error", _readings_with_translation((1.0, 2.0, 3.0), "furlong"))
+    panel = _read_in_decode(qtbot, window, "quaternion w x y z: 0.7071068, 0, 0, 0.7071068")
     qtbot.mouseClick(panel.apply_button, Qt.MouseButton.LeftButton)
     assert window.model.current_mount() == before
     assert "Not applied" in panel.message.text() and "furlong" in panel.message.text()

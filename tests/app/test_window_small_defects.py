@@ -2,9 +2,39 @@
 are added, a duplicated mount does not carry the original's note (with the original's angles), and the
 lock note does not contradict the field being typed in."""
 
+import pytest
 from PySide6.QtCore import QPoint, Qt
 
 from tests.app.window_driver import type_into
+
+
+@pytest.mark.parametrize("size", [(1280, 800), (1366, 768), (1920, 1080)])
+def test_the_chain_step_form_does_not_move_when_steps_are_added(qtbot, window, size):
+    # The next click must land where the user aims: after each added step the form's fields stand where
+    # they stood on the screen (to 1 px), and the table of steps takes the growth.
+    window.resize(*size)
+    qtbot.waitUntil(lambda: (window.width(), window.height()) == size, timeout=3000)
+    panel = window.chain_panel
+    window.side_tabs.setCurrentIndex(window.side_tabs.indexOf(panel.parentWidget().parentWidget()))
+    qtbot.wait(50)
+    form = (panel.step_name, panel.add_from_editors, panel.set_from_editors, panel.pasted.text_box,
+            panel.add_from_text, panel.set_from_text)
+
+    def form_position():
+        return [w.mapToGlobal(QPoint(0, 0)) for w in form]
+
+    before = form_position()
+    for added in range(1, 4):
+        qtbot.mouseClick(panel.add_from_editors, Qt.MouseButton.LeftButton)
+        qtbot.wait(30)
+        assert len(window.model.chain.steps) == added
+        assert panel.table.rowCount() == added
+        for was, now, widget in zip(before, form_position(), form):
+            assert abs(now.x() - was.x()) <= 1 and abs(now.y() - was.y()) <= 1, (
+                f"{type(widget).__name__} {getattr(widget, 'text', lambda: '')()!r} moved from {was} to {now} "
+                f"after step {added}")
+        row = panel.table.visualRect(panel.table.model().index(added - 1, 0))
+        assert panel.table.viewport().rect().contains(row), "the new step is not shown in the table"
 
 
 def test_a_duplicated_mount_names_its_original_instead_of_copying_its_note(qtbot, window):

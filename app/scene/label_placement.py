@@ -1,0 +1,124 @@
+"""Where the Scene's texts go on the image so that none covers another: the overlay panels in their
+corners, stacked when two would meet, and the labels near their 3D anchors, most important first, each
+nudged to the nearest free spot (then drawn with a leader line to its anchor) or, when no spot near it is
+free, left out. Plain geometry in pixels (x right, y down), no painting, so it is tested on its own."""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+
+from PySide6.QtCore import QRectF
+
+# How far from its anchor a label may be nudged, in rings of one label height (up and down) and about
+# two thirds of its width (sideways): beyond that it would be read as another point's label.
+_RINGS = 3
+# A label whose box is farther than this from its anchor (pixels) gets a leader line to it.
+_LEADER_AFTER_PX = 4.0
+
+
+@dataclass(frozen=True)
+class Placed:
+    rect: QRectF | None   # None: no free spot near the anchor, so the label is left out
+    leader: bool          # drawn away from its anchor: a line joins the box to the anchor
+
+
+def stack_panels(sizes, corners, optional, width, height, margin) -> list[QRectF | None]:
+    """Each panel (w, h) in its corner ('top-left', ...), in the order given; a panel that would meet one
+    already placed moves along its side (down from a top corner, up from a bottom one) past it. A panel
+    that then leaves the image or still meets another is left out (None); so is an optional panel when
+    the panels on its side would take more than 60 % of the height (it would leave the labels no room)."""
+    placed: list[QRectF] = []
+    sides: list[bool] = []   # on the left, for each placed panel
+    out: list[QRectF | None] = []
+    for (w, h), corner, extra in zip(sizes, corners, optional):
+        left = margin if "left" in corner else width - w - margin
+        top = margin if "top" in corner else height - h - margin
+        rect = QRectF(left, top, w, h)
+        for _ in range(len(placed)):
+            hits = [p for p in placed if p.intersects(rect)]
+            if not hits:
+                break
+            if "top" in corner:
+                rect.moveTop(max(p.bottom() for p in hits) + margin)
+            else:
+                rect.moveBottom(min(p.top() for p in hits) - margin)
+        side = [p for p, on_left in zip(placed, sides) if on_left == ("left" in corner)]
+        crowded = extra and sum(p.height() + margin for p in side) + h + margin > 0.6 * height
+        inside = rect.top() >= 0 and rect.bottom() <= height and rect.left() >= 0 and rect.right() <= width
+        if crowded or not inside or any(p.intersects(rect) for p in placed):
+            out.append(None)
+            continue
+        placed.append(rect)
+        sides.append("left" in corner)
+        out.append(rect)
+    return out
+
+
+def _candidates(w, h):
+    """Offsets of a box's centre from its anchor: the anchor itself, then rings around it, nearest first."""
+    yield 0.0, 0.0
+    sx, sy = w * 0.6, h * 1.05
+    for ring in range(1, _RINGS + 1):
+        ring_offsets = [(0, -ring * sy), (0, ring * sy), (ring * sx, 0), (-ring * sx, 0),
+                        (ring * sx, -ring * sy), (-ring * sx, ring * sy), (ring * sx, ring * sy),
+                        (-ring * sx, -ring * sy)]
+        yield from sorted(ring_offsets, key=lambda d: math.hypot(*d))
+
+
+def place_labels(anchors, sizes, importance, width, height, obstacles=()) -> list[Placed]:
+    """Boxes of `sizes` (w, h) near `anchors` (x, y), wholly inside a width x height image and covering
+    neither each other nor `obstacles` (the overlay panels). The most important go first (ties in the
+    order given), so when the room runs out it is the least important that are left out."""
+    taken = [QRectF(r) for r in obstacles]
+    out: list[Placed | None] = [None] * len(anchors)
+    order = sorted(range(len(anchors)), key=lambda i: -importance[i])
+    for i in order:
+        (x, y), (w, h) = anchors[i], sizes[i]
+        if w > width - 4 or h > height - 4:
+            out[i] = Placed(None, False)
+            continue
+        box = _first_free(_boxes_near(x, y, w, h, width, height, taken), taken)
+        out[i] = Placed(box, box is not None and _distance_to(box, x, y) > _LEADER_AFTER_PX)
+        if box is not None:
+            taken.append(box)
+    return out
+
+
+def _inside_view(cx, cy, w, h, width, height) -> QRectF:
+    """A w x h box centred as near (cx, cy) as the image allows, wholly inside it."""
+    return QRectF(min(max(cx - w / 2, 2), width - w - 2), min(max(cy - h / 2, 2), height - h - 2), w, h)
+
+
+def _boxes_near(x, y, w, h, width, height, taken):
+    """Spots for a box anchored at (x, y): the rings around the anchor, nearest first; then, for an anchor
+    under a big box (an overlay panel), the spots just outside each edge of what covers it, nearest
+    first, so the label steps out from under the panel instead of being lost."""
+    for dx, dy in _candidates(w, h):
+        yield _inside_view(x + dx, y + dy, w, h, width, height)
+    first = _inside_view(x, y, w, h, width, height)
+    escapes = []
+    for other in taken:
+        if other.intersects(first):
+            escapes += [(x, other.bottom() + h / 2 + 1), (x, other.top() - h / 2 - 1),
+                        (other.right() + w / 2 + 1, y), (other.left() - w / 2 - 1, y)]
+    for cx, cy in sorted(escapes, key=lambda c: (c[0] - x) ** 2 + (c[1] - y) ** 2):
+        yield _inside_view(cx, cy, w, h, width, height)
+
+
+def _first_free(boxes, taken) -> QRectF | None:
+    for box in boxes:
+        if not any(box.intersects(other) for other in taken):
+            return box
+    return None
+
+
+def _distance_to(box: QRectF, x: float, y: float) -> float:
+    dx = max(box.left() - x, 0.0, x - box.right())
+    dy = max(box.top() - y, 0.0, y - box.bottom())
+    return math.hypot(dx, dy)
+
+
+def leader_end(box: QRectF, x: float, y: float) -> tuple[float, float]:
+    """The point of the box's edge nearest the anchor, where its leader line starts."""
+    return min(max(x, box.left()), box.right()), min(max(y, box.top()), box.bottom())
