@@ -749,12 +749,45 @@ def write_internal_error_log(error: BaseException) -> str:
         return f"(no log written: {log_error.strerror or log_error})"
 
 
+class _ReaderMayLeave:
+    """Standard output whose reader may stop reading (`framewright decode … | head`): the rest of the
+    output is dropped and the verb still ends with its own exit status (a FAIL stays 1)."""
+
+    def __init__(self, stream):
+        self.stream, self.left = stream, False
+
+    def write(self, text: str) -> int:
+        if not self.left:
+            try:
+                self.stream.write(text)
+                self.stream.flush()
+            except BrokenPipeError:
+                self.left = True
+                _quiet_stdout()
+        return len(text)
+
+    def flush(self) -> None:
+        pass
+
+    def __getattr__(self, name):
+        return getattr(self.stream, name)
+
+
+def _quiet_stdout() -> None:
+    """After the reader has gone, point fd 1 at /dev/null so the interpreter's last flush is silent."""
+    try:
+        devnull = os.open(os.devnull, os.O_WRONLY)
+        os.dup2(devnull, sys.stdout.fileno())
+    except (OSError, ValueError, AttributeError):
+        pass
+
+
 def main(argv=None, stdin=None, stdout=None, stderr=None) -> int:
     """Run one verb. Every outcome is an exit status and at most one line on stderr: 0 / 1 as the verb
     says, 2 for refused input and usage errors, 3 for an internal error (the traceback goes to a log)."""
     import warnings
 
-    stdin, stdout, stderr = stdin or sys.stdin, stdout or sys.stdout, stderr or sys.stderr
+    stdin, stdout, stderr = stdin or sys.stdin, _ReaderMayLeave(stdout or sys.stdout), stderr or sys.stderr
     argv = sys.argv[1:] if argv is None else list(argv)
     # Pasted text such as "-0.5,0,0,0.866" would look like an option to argparse: a leading space keeps
     # it text (the decoder ignores the space).

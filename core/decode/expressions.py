@@ -61,8 +61,9 @@ def _tokens(body: str) -> list[tuple[str, str]]:
             following = body[pos:].lstrip()
             what = "a function" if following.startswith("(") else "an attribute" if following.startswith(".") \
                 else "a name"
-            raise DecodeError(f"'{_short(token, 24)}' in '{_short(body)}' is {what} Framewright does not evaluate;"
-                              " only numbers, pi, + - * / and parentheses are")
+            where = "" if token == body.strip() else f" in '{_short(body)}'"
+            raise DecodeError(f"'{_short(token, 24)}'{where} is {what} Framewright does not evaluate; only numbers,"
+                              " pi, + - * / and parentheses are")
         if kind == "other":
             raise DecodeError(f"'{token}' in '{_short(body)}' is not part of the arithmetic Framewright"
                               " evaluates (numbers, pi, + - * / and parentheses)")

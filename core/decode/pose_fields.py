@@ -9,11 +9,15 @@ import re
 from dataclasses import dataclass
 
 from core.decode.characters import _normalise_characters, _strip_comments
+from core.decode.poses import values_in
+from core.errors import DecodeError
 
 _MAX_FIELDS = 2000
 _KEY_LINE = re.compile(r"""^(?P<indent>[ ]*)(?P<dash>-[ ]+)?["']?(?P<key>[A-Za-z_][\w.\-/]{0,60}"""
                        r"""(?:[ ][A-Za-z_][\w]{0,20}){0,3}(?:[ ]?[(\[][^()\[\]\n]{0,30}[)\]])?)["']?"""
                        r"""[ ]*(?::(?!:)|=(?!=))[ ]*(?P<rest>.*)$""")
+_HAS_DIGIT = re.compile(r"\d")
+ORPHAN = "\x00orphan"      # the key of a field that stands for a line of numbers under no key
 _INLINE_PAIR = re.compile(r"""["']?(?P<key>[A-Za-z_][\w.\-]{0,40})["']?[ ]*:[ ]*(?P<value>[^,{}]*)""")
 _ATTRIBUTE = re.compile(r"""(?P<key>[A-Za-z_][\w.\-:]{0,40})[ ]*=[ ]*(?:"(?P<value>[^"<>\n]{0,400})"|'(?P<value2>[^'<>\n]{0,400})')""")
 _TAG = re.compile(r"<(?P<tag>[A-Za-z_][\w.\-:]{0,40})(?P<body>[^<>]{0,2000})>")
@@ -42,12 +46,15 @@ def yaml_like_fields(text: str) -> list[Field]:
     fields: list[Field] = []
     stack: list[tuple[float, str]] = []        # (indent, key) of the open groups; items are '#0', '#1', …
     items: dict[tuple, int] = {}
+    orphans: list[tuple[int, str]] = []        # lines with numbers that belong to no key
     i = 0
     while i < len(lines) and len(fields) < _MAX_FIELDS:
         raw = lines[i].replace("\t", "    ")
         i += 1
         m = _KEY_LINE.match(raw)
         if m is None:
+            if _HAS_DIGIT.search(raw):
+                orphans.append((i, raw.strip()))
             continue
         indent, key, rest = len(m.group("indent")), m.group("key").strip(), m.group("rest").strip()
         if m.group("dash"):                  # '- key: v' starts a list item one level in
@@ -79,6 +86,8 @@ def yaml_like_fields(text: str) -> list[Field]:
             rest += " ; " + lines[i].strip()  # a list over several lines; rows keep their breaks
             i += 1
         fields.append(Field(key, rest, start, path))
+    if orphans and fields:
+        fields.append(Field(ORPHAN, orphans[0][1], orphans[0][0]))
     return fields
 
 
@@ -88,7 +97,7 @@ _NUMBER_LINE = re.compile(r"^[ \t]*(?:-[ ]*)?[\[(]*[ ]*[-+]?(?:\d|\.\d)[-+\d.eE 
 def _rows_below(lines: list[str], i: int) -> tuple[list[str], int]:
     """The lines of numbers right below a key ('- [a, b]' rows, '[[ 0. -1.  0.]' printouts)."""
     rows = []
-    while i < len(lines) and len(rows) < 16:
+    while i < len(lines) and len(rows) < 400:     # a covariance is 36 '- 0.0' items
         stripped = lines[i].strip()
         if not stripped or not _NUMBER_LINE.match(stripped) or _KEY_LINE.match(lines[i]):
             break
@@ -152,4 +161,31 @@ def flag_fields(text: str) -> list[Field]:
         out.append(Field(m.group("key").replace("-", "_"), m.group("value"), clean.count("\n", 0, m.start()) + 1))
         if len(out) >= _MAX_FIELDS:
             break
+    return out
+
+
+def with_shaped_matrices(fields: list[Field]) -> list[Field]:
+    """A group holding rows, cols and data becomes one field under its own name, with its shape."""
+    by_path: dict[tuple, dict[str, Field]] = {}
+    for f in fields:
+        by_path.setdefault(f.path, {})[f.name] = f
+    out, done = [], set()
+    for f in fields:
+        group = by_path[f.path]
+        if f.path and all(k in group for k in ("rows", "cols", "data")):
+            if f.path in done:
+                continue
+            done.add(f.path)
+            shape = [values_in(group[k].value, group[k].line) for k in ("rows", "cols")]
+            if any(len(v) != 1 or v[0] != int(v[0]) or not 1 <= v[0] <= 16 for v in shape):
+                raise DecodeError(f"line {group['rows'].line}: rows and cols must be whole numbers from 1 to 16")
+            rows, cols = (int(v[0]) for v in shape)
+            data = group["data"]
+            count = len(values_in(data.value, data.line))
+            if rows * cols != count:
+                raise DecodeError(f"line {data.line}: rows {rows} x cols {cols} is {rows * cols} numbers; 'data'"
+                                  f" holds {count}")
+            out.append(Field(f.path[-1], data.value, data.line, f.path[:-1], (rows, cols)))
+            continue
+        out.append(f)
     return out

@@ -1,14 +1,15 @@
 """Poses written with keys: calibration YAML and JSON (position/translation beside orientation/rotation,
 named components, `rows`/`cols`/`data` matrices, 4x4 lists under a key), INI-like calibration text
-(`R:` beside `T:`, `Tr:` with 12 numbers, `R_00`/`T_00` pairs, rectifying rotations), and flag lists
-(`--x 1 --yaw 0.5`). Keys that hold no part of a pose are named in a note, never read as numbers."""
+(`R:` beside `T:`, `Tr:` with 12 numbers, `R_00`/`T_00` pairs, rectifying rotations); flag lists
+(`--x 1 --yaw 0.5`) are read by pose_flags. Keys that hold no part of a pose are named in a note, never read as numbers."""
 
 from __future__ import annotations
 
 import re
 from core.decode.clues import _WXYZ, _XYZW
-from core.decode.pose_fields import Field, flag_fields, json_fields, yaml_like_fields
-from core.decode.poses import AS_WRITTEN, PoseText, checked_translation, homogeneous, values_in
+from core.decode.pose_fields import ORPHAN, Field, flag_fields, json_fields, with_shaped_matrices, yaml_like_fields
+from core.decode.pose_flags import flag_pose
+from core.decode.poses import AS_WRITTEN, PoseText, checked_translation, homogeneous, unit_said, values_in
 from core.errors import DecodeError
 
 _TRANSLATION = {"translation", "position", "trans", "t", "xyz", "p", "pos", "tvec", "tvecs", "origin", "offset",
@@ -36,12 +37,12 @@ def keyed_poses(text: str) -> list[PoseText] | None:
     if fields is None:
         flags = flag_fields(text)
         if len(flags) >= 4:
-            return _flag_pose(flags)
+            return flag_pose(flags)
         fields = yaml_like_fields(text)
         layout = "pose (keyed text)"
     if not fields:
         return None
-    fields = _with_shaped_matrices(fields)
+    fields = with_shaped_matrices(fields)
     groups: dict[tuple, dict[str, Field]] = {}
     for f in fields:
         lowered = tuple(p.lower() for p in f.path)
@@ -52,8 +53,16 @@ def keyed_poses(text: str) -> list[PoseText] | None:
     used: set[int] = set()
     for path, group in groups.items():
         poses += _group_poses(path, group, groups, used, layout)
+    said = unit_said(text)                  # '# t in m' beside a transform whose key names no unit
+    for p in poses:
+        if p.translation is not None and p.unit is None and said:
+            p.unit = said
     if not poses:
         return None
+    orphan = next((f for f in fields if f.key == ORPHAN), None)
+    if orphan is not None:
+        raise DecodeError(f"line {orphan.line}: '{orphan.value[:40]}' holds numbers under no key of the pose;"
+                          " Framewright will not guess where they belong")
     unused = [f.key for f in fields if id(f) not in used and f.key not in ("rows", "cols", "dt")]
     for p in poses:
         if unused:
@@ -67,33 +76,6 @@ def _bare(name: str) -> str:
     name = name.split(".")[-1]
     name = re.sub(r"[ ]*[\[(].*$", "", name).strip()
     return re.sub(r"[ ]+", "_", name)
-
-
-def _with_shaped_matrices(fields: list[Field]) -> list[Field]:
-    """A group holding rows, cols and data becomes one field under its own name, with its shape."""
-    by_path: dict[tuple, dict[str, Field]] = {}
-    for f in fields:
-        by_path.setdefault(f.path, {})[f.name] = f
-    out, done = [], set()
-    for f in fields:
-        group = by_path[f.path]
-        if f.path and all(k in group for k in ("rows", "cols", "data")):
-            if f.path in done:
-                continue
-            done.add(f.path)
-            shape = [values_in(group[k].value, group[k].line) for k in ("rows", "cols")]
-            if any(len(v) != 1 or v[0] != int(v[0]) or not 1 <= v[0] <= 16 for v in shape):
-                raise DecodeError(f"line {group['rows'].line}: rows and cols must be whole numbers from 1 to 16")
-            rows, cols = (int(v[0]) for v in shape)
-            data = group["data"]
-            count = len(values_in(data.value, data.line))
-            if rows * cols != count:
-                raise DecodeError(f"line {data.line}: rows {rows} x cols {cols} is {rows * cols} numbers; 'data'"
-                                  f" holds {count}")
-            out.append(Field(f.path[-1], data.value, data.line, f.path[:-1], (rows, cols)))
-            continue
-        out.append(f)
-    return out
 
 
 def _unit_of(field: Field, group: dict) -> str | None:
@@ -312,26 +294,3 @@ def _rotations_alone(group: dict, used: set, among_others: bool) -> list[PoseTex
         used.add(id(f))
         out.append(PoseText(tuple(rotation), "rotation", f.line, fixed, None, None, f.key, notes, prefer))
     return out
-
-
-def _flag_pose(flags: list[Field]) -> list[PoseText] | None:
-    """--x --y --z with --qx --qy --qz --qw or --roll --pitch --yaw, and the frame flags for the name."""
-    by = {f.name: f for f in flags}
-    if not all(k in by for k in _COMPONENTS_T):
-        return None
-    translation = checked_translation([_one(by[k]) for k in _COMPONENTS_T], by["x"].line)
-    if all(k in by for k in ("qx", "qy", "qz", "qw")):
-        rotation = [_one(by[k]) for k in ("qw", "qx", "qy", "qz")]
-        fixed = {"kind": "quaternion", "order": "wxyz"}
-        note = "flags --qx --qy --qz --qw read as a quaternion"
-    elif all(k in by for k in ("roll", "pitch", "yaw")):
-        rotation = [_one(by[k]) for k in ("yaw", "pitch", "roll")]
-        fixed = {"kind": "angles", "sequence": "ZYX", "intrinsic": True, "units": "rad"}
-        note = "flags --yaw --pitch --roll read as yaw-pitch-roll (intrinsic Z-Y'-X'') in radians (common practice)"
-    else:
-        return None
-    parent = next((by[k].value for k in ("frame_id", "parent", "parent_frame") if k in by), None)
-    child = next((by[k].value for k in ("child_frame_id", "child", "child_frame") if k in by), None)
-    name = f"{parent} -> {child}" if parent and child else None
-    return [PoseText(tuple(rotation), "transform flags", by["x"].line, fixed, translation, None, name,
-                     [note, "transform arguments' lengths are metres (common practice), but the text does not say so"])]

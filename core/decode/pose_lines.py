@@ -18,6 +18,7 @@ _NAME = r"[A-Za-z_/][\w/.\-]{0,80}"
 _NUM = r"(?:[-+]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?|\$\{[^{}\s]{1,80}\}|[-+]?(?:M_PI|PI|pi)(?:/\d+)?)"
 _ARGS = re.compile(rf"(?<![\w.])(?P<numbers>(?:{_NUM}[ ]+){{5,6}}{_NUM})[ ]+(?P<parent>{_NAME})[ ]+(?P<child>{_NAME})"
                    rf"(?:[ ]+(?P<period>\d+(?:\.\d*)?))?(?=[ \"')]*(?:$|/>|>|\n|\)))")
+_NUMBER_LIKE = re.compile(r"[-+]?(?:\d|\.\d|\.?nan|\.?inf|\$)", re.IGNORECASE)
 _SUM_TERM = re.compile(r"(?P<sign>[-+]?)[ ]*(?P<value>(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?)[ ]*\*?[ ]*(?P<unit>[ijk])?(?![\w.])")
 _SUM = re.compile(r"(?:^|[^\w.])[-+]?[ ]*(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?[ ]*(?:[-+][ ]*(?:\d+(?:\.\d*)?|\.\d+)"
                   r"(?:[eE][-+]?\d+)?[ ]*\*?[ ]*[ijk](?![\w])[ ]*){3}")
@@ -83,6 +84,11 @@ def argument_poses(text: str) -> list[PoseText] | None:
     poses = []
     for m in found:
         line = clean.count("\n", 0, m.start()) + 1
+        before = clean[clean.rfind("\n", 0, m.start()) + 1:m.start()]
+        odd = [t for t in before.split() if _NUMBER_LIKE.match(t)]
+        if odd:     # '0 NaN 0 0 0 0 0.7 0.7 map odom': the run of numbers starts after something we cannot read
+            raise DecodeError(f"line {line}: '{odd[-1][:24]}' before the transform arguments is not one of them;"
+                              " Framewright will not guess which numbers are the pose (remove it)")
         values = values_in(" ".join(m.group("numbers").split()), line)
         translation = checked_translation(values[:3], line)
         notes = ["transform arguments are in radians; their lengths are metres (common practice), but the text does not say so"]
@@ -134,9 +140,15 @@ def quaternion_sum(text: str) -> list[PoseText] | None:
     if not re.search(r"\d[ ]*\*?[ ]*[ijk](?![\w.])", text):
         return None
     clean = _normalise_characters(text)
-    m = next((found for line in clean.split("\n") if len(line) <= _MAX_LINE and (found := _SUM.search(line))), None)
-    if m is None:
+    found = next(((text_line, m) for text_line in clean.split("\n")
+                  if len(text_line) <= _MAX_LINE and (m := _SUM.search(text_line))), None)
+    if found is None:
         return None
+    text_line, m = found
+    outside = text_line[:m.start()] + " " + text_line[m.end():]
+    if re.search(r"[\d*/^]", outside):          # '0.7071 2**3 + 0i + …': more than the sum on its line
+        raise DecodeError(f"line {clean.split(chr(10)).index(text_line) + 1}: '{text_line.strip()[:40]}' holds more"
+                          " than a quaternion written as a sum; Framewright will not guess which part it is")
     parts: dict[str, float] = {}
     for term in _SUM_TERM.finditer(m.group()):
         value = float(term.group("value")) * (-1.0 if term.group("sign") == "-" else 1.0)

@@ -97,8 +97,12 @@ def pose_readings(poses: list[PoseText], hints: DecodeHints, notes: list[str]) -
         text = " ".join(repr(float(v)) for v in pose.rotation)
         readings = readings_from_numbers(parse_numbers(text), merged)
         scored = []
+        user = {k for k, v in hints.__dict__.items() if v is not None}
         for r in readings:
             score, why = r.score, r.why
+            for key, said in (("sequence", "sequence given"), ("units", "units given"), ("kind", "kind given")):
+                if key in pose.fixed and key not in user:
+                    why = why.replace(said, f"{key} fixed by the {pose.layout.split(' (')[0]}")
             for wanted, points, reason in pose.prefer:
                 if all(r.conventions.get(k) == v for k, v in wanted.items()):
                     score, why = score + points, f"{reason}; {why}"
