@@ -11,6 +11,23 @@ from core.errors import DecodeError
 from core.decode.clues import _Clues
 from core.decode.hints import DecodeHints
 
+# Every ranking bonus in one table: the points a candidate earns (or loses) for each kind of evidence.
+# Readers of the numbers: a unit norm, a largest first or last element, an axis of unit length are what the
+# values say; "the text ..." entries are what the words say; named numbers (w = …, axis = …) say the most.
+POINTS = {
+    "matrix direction named": 2.0,          # 'body to reference', 'DCM', 'C_b^n'
+    "unit quaternion": 1.0, "near unit quaternion": 0.3, "far from unit": -1.5,
+    "largest first or last": 1.0, "w first by default": 0.2,
+    "jpl offered last": -3.0, "order named": 2.0, "jpl named": 6.0,
+    "unit axis": 1.0, "near unit axis": -1.5, "far from unit axis": -2.5,
+    "angle beyond one": 2.5, "four numbers of unit norm": -1.0, "angle written first": 3.5,
+    "proper Euler middle outside 0..180": -0.7, "Tait-Bryan middle beyond 90": -1.0,
+    "rotation vector prior": 0.9,
+}
+# The text names the kind ('quaternion', 'axis-angle', 'yaw', 'rvec'), and numbers named as that kind
+TEXT_NAMES_KIND = {"quaternion": 1.5, "axis-angle": 1.5, "angles": 1.0, "rotation-vector": 3.0}
+NAMED_NUMBERS = {"quaternion": 1.0, "axis-angle": 3.0, "rotation-vector": 3.0}
+
 _TWO_PI = 2 * math.pi
 _MAX_MAGNITUDE = 1e9
 _NEAR_LOCK_DEG = 5.0
@@ -89,7 +106,7 @@ def _matrix_candidates(values, parsed, hints, clues, keyed):
         if clues.transposed is None:
             c.plus(0.0, "as written and transposed are equally likely: the text does not say which")
         elif clues.transposed == transposed:
-            c.plus(2.0, clues.transposed_reason)
+            c.plus(POINTS["matrix direction named"], clues.transposed_reason)
         else:
             c.plus(0.0, f"the other direction: {clues.transposed_reason}")
         if report.band != "exact":
@@ -128,27 +145,27 @@ def _four_candidates(values, parsed, hints, clues, keyed):
                 "JPL convention: the inverse of the Hamilton reading" if jpl else "Hamilton")
         c = _Candidate("quaternion", conventions, make, label)
         if unit_like:
-            c.plus(1.0, f"norm {norm:.6g}: a unit quaternion")
+            c.plus(POINTS["unit quaternion"], f"norm {norm:.6g}: a unit quaternion")
         elif abs(norm - 1.0) < 0.05:
-            c.plus(0.3, f"norm {norm:.6g}: close to 1")
+            c.plus(POINTS["near unit quaternion"], f"norm {norm:.6g}: close to 1")
         else:
-            c.plus(-1.5, f"norm {norm:.6g} is far from 1")
+            c.plus(POINTS["far from unit"], f"norm {norm:.6g} is far from 1")
         if fixed_order:
-            c.plus(0.0 if jpl else 1.0, keyed.note)
+            c.plus(0.0 if jpl else NAMED_NUMBERS["quaternion"], keyed.note)
         elif not jpl:
             if order == "wxyz" and first_largest:
-                c.plus(1.0, "the first number is the largest in magnitude: likely w first")
+                c.plus(POINTS["largest first or last"], "the first number is the largest in magnitude: likely w first")
             elif order == "xyzw" and last_largest:
-                c.plus(1.0, "the last number is the largest in magnitude: likely w last")
+                c.plus(POINTS["largest first or last"], "the last number is the largest in magnitude: likely w last")
             elif order == "wxyz" and not last_largest:
-                c.plus(0.2, "w first is the default order")
+                c.plus(POINTS["w first by default"], "w first is the default order")
         if jpl:
-            c.plus(-3.0, "the JPL convention is offered last, never assumed")
+            c.plus(POINTS["jpl offered last"], "the JPL convention is offered last, never assumed")
         tag = "jpl" if jpl else order
         if clues.order == tag:
-            c.plus(6.0 if jpl else 2.0, "the text names this order")
+            c.plus(POINTS["jpl named"] if jpl else POINTS["order named"], "the text names this order")
         if "quaternion" in clues.kinds:
-            c.plus(1.5, "the text says quaternion")
+            c.plus(TEXT_NAMES_KIND["quaternion"], "the text says quaternion")
         out.append(c)
     if hints.order:
         if fixed_order:   # names decide the order; the hint can still choose Hamilton or JPL
@@ -184,21 +201,22 @@ def _axis_angle_candidates(order, axis, angle, hints, clues, keyed, unit_like):
                        else f"axis (x, y, z) and angle in {_unit_word(units)}")
         c.plus(points, unit_reason)
         if abs(axis_length - 1.0) < 1e-3:
-            c.plus(1.0, "the axis numbers have unit length, as an axis has")
+            c.plus(POINTS["unit axis"], "the axis numbers have unit length, as an axis has")
         else:
-            c.plus(-1.5 if 0.5 < axis_length < 2 else -2.5, f"the axis has length {axis_length:.6g}, not 1")
+            c.plus(POINTS["near unit axis"] if 0.5 < axis_length < 2 else POINTS["far from unit axis"],
+                   f"the axis has length {axis_length:.6g}, not 1")
             if angle_first:
                 c.notes.append(f"the axis (length {axis_length:.6g}) was scaled to unit length")
         if abs(angle) > 1.0 + 1e-9:
-            c.plus(2.5, f"the angle ({angle:g}) is beyond ±1: an angle, not a quaternion part")
+            c.plus(POINTS["angle beyond one"], f"the angle ({angle:g}) is beyond ±1: an angle, not a quaternion part")
         elif unit_like:
-            c.plus(-1.0, "the four numbers have unit norm, as a quaternion has")
+            c.plus(POINTS["four numbers of unit norm"], "the four numbers have unit norm, as a quaternion has")
         if keyed and keyed.kind == "axis-angle":
-            c.plus(3.0, keyed.note)
+            c.plus(NAMED_NUMBERS["axis-angle"], keyed.note)
         if "axis-angle" in clues.kinds:
-            c.plus(1.5, "the text says axis and angle")
+            c.plus(TEXT_NAMES_KIND["axis-angle"], "the text says axis and angle")
         if angle_first:
-            c.plus(3.5, "the text writes the angle before the axis")
+            c.plus(POINTS["angle written first"], "the text writes the angle before the axis")
         out.append(c)
     return out
 
@@ -238,11 +256,13 @@ def _three_candidates(values, parsed, hints, clues, keyed):
             c.plus(prior, why).plus(points, unit_reason)
             middle = math.degrees(v[1]) if units == "rad" else float(v[1])
             if is_proper_euler(sequence) and not 0 <= middle <= 180:
-                c.plus(-0.7, "middle angle outside 0..180°, unusual for proper Euler angles")
+                c.plus(POINTS["proper Euler middle outside 0..180"],
+                       "middle angle outside 0..180°, unusual for proper Euler angles")
             elif not is_proper_euler(sequence) and abs(middle) > 90:
-                c.plus(-1.0, "middle angle beyond ±90°, unusual for Tait-Bryan angles")
+                c.plus(POINTS["Tait-Bryan middle beyond 90"],
+                       "middle angle beyond ±90°, unusual for Tait-Bryan angles")
             if "angles" in clues.kinds:
-                c.plus(1.0, "the text says angles")
+                c.plus(TEXT_NAMES_KIND["angles"], "the text says angles")
             out.append(c)
     sequence_named = bool(hints.sequence or clues.sequence or (keyed and keyed.kind == "angles"))
     if not sequence_named or (keyed and keyed.kind == "rotation-vector"):
@@ -250,11 +270,11 @@ def _three_candidates(values, parsed, hints, clues, keyed):
             c = _Candidate("rotation-vector", {"units": units},
                            lambda u=units: Orientation.from_rotation_vector(v, degrees=(u == "deg")),
                            f"rotation vector in {_unit_word(units)} (axis times angle)")
-            c.plus(0.9, "").plus(points, unit_reason)
+            c.plus(POINTS["rotation vector prior"], "").plus(points, unit_reason)
             if keyed and keyed.kind == "rotation-vector":
-                c.plus(3.0, keyed.note)
+                c.plus(NAMED_NUMBERS["rotation-vector"], keyed.note)
             if "rotation-vector" in clues.kinds:
-                c.plus(3.0, "the text says rotation vector")
+                c.plus(TEXT_NAMES_KIND["rotation-vector"], "the text says rotation vector")
             out.append(c)
     if keyed and keyed.kind == "rotation-vector":
         out = [c for c in out if c.kind == "rotation-vector"]
