@@ -29,6 +29,12 @@ Example header::
 
     name,nominal_qw,nominal_qx,nominal_qy,nominal_qz,measured_angle1[XYZ extrinsic deg],measured_angle2,measured_angle3
 
+An optional column ``uncertainty_deg`` gives each row's standard uncertainty u of the measured orientation
+(degrees, 0 to 180, a number in every row), taken as the standard uncertainty of every figure judged. Rows
+are then also decided by ISO 14253-1 (see core/decision.py): with U = k·u (coverage k, default 2) a row
+*conforms* when its margin is at least U, *does not conform* when its margin is below −U, and otherwise
+the measurement *cannot decide*.
+
 Conventions can also be passed in (`SetConventions`) for a file whose header has none; a passed-in value
 that contradicts the header is refused, never silently preferred. Other columns (serial, notes) are
 ignored and named in the table's notes; an unknown ``nominal_``/``measured_`` column is refused (a typo).
@@ -41,7 +47,7 @@ judged pass or fail. Line endings may be LF, CR LF or a bare CR.
 
 Output file
 -----------
-``name,total_deviation_deg,deviation_axis_x,deviation_axis_y,deviation_axis_z[,pointing_error_deg,roll_deg],result,margin_deg,problem``
+``name,total_deviation_deg,deviation_axis_x,deviation_axis_y,deviation_axis_z[,pointing_error_deg,roll_deg],result,margin_deg[,uncertainty_deg,decision],problem``
 with the deviation D = Nᵀ M and its axis in the nominal body frame, the pointing error and roll of the
 chosen body axis when one is set, ``pass``/``fail`` and the margin (tolerance − value, the smallest of
 the criteria) under the CheckSettings given (see core/check.py); an error row has empty figures, ``error``
@@ -64,11 +70,14 @@ import numpy as np
 from core import kernels
 from core.check import ROUNDING_ALLOWANCE_DEG, CheckSettings, deviation_angles, deviation_axes, deviation_quaternions, swing_twist_angles
 from core.csv_cells import spreadsheet_safe
+from core.decision import CANNOT_DECIDE, CONFORMS, DEFAULT_COVERAGE, DOES_NOT_CONFORM
 from core.errors import FramewrightError, InvalidInputError, SequenceError
 from core.nearest import WARNING_LIMIT, orthogonality_report
 from core.sequences import parse_sequence
 
 CHUNK_ROWS = 50_000
+UNCERTAINTY_COLUMN = "uncertainty_deg"
+MAX_UNCERTAINTY_DEG = 180.0
 
 REPRESENTATIONS = {
     "quaternion": ("qw", "qx", "qy", "qz"),
@@ -152,6 +161,7 @@ class MountTable:
     sets: tuple             # (nominal ColumnSet, measured ColumnSet)
     notes: tuple = ()
     problems: tuple = ()    # RowProblem of every error row (its quaternions are placeholders, never judged)
+    uncertainty: np.ndarray | None = None   # (N,) standard uncertainty in degrees, when the file has the column
 
     def error_rows(self):
         """(N,) True where the row is in error."""
@@ -173,6 +183,15 @@ class BatchResult:
     notes: tuple = ()
     problems: tuple = ()          # RowProblem per error row; their figures are NaN and passed is False
     error: np.ndarray | None = None   # (N,) True where the row is in error (None: no error rows)
+    uncertainty_deg: np.ndarray | None = None   # (N,) u per row, when the file gives it
+    coverage: float = DEFAULT_COVERAGE
+    decision: tuple | None = None  # ISO 14253-1 outcome per row ('' for error rows), with an uncertainty
+
+    def decision_counts(self):
+        """{outcome: rows} of the decided rows (empty without an uncertainty column)."""
+        if self.decision is None:
+            return {}
+        return {o: self.decision.count(o) for o in (CONFORMS, DOES_NOT_CONFORM, CANNOT_DECIDE)}
 
     def error_mask(self):
         return np.zeros(len(self.names), dtype=bool) if self.error is None else self.error
@@ -298,7 +317,13 @@ def _read_header(header, nominal, measured):
                              column=first or None)
     fields = {role: {} for role in ROLES}
     ignored = []
+    uncertainty = None
     for index, cell in enumerate(header[1:], start=1):
+        if cell.strip().lower() == UNCERTAINTY_COLUMN:
+            if uncertainty is not None:
+                raise BatchFileError(f"line 1: the column {UNCERTAINTY_COLUMN!r} appears twice", line=1, column=cell)
+            uncertainty = index
+            continue
         match = _HEADER_CELL.match(cell)
         if not match:
             if cell.strip().lower().startswith(ROLES):
@@ -319,7 +344,7 @@ def _read_header(header, nominal, measured):
                                  f"{role}_qz", line=1)
     sets = (_column_set("nominal", fields["nominal"], nominal or SetConventions()),
             _column_set("measured", fields["measured"], measured or SetConventions()))
-    return sets, ignored
+    return sets, ignored, uncertainty
 
 
 # --- cells ------------------------------------------------------------------------------------------
@@ -583,10 +608,10 @@ def read_mounts(text, nominal=None, measured=None, progress=None):
     if len(first_line) > MAX_HEADER_CHARS:
         _check_line_lengths(first_line, None)
     header = next(csv.reader([first_line]), [])
-    sets, ignored = _read_header(header, nominal, measured)
+    sets, ignored, uncertainty_index = _read_header(header, nominal, measured)
     _check_line_lengths(text, header)
     _report(progress, 0, 1, "reading")
-    numeric = [i for s in sets for i in s.indices]
+    numeric = [i for s in sets for i in s.indices] + ([uncertainty_index] if uncertainty_index else [])
     names, values, problems = _read_cells(text, header, numeric)
     if len(names) == 0:
         raise BatchFileError("the file has a header but no rows; expected one row per mount", line=2)
@@ -595,8 +620,21 @@ def read_mounts(text, nominal=None, measured=None, progress=None):
     usable = np.ones(len(names), dtype=bool)
     usable[[p.row for p in problems]] = False
     nominal_q, bad_nominal, usable = _to_quaternions(sets[0], values[:, :width], usable, notes)
-    measured_q, bad_measured, usable = _to_quaternions(sets[1], values[:, width:], usable, notes)
+    measured_q, bad_measured, usable = _to_quaternions(sets[1], values[:, width:width + len(sets[1].indices)],
+                                                       usable, notes)
     found = {**bad_measured, **bad_nominal}
+    uncertainty = None
+    if uncertainty_index:
+        uncertainty = values[:, -1].copy()
+        bad_u = usable & ~((uncertainty >= 0) & (uncertainty <= MAX_UNCERTAINTY_DEG))
+        lines = _row_lines(text) if bad_u.any() else []
+        for row in np.flatnonzero(bad_u):
+            if row not in found:
+                problems.append(RowProblem(int(row), lines[row], header[uncertainty_index],
+                                           f"{_where(lines[row], row, names[row])}, column {header[uncertainty_index]!r}:"
+                                           f" {uncertainty[row]:g} is not a standard uncertainty; expected 0 to"
+                                           f" {MAX_UNCERTAINTY_DEG:g} degrees"))
+        uncertainty[~usable | bad_u] = np.nan
     if found:
         lines = _row_lines(text)
         for row, what in found.items():
@@ -605,13 +643,14 @@ def read_mounts(text, nominal=None, measured=None, progress=None):
                                        f"{_where(lines[row], row, names[row])}, {what}"))
     _report(progress, 1, 1, "reading")
     return MountTable(names, nominal_q, measured_q, sets, tuple(notes),
-                      tuple(sorted(problems, key=lambda p: p.row)))
+                      tuple(sorted(problems, key=lambda p: p.row)), uncertainty)
 
 
 # --- deviations -------------------------------------------------------------------------------------
 
-def compute_deviations(table, settings=CheckSettings(), progress=None):
-    """Deviation of every row under `settings` (vectorised; chunked only to report progress)."""
+def compute_deviations(table, settings=CheckSettings(), progress=None, coverage=DEFAULT_COVERAGE):
+    """Deviation of every row under `settings` (vectorised; chunked only to report progress); with an
+    uncertainty column, the ISO 14253-1 decision of every row with expanded uncertainty U = coverage·u."""
     n = len(table.names)
     axis = settings.axis_vector()
     total = np.empty(n)
@@ -648,8 +687,22 @@ def compute_deviations(table, settings=CheckSettings(), progress=None):
     for f in figures:
         f[error] = np.nan
     passed = (margin >= -ROUNDING_ALLOWANCE_DEG) & ~error
+    decision = None
+    if table.uncertainty is not None:
+        coverage = _coverage(coverage)
+        expanded = coverage * table.uncertainty
+        outcome = np.where(margin >= expanded - ROUNDING_ALLOWANCE_DEG, CONFORMS,
+                           np.where(margin < -expanded - ROUNDING_ALLOWANCE_DEG, DOES_NOT_CONFORM, CANNOT_DECIDE))
+        decision = tuple(np.where(error, "", outcome).tolist())
     return BatchResult(table.names, total, dev_axis, pointing, roll, passed, margin, settings, table.notes,
-                       tuple(sorted(problems, key=lambda p: p.row)), error if error.any() else None)
+                       tuple(sorted(problems, key=lambda p: p.row)), error if error.any() else None,
+                       table.uncertainty, coverage, decision)
+
+
+def _coverage(k):
+    if isinstance(k, bool) or not isinstance(k, (int, float)) or not np.isfinite(k) or not 1 <= k <= 10:
+        raise InvalidInputError(f"coverage factor: expected a number from 1 to 10 (usually 2), got {k!r}")
+    return float(k)
 
 
 
@@ -669,26 +722,34 @@ def write_results(result, decimals=9, progress=None):
         columns += ["pointing_error_deg", "roll_deg"]
         arrays += [result.pointing_deg, result.roll_deg]
     number = f"%.{int(decimals)}f"
-    row_format = "%s," + ",".join([number] * len(arrays)) + ",%s," + number + ","
+    decided = result.decision is not None
+    row_format = "%s," + ",".join([number] * len(arrays)) + ",%s," + number + (f",{number},%s," if decided else ",")
     verdict = result.verdicts()
     names = [_quote(n) for n in result.names]
     problems = result.problem_texts()
-    blank = "," * len(arrays) + ",error,,"
-    lines = [",".join(["name"] + columns + ["result", "margin_deg", "problem"])]
+    blank = "," * len(arrays) + ",error,," + (",," if decided else "")
+    lines = [",".join(["name"] + columns + ["result", "margin_deg"] + (["uncertainty_deg", "decision"] if decided
+                                                                         else []) + ["problem"])]
     n = len(names)
     for start in range(0, n, CHUNK_ROWS):
         stop = min(start + CHUNK_ROWS, n)
         # Rounding first and adding 0.0 turns tiny negatives into 0.0, so no "-0.000000000" is written.
         cols = [(np.round(a[start:stop], decimals) + 0.0).tolist() for a in arrays + [result.margin_deg]]
-        lines.extend(map(row_format.__mod__, zip(names[start:stop], *cols[:-1], verdict[start:stop], cols[-1])))
+        extra = []
+        if decided:
+            extra = [(np.round(result.uncertainty_deg[start:stop], decimals) + 0.0).tolist(),
+                     list(result.decision[start:stop])]
+        lines.extend(map(row_format.__mod__, zip(names[start:stop], *cols[:-1], verdict[start:stop], cols[-1],
+                                                  *extra)))
         for row in (r for r in problems if start <= r < stop):
             lines[1 + row] = names[row] + blank + _quote(problems[row])
         _report(progress, stop, n, "writing")
     return "\n".join(lines) + "\n"
 
 
-def run_batch(text, settings=CheckSettings(), nominal=None, measured=None, progress=None, decimals=9):
+def run_batch(text, settings=CheckSettings(), nominal=None, measured=None, progress=None, decimals=9,
+              coverage=DEFAULT_COVERAGE):
     """CSV text in, (BatchResult, results CSV text) out."""
     table = read_mounts(text, nominal, measured, progress)
-    result = compute_deviations(table, settings, progress)
+    result = compute_deviations(table, settings, progress, coverage)
     return result, write_results(result, decimals, progress)

@@ -13,7 +13,7 @@ from core.decode.poses import values_in
 from core.errors import DecodeError
 
 _MAX_FIELDS = 2000
-_KEY_LINE = re.compile(r"""^(?P<indent>[ ]*)(?P<dash>-[ ]+)?["']?(?P<key>[A-Za-z_][\w.\-/]{0,60}"""
+_KEY_LINE = re.compile(r"""^(?P<indent>[ ]*)(?P<dash>-[ ]+)?["']?(?P<key>[A-Za-z_][\w.\-/]{0,120}"""
                        r"""(?:[ ][A-Za-z_][\w]{0,20}){0,3}(?:[ ]?[(\[][^()\[\]\n]{0,30}[)\]])?)["']?"""
                        r"""[ ]*(?::(?!:)|=(?!=))[ ]*(?P<rest>.*)$""")
 _HAS_DIGIT = re.compile(r"\d")

@@ -48,7 +48,13 @@ def keyed_poses(text: str) -> list[PoseText] | None:
         lowered = tuple(p.lower() for p in f.path)
         for depth in range(len(lowered)):        # every enclosing group, so 'pose:' sees its 'position:'
             groups.setdefault(lowered[:depth], {})
-        groups.setdefault(lowered, {})[_bare(f.name)] = f
+        group = groups.setdefault(lowered, {})
+        key = _bare(f.name)
+        if key in group:    # two values for one key: reading either would drop the other unseen
+            where = f" under '{'.'.join(f.path)[:60]}'" if f.path else ""
+            raise DecodeError(f"line {f.line}: '{f.key[:40]}'{where} is written twice (lines {group[key].line} and"
+                              f" {f.line}); Framewright will not guess which one is meant")
+        group[key] = f
     poses: list[PoseText] = []
     used: set[int] = set()
     for path, group in groups.items():
