@@ -1,14 +1,18 @@
-"""Poses and transforms as they arrive from open datasets, description files, command lines and library
-printouts, each with the orientation a technician means.
+"""Poses and transforms in the layouts of open datasets' files, description files, command lines and
+library printouts, each with the orientation a technician means.
 
 Every `expected` rotation is built with SciPy's `Rotation` from the parameters the source itself gives
 (from_matrix of the printed matrix after an SVD polar factor computed here, from_quat, from_euler,
 from_rotvec), never with Framewright's core. Meaning of a pose (CONVENTIONS.md): the child frame is the
 body, the parent frame the reference, R maps child-frame vectors into the parent (v_parent = R v_child + t).
 
-Sources: where a case carries values of an open dataset the dataset, file and licence are named in its
-`source`; those values were recalled from memory and checked here only for being orthonormal (or unit) to
-their printed digits. All other values are invented, in the layout of the named format documentation.
+Sources: every `source` names the format documentation whose layout the snippet imitates (a dataset's
+devkit readme or schema, a message definition, a library's documentation). The values are invented unless
+the source says otherwise: the calibration values in the layouts of open datasets were generated with
+SciPy's `Rotation` from invented angles (noted beside them) and printed to the layout's digits; they are
+never the datasets' own values.
+The exceptions are named in their `source`: one TUM RGB-D ground-truth row (CC BY 4.0, attributed,
+recalled from memory) and the examples quoted from the tf2, tf and SciPy documentation.
 `tolerance` (radians) follows the print precision of the snippet: 1e-6 where the source parameters are
 the printed numbers, larger where the text rounds a more precise source.
 """
@@ -82,45 +86,66 @@ def fmt(values, spec: str) -> str:
 ECHO_KINDS = ("quaternion", "angles", "matrix")   # a transform echo block gives all three
 
 # ---------------------------------------------------------------------------------------------------
-# Open dataset values (recalled from memory; each is orthonormal to ~1e-7, the printed digits)
+# Invented calibration values in the layouts of open datasets' files (never the datasets' own values).
+# Each rotation is M · F, printed to the digits the layout uses: M = SciPy Rotation.from_euler('xyz',
+# <the misalignment noted>, degrees=True), F the frame change such files typically show:
+#   lidar to camera  [[0, -1, 0], [0, 0, -1], [1, 0, 0]]  (lidar x forward, y left, z up; camera optical)
+#   camera to body   [[0, -1, 0], [1, 0, 0], [0, 0, 1]]   (camera x along body y, camera y along body -x)
+# Translations and projection rows are invented at a plausible size.
 # ---------------------------------------------------------------------------------------------------
-KITTI_IMU_TO_VELO_R = [9.999976e-01, 7.553071e-04, -2.035826e-03, -7.854027e-04, 9.998898e-01, -1.482298e-02,
-                       2.024406e-03, 1.482454e-02, 9.998881e-01]
-KITTI_IMU_TO_VELO_T = [-8.086759e-01, 3.195559e-01, -7.997231e-01]
-KITTI_VELO_TO_CAM_R = [7.533745e-03, -9.999714e-01, -6.166020e-04, 1.480249e-02, 7.280733e-04, -9.998902e-01,
-                       9.998621e-01, 7.523790e-03, 1.480755e-02]
-KITTI_VELO_TO_CAM_T = [-4.069766e-03, -7.631618e-02, -2.717806e-01]
-KITTI_ODOMETRY_00_TR = [4.276802385584e-04, -9.999672484946e-01, -8.084491683471e-03, -1.198459927713e-02,
-                        -7.210626507497e-03, 8.081198471645e-03, -9.999413164504e-01, -5.403984729748e-02,
-                        9.999738645903e-01, 4.859485810390e-04, -7.206933692422e-03, -2.921968648686e-01]
-KITTI_ODOMETRY_00_P0 = [7.188560e+02, 0, 6.071928e+02, 0, 0, 7.188560e+02, 1.852157e+02, 0, 0, 0, 1, 0]
-KITTI_ODOMETRY_00_P1 = [7.188560e+02, 0, 6.071928e+02, -3.861448e+02, 0, 7.188560e+02, 1.852157e+02, 0, 0, 0, 1, 0]
-KITTI_POSES_00_LINE2 = [9.999978e-01, 5.272628e-04, -2.066935e-03, -4.690294e-02, -5.296506e-04, 9.999992e-01,
-                        -1.154865e-03, -2.839928e-02, 2.066324e-03, 1.155958e-03, 9.999971e-01, 8.586941e-01]
-KITTI_OBJECT_P2 = [7.070493e+02, 0, 6.040814e+02, 4.575831e+01, 0, 7.070493e+02, 1.805066e+02, -3.454157e-01,
-                   0, 0, 1, 4.981016e-03]
-KITTI_OBJECT_R0_RECT = [9.999128e-01, 1.009263e-02, -8.511932e-03, -1.012729e-02, 9.999406e-01, -4.037671e-03,
-                        8.470675e-03, 4.123522e-03, 9.999556e-01]
-KITTI_OBJECT_TR_VELO_TO_CAM = [6.927964e-03, -9.999722e-01, -2.757829e-03, -2.457729e-02, -1.162982e-03,
-                               2.749836e-03, -9.999955e-01, -6.127237e-02, 9.999753e-01, 6.931141e-03,
-                               -1.143899e-03, -3.321029e-01]
+# misalignment (-0.62, 0.21, -0.09) deg, no frame change; 7 significant digits as %e prints them
+KITTI_IMU_TO_VELO_R = [9.999920e-01, 1.531043e-03, 3.681961e-03, -1.570785e-03, 9.999403e-01, 1.081506e-02,
+                       -3.665183e-03, -1.082076e-02, 9.999347e-01]
+KITTI_IMU_TO_VELO_T = [-8.532146e-01, 2.874613e-01, -7.615832e-01]
+# misalignment (0.55, -0.31, 0.27) deg, lidar to camera
+KITTI_VELO_TO_CAM_R = [-5.364950e-03, -9.999743e-01, 4.764090e-03, -9.624552e-03, -4.712303e-03, -9.999426e-01,
+                       9.999393e-01, -5.410494e-03, -9.599023e-03]
+KITTI_VELO_TO_CAM_T = [-1.183247e-02, -6.847519e-02, -2.904163e-01]
+# misalignment (-0.38, 0.46, 0.02) deg, lidar to camera; 13 significant digits
+KITTI_ODOMETRY_TR = [8.025936174307e-03, -9.999677107286e-01, 4.023043255562e-04, -1.052317483906e-02,
+                        6.635004520224e-03, -3.490545934940e-04, -9.999779271943e-01, -6.238519407712e-02,
+                        9.999457790618e-01, 8.028428310397e-03, 6.631988790873e-03, -3.187402215563e-01]
+# projection rows: focal length, principal point, and -focal * 0.5372 m baseline for the second camera
+KITTI_ODOMETRY_P0 = [7.071238e+02, 0, 6.019846e+02, 0, 0, 7.071238e+02, 1.838517e+02, 0, 0, 0, 1, 0]
+KITTI_ODOMETRY_P1 = [7.071238e+02, 0, 6.019846e+02, -3.798669e+02, 0, 7.071238e+02, 1.838517e+02, 0, 0, 0, 1, 0]
+# a small step: (0.07, -0.11, 0.035) deg
+KITTI_POSES_LINE = [9.999980e-01, -6.132103e-04, -1.919113e-03, -4.218735e-02, 6.108641e-04, 9.999991e-01,
+                        -1.222903e-03, -2.517306e-02, 1.919861e-03, 1.221728e-03, 9.999974e-01, 8.342619e-01]
+KITTI_OBJECT_P2 = [7.103418e+02, 0, 6.087532e+02, 4.431726e+01, 0, 7.103418e+02, 1.791268e+02, 2.917354e-01,
+                   0, 0, 1, 2.813467e-03]
+# misalignment (0.24, -0.47, 0.58) deg, no frame change
+KITTI_OBJECT_R0_RECT = [9.999151e-01, -1.015701e-02, -8.160061e-03, 1.012240e-02, 9.999396e-01, -4.271599e-03,
+                        8.202955e-03, 4.188637e-03, 9.999576e-01]
+# misalignment (0.16, 0.41, -0.33) deg, lidar to camera
+KITTI_OBJECT_TR_VELO_TO_CAM = [7.139559e-03, -9.999578e-01, -5.779515e-03, -2.013846e-02, -2.833691e-03,
+                               5.759407e-03, -9.999794e-01, -7.482157e-02, 9.999705e-01, 7.155789e-03,
+                               -2.792452e-03, -3.016724e-01]
 KITTI_OBJECT_TR_IMU_TO_VELO = KITTI_IMU_TO_VELO_R[0:3] + [KITTI_IMU_TO_VELO_T[0]] + KITTI_IMU_TO_VELO_R[3:6] + [
     KITTI_IMU_TO_VELO_T[1]] + KITTI_IMU_TO_VELO_R[6:9] + [KITTI_IMU_TO_VELO_T[2]]
-EUROC_CAM0_T_BS = [0.0148655429818, -0.999880929698, 0.00414029679422, -0.0216401454975,
-                   0.999557249008, 0.0149672133247, 0.025715529948, -0.064676986768,
-                   -0.0257744366974, 0.00375618835797, 0.999660727178, 0.00981073058949,
+# misalignments (-0.34, 1.21, 0.63) and (0.58, 1.07, 0.94) deg, camera to body; 12 significant digits
+EUROC_CAM0_T_BS = [-0.0111204611108, -0.999716575867, 0.021050018545, -0.0231846702153,
+                   0.999920565688, -0.0109929009037, 0.00616590974212, -0.0617203954786,
+                   -0.00593276140662, 0.0211169142107, 0.999759410196, 0.0118364812397,
                    0.0, 0.0, 0.0, 1.0]
-EUROC_CAM1_T_BS = [0.0125552670891, -0.999755099723, 0.0182237714554, -0.0198435579556,
-                   0.999598781151, 0.0130119051815, 0.0251588363115, 0.0453689425024,
-                   -0.0253898008918, 0.0179005838253, 0.999517347078, 0.00786212447038,
+EUROC_CAM1_T_BS = [-0.0162155125382, -0.999691073335, 0.0188365349055, -0.0184263571904,
+                   0.999817294852, -0.0164024983468, -0.00981503753488, 0.0482137465821,
+                   0.0101209716407, 0.0186739375094, 0.999774399548, 0.00693158247716,
                    0.0, 0.0, 0.0, 1.0]
+# misalignment (0.31, -0.22, 0.47) deg, camera optical to vehicle (x forward, y left, z up):
+# [[0, 0, 1], [-1, 0, 0], [0, -1, 0]]; quaternion w, x, y, z as SciPy prints it
+NUSC_CAM_FRONT_Q = [0.5043572972596415, -0.49973545145446896, 0.4983418717105526, -0.4975375103050734]
+# misalignment (0.93, -0.58, 0.21) deg, -90 deg about z; quaternion w, x, y, z
+NUSC_LIDAR_TOP_Q = [0.7083980231802767, 0.009313469618897965, 0.0021768028738638565, -0.705748369865055]
 
-KITTI_RAW = "KITTI raw 2011_09_26 {} (CC BY-NC-SA 3.0; layout of the KITTI raw data devkit readme)"
-KITTI_ODO = "KITTI odometry sequence 00 {} (CC BY-NC-SA 3.0; layout of the KITTI odometry devkit readme)"
-KITTI_OBJ = "KITTI object training calib/000000.txt (CC BY-NC-SA 3.0; layout of the KITTI object devkit readme)"
-EUROC = "EuRoC MAV dataset MH_01_easy {} (licence as published by its authors; layout of the dataset's paper)"
-TUM = "TUM RGB-D freiburg1_xyz groundtruth.txt (CC BY 4.0; layout of the TUM RGB-D file formats page)"
-NUSC = ("nuScenes v1.0 calibrated_sensor.json, {} (CC BY-NC-SA 4.0; schema_nuscenes.md documents"
+KITTI_RAW = "invented values in the layout of KITTI raw data {} (the KITTI raw data devkit readme)"
+KITTI_ODO = "invented values in the layout of KITTI odometry {} (the KITTI odometry devkit readme)"
+KITTI_OBJ = "invented values in the layout of a KITTI object calib/*.txt file (the KITTI object devkit readme)"
+EUROC = "invented values in the layout of EuRoC MAV {} (the file description in the dataset's paper)"
+# The TUM RGB-D benchmark (Sturm et al., IROS 2012; citation from memory) publishes its data under CC BY 4.0;
+# this row's values are recalled from memory and kept with the attribution below.
+TUM = ("TUM RGB-D freiburg1_xyz groundtruth.txt, first row (CC BY 4.0, TUM Computer Vision Group;"
+       " layout of the TUM RGB-D file formats page)")
+NUSC = ("invented values in the layout of a nuScenes calibrated_sensor.json {} (schema_nuscenes.md documents"
         " 'rotation' as w, x, y, z and translation in metres)")
 
 
@@ -173,17 +198,18 @@ HOMOGENEOUS = [
              " text says otherwise)",
              "model matrix (column-major): 0 1 0 0  -1 0 0 0  0 0 1 0  0.5 0.25 2 1",
              mat([[0, -1, 0], [1, 0, 0], [0, 0, 1]]), (0.5, 0.25, 2.0), None, "matrix"),
+    # invented: a camera 52.3 deg about x at 4.031128874 from the origin, stored as float32 values
     PoseCase("transforms-json-frame", "homogeneous-4x4",
              "invented values in the layout of a transforms.json camera file (camera_angle_x, frames with"
              " file_path, a scalar 'rotation' and a 4x4 'transform_matrix')",
-             '{\n  "camera_angle_x": 0.6911112070083618,\n  "frames": [\n    {\n      "file_path": "./train/r_0",\n'
-             '      "rotation": 0.012566370614359171,\n      "transform_matrix": [\n'
-             '        [-1.0, 0.0, 0.0, 0.0],\n        [0.0, -0.7343225094356857, 0.6788007455329417, 2.737260103225708],\n'
-             '        [0.0, 0.6788007455329417, 0.7343225094356857, 2.959291696548462],\n'
+             '{\n  "camera_angle_x": 0.7302438616752625,\n  "frames": [\n    {\n      "file_path": "./train/r_0",\n'
+             '      "rotation": 0.031415926535897934,\n      "transform_matrix": [\n'
+             '        [-1.0, 0.0, 0.0, 0.0],\n        [0.0, -0.6115270256996155, 0.7912235260009766, 3.189523935317993],\n'
+             '        [0.0, 0.7912235260009766, 0.6115270256996155, 2.465144157409668],\n'
              '        [0.0, 0.0, 0.0, 1.0]\n      ]\n    }\n  ]\n}',
-             mat([[-1, 0, 0], [0, -0.7343225094356857, 0.6788007455329417],
-                  [0, 0.6788007455329417, 0.7343225094356857]]),
-             (0.0, 2.737260103225708, 2.959291696548462), None, "matrix"),
+             mat([[-1, 0, 0], [0, -0.6115270256996155, 0.7912235260009766],
+                  [0, 0.7912235260009766, 0.6115270256996155]]),
+             (0.0, 3.189523935317993, 2.465144157409668), None, "matrix"),
     PoseCase("scipy-as-matrix-4x4-style", "homogeneous-4x4",
              "invented: extrinsic xyz (5, -3, 120) deg; numpy printing with 8 decimals",
              "array([[-0.49931477, -0.86044923,  0.10154749,  1.5       ],\n"
@@ -198,11 +224,11 @@ HOMOGENEOUS = [
 # ---------------------------------------------------------------------------------------------------
 RT_3X4 = [
     PoseCase("kitti-odometry-tr", "rt-3x4", KITTI_ODO.format("calib.txt, line Tr"),
-             "Tr: " + fmt(KITTI_ODOMETRY_00_TR, ".12e"),
-             mat(KITTI_ODOMETRY_00_TR, 4), tuple(KITTI_ODOMETRY_00_TR[3::4]), None, "matrix"),
+             "Tr: " + fmt(KITTI_ODOMETRY_TR, ".12e"),
+             mat(KITTI_ODOMETRY_TR, 4), tuple(KITTI_ODOMETRY_TR[3::4]), None, "matrix"),
     PoseCase("kitti-poses-line", "rt-3x4", KITTI_ODO.format("poses/00.txt, second line (camera 0 pose)"),
-             fmt(KITTI_POSES_00_LINE2, "e"),
-             mat(KITTI_POSES_00_LINE2, 4), tuple(KITTI_POSES_00_LINE2[3::4]), None, "matrix"),
+             fmt(KITTI_POSES_LINE, "e"),
+             mat(KITTI_POSES_LINE, 4), tuple(KITTI_POSES_LINE[3::4]), None, "matrix"),
     PoseCase("kitti-object-tr-velo-to-cam", "rt-3x4", KITTI_OBJ + ", line Tr_velo_to_cam",
              "Tr_velo_to_cam: " + fmt(KITTI_OBJECT_TR_VELO_TO_CAM, ".12e"),
              mat(KITTI_OBJECT_TR_VELO_TO_CAM, 4), tuple(KITTI_OBJECT_TR_VELO_TO_CAM[3::4]), None, "matrix"),
@@ -222,11 +248,11 @@ RT_3X4 = [
 # ---------------------------------------------------------------------------------------------------
 R_AND_T = [
     PoseCase("kitti-imu-to-velo", "r-and-t", KITTI_RAW.format("calib_imu_to_velo.txt"),
-             "calib_time: 25-May-2012 16:47:16\nR: " + fmt(KITTI_IMU_TO_VELO_R, "e") +
+             "calib_time: 07-Jun-2011 09:12:43\nR: " + fmt(KITTI_IMU_TO_VELO_R, "e") +
              "\nT: " + fmt(KITTI_IMU_TO_VELO_T, "e") + "\n",
              mat(KITTI_IMU_TO_VELO_R), tuple(KITTI_IMU_TO_VELO_T), None, "matrix"),
     PoseCase("kitti-velo-to-cam", "r-and-t", KITTI_RAW.format("calib_velo_to_cam.txt (with delta_f, delta_c)"),
-             "calib_time: 15-Mar-2012 11:37:16\nR: " + fmt(KITTI_VELO_TO_CAM_R, "e") +
+             "calib_time: 19-Apr-2011 14:05:29\nR: " + fmt(KITTI_VELO_TO_CAM_R, "e") +
              "\nT: " + fmt(KITTI_VELO_TO_CAM_T, "e") +
              "\ndelta_f: 0.000000e+00 0.000000e+00\ndelta_c: 0.000000e+00 0.000000e+00\n",
              mat(KITTI_VELO_TO_CAM_R), tuple(KITTI_VELO_TO_CAM_T), None, "matrix"),
@@ -260,8 +286,8 @@ R_AND_T = [
 # Files with several named transforms
 # ---------------------------------------------------------------------------------------------------
 _KITTI_ODOMETRY_CALIB = "\n".join([
-    "P0: " + fmt(KITTI_ODOMETRY_00_P0, ".12e"), "P1: " + fmt(KITTI_ODOMETRY_00_P1, ".12e"),
-    "Tr: " + fmt(KITTI_ODOMETRY_00_TR, ".12e")])
+    "P0: " + fmt(KITTI_ODOMETRY_P0, ".12e"), "P1: " + fmt(KITTI_ODOMETRY_P1, ".12e"),
+    "Tr: " + fmt(KITTI_ODOMETRY_TR, ".12e")])
 _KITTI_OBJECT_CALIB = "\n".join([
     "P2: " + fmt(KITTI_OBJECT_P2, ".12e"), "R0_rect: " + fmt(KITTI_OBJECT_R0_RECT, ".12e"),
     "Tr_velo_to_cam: " + fmt(KITTI_OBJECT_TR_VELO_TO_CAM, ".12e"),
@@ -345,7 +371,7 @@ projection_matrix:
 
 SEVERAL_NAMED = [
     PoseCase("kitti-odometry-calib-tr", "several-named", KITTI_ODO.format("calib.txt (P0, P1, Tr)"),
-             _KITTI_ODOMETRY_CALIB, mat(KITTI_ODOMETRY_00_TR, 4), tuple(KITTI_ODOMETRY_00_TR[3::4]), None,
+             _KITTI_ODOMETRY_CALIB, mat(KITTI_ODOMETRY_TR, 4), tuple(KITTI_ODOMETRY_TR[3::4]), None,
              "matrix", hints={"name": "Tr"}, name="Tr"),
     PoseCase("kitti-object-calib-r0-rect", "several-named", KITTI_OBJ, _KITTI_OBJECT_CALIB,
              mat(KITTI_OBJECT_R0_RECT), None, None, "matrix", hints={"name": "R0_rect"}, name="R0_rect"),
@@ -399,23 +425,24 @@ POSITION_QUATERNION = [
              xyzw(0.6132, 0.5962, -0.3311, -0.3986), (1.3563, 0.6305, 1.6380), None, "quaternion"),
     PoseCase("tum-format-estimate", "position-quaternion",
              "invented values in the TUM RGB-D trajectory layout (timestamp tx ty tz qx qy qz qw)",
-             "# timestamp tx ty tz qx qy qz qw\n1341847980.7229 -0.6832 2.6909 1.7373 0.0 0.0 0.2164396 0.9762960",
-             xyzw(0, 0, 0.2164396, 0.9762960), (-0.6832, 2.6909, 1.7373), None, "quaternion"),
+             "# timestamp tx ty tz qx qy qz qw\n1700001234.5678 -0.7415 2.5836 1.6892 0.0 0.0 0.2164396 0.9762960",
+             xyzw(0, 0, 0.2164396, 0.9762960), (-0.7415, 2.5836, 1.6892), None, "quaternion"),
+    # quaternion: SciPy from_euler('ZYX', [-118.4, 12.7, -161.3], degrees=True), w first, 6 decimals
     PoseCase("euroc-groundtruth-csv", "position-quaternion",
-             EUROC.format("mav0/state_groundtruth_estimate0/data.csv, first row"),
+             EUROC.format("mav0/state_groundtruth_estimate0/data.csv, a row of all 17 columns"),
              "#timestamp, p_RS_R_x [m], p_RS_R_y [m], p_RS_R_z [m], q_RS_w [], q_RS_x [], q_RS_y [], q_RS_z [],"
              " v_RS_R_x [m s^-1], v_RS_R_y [m s^-1], v_RS_R_z [m s^-1], b_w_RS_S_x [rad s^-1],"
              " b_w_RS_S_y [rad s^-1], b_w_RS_S_z [rad s^-1], b_a_RS_S_x [m s^-2], b_a_RS_S_y [m s^-2],"
              " b_a_RS_S_z [m s^-2]\n"
-             "1403636579758555392,4.688319,-1.786938,0.783338,0.534108,-0.153029,-0.827383,-0.082152,"
-             "-0.027876,0.033207,0.800006,-0.003172,0.021267,0.078502,-0.025266,0.136696,0.075593",
-             wxyz(0.534108, -0.153029, -0.827383, -0.082152), (4.688319, -1.786938, 0.783338), "m",
+             "1403712345678901248,3.917264,-2.264183,0.851437,0.176419,-0.486706,0.851549,-0.082814,"
+             "-0.031254,0.028471,0.761803,-0.002861,0.020934,0.076128,-0.021947,0.129813,0.069344",
+             wxyz(0.176419, -0.486706, 0.851549, -0.082814), (3.917264, -2.264183, 0.851437), "m",
              "quaternion"),
     PoseCase("euroc-style-csv-pose-only", "position-quaternion",
              "invented values in the EuRoC ground-truth CSV header layout, position and quaternion columns only",
              "#timestamp [ns],p_RS_R_x [m],p_RS_R_y [m],p_RS_R_z [m],q_RS_w [],q_RS_x [],q_RS_y [],q_RS_z []\n"
-             "1403715273262142976,0.878612,2.142470,0.947262,0.9396926,0.0,0.0,0.3420201",
-             wxyz(0.9396926, 0, 0, 0.3420201), (0.878612, 2.142470, 0.947262), "m", "quaternion"),
+             "1403715289501234944,0.912347,2.071856,0.963418,0.9396926,0.0,0.0,0.3420201",
+             wxyz(0.9396926, 0, 0, 0.3420201), (0.912347, 2.071856, 0.963418), "m", "quaternion"),
     PoseCase("csv-header-w-first", "position-quaternion", "invented values; CSV header x,y,z,qw,qx,qy,qz",
              "x,y,z,qw,qx,qy,qz\n1.0,2.0,0.5,0.7071068,0.0,0.0,0.7071068",
              wxyz(0.7071068, 0, 0, 0.7071068), (1.0, 2.0, 0.5), None, "quaternion"),
@@ -464,27 +491,23 @@ POSE_BLOCKS = [
              ' "orientation": {"x": 0.0, "y": 0.3826834, "z": 0.0, "w": 0.9238795}}',
              xyzw(0, 0.3826834, 0, 0.9238795), (-0.5, 0.25, 1.0), None, "quaternion"),
     PoseCase("nuscenes-cam-front", "pose-yaml-json", NUSC.format("CAM_FRONT record"),
-             '{\n"token": "1d31c729b073425e8e0202c5c6e66ee1",\n"sensor_token": "725903f5b62f56118f4094b46a4470d8",\n'
-             '"translation": [\n1.70079118954,\n0.0159456324149,\n1.51095763913\n],\n"rotation": [\n'
-             '0.4998015430569128,\n-0.5030316162024876,\n0.4997798114386805,\n-0.49737083824542755\n],\n'
-             '"camera_intrinsic": [\n[\n1266.417203046554,\n0.0,\n816.2670197447984\n],\n[\n0.0,\n'
-             '1266.417203046554,\n491.50706579294757\n],\n[\n0.0,\n0.0,\n1.0\n]\n]\n}',
-             wxyz(0.4998015430569128, -0.5030316162024876, 0.4997798114386805, -0.49737083824542755),
-             (1.70079118954, 0.0159456324149, 1.51095763913), None, "quaternion", hints={"order": "wxyz"},
-             offered=(wxyz(0.4998015430569128, -0.5030316162024876, 0.4997798114386805, -0.49737083824542755),
-                      xyzw(0.4998015430569128, -0.5030316162024876, 0.4997798114386805, -0.49737083824542755))),
+             '{\n"token": "a6b903b7be2c335a554479b2930a7056",\n"sensor_token": "24ffd919c5ad91e1d519e9a93368a3db",\n'
+             '"translation": [\n1.72316408271,\n0.00893571264815,\n1.49372610548\n],\n"rotation": [\n'
+             + ",\n".join(repr(v) for v in NUSC_CAM_FRONT_Q) + '\n],\n'
+             '"camera_intrinsic": [\n[\n1240.512483792002,\n0.0,\n826.6942773876904\n],\n[\n0.0,\n'
+             '1240.512483792002,\n476.78345833288046\n],\n[\n0.0,\n0.0,\n1.0\n]\n]\n}',
+             wxyz(*NUSC_CAM_FRONT_Q), (1.72316408271, 0.00893571264815, 1.49372610548), None, "quaternion",
+             hints={"order": "wxyz"}, offered=(wxyz(*NUSC_CAM_FRONT_Q), xyzw(*NUSC_CAM_FRONT_Q))),
     PoseCase("nuscenes-lidar-top", "pose-yaml-json", NUSC.format("LIDAR_TOP record"),
-             '{"token": "d051cafdd9fb4d4b8a4b1d9e2e7d2f1c", "sensor_token": "dc8b396651c05aedbb9cdaae573bb567",'
-             ' "translation": [0.943713, 0.0, 1.84023], "rotation": [0.7077955119163518, -0.006492242056004365,'
-             ' 0.010646214713995808, -0.7063073142877817], "camera_intrinsic": []}',
-             wxyz(0.7077955119163518, -0.006492242056004365, 0.010646214713995808, -0.7063073142877817),
-             (0.943713, 0.0, 1.84023), None, "quaternion", hints={"order": "wxyz"},
-             offered=(wxyz(0.7077955119163518, -0.006492242056004365, 0.010646214713995808, -0.7063073142877817),
-                      xyzw(0.7077955119163518, -0.006492242056004365, 0.010646214713995808, -0.7063073142877817))),
+             '{"token": "02c0302c7b39775f1c72b2dc1a009086", "sensor_token": "52eb322b385e4dd1dc7f3c494ad8a179",'
+             ' "translation": [0.985216, 0.0, 1.79342], "rotation": [' + ", ".join(repr(v) for v in NUSC_LIDAR_TOP_Q)
+             + '], "camera_intrinsic": []}',
+             wxyz(*NUSC_LIDAR_TOP_Q), (0.985216, 0.0, 1.79342), None, "quaternion", hints={"order": "wxyz"},
+             offered=(wxyz(*NUSC_LIDAR_TOP_Q), xyzw(*NUSC_LIDAR_TOP_Q))),
     PoseCase("ego-pose-style-json", "pose-yaml-json",
              "invented values in the layout of the nuScenes ego_pose table (rotation w, x, y, z per"
              " schema_nuscenes.md)",
-             '{"token": "5ace90b379af485b9dcb1584b01e7212", "timestamp": 1532402927647951,\n'
+             '{"token": "84244653ad2eac1a7de546e38c89d2a2", "timestamp": 1530000123456789,\n'
              ' "rotation": [0.8660254, 0.0, 0.0, 0.5], "translation": [411.3, 1180.9, 0.0]}',
              wxyz(0.8660254, 0, 0, 0.5), (411.3, 1180.9, 0.0), None, "quaternion", hints={"order": "wxyz"},
              offered=(wxyz(0.8660254, 0, 0, 0.5), xyzw(0.8660254, 0, 0, 0.5))),
@@ -700,9 +723,9 @@ MATRIX_YAML = [
              "# General sensor definitions.\nsensor_type: camera\ncomment: VI-Sensor cam0 (MT9M034)\n\n"
              "# Sensor extrinsics wrt. the body-frame.\nT_BS:\n  cols: 4\n  rows: 4\n  data: ["
              + _euroc_rows(EUROC_CAM0_T_BS, "         ") + "]\n\n# Camera specific definitions.\nrate_hz: 20\n"
-             "resolution: [752, 480]\ncamera_model: pinhole\nintrinsics: [458.654, 457.296, 367.215, 248.375]"
+             "resolution: [752, 480]\ncamera_model: pinhole\nintrinsics: [462.118, 460.735, 371.942, 245.608]"
              " #fu, fv, cu, cv\ndistortion_model: radial-tangential\n"
-             "distortion_coefficients: [-0.28340811, 0.07395907, 0.00019359, 1.76187114e-05]\n",
+             "distortion_coefficients: [-0.27916503, 0.06842517, 0.00031276, -2.41836275e-05]\n",
              mat(EUROC_CAM0_T_BS, 4), tuple(EUROC_CAM0_T_BS[3:12:4]), None, "matrix"),
     PoseCase("opencv-3x4-float", "matrix-yaml", "invented values in OpenCV FileStorage YAML layout, dt: f, 3x4",
              "%YAML:1.0\n---\nRT: !!opencv-matrix\n   rows: 3\n   cols: 4\n   dt: f\n"
