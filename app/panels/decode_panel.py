@@ -198,6 +198,8 @@ class DecodePanel(QWidget):
     def _header_item(self, text: str) -> QListWidgetItem:
         """A group's title: not a reading, so it cannot be chosen (the arrow keys pass over it)."""
         item = QListWidgetItem(text)
+        item.setToolTip("The readings under this title, the most plausible first. A title is not a reading: it "
+                        "cannot be applied.")
         item.setFlags(Qt.ItemFlag.NoItemFlags)
         font = item.font()
         font.setBold(True)

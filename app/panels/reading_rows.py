@@ -110,7 +110,7 @@ def reading_lines(reading, rank: int, best, best_rank: int, preferences, show_na
         distance = format_number(float(best.orientation.angle_to(reading.orientation)), digits)
         lines.append(f"   differs from reading {best_rank} by {distance}°")
     if show_name and reading.name is not None:
-        lines.append(f"   transform {reading.name}")
+        lines.append(f"   transform {elided(reading.name)}")
     lines += [f"   {line}" for line in rotation_words(reading.orientation, preferences)]
     if reading.translation is not None:
         lines.append(f"   translation x, y, z: {translation_words(reading, digits)}")
@@ -122,6 +122,8 @@ def reading_tip(reading, lines: list[str]) -> str:
     """The reading in full for its tooltip: every line uncut, its conventions and why it ranks there."""
     full = [line for line in lines if not line.lstrip().startswith("note: ")]
     full += [f"   note: {note}" for note in reading.notes]
+    if reading.name is not None:
+        full.append(f"Transform: {reading.name}")
     full.append(f"Conventions: {conventions_words(reading)}")
     if reading.why:
         full.append(f"Rank: {reading.why}")
@@ -133,7 +135,7 @@ def _count(n: int) -> str:
 
 
 def _transform_title(name, n: int) -> str:
-    return f"Transform {name if name is not None else '(no name)'}: {_count(n)}"
+    return f"Transform {elided(name) if name is not None else '(no name)'}: {_count(n)}"
 
 
 def _kind_title(kind, n: int) -> str:
