@@ -4,7 +4,7 @@
 
 Starts its own virtual X display when none is set, uses a throw-away settings folder (so the shot does
 not depend on anyone's preferences) and writes docs/screenshots/: window.png, the Scene alone for two demo
-mounts, check.png (the Check panel) and fit.png (the Measure panel with a fit), and the whole window at
+mounts, decode-pose.png (Decode with a 4x4 transform at 1280x800), check.png (the Check panel) and fit.png (the Measure panel with a fit), and the whole window at
 1280x800 (window.png, window-1280x800.png) and 1920x1080 (window-1920x1080.png).
 """
 
@@ -24,6 +24,13 @@ DRAWING_PASTE = """R =
 [ 0.0000  0.9781 -0.2079
  -1.0000  0.0000  0.0000
   0.0000  0.2079  0.9781 ]"""
+
+# A 4x4 transform as a calibration file might hold it (invented values): 90° about x, t = (0.1, 0.2, 0.3)
+# with no unit stated, so the panel shows both readings 180° apart and asks for the unit.
+POSE_PASTE = """1 0 0 0.1
+0 0 -1 0.2
+0 1 0 0.3
+0 0 0 1"""
 
 
 def _virtual_display():
@@ -78,6 +85,15 @@ def _check_shot(app, window, out_dir) -> bool:
     _show_tab(window, "Check")
     _settle(app)
     return _grab(window, out_dir / "check.png")
+
+
+def _decode_pose_shot(app, window, out_dir) -> bool:
+    """The Decode panel at a laptop's size with an invented 4x4 transform: each reading with its result."""
+    window.resize(1280, 800)
+    _show_tab(window, "Decode")
+    window.decode_panel.set_text(POSE_PASTE)
+    _settle(app)
+    return _grab(window, out_dir / "decode-pose.png")
 
 
 def _fit_shot(app, window, out_dir) -> bool:
@@ -139,7 +155,8 @@ def main(argv: list[str]) -> int:
                 return 1
         if not _grab(window, out_dir / "window.png"):
             return 1
-        if not (_check_shot(app, window, out_dir) and _fit_shot(app, window, out_dir)):
+        if not (_decode_pose_shot(app, window, out_dir) and _check_shot(app, window, out_dir)
+                and _fit_shot(app, window, out_dir)):
             return 1
         window.model.undo_stack.setClean()
         window.close()

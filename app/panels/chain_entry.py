@@ -8,7 +8,7 @@ from PySide6.QtCore import Signal
 from PySide6.QtWidgets import QComboBox, QLabel, QPlainTextEdit, QVBoxLayout, QWidget
 
 from app import plain_text
-from app.panels.decode_panel import _conventions
+from app.panels.reading_rows import conventions_words
 from core import describe
 from core.errors import FramewrightError
 from core.orientation import Orientation
@@ -95,7 +95,7 @@ class PastedOrientation(QWidget):
                     plain_text.say(self.message, f"{len(self.readings)} reading{plural}; the first is the most "
                                                  "plausible.")
                 for rank, reading in enumerate(self.readings, start=1):
-                    self.reading_box.addItem(f"{rank}. {reading.kind}: {_conventions(reading)}")
+                    self.reading_box.addItem(f"{rank}. {reading.kind}: {conventions_words(reading)}")
                     self.reading_box.setItemData(rank - 1, f"{full_tooltip(reading.orientation)}",
                                                  role=3)  # Qt.ToolTipRole
         self.reading_box.setEnabled(bool(self.readings))
@@ -113,4 +113,4 @@ class PastedOrientation(QWidget):
         if not self.readings or index < 0:
             return ""
         reading = self.readings[index]
-        return f"{reading.kind}, {_conventions(reading)}"
+        return f"{reading.kind}, {conventions_words(reading)}"

@@ -2,13 +2,14 @@
 
 from __future__ import annotations
 
-from PySide6.QtCore import QObject, QRunnable, QThreadPool, QTimer, Signal
-from PySide6.QtGui import QGuiApplication
+from PySide6.QtCore import QObject, QRunnable, Qt, QThreadPool, QTimer, Signal
+from PySide6.QtGui import QGuiApplication, QPalette
 from PySide6.QtWidgets import (QComboBox, QHBoxLayout, QLabel, QListWidget, QListWidgetItem, QPlainTextEdit,
                                QPushButton, QVBoxLayout, QWidget)
 
 from app import plain_text
-from app.model import SessionModel
+from app.model import PREFERENCES, SessionModel
+from app.panels import reading_rows
 from core.errors import FramewrightError
 from core.position import LENGTH_UNITS, Position
 
@@ -16,30 +17,6 @@ from core.position import LENGTH_UNITS, Position
 # window offers (core/position.py). The decoder names the unit; nothing here guesses one.
 _STATED_UNITS = {**LENGTH_UNITS, "cm": 1e-2}
 _SHOWN_FOR = {"cm": "mm"}
-
-
-def _translation_words(reading) -> str:
-    t = reading.translation
-    return ", ".join(f"{v:.6g}" for v in t) + (f" {reading.translation_unit}" if reading.translation_unit else "")
-
-
-def _words(value) -> str:
-    """Conventions or notes as one line, whatever container the decoder uses."""
-    if value is None:
-        return ""
-    if isinstance(value, str):
-        return value
-    if isinstance(value, dict):
-        return ", ".join(f"{k}: {v}" for k, v in value.items())
-    return "; ".join(str(v) for v in value)
-
-
-def _conventions(reading) -> str:
-    """The reading's conventions without repeating its kind ("matrix: body-to-reference", not twice)."""
-    conventions = reading.conventions
-    if isinstance(conventions, dict):
-        return ", ".join(str(v) if k == reading.kind else f"{k} {v}" for k, v in conventions.items())
-    return _words(conventions)
 
 
 # Text up to this length decodes in a few milliseconds and is read at once; longer text (up to the
@@ -80,6 +57,7 @@ class DecodePanel(QWidget):
         super().__init__(parent)
         self.model = model
         self.readings: list = []
+        self._shared_notes: list[str] = []     # notes every reading carries: said once, in the message
         self.paste_box = QPlainTextEdit()
         self.paste_box.setPlaceholderText("Paste a matrix, quaternion, axis and angle or three angles here, "
                                           "as printed on the drawing or written in the file.")
@@ -144,6 +122,7 @@ class DecodePanel(QWidget):
         self.list.itemDoubleClicked.connect(lambda *_: self.apply_selected())
         self.list.currentItemChanged.connect(lambda *_: self._reading_chosen())
         self.unit_box.activated.connect(lambda *_: self._reading_chosen())
+        model.changed.connect(self._on_model_changed)
 
     def paste_from_clipboard(self) -> None:
         self.set_text(QGuiApplication.clipboard().text())
@@ -156,7 +135,8 @@ class DecodePanel(QWidget):
         self._debounce.stop()
         text = self.paste_box.toPlainText()
         self.list.clear()
-        self.readings = []
+        self.readings, self._shared_notes = [], []
+        self.message.setToolTip("")
         self.apply_button.setEnabled(False)
         self._generation += 1
         if not text.strip():
@@ -183,25 +163,68 @@ class DecodePanel(QWidget):
             plain_text.say(self.message, "No reading of this text is a valid orientation.")
             return
         plural = "s" if len(self.readings) != 1 else ""
-        plain_text.say(self.message, f"{len(self.readings)} reading{plural}, most plausible first.")
-        for rank, reading in enumerate(self.readings, start=1):
-            lines = [f"{rank}. {reading.kind}: {_conventions(reading)}"]
-            if getattr(reading, "translation", None) is not None:
-                lines.append(f"    translation {_translation_words(reading)}"
-                             + ("" if reading.translation_unit else " (no unit in the text)"))
-            if _words(reading.notes):
-                lines.append(f"    {_words(reading.notes)}")
-            item = QListWidgetItem("\n".join(lines))
-            tip = f"{getattr(reading, 'label', reading.kind)}\n{_words(reading.conventions)}"
-            if getattr(reading, "why", ""):
-                tip += f"\nRank: {reading.why}"
-            item.setToolTip(tip)
-            self.list.addItem(item)
-        self.list.setCurrentRow(0)
+        names = len({r.name for r in self.readings if r.name is not None})
+        found = f" of {names} transforms" if names > 1 else ""
+        self._shared_notes = reading_rows.shared_notes(self.readings)
+        # the message wraps: a note about the whole text may take two lines there before it is cut
+        about = "".join(f"\n{reading_rows.elided(note, 2 * reading_rows.NOTE_CHARS)}" for note in self._shared_notes)
+        plain_text.say(self.message, f"{len(self.readings)} reading{plural}{found}, most plausible first.{about}")
+        self.message.setToolTip(plain_text.plain_tip("\n".join(self._shared_notes)) if self._shared_notes else "")
+        self._render_list()
+        self._select_reading(0)
+
+    def _render_list(self) -> None:
+        """One row per reading with its result, under a header per transform (or per kind when long)."""
+        self.list.clear()
+        preferences = self.model.preferences
+        best: dict = {}
+        for i, reading in enumerate(self.readings):
+            best.setdefault(reading.name, i)
+        groups = reading_rows.groups(self.readings)
+        by_name = len({r.name for r in self.readings}) > 1       # grouped by name: the headers name them
+        for group in groups:
+            if group.header is not None:
+                self.list.addItem(self._header_item(group.header))
+            for i in group.members:
+                reading = self.readings[i]
+                first = best[reading.name]
+                lines = reading_rows.reading_lines(reading, i + 1, self.readings[first], first + 1, preferences,
+                                                   show_name=not by_name, said_above=self._shared_notes)
+                item = QListWidgetItem("\n".join(lines))
+                item.setData(Qt.ItemDataRole.UserRole, i)
+                item.setToolTip(plain_text.plain_tip(reading_rows.reading_tip(reading, lines)))
+                self.list.addItem(item)
+
+    def _header_item(self, text: str) -> QListWidgetItem:
+        """A group's title: not a reading, so it cannot be chosen (the arrow keys pass over it)."""
+        item = QListWidgetItem(text)
+        item.setToolTip("The readings under this title, the most plausible first. A title is not a reading: it "
+                        "cannot be applied.")
+        item.setFlags(Qt.ItemFlag.NoItemFlags)
+        font = item.font()
+        font.setBold(True)
+        item.setFont(font)
+        item.setForeground(self.palette().brush(QPalette.ColorGroup.Active, QPalette.ColorRole.WindowText))
+        item.setBackground(self.palette().brush(QPalette.ColorGroup.Active, QPalette.ColorRole.Window))
+        return item
+
+    def _select_reading(self, index: int) -> None:
+        for row in range(self.list.count()):
+            if self.list.item(row).data(Qt.ItemDataRole.UserRole) == index:
+                self.list.setCurrentRow(row)
+                return
+
+    def _on_model_changed(self, change) -> None:
+        """New digits, angle unit or sequence: the readings' results are spelled again."""
+        if change.touches(PREFERENCES) and self.readings:
+            reading = self._current_reading()
+            self._render_list()
+            self._select_reading(self.readings.index(reading) if reading is not None else 0)
 
     def _current_reading(self):
         item = self.list.currentItem()
-        return None if item is None else self.readings[self.list.row(item)]
+        index = None if item is None else item.data(Qt.ItemDataRole.UserRole)
+        return None if index is None else self.readings[index]
 
     def _needs_unit(self, reading) -> bool:
         return getattr(reading, "translation", None) is not None and not getattr(reading, "translation_unit", None)
@@ -211,7 +234,8 @@ class DecodePanel(QWidget):
         reading = self._current_reading()
         needs_unit = reading is not None and self._needs_unit(reading)
         if needs_unit:
-            plain_text.say(self.unit_label, f"Translation {_translation_words(reading)}: the text gives no unit.")
+            numbers = reading_rows.translation_words(reading, self.model.preferences.significant_digits)
+            plain_text.say(self.unit_label, f"Translation {numbers}: the text gives no unit.")
         else:
             self.unit_box.setCurrentIndex(0)
         self.unit_row.setVisible(needs_unit)
@@ -247,8 +271,8 @@ class DecodePanel(QWidget):
             return
         if position is None:
             self.model.set_orientation(reading.orientation, origin=self, text=text)
-            plain_text.say(self.message, f"Applied: {reading.kind}, {_conventions(reading)}.")
+            plain_text.say(self.message, f"Applied: {reading.label}.")
             return
         self.model.apply_pose(reading.orientation, position, text=text, origin=self)
-        plain_text.say(self.message, f"Applied: {reading.kind}, {_conventions(reading)}; translation "
-                       f"{_translation_words(reading)} {how}.")
+        numbers = reading_rows.numbers_words(reading.translation, self.model.preferences.significant_digits)
+        plain_text.say(self.message, f"Applied: {reading.label}; translation {numbers} {how}.")
