@@ -379,6 +379,9 @@ def add_batch_arguments(parser: argparse.ArgumentParser) -> None:
     parser.add_argument("--skip-errors", action="store_true",
                         help="list rows that cannot be checked as errors and judge the others (exit 0 or 1 by "
                              "them); without it any such row refuses the file (exit 2)")
+    parser.add_argument("--coverage", type=float, default=2.0, metavar="K",
+                        help="coverage factor k of the expanded uncertainty U = k u for files with an "
+                             "uncertainty_deg column (default 2)")
 
 
 def _same_file(one: str, other: str) -> bool:
@@ -404,7 +407,7 @@ def run_batch(args, stdin, stdout) -> int:
                        f"file by another name or link); expected another file")
     text = read_file_text(args.file)
     try:
-        result, table = batch_check(text, settings)
+        result, table = batch_check(text, settings, coverage=args.coverage)
     except FramewrightError as error:
         raise _Refused(f"{printable(args.file)}: {printable(error)}") from None
     errors = result.error_count
@@ -426,20 +429,30 @@ def run_batch(args, stdin, stdout) -> int:
     names = [printable(name) for name in result.names]
     width = max(len("mount"), *(len(name) for name in names))
     problems = result.problem_texts()
-    lines = [f"{'mount'.ljust(width)}  deviation (deg)  result   margin (deg)"]
+    decided = result.decision is not None
+    lines = [f"{'mount'.ljust(width)}  deviation (deg)  result   margin (deg)"
+             + ("  u (deg)  decision (ISO 14253-1)" if decided else "")]
     for row, (name, total, passed, margin) in enumerate(zip(names, result.total_deg, result.passed,
                                                              result.margin_deg)):
         if row in problems:
             lines.append(f"{name.ljust(width)}  {'-':>15}  {'ERROR':<6} {'-':>13}  {printable(problems[row])}")
         else:
-            lines.append(f"{name.ljust(width)}  {total:15.4f}  {'pass' if passed else 'FAIL':<6} "
-                         f"{margin + 0.0:13.4f}")
+            line = f"{name.ljust(width)}  {total:15.4f}  {'pass' if passed else 'FAIL':<6} {margin + 0.0:13.4f}"
+            if decided:
+                line += f"  {result.uncertainty_deg[row]:7.4f}  {result.decision[row]}"
+            lines.append(line)
     failed = result.failed_count
     lines.append(f"{len(names)} mounts, {failed} outside the tolerance of {_n(args.tolerance)} deg, "
                  f"{result.passed_count} within, {errors} in error (not checked)"
                  + (f"; results written to {printable(args.out)}" if args.out else ""))
+    counts = result.decision_counts()
+    if decided:
+        lines.append(f"with U = {_n(result.coverage)} u: {counts['conforms']} conform, {counts['does not conform']}"
+                     f" do not conform, {counts['cannot decide']} cannot be decided within the uncertainty")
     lines += [f"note: {printable(note)}" for note in result.notes]
     stdout.write("\n".join(lines) + "\n")
+    if decided:     # ISO 14253-1: a proven non-conformity first, then an undecided row
+        return EXIT_OUTSIDE if counts["does not conform"] else EXIT_UNDECIDED if counts["cannot decide"] else EXIT_OK
     return EXIT_OUTSIDE if failed else EXIT_OK
 
 

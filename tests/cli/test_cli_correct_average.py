@@ -111,3 +111,19 @@ def test_compare_outside_by_more_than_the_uncertainty_does_not_conform():
 def test_compare_uncertainty_needs_a_tolerance():
     result, _, err = run("compare", "0 0 1 0", "0 0 1 1", "--uncertainty", "0.1")
     assert result == 2 and "--uncertainty needs --tolerance" in err
+
+
+# --- batch with an uncertainty column: exit 1 for a proven non-conformity, else 4 for an undecided row
+_U_HEADER = "name,nominal_yaw[deg],nominal_pitch,nominal_roll,measured_yaw[deg],measured_pitch,measured_roll,uncertainty_deg"
+
+
+@pytest.mark.parametrize("deviations, status", [((0.1, 0.2), 0), ((0.1, 0.45), 4), ((0.45, 0.7), 1)])
+def test_batch_exit_status_follows_the_decisions(tmp_path, deviations, status):
+    import io
+
+    from app.cli import main
+    path = tmp_path / "mounts.csv"
+    path.write_text("\n".join([_U_HEADER] + [f"m{i},10,0,0,{10 + d},0,0,0.05" for i, d in enumerate(deviations)]) + "\n")
+    out, err = io.StringIO(), io.StringIO()
+    assert main(["batch", str(path), "--tolerance", "0.5"], stdout=out, stderr=err) == status
+    assert err.getvalue() == "" and "cannot be decided within the uncertainty" in out.getvalue()
