@@ -20,8 +20,8 @@ _ARGS = re.compile(rf"(?<![\w.])(?P<numbers>(?:{_NUM}[ ]+){{5,6}}{_NUM})[ ]+(?P<
                    rf"(?:[ ]+(?P<period>\d+(?:\.\d*)?))?(?=[ \"')]*(?:$|/>|>|\n|\)))")
 _NUMBER_LIKE = re.compile(r"[-+]?(?:\d|\.\d|\.?nan|\.?inf|\$)", re.IGNORECASE)
 _SUM_TERM = re.compile(r"(?P<sign>[-+]?)[ ]*(?P<value>(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?)[ ]*\*?[ ]*(?P<unit>[ijk])?(?![\w.])")
-_SUM = re.compile(r"(?:^|[^\w.])[-+]?[ ]*(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?[ ]*(?:[-+][ ]*(?:\d+(?:\.\d*)?|\.\d+)"
-                  r"(?:[eE][-+]?\d+)?[ ]*\*?[ ]*[ijk](?![\w])[ ]*){3}")
+_TERM = r"(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?[ ]*\*?[ ]*[ijk]?(?![\w.])"
+_SUM = re.compile(rf"(?:^|[^\w.])[-+]?[ ]*{_TERM}(?:[ ]*[-+][ ]*{_TERM}){{1,3}}")
 _TIME_COLUMN = re.compile(r"#?(?:timestamp|time|t|stamp|sec|secs|nsec|ns|field\.header\.stamp)")
 _Q_COLUMN = re.compile(r"(?:q|quat|quaternion|orientation|rot|rotation)[\w.]*?[_.]?([wxyz])|q([wxyz])")
 _T_COLUMN = re.compile(r"(?:t|p|pos|position|trans|translation)[\w.]*?[_.]?([xyz])|([xyz])")
@@ -136,7 +136,8 @@ def sdf_poses(text: str) -> list[PoseText] | None:
 
 
 def quaternion_sum(text: str) -> list[PoseText] | None:
-    """`0.7071 + 0i + 0.7071j + 0k` (also with `*i`): the scalar is the term without i, j or k."""
+    """`0.7071 + 0i + 0.7071j + 0k` (also with `*i`, and with zero terms left out: `0.7071 + 0.7071k`):
+    the scalar is the term without i, j or k."""
     if not re.search(r"\d[ ]*\*?[ ]*[ijk](?![\w.])", text):
         return None
     clean = _normalise_characters(text)
@@ -156,12 +157,15 @@ def quaternion_sum(text: str) -> list[PoseText] | None:
         if part in parts:
             raise DecodeError(f"the quaternion '{m.group().strip()[:40]}' names {part} twice")
         parts[part] = value
-    if sorted(parts) != ["i", "j", "k", "w"]:
-        return None
+    if not set(parts) & {"i", "j", "k"}:
+        return None                         # '0.5 - 0.5': two numbers, not a sum with imaginary units
     line = next(k for k, text_line in enumerate(clean.split("\n"), start=1) if m.group() in text_line)
-    return [PoseText((parts["w"], parts["i"], parts["j"], parts["k"]), "quaternion written as a sum", line,
-                     {"kind": "quaternion", "order": "wxyz"}, None, None, None,
-                     ["written as w + xi + yj + zk: the term without i, j or k is the scalar part"])]
+    notes = ["written as w + xi + yj + zk: the term without i, j or k is the scalar part"]
+    missing = [{"w": "w", "i": "x", "j": "y", "k": "z"}[p] for p in ("w", "i", "j", "k") if p not in parts]
+    if missing:
+        notes.append(f"terms not written are zero: {', '.join(missing)}")
+    return [PoseText(tuple(parts.get(p, 0.0) for p in ("w", "i", "j", "k")), "quaternion written as a sum", line,
+                     {"kind": "quaternion", "order": "wxyz"}, None, None, None, notes)]
 
 
 def column_poses(text: str) -> list[PoseText] | None:

@@ -194,6 +194,9 @@ def _count_message(parsed: ParsedNumbers, hints: DecodeHints) -> str:
               f"{UNDERSTOOD_COUNTS}"
     if parsed.decimal_commas:
         message += " (commas are read as separators: if they are decimal commas, write decimal points)"
+    elif n in (6, 7, 8):
+        message += (", or a pose (4x4, 3x4, keyed, or a line under a header naming its columns such as"
+                    " '# x y z qx qy qz qw'): name the columns so their order is not guessed")
     return message
 
 
