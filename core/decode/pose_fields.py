@@ -17,6 +17,7 @@ _KEY_LINE = re.compile(r"""^(?P<indent>[ ]*)(?P<dash>-[ ]+)?["']?(?P<key>[A-Za-z
                        r"""(?:[ ][A-Za-z_][\w]{0,20}){0,3}(?:[ ]?[(\[][^()\[\]\n]{0,30}[)\]])?)["']?"""
                        r"""[ ]*(?::(?!:)|=(?!=))[ ]*(?P<rest>.*)$""")
 _HAS_DIGIT = re.compile(r"\d")
+_ALIAS = re.compile(r"[&*][A-Za-z_][\w\-]*(?:\s|$)")
 ORPHAN = "\x00orphan"      # the key of a field that stands for a line of numbers under no key
 _INLINE_PAIR = re.compile(r"""["']?(?P<key>[A-Za-z_][\w.\-]{0,40})["']?[ ]*:[ ]*(?P<value>[^,{}]*)""")
 _ATTRIBUTE = re.compile(r"""(?P<key>[A-Za-z_][\w.\-:]{0,40})[ ]*=[ ]*(?:"(?P<value>[^"<>\n]{0,400})"|'(?P<value2>[^'<>\n]{0,400})')""")
@@ -57,6 +58,9 @@ def yaml_like_fields(text: str) -> list[Field]:
                 orphans.append((i, raw.strip()))
             continue
         indent, key, rest = len(m.group("indent")), m.group("key").strip(), m.group("rest").strip()
+        if _ALIAS.match(rest):      # 'b: *x' repeats what '&x' marked: following it is YAML's job, not ours
+            raise DecodeError(f"line {i}: '{rest[:24]}' is a YAML alias (or anchor); Framewright does not follow"
+                              " them: paste the values where they are used")
         if m.group("dash"):                  # '- key: v' starts a list item one level in
             while stack and stack[-1][0] > indent:
                 stack.pop()

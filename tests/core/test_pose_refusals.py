@@ -86,3 +86,10 @@ def test_refused_even_with_every_hint_that_fits(text):
 def test_the_refusal_table_is_large_and_has_distinct_ids():
     assert len(REFUSALS) >= 30
     assert len({r[0] for r in REFUSALS}) == len(REFUSALS)
+
+
+def test_a_yaml_alias_is_refused_not_followed_or_dropped():
+    # 'b: *x' repeats the values '&x' marked (YAML 1.2 anchors and aliases): reading the three numbers bare
+    # would give an orientation from half of what the text says.
+    with pytest.raises(DecodeError, match="YAML alias"):
+        decode("a: &x [1, 0, 0]\nb: *x\n")
