@@ -144,7 +144,7 @@ _SUBSTITUTION = re.compile(r"\$\{([^{}\n]{0,%d})\}" % _MAX_LENGTH)
 _PI_WORD = re.compile(r"(?<![A-Za-z0-9_.])(?:M_PI|PI|Pi|pi)(?![A-Za-z0-9_])")
 # A run of arithmetic without spaces, except around * and /: '-pi/2', '3*pi / 4', '(M_PI/2)'. Character
 # classes that exclude each other keep the scan linear.
-_ATOM = r"[-+(]*(?:\d|\.\d|π)[\dπ.eE()+\-]*"
+_ATOM = r"[-+(]{0,8}(?:\d|\.\d|π)[\dπ.eE()+\-]*"
 _RUN = re.compile(rf"(?<![\w.]){_ATOM}(?:(?:\*\*|[ ]*[*/][ ]*){_ATOM})*")
 # Functions people write around angles; named in the refusal rather than read around
 _CALL = re.compile(r"(?<![\w.])(?:sqrt|sin|cos|tan|asin|acos|atan2?|radians|degrees|deg2rad|rad2deg|exp|log|pow|abs)"
