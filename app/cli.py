@@ -788,11 +788,14 @@ def run_verify_report(args, stdin, stdout) -> int:
     try:
         data, printed, kind = read_report(args.report)
         session, raw = load_session_and_bytes(args.session)
-        scope, check_name = data.get("scope"), data.get("check")
-        record = records.record_for(session, scope, check_name, Path(args.session).name,
-                                    records.sha256_of_bytes(raw))
     except FramewrightError as error:
         raise _Refused(str(error)) from None
+    try:
+        record = records.record_for(session, data.get("scope"), data.get("check"), Path(args.session).name,
+                                    records.sha256_of_bytes(raw))
+    except FramewrightError as error:     # e.g. the check the report names is not in this session
+        stdout.write(f"NOT the record of this session: {printable(error)}\n")
+        return EXIT_OUTSIDE
     embedded = {k: v for k, v in data.items() if k != "record_sha256"}
     problems = []
     difference = records.first_difference(data["figures"], record.numbers()["figures"])

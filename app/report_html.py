@@ -54,7 +54,7 @@ def _table(table: Table) -> str:
 
 
 STYLE = """
-body { font-family: 'DejaVu Sans', Arial, sans-serif; font-size: 9pt; color: #111; }
+body { font-size: 9pt; color: #111; font-variant-ligatures: none; }
 h1 { font-size: 15pt; margin-bottom: 4px; }
 h2 { font-size: 12pt; margin-top: 14px; margin-bottom: 4px; }
 td, th { font-size: 9pt; vertical-align: top; }

@@ -23,9 +23,7 @@ def _document(record: Record, when: str, pngs: dict, missing: dict, free_values,
               resolution: int) -> QTextDocument:
     doc = QTextDocument()
     doc.setDocumentMargin(0)
-    font = QFont("DejaVu Sans")
-    font.setPointSizeF(9)
-    doc.setDefaultFont(font)
+    doc.setDefaultFont(_font(9))
     doc.setDefaultStyleSheet(STYLE)
     pictures: dict = {}
     for index, png in pngs.items():
@@ -42,6 +40,15 @@ def _document(record: Record, when: str, pngs: dict, missing: dict, free_values,
     doc.setHtml(f"<html><body>{html}</body></html>")
     doc.setTextWidth(width_px)
     return doc
+
+
+def _font(points: float) -> QFont:
+    """The report's font, without ligatures: text copied or searched in the PDF reads "file", not "ﬁle"."""
+    font = QFont("DejaVu Sans")
+    font.setPointSizeF(points)
+    for tag in ("liga", "clig", "dlig"):
+        font.setFeature(QFont.Tag(tag), 0)
+    return font
 
 
 def _page_geometry(resolution: int) -> tuple[QSizeF, float, float]:
@@ -78,9 +85,7 @@ class Pages:
         self.doc.documentLayout().draw(painter, context)
         painter.restore()
         painter.save()
-        font = QFont("DejaVu Sans")
-        font.setPointSizeF(7)
-        painter.setFont(font)
+        painter.setFont(_font(7))
         painter.setPen(QColor(60, 60, 60))
         y = self.page.height() - self.margin - self.footer * 0.55
         line = QRectF(self.margin, y, self.body.width(), self.footer * 0.5)
