@@ -17,6 +17,7 @@ from core.inspection_record import Figure, Record, Table
 
 JSON_ELEMENT_ID = "framewright-record"
 PICTURE_MISSING = "The Scene picture is left out: {why}."
+PICTURE_ASPECT = 640 / 1040          # height over width of app/report_picture.PICTURE_SIZE
 
 
 def _e(text) -> str:
@@ -34,8 +35,8 @@ def _values(figure: Figure) -> str:
 
 
 def _figure_rows(figures: list, header: bool = True) -> str:
-    rows = "".join(f'<tr><td class="label">{_e(f.label)}</td><td class="value">{_values(f)}</td>'
-                   f'<td class="unit">{_e(f.unit)}</td></tr>' for f in figures)
+    rows = "".join(f'<tr><td class="label" width="44%">{_e(f.label)}</td><td class="value" width="40%">'
+                   f'{_values(f)}</td><td class="unit" width="16%">{_e(f.unit)}</td></tr>' for f in figures)
     return (f'<table class="figures" width="100%" cellspacing="0" cellpadding="3">'
             + (f'<tr><th align="left" width="44%">figure</th><th align="left" width="40%">value</th>'
                f'<th align="left" width="16%">unit</th></tr>' if header else "")
@@ -79,7 +80,7 @@ def body_html(record: Record, when: str, pictures: dict, free_values: dict | Non
     blank = "_" * 34
     head = [("Session file", _e(record.session_name)),
             ("Session file SHA-256", f'<span class="hash">{_e(record.session_sha256)}</span>'),
-            ("Record SHA-256 (its numbers)", f'<span class="hash">{_e(record.sha256())}</span>'),
+            ("Record SHA-256", f'<span class="hash">{_e(record.sha256())}</span>'),
             ("Date and time", _e(when)),
             ("Reference frame", _e(record.reference_frame))]
     head += [(name, _e(free_values.get(name) or blank)) for name in record.free_fields]
@@ -97,7 +98,9 @@ def body_html(record: Record, when: str, pictures: dict, free_values: dict | Non
         if section.picture is not None:
             src = pictures.get(index)
             if src:
-                parts.append(f'<p><img src="{_e(src)}" width="{pictures.get(("width", index), 520)}" '
+                width = pictures.get(("width", index), 520)
+                height = round(width * PICTURE_ASPECT)
+                parts.append(f'<p><img src="{_e(src)}" width="{width}" height="{height}" '
                              f'alt="The Scene: {_e(section.picture.ghost_label)} as the faint outline"></p>'
                              f"<p><i>The Scene: the part as measured, the {_e(section.picture.ghost_label)} as "
                              "the faint outline.</i></p>")

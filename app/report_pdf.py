@@ -31,8 +31,9 @@ def _document(record: Record, when: str, pngs: dict, missing: dict, free_values,
         image = QImage.fromData(png, "PNG")
         doc.addResource(QTextDocument.ResourceType.ImageResource, QUrl(url), image)
         pictures[index] = url
-        # printed 125 mm wide whatever the resolution: the page is `width_px` wide at `resolution` dpi
-        pictures[("width", index)] = int(round(min(width_px, 125 / 25.4 * resolution)))
+        # 125 mm wide on the page: QTextDocument reads an image's width in pixels of 1/96 inch and scales
+        # them to the paint device's resolution itself
+        pictures[("width", index)] = int(round(125 / 25.4 * 96))
     pictures.update({("missing", i): why for i, why in missing.items()})
     html = body_html(record, when, pictures, free_values)
     # QTextDocument sizes fonts in points against the paint device's resolution; pixel sizes in the style
