@@ -1,5 +1,6 @@
-"""The command line over the core: `framewright decode`, `compare`, `fit`, `batch` and `open`. Imports no
-Qt (`open` hands over to the window through app/main.py, which loads Qt only then).
+"""The command line over the core: `framewright decode`, `compare`, `fit`, `batch`, `correct`, `average`,
+`report`, `verify-report` and `open`. Imports no Qt at start: `open` hands over to the window through
+app/main.py, and `report` loads Qt to lay out its pages, each only once its input has been read.
 
 Each verb is one pair of functions, `add_<verb>_arguments(parser)` and `run_<verb>(args) -> exit status`,
 listed once in VERBS.
@@ -21,6 +22,7 @@ from core import formats
 from core.check import CheckSettings, check
 from core.decode import KINDS, DecodeHints, decode
 from core.errors import FramewrightError
+from core.printable import printable
 
 EXIT_OK, EXIT_OUTSIDE, EXIT_REFUSED, EXIT_INTERNAL, EXIT_UNDECIDED = 0, 1, 2, 3, 4
 MAX_INPUT_BYTES = 1_000_000         # standard input and files are read up to this and refused beyond it
@@ -696,6 +698,141 @@ def run_open(args, stdin, stdout) -> int:
 
 
 # ---------------------------------------------------------------------------------------------------
+# report, verify-report
+# ---------------------------------------------------------------------------------------------------
+def add_report_arguments(parser: argparse.ArgumentParser) -> None:
+    parser.add_argument("session", metavar="SESSION", help="a session file (*.fwsession.json)")
+    which = parser.add_mutually_exclusive_group()
+    which.add_argument("--check", metavar="NAME", help="the record of one check of the session, by its name")
+    which.add_argument("--all", action="store_true", help="every mount and every check (the default)")
+    parser.add_argument("-o", "--out", metavar="OUT.pdf|OUT.html", required=True,
+                        help="the report to write; its suffix says PDF or HTML (written whole or not at all)")
+    for flag, field in (("--operator", "Operator"), ("--instrument", "Instrument"),
+                        ("--calibration-due", "Instrument calibration due")):
+        parser.add_argument(flag, metavar="TEXT", help=f"fills the report's '{field}' line (blank to fill by hand)")
+
+
+def _report_target(out: str, session_path: str) -> str:
+    from pathlib import Path
+
+    if Path(out).suffix.lower() not in (".pdf", ".html", ".htm"):
+        raise _Refused(f"{printable(out)}: expected an output file name ending in .pdf or .html")
+    folder = Path(out).parent
+    if not folder.is_dir():
+        raise _Refused(f"{printable(out)}: the folder {printable(str(folder))} does not exist")
+    if Path(out).is_dir():
+        raise _Refused(f"{printable(out)} is a folder; expected a file name ending in .pdf or .html")
+    if _same_file(out, session_path):
+        raise _Refused(f"{printable(out)} is the session file itself; choose another name for the report")
+    return out
+
+
+def run_report(args, stdin, stdout) -> int:
+    """Read the session and build the record first (a refusal loads no Qt); then draw the pictures, with
+    a display when there is one and without one (offscreen, no pictures) otherwise, and write the file."""
+    from pathlib import Path
+
+    from core import inspection_record as records
+    from core.session import load_session_and_bytes, name_problem
+
+    try:
+        session, raw = load_session_and_bytes(args.session)
+    except FramewrightError as error:
+        raise _Refused(str(error)) from None
+    out = _report_target(args.out, args.session)
+    free = {}
+    for field, value in (("Operator", args.operator), ("Instrument", args.instrument),
+                         ("Instrument calibration due", args.calibration_due)):
+        if value is not None:
+            problem = name_problem(value)
+            if problem:
+                raise _Refused(f"{field.lower()}: {problem}")
+            free[field] = value
+    name, digest = Path(args.session).name, records.sha256_of_bytes(raw)
+    try:
+        record = (records.check_record(session, args.check, name, digest) if args.check is not None
+                  else records.session_record(session, name, digest))
+    except FramewrightError as error:
+        raise _Refused(str(error)) from None
+    written = _write_report_with_qt(out, record, free)
+    lines = [f"wrote {printable(written.path)}" + (f" ({written.pages} pages)" if written.pages else ""),
+             f"record SHA-256 {record.sha256()}; session file SHA-256 {digest}"]
+    if record.verdict:
+        lines.append(f"verdict: {record.verdict}")
+    if written.picture_problem:
+        lines.append(f"note: the Scene picture is left out: {written.picture_problem}")
+    stdout.write("\n".join(lines) + "\n")
+    return EXIT_OK
+
+
+def _write_report_with_qt(out: str, record, free: dict):
+    """Qt is loaded here only. Without a display Qt's offscreen platform lays out the pages (it has no
+    OpenGL, so the report says the picture is left out); Qt's own messages are kept off stderr."""
+    if open_display_problem() is not None:
+        os.environ["QT_QPA_PLATFORM"] = "offscreen"
+    import app.scene  # noqa: F401 - sets the GL context sharing the Scene needs, before the QApplication
+    from PySide6.QtCore import qInstallMessageHandler
+    from PySide6.QtWidgets import QApplication
+
+    from app.report_writer import write_report
+
+    qInstallMessageHandler(lambda *_: None)
+    application = QApplication.instance() or QApplication(["framewright"])  # noqa: F841 - kept alive
+    try:
+        return write_report(out, record, free)
+    except OSError as error:
+        raise _Refused(f"{printable(out)}: cannot be written ({error.strerror or error})") from None
+
+
+def add_verify_report_arguments(parser: argparse.ArgumentParser) -> None:
+    parser.add_argument("report", metavar="REPORT", help="a report written by 'framewright report' (PDF or HTML)")
+    parser.add_argument("session", metavar="SESSION", help="the session file it should be the record of")
+
+
+def run_verify_report(args, stdin, stdout) -> int:
+    """0 when every figure of the report is the session's (and, for HTML, the page prints what its numbers
+    say); 1 naming the first figure that is not; 2 when either file cannot be read."""
+    from pathlib import Path
+
+    from core import inspection_record as records
+    from core.record_files import first_printed_difference, read_report
+    from core.session import load_session_and_bytes
+
+    try:
+        data, printed, kind = read_report(args.report)
+        session, raw = load_session_and_bytes(args.session)
+    except FramewrightError as error:
+        raise _Refused(str(error)) from None
+    try:
+        record = records.record_for(session, data.get("scope"), data.get("check"), Path(args.session).name,
+                                    records.sha256_of_bytes(raw))
+    except FramewrightError as error:     # e.g. the check the report names is not in this session
+        stdout.write(f"NOT the record of this session: {printable(error)}\n")
+        return EXIT_OUTSIDE
+    embedded = {k: v for k, v in data.items() if k != "record_sha256"}
+    problems = []
+    difference = records.first_difference(data["figures"], record.numbers()["figures"])
+    if difference:
+        problems.append(f"a figure differs from the session: {difference}")
+    if printed is not None:
+        shown = first_printed_difference(data, printed)
+        if shown:
+            problems.append(f"the page does not print its own numbers: {shown}")
+    if data.get("record_sha256") != records.numbers_sha256(embedded):
+        problems.append("the report's numbers do not match the record SHA-256 it carries (they were edited)")
+    if problems:
+        stdout.write(f"NOT the record of this session: {printable(problems[0])}\n")
+        return EXIT_OUTSIDE
+    lines = [f"the {kind.upper()} report's {len(data['figures'])} figures are this session's numbers "
+             f"(record SHA-256 {data['record_sha256']})"]
+    if data.get("session_sha256") != records.sha256_of_bytes(raw):
+        lines.append("note: the session file is not byte for byte the one the report names (its SHA-256 "
+                     "differs), but every figure is the same")
+    stdout.write("\n".join(lines) + "\n")
+    return EXIT_OK
+
+
+# ---------------------------------------------------------------------------------------------------
 # The verbs and the entry point
 # ---------------------------------------------------------------------------------------------------
 VERBS = {
@@ -707,6 +844,10 @@ VERBS = {
                 run_correct),
     "average": ("the average of repeated measurements of one mount, with their scatter", add_average_arguments,
                 run_average),
+    "report": ("write the inspection record of a session or of one check, as PDF or HTML", add_report_arguments,
+               run_report),
+    "verify-report": ("say whether a report's numbers are those of a session file", add_verify_report_arguments,
+                      run_verify_report),
     "open": ("open a session file in the window", add_open_arguments, run_open),
 }
 

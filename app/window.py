@@ -250,6 +250,11 @@ class MainWindow(QMainWindow):
         for action in (self.save_action, self.save_as_action):
             file_menu.addAction(action)
         file_menu.addSeparator()
+        self.export_report_action = self._action(
+            "Export &report…", self.export_report, None,
+            "The inspection record of the check (or of the whole session) as PDF or HTML, previewed first")
+        file_menu.addAction(self.export_report_action)
+        file_menu.addSeparator()
         file_menu.addAction(self.quit_action)
 
         edit_menu = self.menuBar().addMenu("&Edit")
@@ -559,6 +564,11 @@ class MainWindow(QMainWindow):
         self._update_title()
         self.statusBar().showMessage(f"Saved {path}.")
         return True
+
+    def export_report(self) -> str | None:
+        from app.report_dialog import export_report   # late: the report modules load only when used
+
+        return export_report(self)
 
     def _tell(self, title: str, text: str) -> None:
         """A warning the user must acknowledge, as plain text: a file name or a field read from a file

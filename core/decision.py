@@ -48,6 +48,17 @@ class Decision:
         return f"{self.outcome} (U = {self.expanded_deg:.3g}°, k = {self.coverage:g})"
 
 
+def overall_outcome(outcomes) -> str:
+    """The decision of a check judged on several figures: it conforms when every figure conforms; one
+    figure that does not conform decides; otherwise the measurement cannot decide."""
+    outcomes = set(outcomes)
+    if not outcomes or not outcomes <= {CONFORMS, DOES_NOT_CONFORM, CANNOT_DECIDE}:
+        raise InvalidInputError(f"decisions: expected some of {CONFORMS}, {DOES_NOT_CONFORM}, {CANNOT_DECIDE}")
+    if outcomes == {CONFORMS}:
+        return CONFORMS
+    return DOES_NOT_CONFORM if DOES_NOT_CONFORM in outcomes else CANNOT_DECIDE
+
+
 def _non_negative(value, what, upper=None) -> float:
     if isinstance(value, bool):
         raise InvalidInputError(f"{what}: expected a number, got {value!r}")

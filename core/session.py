@@ -674,6 +674,15 @@ def _session_from_bytes(raw: bytes, source: str) -> Session:
         raise error from None
 
 
+def load_session_and_bytes(path: str | os.PathLike) -> tuple[Session, bytes]:
+    """As load_session, with the bytes that were read (an inspection record names their SHA-256)."""
+    try:
+        raw = bounded_json.read_capped(path)
+    except bounded_json.BoundedJsonError as exc:
+        raise SessionFileError(f"{path}: {exc}") from None
+    return _session_from_bytes(raw, str(path)), raw
+
+
 def load_session(path: str | os.PathLike) -> Session:
     """Read a session file; every failure, for any bytes in any file, is a SessionFileError naming the
     file, the field and the problem."""

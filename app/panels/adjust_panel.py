@@ -21,7 +21,7 @@ from app.panels.render_when_seen import RendersWhenSeen
 from core import describe
 from core.check import check
 from core.correction import adjustment_angles, correction, read_axes
-from core.decision import CANNOT_DECIDE, CONFORMS, DOES_NOT_CONFORM, decide
+from core.decision import CANNOT_DECIDE, CONFORMS, DOES_NOT_CONFORM, decide, overall_outcome
 from core.errors import FramewrightError
 from core.number_text import parse_number
 from core.shims import outward_normal, read_footprint, shims
@@ -344,10 +344,7 @@ class AdjustPanel(RendersWhenSeen, QWidget):
             self.decision_label.setText(str(error))
             self.decision_bar.show_decision(None)
             return
-        outcomes = {d.outcome for _, d in decisions}
-        # every figure must conform; one that does not conform decides; otherwise the measurement cannot
-        overall = (CONFORMS if outcomes == {CONFORMS} else CANNOT_DECIDE if DOES_NOT_CONFORM not in outcomes
-                   else DOES_NOT_CONFORM)
+        overall = overall_outcome(d.outcome for _, d in decisions)
         words = {CONFORMS: "Conforms", CANNOT_DECIDE: "Cannot decide", DOES_NOT_CONFORM: "Does not conform"}
         lines = [f"{words[overall]}"]
         lines += [f"• {c.name} {_deg(c.value_deg)} against {_deg(c.tolerance_deg)}: {d.words()}" for c, d in decisions]

@@ -181,6 +181,7 @@ def test_verbs_are_one_function_pair_each():
     from app import cli
     for name, (help_text, add_arguments, run) in cli.VERBS.items():
         assert callable(add_arguments) and callable(run) and help_text
+        name = name.replace("-", "_")            # verify-report: add_verify_report_arguments
         assert add_arguments.__name__ == f"add_{name}_arguments" and run.__name__ == f"run_{name}"
 
 

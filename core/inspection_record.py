@@ -1,0 +1,506 @@
+"""The inspection record: what a printed or filed report of one check (or of a whole session) says, as plain
+data. The app renders it to PDF and HTML (app/report_document.py); the command line writes it and checks
+it against the session again (`framewright report`, `framewright verify-report`). Numpy only; no Qt.
+
+Every number a report prints is a `Figure`: a stable key (its place in the session, e.g.
+``check[0].pointing_error``), a label for people, the values exactly as printed, and their unit. The
+record's canonical JSON holds every figure and the session file's SHA-256; its own SHA-256 is printed on
+every page. Rebuilding the record from the same session file gives the same figures, which is what
+`verify-report` compares: the date and time, the operator and the other fields filled in by hand are not
+figures.
+
+Numbers are printed with the session's significant digits counted from the largest of each group (a
+quaternion, a matrix, three angles) and trailing zeros dropped, so a typed −30.4 that came back through
+the quaternion as −30.39999999999999 prints −30.4 and a component of 2e-17 prints 0. The decimal point
+is '.', the minus sign the plain '-', so a number copied off the page reads back anywhere.
+"""
+
+from __future__ import annotations
+
+import hashlib
+import json
+import math
+from dataclasses import dataclass, field
+from typing import Iterable
+
+import numpy as np
+
+from core import describe, level, sequences
+from core.check import check, check_position
+from core.correction import adjustment_angles, correction, read_axes
+from core.decision import decide, overall_outcome
+from core.errors import FramewrightError
+from core.formats import SAFETY_CAUTION, format_number
+from core.orientation import Orientation
+from core.session import Mount, SavedCheck, Session, read_checks
+from core.shims import outward_normal, shims
+
+RECORD_FORMAT = "framewright inspection record"
+RECORD_VERSION = 1
+DEGREES, MILLIMETRES, DIMENSIONLESS, UNIT_VECTOR, WORDS = "deg", "mm", "dimensionless", "unit vector", ""
+CAUTION = ("A wrong orientation can point a safety-relevant sensor the wrong way. "
+           f"{SAFETY_CAUTION[0].upper()}{SAFETY_CAUTION[1:].rstrip('.')}.")
+# Filled in by hand on the printed page (or typed in before export); never part of the canonical numbers.
+FREE_FIELDS = ("Operator", "Instrument", "Instrument calibration due", "Signature")
+DECISION_RULE = ("ISO 14253-1: with the expanded uncertainty U = k·u, a figure conforms when it is at most "
+                 "T − U, does not conform when it exceeds T + U, and otherwise the measurement cannot decide")
+
+
+class RecordError(FramewrightError):
+    """A record that cannot be made: an unknown check, a check without both mounts, a bad setup."""
+
+
+# ---------------------------------------------------------------------------------------------------
+# Numbers as printed
+# ---------------------------------------------------------------------------------------------------
+def printed_numbers(values: Iterable[float], digits: int) -> tuple[str, ...]:
+    """The values of one group printed with `digits` significant digits counted from the group's largest,
+    trailing zeros dropped, never '-0' (core/formats.format_number does the rounding)."""
+    numbers = [float(v) for v in values]
+    if not all(math.isfinite(v) for v in numbers):
+        raise RecordError("a figure is not a finite number; the record is not made")
+    largest = max((abs(v) for v in numbers), default=0.0)
+    if largest == 0:
+        return tuple("0" for _ in numbers)
+    decimals = min(17, max(0, digits - 1 - math.floor(math.log10(largest))))
+    out = []
+    for v in numbers:
+        text = format_number(v, decimals)
+        if "." in text:
+            text = text.rstrip("0").rstrip(".")
+        out.append("0" if float(text) == 0 else text)
+    return tuple(out)
+
+
+# ---------------------------------------------------------------------------------------------------
+# The record's parts
+# ---------------------------------------------------------------------------------------------------
+@dataclass(frozen=True)
+class Figure:
+    """One printed figure: key (its place, stable for the same session), label, values as printed, unit
+    (DEGREES, MILLIMETRES, DIMENSIONLESS, UNIT_VECTOR, or WORDS for names and verdicts)."""
+    key: str
+    label: str
+    values: tuple
+    unit: str
+    shape: tuple = ()          # (3, 3) for a matrix: printed as rows
+
+
+@dataclass(frozen=True)
+class Table:
+    """Figures printed as the rows of a table: each row a Figure whose values fill the columns."""
+    title: str
+    columns: tuple
+    rows: tuple
+
+
+@dataclass(frozen=True)
+class Picture:
+    """What the Scene picture of a part shows: the part at `orientation`, `ghost` as the faint outline."""
+    orientation: Orientation
+    ghost: Orientation
+    ghost_label: str
+    part: object
+    preset: str
+
+
+@dataclass(frozen=True)
+class Section:
+    title: str
+    items: tuple               # Figure, Table or str (a line of words), in print order
+    picture: Picture | None = None
+
+
+@dataclass(frozen=True)
+class Record:
+    title: str
+    scope: str                 # "check" or "all"
+    check_name: str | None
+    session_name: str
+    session_sha256: str
+    reference_frame: str       # the preset's title
+    digits: int
+    conventions: tuple
+    sections: tuple
+    verdict: str | None        # the check's verdict line (a check record), else None
+    caution: str = CAUTION
+    free_fields: tuple = FREE_FIELDS
+    fit_source: str | None = None   # the points file of a fit's residuals, when the record holds one
+
+    def figures(self) -> list[Figure]:
+        out = []
+        for section in self.sections:
+            for item in section.items:
+                if isinstance(item, Figure):
+                    out.append(item)
+                elif isinstance(item, Table):
+                    out.extend(item.rows)
+        return out
+
+    def numbers(self) -> dict:
+        """The record's numbers as plain JSON-ready data (what the canonical JSON and its hash hold)."""
+        return {"format": RECORD_FORMAT, "version": RECORD_VERSION, "scope": self.scope,
+                "check": self.check_name, "session_sha256": self.session_sha256, "digits": self.digits,
+                "figures": [{"key": f.key, "label": f.label, "values": list(f.values), "unit": f.unit}
+                            for f in self.figures()]}
+
+    def canonical_json(self) -> str:
+        return canonical_json(self.numbers())
+
+    def sha256(self) -> str:
+        return hashlib.sha256(self.canonical_json().encode("utf-8")).hexdigest()
+
+    def embedded(self) -> dict:
+        """The numbers with the record's own hash beside them: what a report file embeds."""
+        return {**self.numbers(), "record_sha256": self.sha256()}
+
+
+def canonical_json(numbers: dict) -> str:
+    """One spelling of the numbers: keys sorted, no spaces, UTF-8 text as it is."""
+    return json.dumps(numbers, sort_keys=True, separators=(",", ":"), ensure_ascii=False, allow_nan=False)
+
+
+def numbers_sha256(numbers: dict) -> str:
+    return hashlib.sha256(canonical_json(numbers).encode("utf-8")).hexdigest()
+
+
+def sha256_of_bytes(raw: bytes) -> str:
+    return hashlib.sha256(raw).hexdigest()
+
+
+# ---------------------------------------------------------------------------------------------------
+# Building it
+# ---------------------------------------------------------------------------------------------------
+class _Builder:
+    def __init__(self, session: Session):
+        self.session = session
+        self.prefs = session.preferences
+        self.digits = self.prefs.significant_digits
+        self.preset = describe.frame_preset(session.reference_frame)
+
+    def n(self, values) -> tuple:
+        return printed_numbers(values, self.digits)
+
+    def table(self, rows, by_column: bool = False) -> list[tuple]:
+        """Rows of numbers printed together: the whole table as one group (the same decimals in every
+        row), or each column as its own group when the columns are different quantities."""
+        rows = [list(r) for r in rows]
+        if not rows:
+            return []
+        if by_column:
+            columns = [self.n([r[c] for r in rows]) for c in range(len(rows[0]))]
+            return [tuple(column[i] for column in columns) for i in range(len(rows))]
+        flat, width = self.n([v for r in rows for v in r]), len(rows[0])
+        return [tuple(flat[i * width:(i + 1) * width]) for i in range(len(rows))]
+
+    def fig(self, key, label, values, unit, shape=()) -> Figure:
+        return Figure(key, label, self.n(values), unit, shape)
+
+    def words(self, key, label, text) -> Figure:
+        return Figure(key, label, (str(text),), WORDS)
+
+    # -- one mount ------------------------------------------------------------------------------------
+    def mount_items(self, index: int, role: str = "") -> list:
+        mount = self.session.mounts[index]
+        o = mount.orientation
+        key = f"mount[{index}]"
+        seq, intrinsic = self.prefs.sequence, self.prefs.intrinsic
+        kind = "intrinsic" if intrinsic else "extrinsic"
+        names = sequences.preset_names(seq, intrinsic)
+        named = f" ({', '.join(names)})" if names else ""
+        axis, angle = o.as_axis_angle()
+        angles = o.as_angles(seq, intrinsic=intrinsic)
+        margin = sequences.gimbal_margin(o, seq, intrinsic)
+        items = [self.words(f"{key}.name", f"{role}mount" if role else "Mount", mount.name),
+                 self.fig(f"{key}.quaternion_wxyz", "Quaternion (w, x, y, z), Hamilton, w not negative",
+                          o.as_quaternion(), DIMENSIONLESS),
+                 self.fig(f"{key}.matrix", "Rotation matrix, body → reference (v_ref = R · v_body; the columns "
+                          "are the body axes)", o.as_matrix().ravel(), DIMENSIONLESS, (3, 3))]
+        if angle == 0:
+            items.append("Axis and angle: no rotation (angle 0; the axis is undefined).")
+        else:
+            items.append(self.fig(f"{key}.axis", "Rotation axis (x, y, z), in reference axes", axis, UNIT_VECTOR))
+        items += [self.fig(f"{key}.angle", "Rotation angle about that axis (right-hand rule)", [angle], DEGREES),
+                  self.fig(f"{key}.rotation_vector", "Rotation vector (x, y, z) = angle × axis",
+                           o.as_rotation_vector(), DEGREES),
+                  self.fig(f"{key}.angles", f"Angles {sequences.spelled_sequence(seq, intrinsic)} {kind}{named}",
+                           angles.angles, DEGREES),
+                  self.fig(f"{key}.gimbal_margin", f"Gimbal margin of {seq} {kind}"
+                           + (" (in gimbal lock: only the first and third angles together are known)"
+                              if margin.locked else ""), [margin.margin_deg], DEGREES)]
+        if mount.position is not None:
+            unit = mount.position.unit
+            shown = mount.position.shown()
+            items.append(Figure(f"{key}.position", f"Position of the body origin (x, y, z), in reference axes",
+                                self.n(shown), unit))
+        items.append(self.level_table(key, o))
+        items.append(f"Where the body axes point (directions named as {self.preset.title}):")
+        items += ["    " + line for line in describe.describe_orientation(o, self.preset)]
+        if mount.notes.strip():
+            items.append(f"Notes: {' '.join(mount.notes.split())}")
+        return items
+
+    def level_table(self, key: str, o: Orientation) -> Table:
+        down = describe.gravity_direction(self.session.reference_frame)
+        report = level.level_readings(o, down)
+        printed = self.table([r.tilt_deg, r.off_plumb_deg, r.from_up_deg] for r in report.faces)
+        rows = tuple(Figure(f"{key}.level[{r.face}]", f"face {r.face}, facing {r.facing}", values, DEGREES)
+                     for r, values in zip(report.faces, printed))
+        axis = int(np.argmax(np.abs(down)))
+        down_name = describe.signed_axis_name(axis, int(np.sign(down[axis])))
+        return Table(f"Level readings: what a level shows on each face (gravity along reference {down_name}, "
+                     f"'down' in {self.preset.key.upper()})",
+                     ("face", "tilt from level", "off plumb", "normal from straight up"), rows)
+
+    # -- one check ------------------------------------------------------------------------------------
+    def check_items(self, index: int, saved: SavedCheck) -> tuple[list, str, Picture]:
+        names = [m.name for m in self.session.mounts]
+        for role, name in (("nominal", saved.nominal), ("measured", saved.measured)):
+            if name is None:
+                raise RecordError(f"check {saved.name!r} has no {role} mount chosen; choose one before a report")
+            if name not in names:
+                raise RecordError(f"check {saved.name!r}: its {role} mount {name!r} is not in the session")
+        nominal_i, measured_i = names.index(saved.nominal), names.index(saved.measured)
+        nominal, measured = self.session.mounts[nominal_i], self.session.mounts[measured_i]
+        settings, setup = saved.settings, saved.adjustment
+        key = f"check[{index}]"
+        result = check(nominal.orientation, measured.orientation, settings)
+        items = [self.words(f"{key}.name", "Check", saved.name),
+                 self.words(f"{key}.nominal", "Nominal mount", nominal.name),
+                 self.words(f"{key}.measured", "Measured mount", measured.name)]
+        if settings.mode == "total":
+            items.append(self.words(f"{key}.judged", "Judged by", "the total deviation"))
+        else:
+            axis = settings.body_axis if isinstance(settings.body_axis, str) else \
+                "(" + ", ".join(self.n(settings.body_axis)) + ")"
+            items.append(self.words(f"{key}.judged", "Judged by", f"the pointing error of body axis {axis} "
+                                    "and the roll about it"))
+        items.append("Deviation D = Nᵀ · M: the turn from the nominal body frame to the measured one, in "
+                     "nominal body axes.")
+        items.append(self.fig(f"{key}.total_deviation", "Total deviation (the angle of D)", [result.total_deg],
+                              DEGREES))
+        if result.total_deg > 0:
+            items.append(self.fig(f"{key}.deviation_axis", "Axis of D (x, y, z), in nominal body axes",
+                                  result.axis, UNIT_VECTOR))
+        if result.pointing_deg is not None:
+            items.append(self.fig(f"{key}.pointing_error", "Pointing error of the body axis",
+                                  [result.pointing_deg], DEGREES))
+            items.append(self.fig(f"{key}.roll", "Roll about the body axis (signed, right-hand rule)"
+                                  + ("" if result.roll_defined else "; undefined: the axis points backwards"),
+                                  [result.roll_deg], DEGREES))
+        printed = self.table([c.value_deg, c.tolerance_deg, c.margin_deg] for c in result.criteria)
+        rows = [Figure(f"{key}.criterion[{i}]", f"{c.name}: {'PASS' if c.passed else 'FAIL'}", values, DEGREES)
+                for i, (c, values) in enumerate(zip(result.criteria, printed))]
+        items.append(Table("Figures against their tolerances (a figure equal to its tolerance passes)",
+                           ("figure", "value", "tolerance", "margin"), tuple(rows)))
+        verdict = "PASS" if result.passed else "FAIL"
+        items.append(self.words(f"{key}.verdict", "Verdict", verdict))
+        verdict_line = f"{verdict}: {self._criteria_words(result)}"
+        items += [f"Note: {note}" for note in result.notes]
+        if setup.uncertainty_deg is not None:
+            decisions = [decide(c.value_deg, c.tolerance_deg, setup.uncertainty_deg, setup.coverage)
+                         for c in result.criteria]
+            u, k = setup.uncertainty_deg, setup.coverage
+            items.append(DECISION_RULE + ".")
+            items += [self.fig(f"{key}.uncertainty", "Standard uncertainty u of the measured orientation", [u],
+                               DEGREES),
+                      self.fig(f"{key}.coverage", "Coverage factor k", [k], DIMENSIONLESS),
+                      self.fig(f"{key}.expanded_uncertainty", "Expanded uncertainty U = k·u", [k * u], DEGREES)]
+            outcome = overall_outcome([d.outcome for d in decisions])
+            items.append(self.words(f"{key}.decision", "Decision (ISO 14253-1)", outcome))
+            verdict_line += f"; ISO 14253-1 decision: {outcome} (U = {self.n([k * u])[0]} deg, k = {self.n([k])[0]})"
+        else:
+            items.append("No measurement uncertainty was given: the verdict is the plain comparison, with no "
+                         "guard band (an ISO 14253-1 decision needs U).")
+        offset = check_position(nominal.orientation, nominal.position, measured.position,
+                                settings.position_tolerance_mm)
+        if offset is not None:
+            items.append(self.fig(f"{key}.position_offset", "Position offset of the measured origin from the "
+                                  "nominal one", [offset.distance_mm], MILLIMETRES))
+            items.append(self.fig(f"{key}.position_offset_axes", "The offset along the nominal body axes "
+                                  "(x, y, z)", offset.along_nominal_mm, MILLIMETRES))
+            if offset.judged:
+                items.append(self.words(f"{key}.position_verdict", f"Position against "
+                                        f"{self.n([offset.tolerance_mm])[0]} mm", "PASS" if offset.passed else "FAIL"))
+        items += self.correction_items(key, nominal.orientation, measured.orientation, setup)
+        picture = Picture(measured.orientation, nominal.orientation, f"nominal, {nominal.name}", measured.part,
+                          self.session.reference_frame)
+        return items, verdict_line, picture
+
+    @staticmethod
+    def _criteria_words(result) -> str:
+        return "; ".join(f"{c.name} {'within' if c.passed else 'exceeds'} its tolerance" for c in result.criteria)
+
+    def correction_items(self, key, nominal, measured, setup) -> list:
+        fix = correction(nominal, measured)
+        items = ["Correction C (turns the part from measured to nominal: M · C = N in body axes)."]
+        if fix.axis_body is None:
+            items.append("No correction needed: the measured orientation is the nominal.")
+            return items
+        items += [self.fig(f"{key}.correction_angle", "Correction angle", [fix.angle_deg], DEGREES),
+                  self.fig(f"{key}.correction_axis_body", "Correction axis (x, y, z), in body axes",
+                           fix.axis_body, UNIT_VECTOR),
+                  self.fig(f"{key}.correction_axis_reference", "Correction axis (x, y, z), in reference axes",
+                           fix.axis_reference, UNIT_VECTOR),
+                  self.fig(f"{key}.correction_small_turns", "Small turns about body X, Y, Z",
+                           fix.small_angles_body_deg, DEGREES)]
+        try:
+            if setup.axes:
+                target = fix.body if setup.axes_frame == "body" else fix.reference
+                adjust = adjustment_angles(target, read_axes(setup.axes))
+                printed = self.table([a] for a in adjust.angles_deg)
+                rows = tuple(Figure(f"{key}.adjustment[{i}]", f"{i + 1}. about ({', '.join(self.n(axis))})",
+                                    values, DEGREES)
+                             for i, (axis, values) in enumerate(zip(adjust.axes, printed)))
+                items.append(Table(f"Adjustment angles about the mount's {setup.axes_frame} axes, in the order "
+                                   "they are turned", ("axis", "angle"), rows))
+                items.append("These reach the correction exactly." if adjust.exact else
+                             self.fig(f"{key}.adjustment_residual", "These axes cannot reach the correction; "
+                                      "what remains (least squares)", [adjust.residual_deg], DEGREES))
+            if setup.footprint:
+                normal = outward_normal(setup.footprint)
+                result = shims(fix.body, setup.footprint, normal, pivot=setup.pivot, pitch_mm=setup.pitch_mm)
+                columns = ("foot", "shim") + (("screw turns",) if result.turns is not None else ())
+                rows = []
+                numbers = [[t] + ([] if result.turns is None else [result.turns[i]])
+                           for i, t in enumerate(result.shims_mm)]
+                for i, (foot, values) in enumerate(zip(setup.footprint, self.table(numbers, by_column=True))):
+                    rows.append(Figure(f"{key}.shim[{i}]", f"foot {i + 1} at ({', '.join(self.n(foot))}) mm"
+                                       + (" (the pivot)" if i == setup.pivot else ""), values,
+                                       MILLIMETRES + ("; turns" if result.turns is not None else "")))
+                items.append(Table(f"Shims under the footprint (face normal ({', '.join(self.n(normal))}), body axes)",
+                                   columns, tuple(rows)))
+                items.append(self.fig(f"{key}.shim_tilt", "Tilt the shims make", [result.tilt_deg], DEGREES))
+                items.append(self.fig(f"{key}.shim_twist", "Turn about the face normal left for the slotted holes",
+                                      [result.twist_deg], DEGREES))
+        except FramewrightError as error:
+            items.append(f"The adjustment set up with this check cannot be worked out: {error}")
+        return items
+
+    # -- fit residuals --------------------------------------------------------------------------------
+    def fit_items(self, key: str, fit, rows=None, unit: str = "mm") -> list:
+        """The residual table of a point fit (core/fit.PointFit); `rows` are the 1-based row numbers."""
+        numbers = rows if rows is not None else list(range(1, len(fit.distances) + 1))
+        flagged = set(fit.flagged)
+        table_rows = []
+        printed = self.table([*residual, distance] for residual, distance in zip(fit.residuals, fit.distances))
+        for i, values in enumerate(printed):
+            mark = " (flagged)" if i in flagged else " (worst)" if i == fit.worst_index else ""
+            table_rows.append(Figure(f"{key}.fit_residual[{i}]", f"row {numbers[i]}{mark}", values, unit))
+        return [self.fig(f"{key}.fit_rms", "RMS residual of the point fit", [fit.rms], unit),
+                Table(f"Residuals of the point fit (measured − fitted, reference axes), {unit}",
+                      ("point", "x", "y", "z", "distance"), tuple(table_rows))]
+
+
+def _conventions(session: Session, digits: int) -> tuple:
+    return ("An orientation R maps body to reference: v_ref = R · v_body, so the columns of R are the body "
+            "axes in reference coordinates.",
+            "Quaternions are Hamilton (i j = k), written w first, with w not negative; q and −q are the same "
+            "orientation.",
+            "Angles are in degrees. Intrinsic angles turn about the moving body axes, extrinsic about the fixed "
+            "reference axes.",
+            f"Numbers are printed to {digits} significant digits counted from the largest of each group, "
+            "trailing zeros dropped; '.' is the decimal point.",
+            f"Reference frame: {describe.frame_preset(session.reference_frame).title}. It names directions and "
+            "sets where gravity points; it never changes R.")
+
+
+def find_check(session: Session, name: str) -> tuple[int, SavedCheck]:
+    checks = read_checks(session)
+    for i, saved in enumerate(checks):
+        if saved.name == name:
+            return i, saved
+    known = ", ".join(repr(c.name) for c in checks[:10]) or "none"
+    raise RecordError(f"no check named {name!r} in the session; its checks: {known}")
+
+
+def check_record(session: Session, check_name: str, session_name: str, session_sha256: str,
+                 fit=None, fit_rows=None, fit_unit: str = "mm", fit_source: str | None = None) -> Record:
+    """The record of one check: its nominal and measured mounts and everything the check works out.
+    `fit`: the point fit the measured orientation came from (core/fit.PointFit), when there is one."""
+    b = _Builder(session)
+    index, saved = find_check(session, check_name)
+    items, verdict, picture = b.check_items(index, saved)
+    names = [m.name for m in session.mounts]
+    nominal_i, measured_i = names.index(saved.nominal), names.index(saved.measured)
+    sections = [Section(f"Check “{saved.name}”: {verdict.split(':')[0]}", tuple(items), picture),
+                Section("Nominal", tuple(_clean(b.mount_items(nominal_i, "Nominal ")))),
+                Section("Measured", tuple(_clean(b.mount_items(measured_i, "Measured "))))]
+    if fit is not None:
+        sections.append(Section("The measured orientation's point fit", tuple(b.fit_items(f"check[{index}]",
+                                                                                            fit, fit_rows, fit_unit))))
+    return Record(f"Inspection record: {session.mounts[measured_i].name}", "check", saved.name, session_name,
+                  session_sha256, b.preset.title, b.digits, _conventions(session, b.digits), tuple(sections),
+                  verdict, fit_source=fit_source)
+
+
+def session_record(session: Session, session_name: str, session_sha256: str) -> Record:
+    """The record of a whole session: every mount, then every check that names both its mounts (a check
+    that does not is listed as not judged)."""
+    b = _Builder(session)
+    sections = []
+    for i, mount in enumerate(session.mounts):
+        picture = Picture(mount.orientation, Orientation.identity(), "reference", mount.part, session.reference_frame)
+        sections.append(Section(f"Mount {i + 1}: {mount.name}", tuple(_clean(b.mount_items(i))), picture))
+    for i, saved in enumerate(read_checks(session)):
+        try:
+            items, verdict, picture = b.check_items(i, saved)
+        except RecordError as why:
+            sections.append(Section(f"Check “{saved.name}”: not judged", (f"Not judged: {why}",)))
+            continue
+        sections.append(Section(f"Check “{saved.name}”: {verdict.split(':')[0]}", tuple(items), picture))
+    return Record(f"Inspection record: {session_name}", "all", None, session_name, session_sha256, b.preset.title,
+                  b.digits, _conventions(session, b.digits), tuple(sections), None)
+
+
+def _clean(items) -> list:
+    return [item for item in items if item is not None]
+
+
+def record_for(session: Session, scope: str, check_name: str | None, session_name: str,
+               session_sha256: str) -> Record:
+    """The record a report file names (its scope and check): what verify-report rebuilds."""
+    if scope == "check":
+        if not isinstance(check_name, str):
+            raise RecordError("the report names no check")
+        return check_record(session, check_name, session_name, session_sha256)
+    if scope == "all":
+        return session_record(session, session_name, session_sha256)
+    raise RecordError(f"unknown report scope {scope!r}; expected check or all")
+
+
+# ---------------------------------------------------------------------------------------------------
+# Comparing
+# ---------------------------------------------------------------------------------------------------
+def first_difference(reported: list, expected: list) -> str | None:
+    """The first figure that differs between two figure lists (as in `Record.numbers()['figures']`), in
+    words; None when they are the same. Figures from a point fit are compared only when both hold them."""
+    by_key = {f["key"]: f for f in expected}
+    for figure in reported:
+        key = figure.get("key") if isinstance(figure, dict) else None
+        if key is None:
+            return "a figure without a key"
+        other = by_key.pop(key, None)
+        if other is None:
+            if ".fit_" in key:
+                continue
+            return f"{key} ({figure.get('label')}) is not a figure of this session"
+        for what in ("values", "unit"):
+            if figure.get(what) != other[what]:
+                return (f"{key} ({other['label']}): the report says {_shown(figure.get(what))}, the session gives "
+                        f"{_shown(other[what])}")
+    if by_key:
+        key, figure = next(iter(by_key.items()))
+        return f"{key} ({figure['label']}) is missing from the report"
+    return None
+
+
+def _shown(values) -> str:
+    if isinstance(values, list):
+        return ", ".join(str(v) for v in values)
+    return str(values)
+
+
+__all__ = ["CAUTION", "DECISION_RULE", "FREE_FIELDS", "Figure", "Picture", "Record", "RecordError", "Section",
+           "Table", "canonical_json", "check_record", "find_check", "first_difference", "numbers_sha256",
+           "printed_numbers", "record_for", "session_record", "sha256_of_bytes"]
