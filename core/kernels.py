@@ -203,10 +203,24 @@ def multiply_quaternions(p, q):
     qw, qx, qy, qz = _parts(q)
     shape = np.broadcast_shapes(p.shape, q.shape)
     out = np.empty(shape, dtype=np.float64)
-    out[..., 0] = pw * qw - px * qx - py * qy - pz * qz
-    out[..., 1] = pw * qx + px * qw + py * qz - pz * qy
-    out[..., 2] = pw * qy - px * qz + py * qw + pz * qx
-    out[..., 3] = pw * qz + px * qy - py * qx + pz * qw
+    # Each component is a sum of four products, accumulated in place; the last operation writes straight
+    # into the result.
+    t = pw * qw
+    t -= px * qx
+    t -= py * qy
+    np.subtract(t, pz * qz, out=out[..., 0])
+    t = pw * qx
+    t += px * qw
+    t += py * qz
+    np.subtract(t, pz * qy, out=out[..., 1])
+    t = pw * qy
+    t -= px * qz
+    t += py * qw
+    np.add(t, pz * qx, out=out[..., 2])
+    t = pw * qz
+    t += px * qy
+    t -= py * qx
+    np.add(t, pz * qw, out=out[..., 3])
     return out
 
 
@@ -219,13 +233,29 @@ def conjugate_quaternions(q):
 
 @_in_slices(1, 1)
 def rotate_vectors(q, v):
-    """v' = q v q*, computed as v + 2w (u × v) + 2 u × (u × v) with u the vector part."""
+    """v' = q v q*, computed as v + w t + u × t with t = 2 u × v and u the vector part (unit q), written
+    out component by component: np.cross costs several times these few products on a batch."""
     q = np.asarray(q, dtype=np.float64)
     v = np.asarray(v, dtype=np.float64)
-    w = q[..., :1]
-    u = q[..., 1:]
-    t = 2.0 * np.cross(u, v)
-    return v + w * t + np.cross(u, t)
+    w, x, y, z = _parts(q)
+    a, b, c = _parts(v)
+    tx = y * c
+    tx -= z * b
+    tx += tx
+    ty = z * a
+    ty -= x * c
+    ty += ty
+    tz = x * b
+    tz -= y * a
+    tz += tz
+    out = np.empty(np.broadcast_shapes(q.shape[:-1], v.shape[:-1]) + (3,), dtype=np.float64)
+    for i, (vi, ti, cross) in enumerate(((a, tx, (y, tz, z, ty)), (b, ty, (z, tx, x, tz)),
+                                          (c, tz, (x, ty, y, tx)))):
+        r = w * ti
+        r += vi
+        r += cross[0] * cross[1]
+        np.subtract(r, cross[2] * cross[3], out=out[..., i])
+    return out
 
 
 @_in_slices(1, 1)
@@ -246,21 +276,28 @@ def quaternions_to_matrices(q, out=None):
     normalisation is folded into the factor s = 2 / |q|² (Shoemake's form), with no square root."""
     q = np.asarray(q, dtype=np.float64)
     w, x, y, z = _parts(q)
-    s = 2.0 / (w * w + x * x + y * y + z * z)
+    s = w * w
+    s += x * x
+    s += y * y
+    s += z * z
+    s = 2.0 / s
     xs, ys, zs = x * s, y * s, z * s
-    wx, wy, wz = w * xs, w * ys, w * zs
-    xx, xy, xz = x * xs, x * ys, x * zs
-    yy, yz, zz = y * ys, y * zs, z * zs
     m = np.empty(q.shape[:-1] + (3, 3), dtype=np.float64) if out is None else out
-    m[..., 0, 0] = 1.0 - (yy + zz)
-    m[..., 0, 1] = xy - wz
-    m[..., 0, 2] = xz + wy
-    m[..., 1, 0] = xy + wz
-    m[..., 1, 1] = 1.0 - (xx + zz)
-    m[..., 1, 2] = yz - wx
-    m[..., 2, 0] = xz - wy
-    m[..., 2, 1] = yz + wx
-    m[..., 2, 2] = 1.0 - (xx + yy)
+    if q.ndim == 1:   # one orientation: scalar arithmetic, then one small array
+        wx, wy, wz, xx, xy, xz, yy, yz, zz = w * xs, w * ys, w * zs, x * xs, x * ys, x * zs, y * ys, y * zs, z * zs
+        m[...] = ((1.0 - (yy + zz), xy - wz, xz + wy), (xy + wz, 1.0 - (xx + zz), yz - wx),
+                  (xz - wy, yz + wx, 1.0 - (xx + yy)))
+        return m
+    # Each entry is written straight into the result (no temporary and copy per entry).
+    xx, yy, zz = x * xs, y * ys, z * zs
+    for (i, j), (a, b) in (((0, 0), (yy, zz)), ((1, 1), (xx, zz)), ((2, 2), (xx, yy))):
+        t = a + b
+        np.subtract(1.0, t, out=m[..., i, j])
+    # (entry of t − c, entry of t + c, t, c): m01 = xy − wz, m10 = xy + wz, and so on.
+    for minus, plus, t, c in (((0, 1), (1, 0), x * ys, w * zs), ((2, 0), (0, 2), x * zs, w * ys),
+                              ((1, 2), (2, 1), y * zs, w * xs)):
+        np.subtract(t, c, out=m[(Ellipsis,) + minus])
+        np.add(t, c, out=m[(Ellipsis,) + plus])
     return m
 
 
@@ -271,18 +308,57 @@ def matrices_to_quaternions(m):
     trace, so the division is never by a small number. The input must already be a rotation; run
     `nearest_rotations` first on measured or rounded matrices."""
     m = np.asarray(m, dtype=np.float64)
-    m00, m01, m02, m10, m11, m12, m20, m21, m22 = _entries(m)
-    trace = m00 + m11 + m22
-    s01, s02, s12 = m01 + m10, m02 + m20, m12 + m21
-    d0, d1, d2 = m21 - m12, m02 - m20, m10 - m01
-    choice = np.argmax(np.stack([m00, m11, m22, trace], axis=-1), axis=-1)
-    q = np.empty(m.shape[:-2] + (4,), dtype=np.float64)
-    q[..., 0] = np.choose(choice, [d0, d1, d2, 1.0 + trace])
-    q[..., 1] = np.choose(choice, [1.0 + 2.0 * m00 - trace, s01, s02, d0])
-    q[..., 2] = np.choose(choice, [s01, 1.0 + 2.0 * m11 - trace, s12, d1])
-    q[..., 3] = np.choose(choice, [s02, s12, 1.0 + 2.0 * m22 - trace, d2])
-    q /= np.sqrt(np.einsum("...i,...i->...", q, q))[..., None]
-    return canonical_quaternions(q)
+    lead = m.shape[:-2]
+    n = math.prod(lead)
+    # One copy to rows of nine entries: every later pass then reads contiguous memory, which halves
+    # the cost of each of them against reading the entries 72 bytes apart.
+    e = np.ascontiguousarray(m.reshape(n, 9).T)
+    m00, m01, m02, m10, m11, m12, m20, m21, m22 = e
+    # The 4x4 matrix K of Markley's form (K = 4 q qᵀ for an exact rotation), row by row: row c is the
+    # unnormalised quaternion solved on candidate c (trace last). Only the chosen row is kept below.
+    k = np.empty((4, 4, n), dtype=np.float64)
+    trace = m00 + m11
+    trace += m22
+    np.add(trace, 1.0, out=k[3, 0])
+    diagonal = k.reshape(16, n)[1:12:5]          # k[0, 1], k[1, 2], k[2, 3]
+    np.multiply(e[0::4], 2.0, out=diagonal)
+    diagonal += 1.0 - trace
+    np.subtract(m21, m12, out=k[3, 1])
+    np.subtract(m02, m20, out=k[3, 2])
+    np.subtract(m10, m01, out=k[3, 3])
+    k[0:3, 0] = k[3, 1:]
+    np.add(m01, m10, out=k[0, 2])
+    np.add(m02, m20, out=k[0, 3])
+    np.add(m12, m21, out=k[1, 3])
+    k[1, 1] = k[0, 2]
+    k[2, 1] = k[0, 3]
+    k[2, 2] = k[1, 3]
+    # The largest of m00, m11, m22, trace; ties go to the earlier one.
+    larger_11 = m11 > m00
+    largest = np.maximum(m00, m11)
+    larger_22 = m22 > largest
+    np.maximum(largest, m22, out=largest)
+    q = np.where(larger_11, k[1], k[0])
+    q = np.where(larger_22, k[2], q)
+    q = np.where(trace > largest, k[3], q)
+    out = np.empty(lead + (4,), dtype=np.float64)
+    _store_canonical(q, out.reshape(n, 4).T)
+    return out
+
+
+def _store_canonical(q, out):
+    """Write the unit quaternions of `q` (rows w, x, y, z of any length) into `out` (the same shape,
+    often a transposed view of the result) with the canonical sign, folded into the normalisation: the
+    sign of w decides, except at a half turn (|w| tiny), where canonical_quaternions settles it."""
+    scale = np.add.reduce(q * q, axis=0)
+    np.sqrt(scale, out=scale)
+    np.divide(1.0, scale, out=scale)
+    np.copysign(scale, q[0], out=scale)
+    np.multiply(q, scale, out=out)
+    out += 0.0                                   # no -0.0 reaches a screen
+    half_turn = np.abs(out[0]) <= _HALF_TURN_W
+    if half_turn.any():
+        out[:, half_turn] = canonical_quaternions(out[:, half_turn].T).T
 
 
 def _entries(m):
@@ -431,18 +507,42 @@ def quaternions_to_rotation_vectors(q, assume_canonical=False):
     return v * factor[..., None]
 
 
+# Below this angle (radians) sin(phi/2)/phi is taken from its series 1/2 − phi²/48, whose next term is
+# below 1e-20 relative there; above it the quotient itself is exact to rounding.
+_SERIES_ANGLE = 1e-4
+
+
 @_in_slices(1,)
 def rotation_vectors_to_quaternions(rv):
-    """Quaternions of rotation vectors (radians). sin(phi/2)/phi is taken through numpy's sinc so the
-    zero vector needs no special case. For angles of many turns cos and sinc are evaluated at arguments
-    that have lost low bits, so the result is normalised once more (it stays unit to rounding)."""
+    """Canonical quaternions of rotation vectors (radians). cos and sin are taken of the same half angle,
+    so the result is unit to rounding for any length and needs no second normalisation; a vector longer
+    than a half turn gives w < 0, and the sign is folded into the same products."""
     rv = np.asarray(rv, dtype=np.float64)
-    angle = np.linalg.norm(rv, axis=-1)
-    q = np.empty(rv.shape[:-1] + (4,), dtype=np.float64)
-    q[..., 0] = np.cos(0.5 * angle)
-    q[..., 1:] = (0.5 * np.sinc(angle / (2.0 * np.pi)))[..., None] * rv
-    q /= np.sqrt(np.einsum("...i,...i->...", q, q))[..., None]
-    return canonical_quaternions(q)
+    x, y, z = _parts(rv)
+    squared = x * x
+    squared += y * y
+    squared += z * z
+    angle = np.sqrt(squared)
+    half = 0.5 * angle
+    w = np.cos(half)
+    # sin(phi/2)/phi, from the series near zero (and at zero, where the quotient is 0/0)
+    ratio = 0.5 - squared / 48.0
+    if np.ndim(angle) == 0:
+        if angle >= _SERIES_ANGLE:
+            ratio = np.sin(half) / angle
+    else:
+        large = angle >= _SERIES_ANGLE
+        np.divide(np.sin(half), angle, out=ratio, where=large)
+    ratio = np.copysign(ratio, w)                # w < 0 beyond a half turn: take -q
+    out = np.empty(rv.shape[:-1] + (4,), dtype=np.float64)
+    np.abs(w, out=out[..., 0])
+    for i, c in enumerate((x, y, z), start=1):
+        np.multiply(c, ratio, out=out[..., i])
+    out += 0.0                                   # no -0.0 reaches a screen
+    half_turn = np.abs(out[..., 0]) <= _HALF_TURN_W
+    if np.any(half_turn):
+        out[half_turn] = canonical_quaternions(out[half_turn])
+    return out
 
 
 # --- angle sequences ----------------------------------------------------------------------------------
