@@ -148,11 +148,12 @@ def check_sequence_name(sequence):
 
 
 def _parts(a):
-    """The components along the last axis: views for a batch, numpy scalars for a single value. Same
-    arithmetic either way; scalar arithmetic just costs a tenth of 0-d array arithmetic, which matters on
-    the path of every edit."""
+    """The components along the last axis: views for a batch, Python floats for a single value. Same
+    IEEE arithmetic either way; on floats it costs a fraction of numpy scalar arithmetic (and a tenth of
+    0-d arrays), which matters on the path of every edit. Divisions that may meet a zero use np.divide,
+    so a float never raises where an array would give inf."""
     if a.ndim == 1:
-        return tuple(a)
+        return tuple(a.tolist())
     return tuple(a[..., i] for i in range(a.shape[-1]))
 
 
@@ -280,7 +281,7 @@ def quaternions_to_matrices(q, out=None):
     s += x * x
     s += y * y
     s += z * z
-    s = 2.0 / s
+    s = np.divide(2.0, s)
     xs, ys, zs = x * s, y * s, z * s
     m = np.empty(q.shape[:-1] + (3, 3), dtype=np.float64) if out is None else out
     if q.ndim == 1:   # one orientation: scalar arithmetic, then one small array
@@ -310,6 +311,8 @@ def matrices_to_quaternions(m):
     m = np.asarray(m, dtype=np.float64)
     lead = m.shape[:-2]
     n = math.prod(lead)
+    if n == 1:
+        return _matrix_to_quaternion(m.reshape(9).tolist()).reshape(lead + (4,))
     # One copy to rows of nine entries: every later pass then reads contiguous memory, which halves
     # the cost of each of them against reading the entries 72 bytes apart.
     e = np.ascontiguousarray(m.reshape(n, 9).T)
@@ -344,6 +347,24 @@ def matrices_to_quaternions(m):
     out = np.empty(lead + (4,), dtype=np.float64)
     _store_canonical(q, out.reshape(n, 4).T)
     return out
+
+
+def _matrix_to_quaternion(entries):
+    """The same method for one matrix, on Python floats: the chosen row of K alone, then one small array."""
+    m00, m01, m02, m10, m11, m12, m20, m21, m22 = entries
+    trace = m00 + m11 + m22
+    largest = max(m00, m11, m22)              # ties go to the earlier one, as in the batch above
+    if trace > largest:
+        q = (1.0 + trace, m21 - m12, m02 - m20, m10 - m01)
+    elif m00 == largest:
+        q = (m21 - m12, 2.0 * m00 + (1.0 - trace), m01 + m10, m02 + m20)
+    elif m11 == largest:
+        q = (m02 - m20, m01 + m10, 2.0 * m11 + (1.0 - trace), m12 + m21)
+    else:
+        q = (m10 - m01, m02 + m20, m12 + m21, 2.0 * m22 + (1.0 - trace))
+    scale = math.copysign(1.0 / math.sqrt(q[0] * q[0] + q[1] * q[1] + q[2] * q[2] + q[3] * q[3]), q[0])
+    out = np.array([c * scale + 0.0 for c in q])    # as _store_canonical does for a batch
+    return canonical_quaternions(out) if abs(out[0]) <= _HALF_TURN_W else out
 
 
 def _store_canonical(q, out):

@@ -62,7 +62,7 @@ def rows(n: int):
          (lambda qa=npq.as_quat_array(q): npq.as_rotation_matrix(qa)) if npq else None, False),
         ("matrix -> quaternion (input known valid)", lambda: kernels.matrices_to_quaternions(m),
          lambda: Rotation.from_matrix(m, assume_valid=True).as_quat(),
-         (lambda: npq.from_rotation_matrix(m)) if npq else None, False),
+         (lambda: npq.from_rotation_matrix(m, nonorthogonal=False)) if npq else None, False),
         ("rotation vector -> quaternion", lambda: kernels.rotation_vectors_to_quaternions(rv),
          lambda: Rotation.from_rotvec(rv).as_quat(),
          (lambda: npq.from_rotation_vector(rv)) if npq else None, True),
