@@ -157,6 +157,18 @@ def _parts(a):
     return tuple(a[..., i] for i in range(a.shape[-1]))
 
 
+def _on_floats_or_arrays(array_function, float_function):
+    """One function for both kinds of _parts: the math module's on Python floats (one orientation),
+    numpy's on arrays."""
+    return lambda *args: float_function(*args) if type(args[0]) is float else array_function(*args)
+
+
+_sqrt = _on_floats_or_arrays(np.sqrt, math.sqrt)
+_arctan2 = _on_floats_or_arrays(np.arctan2, math.atan2)
+_minimum = _on_floats_or_arrays(np.minimum, min)
+_maximum = _on_floats_or_arrays(np.maximum, max)
+
+
 # --- quaternion algebra -----------------------------------------------------------------------------
 
 @_in_slices(1,)
@@ -341,12 +353,21 @@ def matrices_to_quaternions(m):
     largest = np.maximum(m00, m11)
     larger_22 = m22 > largest
     np.maximum(largest, m22, out=largest)
-    q = np.where(larger_11, k[1], k[0])
-    q = np.where(larger_22, k[2], q)
-    q = np.where(trace > largest, k[3], q)
+    # Row index of the chosen candidate for each matrix, then one gather of its four entries.
+    choice = np.where(larger_22, 8 * n, larger_11 * (4 * n))
+    choice[trace > largest] = 12 * n
+    q = np.take(k, _row_offsets(n) + choice)
     out = np.empty(lead + (4,), dtype=np.float64)
     _store_canonical(q, out.reshape(n, 4).T)
     return out
+
+
+@functools.lru_cache(maxsize=4)
+def _row_offsets(n):
+    """Flat offsets j·n + i of entry j of orientation i in a (4, n) block (for gathers)."""
+    offsets = np.arange(4 * n, dtype=np.intp).reshape(4, n)
+    offsets.setflags(write=False)
+    return offsets
 
 
 def _matrix_to_quaternion(entries):
@@ -487,12 +508,26 @@ def quaternions_to_axis_angles(q, assume_canonical=False):
     non-zero component is positive. assume_canonical=True skips that sign step for input that already
     has it (an Orientation's own quaternion)."""
     q = np.asarray(q, dtype=np.float64) if assume_canonical else canonical_quaternions(q)
-    v = q[..., 1:]
-    s = np.sqrt(np.einsum("...i,...i->...", v, v))
-    angle = 2.0 * np.arctan2(s, q[..., 0])
-    safe = np.where(s > 0, s, 1.0)
-    axis = np.where((s > 0)[..., None], v / safe[..., None], 0.0)
+    w, x, y, z, s, angle = _vector_length_and_angle(q)
+    axis = np.zeros(q.shape[:-1] + (3,), dtype=np.float64)
+    if q.ndim == 1:
+        if s > 0:
+            axis[:] = (x / s, y / s, z / s)
+        return axis, angle
+    has_axis = s > 0
+    for i, c in enumerate((x, y, z)):
+        np.divide(c, s, out=axis[..., i], where=has_axis)
     return axis, angle
+
+
+def _vector_length_and_angle(q):
+    """w, x, y, z, the length s of the vector part and the angle 2 atan2(s, w) of quaternions."""
+    w, x, y, z = _parts(q)
+    s = x * x
+    s += y * y
+    s += z * z
+    s = _sqrt(s)
+    return w, x, y, z, s, 2.0 * _arctan2(s, w)
 
 
 @_in_slices(1, 0)
@@ -519,13 +554,19 @@ def quaternions_to_rotation_vectors(q, assume_canonical=False):
     """Rotation vectors phi·n (radians) of quaternions, with phi in [0, pi] (assume_canonical: as for
     quaternions_to_axis_angles)."""
     q = np.asarray(q, dtype=np.float64) if assume_canonical else canonical_quaternions(q)
-    v = q[..., 1:]
-    s = np.sqrt(np.einsum("...i,...i->...", v, v))
-    angle = 2.0 * np.arctan2(s, q[..., 0])
+    w, x, y, z, s, angle = _vector_length_and_angle(q)
     # angle / s tends to 2 / w as s -> 0; atan2 keeps the ratio exact right down to the last bit.
+    if q.ndim == 1:
+        factor = angle / s if s > 0 else float(np.divide(2.0, w))
+        return np.array((x * factor, y * factor, z * factor))
     has_axis = s > 0
-    factor = np.where(has_axis, angle / np.where(has_axis, s, 1.0), 2.0 / np.where(has_axis, 1.0, q[..., 0]))
-    return v * factor[..., None]
+    factor = np.empty_like(s)
+    np.divide(angle, s, out=factor, where=has_axis)
+    np.divide(2.0, w, out=factor, where=~has_axis)
+    out = np.empty(q.shape[:-1] + (3,), dtype=np.float64)
+    for i, c in enumerate((x, y, z)):
+        np.multiply(c, factor, out=out[..., i])
+    return out
 
 
 # Below this angle (radians) sin(phi/2)/phi is taken from its series 1/2 − phi²/48, whose next term is
@@ -619,6 +660,9 @@ def _sequence_terms(q, sequence, intrinsic):
 def _wrap_half_open(angle):
     """Angles into (−pi, pi]."""
     # The inputs are sums of two atan2 results, so one turn either way is always enough.
+    if type(angle) is float:
+        angle = angle - 2.0 * np.pi if angle > np.pi else angle
+        return angle + 2.0 * np.pi if angle <= -np.pi else angle
     angle = np.where(angle > np.pi, angle - 2.0 * np.pi, angle)
     return np.where(angle <= -np.pi, angle + 2.0 * np.pi, angle)
 
@@ -630,8 +674,8 @@ def gimbal_margins(q, sequence, intrinsic=True):
     keeps its accuracy right at the singularity."""
     q = np.asarray(q, dtype=np.float64)
     a, b, c, d, _, _ = _sequence_terms(q, sequence, intrinsic)
-    h_ab, h_cd = np.sqrt(a * a + b * b), np.sqrt(c * c + d * d)
-    return 2.0 * np.arctan2(np.minimum(h_ab, h_cd), np.maximum(h_ab, h_cd))
+    h_ab, h_cd = _sqrt(a * a + b * b), _sqrt(c * c + d * d)
+    return 2.0 * _arctan2(_minimum(h_ab, h_cd), _maximum(h_ab, h_cd))
 
 
 @_in_slices(1,)
@@ -644,18 +688,18 @@ def quaternions_to_angles(q, sequence, intrinsic=True):
     q = np.asarray(q, dtype=np.float64)
     a, b, c, d, proper, sign = _sequence_terms(q, sequence, intrinsic)
     # sqrt of squares rather than hypot: same accuracy for unit-scale input, several times faster.
-    h_ab, h_cd = np.sqrt(a * a + b * b), np.sqrt(c * c + d * d)
-    half_sum = np.arctan2(b, a)
-    half_diff = np.arctan2(d, c)
+    h_ab, h_cd = _sqrt(a * a + b * b), _sqrt(c * c + d * d)
+    half_sum = _arctan2(b, a)
+    half_diff = _arctan2(d, c)
     angles = np.empty(np.shape(a) + (3,), dtype=np.float64)
     first, third = (2, 0) if intrinsic else (0, 2)   # computed in the extrinsic order
     angles[..., first] = _wrap_half_open(half_sum - half_diff)
     outer = half_sum + half_diff
     angles[..., third] = _wrap_half_open(outer if proper else outer * sign)
-    angles[..., 1] = 2.0 * np.arctan2(h_cd, h_ab) - (0.0 if proper else 0.5 * np.pi)
+    angles[..., 1] = 2.0 * _arctan2(h_cd, h_ab) - (0.0 if proper else 0.5 * np.pi)
     # margin < LOCK_MARGIN_RAD, written without a further arctan2
-    locked = np.minimum(h_ab, h_cd) < _TAN_HALF_LOCK * np.maximum(h_ab, h_cd)
-    if np.any(locked):
+    locked = _minimum(h_ab, h_cd) < _TAN_HALF_LOCK * _maximum(h_ab, h_cd)
+    if locked if type(locked) is bool else locked.any():
         angles[locked] = _locked_angles(q[locked], sequence, intrinsic, angles[locked, 1])
     return angles + 0.0, locked
 

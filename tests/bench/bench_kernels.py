@@ -33,16 +33,25 @@ except ImportError:                   # pragma: no cover - the bench still runs 
 
 
 def best_time(function) -> float:
-    function()
-    start = time.perf_counter()
-    function()
-    once = max(time.perf_counter() - start, 1e-7)
-    repeats = max(3, min(200, int(BUDGET_S / once)))
-    best = once
-    for _ in range(repeats):
+    return best_times(function)[0]
+
+
+def best_times(*functions) -> list[float]:
+    """Best run of each function, taking turns (ours, theirs, ours, ...) so that a burst of load from the
+    rest of a shared machine falls on every side alike rather than on whichever was being timed."""
+    once = []
+    for function in functions:
+        function()
         start = time.perf_counter()
         function()
-        best = min(best, time.perf_counter() - start)
+        once.append(max(time.perf_counter() - start, 1e-7))
+    repeats = max(3, min(200, int(BUDGET_S / sum(once) * len(functions))))
+    best = list(once)
+    for _ in range(repeats):
+        for i, function in enumerate(functions):
+            start = time.perf_counter()
+            function()
+            best[i] = min(best[i], time.perf_counter() - start)
     return best
 
 
@@ -112,7 +121,8 @@ def single_orientation():
         np.linalg.norm(rv)                      # axis and angle from the rotation vector
         r.as_euler("ZYX", degrees=True)
 
-    return best_time(lambda: [ours() for _ in range(100)]) / 100, best_time(lambda: [theirs() for _ in range(100)]) / 100
+    t_ours, t_theirs = best_times(lambda: [ours() for _ in range(100)], lambda: [theirs() for _ in range(100)])
+    return t_ours / 100, t_theirs / 100
 
 
 def main():
@@ -122,12 +132,12 @@ def main():
           f" {'npq':>10s} {'ratio':>6s}")
     for n in SIZES:
         for name, ours, theirs, peer, peer_goal, in rows(n):
-            t_ours, t_scipy = best_time(ours), best_time(theirs)
+            t_ours, t_scipy, *t_peer = best_times(ours, theirs, *([peer] if peer is not None else []))
             ratio, goal = t_ours / t_scipy, _goal(n)
             line = (f"{name:42s} {n:>9,} {t_ours * 1e3:8.3f}ms {t_scipy * 1e3:8.3f}ms {ratio:6.2f} {goal:5.1f} "
                     f"{_verdict(ratio, goal):7s}")
             if peer is not None:
-                t_peer = best_time(peer)
+                t_peer = t_peer[0]
                 peer_ratio = t_ours / t_peer
                 mark = f" {_verdict(peer_ratio, 1.0)}" if peer_goal and n >= 100_000 else ""
                 line += f" {t_peer * 1e3:8.3f}ms {peer_ratio:6.2f}{mark}"
