@@ -207,15 +207,15 @@ def canonical_quaternions(q):
     return np.where(flip[..., None], -q, q) + 0.0
 
 
-@_in_slices(1, 1)
-def multiply_quaternions(p, q):
+@_in_slices(1, 1, fills=(4,))
+def multiply_quaternions(p, q, out=None):
     """Hamilton product p ⊗ q: the rotation q followed by p, i.e. matrix(p) @ matrix(q)."""
     p = np.asarray(p, dtype=np.float64)
     q = np.asarray(q, dtype=np.float64)
     pw, px, py, pz = _parts(p)
     qw, qx, qy, qz = _parts(q)
-    shape = np.broadcast_shapes(p.shape, q.shape)
-    out = np.empty(shape, dtype=np.float64)
+    if out is None:
+        out = np.empty(np.broadcast_shapes(p.shape, q.shape), dtype=np.float64)
     # Each component is a sum of four products, accumulated in place; the last operation writes straight
     # into the result.
     t = pw * qw
@@ -244,8 +244,8 @@ def conjugate_quaternions(q):
     return q * np.array([1.0, -1.0, -1.0, -1.0])
 
 
-@_in_slices(1, 1)
-def rotate_vectors(q, v):
+@_in_slices(1, 1, fills=(3,))
+def rotate_vectors(q, v, out=None):
     """v' = q v q*, computed as v + w t + u × t with t = 2 u × v and u the vector part (unit q), written
     out component by component: np.cross costs several times these few products on a batch."""
     q = np.asarray(q, dtype=np.float64)
@@ -261,7 +261,8 @@ def rotate_vectors(q, v):
     tz = x * b
     tz -= y * a
     tz += tz
-    out = np.empty(np.broadcast_shapes(q.shape[:-1], v.shape[:-1]) + (3,), dtype=np.float64)
+    if out is None:
+        out = np.empty(np.broadcast_shapes(q.shape[:-1], v.shape[:-1]) + (3,), dtype=np.float64)
     for i, (vi, ti, cross) in enumerate(((a, tx, (y, tz, z, ty)), (b, ty, (z, tx, x, tz)),
                                           (c, tz, (x, ty, y, tx)))):
         r = w * ti
@@ -314,8 +315,8 @@ def quaternions_to_matrices(q, out=None):
     return m
 
 
-@_in_slices(2,)
-def matrices_to_quaternions(m):
+@_in_slices(2, fills=(4,))
+def matrices_to_quaternions(m, out=None):
     """Canonical unit quaternions of rotation matrices, by Shepperd's method in Markley's form: of the
     four ways to solve for the quaternion, take the one built on the largest of m00, m11, m22 and the
     trace, so the division is never by a small number. The input must already be a rotation; run
@@ -357,7 +358,7 @@ def matrices_to_quaternions(m):
     choice = np.where(larger_22, 8 * n, larger_11 * (4 * n))
     choice[trace > largest] = 12 * n
     q = np.take(k, _row_offsets(n) + choice)
-    out = np.empty(lead + (4,), dtype=np.float64)
+    out = np.empty(lead + (4,), dtype=np.float64) if out is None else out
     _store_canonical(q, out.reshape(n, 4).T)
     return out
 
@@ -549,8 +550,8 @@ def axis_angles_to_quaternions(axis, angle):
     return canonical_quaternions(q)
 
 
-@_in_slices(1,)
-def quaternions_to_rotation_vectors(q, assume_canonical=False):
+@_in_slices(1, fills=(3,))
+def quaternions_to_rotation_vectors(q, assume_canonical=False, out=None):
     """Rotation vectors phi·n (radians) of quaternions, with phi in [0, pi] (assume_canonical: as for
     quaternions_to_axis_angles)."""
     q = np.asarray(q, dtype=np.float64) if assume_canonical else canonical_quaternions(q)
@@ -563,7 +564,8 @@ def quaternions_to_rotation_vectors(q, assume_canonical=False):
     factor = np.empty_like(s)
     np.divide(angle, s, out=factor, where=has_axis)
     np.divide(2.0, w, out=factor, where=~has_axis)
-    out = np.empty(q.shape[:-1] + (3,), dtype=np.float64)
+    if out is None:
+        out = np.empty(q.shape[:-1] + (3,), dtype=np.float64)
     for i, c in enumerate((x, y, z)):
         np.multiply(c, factor, out=out[..., i])
     return out
@@ -574,8 +576,8 @@ def quaternions_to_rotation_vectors(q, assume_canonical=False):
 _SERIES_ANGLE = 1e-4
 
 
-@_in_slices(1,)
-def rotation_vectors_to_quaternions(rv):
+@_in_slices(1, fills=(4,))
+def rotation_vectors_to_quaternions(rv, out=None):
     """Canonical quaternions of rotation vectors (radians). cos and sin are taken of the same half angle,
     so the result is unit to rounding for any length and needs no second normalisation; a vector longer
     than a half turn gives w < 0, and the sign is folded into the same products."""
@@ -596,7 +598,8 @@ def rotation_vectors_to_quaternions(rv):
         large = angle >= _SERIES_ANGLE
         np.divide(np.sin(half), angle, out=ratio, where=large)
     ratio = np.copysign(ratio, w)                # w < 0 beyond a half turn: take -q
-    out = np.empty(rv.shape[:-1] + (4,), dtype=np.float64)
+    if out is None:
+        out = np.empty(rv.shape[:-1] + (4,), dtype=np.float64)
     np.abs(w, out=out[..., 0])
     for i, c in enumerate((x, y, z), start=1):
         np.multiply(c, ratio, out=out[..., i])
