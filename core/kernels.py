@@ -148,12 +148,25 @@ def check_sequence_name(sequence):
 
 
 def _parts(a):
-    """The components along the last axis: views for a batch, numpy scalars for a single value. Same
-    arithmetic either way; scalar arithmetic just costs a tenth of 0-d array arithmetic, which matters on
-    the path of every edit."""
+    """The components along the last axis: views for a batch, Python floats for a single value. Same
+    IEEE arithmetic either way; on floats it costs a fraction of numpy scalar arithmetic (and a tenth of
+    0-d arrays), which matters on the path of every edit. Divisions that may meet a zero use np.divide,
+    so a float never raises where an array would give inf."""
     if a.ndim == 1:
-        return tuple(a)
+        return tuple(a.tolist())
     return tuple(a[..., i] for i in range(a.shape[-1]))
+
+
+def _on_floats_or_arrays(array_function, float_function):
+    """One function for both kinds of _parts: the math module's on Python floats (one orientation),
+    numpy's on arrays."""
+    return lambda *args: float_function(*args) if type(args[0]) is float else array_function(*args)
+
+
+_sqrt = _on_floats_or_arrays(np.sqrt, math.sqrt)
+_arctan2 = _on_floats_or_arrays(np.arctan2, math.atan2)
+_minimum = _on_floats_or_arrays(np.minimum, min)
+_maximum = _on_floats_or_arrays(np.maximum, max)
 
 
 # --- quaternion algebra -----------------------------------------------------------------------------
@@ -194,19 +207,33 @@ def canonical_quaternions(q):
     return np.where(flip[..., None], -q, q) + 0.0
 
 
-@_in_slices(1, 1)
-def multiply_quaternions(p, q):
+@_in_slices(1, 1, fills=(4,))
+def multiply_quaternions(p, q, out=None):
     """Hamilton product p ⊗ q: the rotation q followed by p, i.e. matrix(p) @ matrix(q)."""
     p = np.asarray(p, dtype=np.float64)
     q = np.asarray(q, dtype=np.float64)
     pw, px, py, pz = _parts(p)
     qw, qx, qy, qz = _parts(q)
-    shape = np.broadcast_shapes(p.shape, q.shape)
-    out = np.empty(shape, dtype=np.float64)
-    out[..., 0] = pw * qw - px * qx - py * qy - pz * qz
-    out[..., 1] = pw * qx + px * qw + py * qz - pz * qy
-    out[..., 2] = pw * qy - px * qz + py * qw + pz * qx
-    out[..., 3] = pw * qz + px * qy - py * qx + pz * qw
+    if out is None:
+        out = np.empty(np.broadcast_shapes(p.shape, q.shape), dtype=np.float64)
+    # Each component is a sum of four products, accumulated in place; the last operation writes straight
+    # into the result.
+    t = pw * qw
+    t -= px * qx
+    t -= py * qy
+    np.subtract(t, pz * qz, out=out[..., 0])
+    t = pw * qx
+    t += px * qw
+    t += py * qz
+    np.subtract(t, pz * qy, out=out[..., 1])
+    t = pw * qy
+    t -= px * qz
+    t += py * qw
+    np.add(t, pz * qx, out=out[..., 2])
+    t = pw * qz
+    t += px * qy
+    t -= py * qx
+    np.add(t, pz * qw, out=out[..., 3])
     return out
 
 
@@ -217,15 +244,32 @@ def conjugate_quaternions(q):
     return q * np.array([1.0, -1.0, -1.0, -1.0])
 
 
-@_in_slices(1, 1)
-def rotate_vectors(q, v):
-    """v' = q v q*, computed as v + 2w (u × v) + 2 u × (u × v) with u the vector part."""
+@_in_slices(1, 1, fills=(3,))
+def rotate_vectors(q, v, out=None):
+    """v' = q v q*, computed as v + w t + u × t with t = 2 u × v and u the vector part (unit q), written
+    out component by component: np.cross costs several times these few products on a batch."""
     q = np.asarray(q, dtype=np.float64)
     v = np.asarray(v, dtype=np.float64)
-    w = q[..., :1]
-    u = q[..., 1:]
-    t = 2.0 * np.cross(u, v)
-    return v + w * t + np.cross(u, t)
+    w, x, y, z = _parts(q)
+    a, b, c = _parts(v)
+    tx = y * c
+    tx -= z * b
+    tx += tx
+    ty = z * a
+    ty -= x * c
+    ty += ty
+    tz = x * b
+    tz -= y * a
+    tz += tz
+    if out is None:
+        out = np.empty(np.broadcast_shapes(q.shape[:-1], v.shape[:-1]) + (3,), dtype=np.float64)
+    for i, (vi, ti, cross) in enumerate(((a, tx, (y, tz, z, ty)), (b, ty, (z, tx, x, tz)),
+                                          (c, tz, (x, ty, y, tx)))):
+        r = w * ti
+        r += vi
+        r += cross[0] * cross[1]
+        np.subtract(r, cross[2] * cross[3], out=out[..., i])
+    return out
 
 
 @_in_slices(1, 1)
@@ -246,43 +290,118 @@ def quaternions_to_matrices(q, out=None):
     normalisation is folded into the factor s = 2 / |q|² (Shoemake's form), with no square root."""
     q = np.asarray(q, dtype=np.float64)
     w, x, y, z = _parts(q)
-    s = 2.0 / (w * w + x * x + y * y + z * z)
+    s = w * w
+    s += x * x
+    s += y * y
+    s += z * z
+    s = np.divide(2.0, s)
     xs, ys, zs = x * s, y * s, z * s
-    wx, wy, wz = w * xs, w * ys, w * zs
-    xx, xy, xz = x * xs, x * ys, x * zs
-    yy, yz, zz = y * ys, y * zs, z * zs
     m = np.empty(q.shape[:-1] + (3, 3), dtype=np.float64) if out is None else out
-    m[..., 0, 0] = 1.0 - (yy + zz)
-    m[..., 0, 1] = xy - wz
-    m[..., 0, 2] = xz + wy
-    m[..., 1, 0] = xy + wz
-    m[..., 1, 1] = 1.0 - (xx + zz)
-    m[..., 1, 2] = yz - wx
-    m[..., 2, 0] = xz - wy
-    m[..., 2, 1] = yz + wx
-    m[..., 2, 2] = 1.0 - (xx + yy)
+    if q.ndim == 1:   # one orientation: scalar arithmetic, then one small array
+        wx, wy, wz, xx, xy, xz, yy, yz, zz = w * xs, w * ys, w * zs, x * xs, x * ys, x * zs, y * ys, y * zs, z * zs
+        m[...] = ((1.0 - (yy + zz), xy - wz, xz + wy), (xy + wz, 1.0 - (xx + zz), yz - wx),
+                  (xz - wy, yz + wx, 1.0 - (xx + yy)))
+        return m
+    # Each entry is written straight into the result (no temporary and copy per entry).
+    xx, yy, zz = x * xs, y * ys, z * zs
+    for (i, j), (a, b) in (((0, 0), (yy, zz)), ((1, 1), (xx, zz)), ((2, 2), (xx, yy))):
+        t = a + b
+        np.subtract(1.0, t, out=m[..., i, j])
+    # (entry of t − c, entry of t + c, t, c): m01 = xy − wz, m10 = xy + wz, and so on.
+    for minus, plus, t, c in (((0, 1), (1, 0), x * ys, w * zs), ((2, 0), (0, 2), x * zs, w * ys),
+                              ((1, 2), (2, 1), y * zs, w * xs)):
+        np.subtract(t, c, out=m[(Ellipsis,) + minus])
+        np.add(t, c, out=m[(Ellipsis,) + plus])
     return m
 
 
-@_in_slices(2,)
-def matrices_to_quaternions(m):
+@_in_slices(2, fills=(4,))
+def matrices_to_quaternions(m, out=None):
     """Canonical unit quaternions of rotation matrices, by Shepperd's method in Markley's form: of the
     four ways to solve for the quaternion, take the one built on the largest of m00, m11, m22 and the
     trace, so the division is never by a small number. The input must already be a rotation; run
     `nearest_rotations` first on measured or rounded matrices."""
     m = np.asarray(m, dtype=np.float64)
-    m00, m01, m02, m10, m11, m12, m20, m21, m22 = _entries(m)
+    lead = m.shape[:-2]
+    n = math.prod(lead)
+    if n == 1:
+        return _matrix_to_quaternion(m.reshape(9).tolist()).reshape(lead + (4,))
+    # One copy to rows of nine entries: every later pass then reads contiguous memory, which halves
+    # the cost of each of them against reading the entries 72 bytes apart.
+    e = np.ascontiguousarray(m.reshape(n, 9).T)
+    m00, m01, m02, m10, m11, m12, m20, m21, m22 = e
+    # The 4x4 matrix K of Markley's form (K = 4 q qᵀ for an exact rotation), row by row: row c is the
+    # unnormalised quaternion solved on candidate c (trace last). Only the chosen row is kept below.
+    k = np.empty((4, 4, n), dtype=np.float64)
+    trace = m00 + m11
+    trace += m22
+    np.add(trace, 1.0, out=k[3, 0])
+    diagonal = k.reshape(16, n)[1:12:5]          # k[0, 1], k[1, 2], k[2, 3]
+    np.multiply(e[0::4], 2.0, out=diagonal)
+    diagonal += 1.0 - trace
+    np.subtract(m21, m12, out=k[3, 1])
+    np.subtract(m02, m20, out=k[3, 2])
+    np.subtract(m10, m01, out=k[3, 3])
+    k[0:3, 0] = k[3, 1:]
+    np.add(m01, m10, out=k[0, 2])
+    np.add(m02, m20, out=k[0, 3])
+    np.add(m12, m21, out=k[1, 3])
+    k[1, 1] = k[0, 2]
+    k[2, 1] = k[0, 3]
+    k[2, 2] = k[1, 3]
+    # The largest of m00, m11, m22, trace; ties go to the earlier one.
+    larger_11 = m11 > m00
+    largest = np.maximum(m00, m11)
+    larger_22 = m22 > largest
+    np.maximum(largest, m22, out=largest)
+    # Row index of the chosen candidate for each matrix, then one gather of its four entries.
+    choice = np.where(larger_22, 8 * n, larger_11 * (4 * n))
+    choice[trace > largest] = 12 * n
+    q = np.take(k, _row_offsets(n) + choice)
+    out = np.empty(lead + (4,), dtype=np.float64) if out is None else out
+    _store_canonical(q, out.reshape(n, 4).T)
+    return out
+
+
+@functools.lru_cache(maxsize=4)
+def _row_offsets(n):
+    """Flat offsets j·n + i of entry j of orientation i in a (4, n) block (for gathers)."""
+    offsets = np.arange(4 * n, dtype=np.intp).reshape(4, n)
+    offsets.setflags(write=False)
+    return offsets
+
+
+def _matrix_to_quaternion(entries):
+    """The same method for one matrix, on Python floats: the chosen row of K alone, then one small array."""
+    m00, m01, m02, m10, m11, m12, m20, m21, m22 = entries
     trace = m00 + m11 + m22
-    s01, s02, s12 = m01 + m10, m02 + m20, m12 + m21
-    d0, d1, d2 = m21 - m12, m02 - m20, m10 - m01
-    choice = np.argmax(np.stack([m00, m11, m22, trace], axis=-1), axis=-1)
-    q = np.empty(m.shape[:-2] + (4,), dtype=np.float64)
-    q[..., 0] = np.choose(choice, [d0, d1, d2, 1.0 + trace])
-    q[..., 1] = np.choose(choice, [1.0 + 2.0 * m00 - trace, s01, s02, d0])
-    q[..., 2] = np.choose(choice, [s01, 1.0 + 2.0 * m11 - trace, s12, d1])
-    q[..., 3] = np.choose(choice, [s02, s12, 1.0 + 2.0 * m22 - trace, d2])
-    q /= np.sqrt(np.einsum("...i,...i->...", q, q))[..., None]
-    return canonical_quaternions(q)
+    largest = max(m00, m11, m22)              # ties go to the earlier one, as in the batch above
+    if trace > largest:
+        q = (1.0 + trace, m21 - m12, m02 - m20, m10 - m01)
+    elif m00 == largest:
+        q = (m21 - m12, 2.0 * m00 + (1.0 - trace), m01 + m10, m02 + m20)
+    elif m11 == largest:
+        q = (m02 - m20, m01 + m10, 2.0 * m11 + (1.0 - trace), m12 + m21)
+    else:
+        q = (m10 - m01, m02 + m20, m12 + m21, 2.0 * m22 + (1.0 - trace))
+    scale = math.copysign(1.0 / math.sqrt(q[0] * q[0] + q[1] * q[1] + q[2] * q[2] + q[3] * q[3]), q[0])
+    out = np.array([c * scale + 0.0 for c in q])    # as _store_canonical does for a batch
+    return canonical_quaternions(out) if abs(out[0]) <= _HALF_TURN_W else out
+
+
+def _store_canonical(q, out):
+    """Write the unit quaternions of `q` (rows w, x, y, z of any length) into `out` (the same shape,
+    often a transposed view of the result) with the canonical sign, folded into the normalisation: the
+    sign of w decides, except at a half turn (|w| tiny), where canonical_quaternions settles it."""
+    scale = np.add.reduce(q * q, axis=0)
+    np.sqrt(scale, out=scale)
+    np.divide(1.0, scale, out=scale)
+    np.copysign(scale, q[0], out=scale)
+    np.multiply(q, scale, out=out)
+    out += 0.0                                   # no -0.0 reaches a screen
+    half_turn = np.abs(out[0]) <= _HALF_TURN_W
+    if half_turn.any():
+        out[:, half_turn] = canonical_quaternions(out[:, half_turn].T).T
 
 
 def _entries(m):
@@ -390,12 +509,26 @@ def quaternions_to_axis_angles(q, assume_canonical=False):
     non-zero component is positive. assume_canonical=True skips that sign step for input that already
     has it (an Orientation's own quaternion)."""
     q = np.asarray(q, dtype=np.float64) if assume_canonical else canonical_quaternions(q)
-    v = q[..., 1:]
-    s = np.sqrt(np.einsum("...i,...i->...", v, v))
-    angle = 2.0 * np.arctan2(s, q[..., 0])
-    safe = np.where(s > 0, s, 1.0)
-    axis = np.where((s > 0)[..., None], v / safe[..., None], 0.0)
+    w, x, y, z, s, angle = _vector_length_and_angle(q)
+    axis = np.zeros(q.shape[:-1] + (3,), dtype=np.float64)
+    if q.ndim == 1:
+        if s > 0:
+            axis[:] = (x / s, y / s, z / s)
+        return axis, angle
+    has_axis = s > 0
+    for i, c in enumerate((x, y, z)):
+        np.divide(c, s, out=axis[..., i], where=has_axis)
     return axis, angle
+
+
+def _vector_length_and_angle(q):
+    """w, x, y, z, the length s of the vector part and the angle 2 atan2(s, w) of quaternions."""
+    w, x, y, z = _parts(q)
+    s = x * x
+    s += y * y
+    s += z * z
+    s = _sqrt(s)
+    return w, x, y, z, s, 2.0 * _arctan2(s, w)
 
 
 @_in_slices(1, 0)
@@ -417,32 +550,64 @@ def axis_angles_to_quaternions(axis, angle):
     return canonical_quaternions(q)
 
 
-@_in_slices(1,)
-def quaternions_to_rotation_vectors(q, assume_canonical=False):
+@_in_slices(1, fills=(3,))
+def quaternions_to_rotation_vectors(q, assume_canonical=False, out=None):
     """Rotation vectors phi·n (radians) of quaternions, with phi in [0, pi] (assume_canonical: as for
     quaternions_to_axis_angles)."""
     q = np.asarray(q, dtype=np.float64) if assume_canonical else canonical_quaternions(q)
-    v = q[..., 1:]
-    s = np.sqrt(np.einsum("...i,...i->...", v, v))
-    angle = 2.0 * np.arctan2(s, q[..., 0])
+    w, x, y, z, s, angle = _vector_length_and_angle(q)
     # angle / s tends to 2 / w as s -> 0; atan2 keeps the ratio exact right down to the last bit.
+    if q.ndim == 1:
+        factor = angle / s if s > 0 else float(np.divide(2.0, w))
+        return np.array((x * factor, y * factor, z * factor))
     has_axis = s > 0
-    factor = np.where(has_axis, angle / np.where(has_axis, s, 1.0), 2.0 / np.where(has_axis, 1.0, q[..., 0]))
-    return v * factor[..., None]
+    factor = np.empty_like(s)
+    np.divide(angle, s, out=factor, where=has_axis)
+    np.divide(2.0, w, out=factor, where=~has_axis)
+    if out is None:
+        out = np.empty(q.shape[:-1] + (3,), dtype=np.float64)
+    for i, c in enumerate((x, y, z)):
+        np.multiply(c, factor, out=out[..., i])
+    return out
 
 
-@_in_slices(1,)
-def rotation_vectors_to_quaternions(rv):
-    """Quaternions of rotation vectors (radians). sin(phi/2)/phi is taken through numpy's sinc so the
-    zero vector needs no special case. For angles of many turns cos and sinc are evaluated at arguments
-    that have lost low bits, so the result is normalised once more (it stays unit to rounding)."""
+# Below this angle (radians) sin(phi/2)/phi is taken from its series 1/2 − phi²/48, whose next term is
+# below 1e-20 relative there; above it the quotient itself is exact to rounding.
+_SERIES_ANGLE = 1e-4
+
+
+@_in_slices(1, fills=(4,))
+def rotation_vectors_to_quaternions(rv, out=None):
+    """Canonical quaternions of rotation vectors (radians). cos and sin are taken of the same half angle,
+    so the result is unit to rounding for any length and needs no second normalisation; a vector longer
+    than a half turn gives w < 0, and the sign is folded into the same products."""
     rv = np.asarray(rv, dtype=np.float64)
-    angle = np.linalg.norm(rv, axis=-1)
-    q = np.empty(rv.shape[:-1] + (4,), dtype=np.float64)
-    q[..., 0] = np.cos(0.5 * angle)
-    q[..., 1:] = (0.5 * np.sinc(angle / (2.0 * np.pi)))[..., None] * rv
-    q /= np.sqrt(np.einsum("...i,...i->...", q, q))[..., None]
-    return canonical_quaternions(q)
+    x, y, z = _parts(rv)
+    squared = x * x
+    squared += y * y
+    squared += z * z
+    angle = np.sqrt(squared)
+    half = 0.5 * angle
+    w = np.cos(half)
+    # sin(phi/2)/phi, from the series near zero (and at zero, where the quotient is 0/0)
+    ratio = 0.5 - squared / 48.0
+    if np.ndim(angle) == 0:
+        if angle >= _SERIES_ANGLE:
+            ratio = np.sin(half) / angle
+    else:
+        large = angle >= _SERIES_ANGLE
+        np.divide(np.sin(half), angle, out=ratio, where=large)
+    ratio = np.copysign(ratio, w)                # w < 0 beyond a half turn: take -q
+    if out is None:
+        out = np.empty(rv.shape[:-1] + (4,), dtype=np.float64)
+    np.abs(w, out=out[..., 0])
+    for i, c in enumerate((x, y, z), start=1):
+        np.multiply(c, ratio, out=out[..., i])
+    out += 0.0                                   # no -0.0 reaches a screen
+    half_turn = np.abs(out[..., 0]) <= _HALF_TURN_W
+    if np.any(half_turn):
+        out[half_turn] = canonical_quaternions(out[half_turn])
+    return out
 
 
 # --- angle sequences ----------------------------------------------------------------------------------
@@ -498,6 +663,9 @@ def _sequence_terms(q, sequence, intrinsic):
 def _wrap_half_open(angle):
     """Angles into (−pi, pi]."""
     # The inputs are sums of two atan2 results, so one turn either way is always enough.
+    if type(angle) is float:
+        angle = angle - 2.0 * np.pi if angle > np.pi else angle
+        return angle + 2.0 * np.pi if angle <= -np.pi else angle
     angle = np.where(angle > np.pi, angle - 2.0 * np.pi, angle)
     return np.where(angle <= -np.pi, angle + 2.0 * np.pi, angle)
 
@@ -509,8 +677,8 @@ def gimbal_margins(q, sequence, intrinsic=True):
     keeps its accuracy right at the singularity."""
     q = np.asarray(q, dtype=np.float64)
     a, b, c, d, _, _ = _sequence_terms(q, sequence, intrinsic)
-    h_ab, h_cd = np.sqrt(a * a + b * b), np.sqrt(c * c + d * d)
-    return 2.0 * np.arctan2(np.minimum(h_ab, h_cd), np.maximum(h_ab, h_cd))
+    h_ab, h_cd = _sqrt(a * a + b * b), _sqrt(c * c + d * d)
+    return 2.0 * _arctan2(_minimum(h_ab, h_cd), _maximum(h_ab, h_cd))
 
 
 @_in_slices(1,)
@@ -523,18 +691,18 @@ def quaternions_to_angles(q, sequence, intrinsic=True):
     q = np.asarray(q, dtype=np.float64)
     a, b, c, d, proper, sign = _sequence_terms(q, sequence, intrinsic)
     # sqrt of squares rather than hypot: same accuracy for unit-scale input, several times faster.
-    h_ab, h_cd = np.sqrt(a * a + b * b), np.sqrt(c * c + d * d)
-    half_sum = np.arctan2(b, a)
-    half_diff = np.arctan2(d, c)
+    h_ab, h_cd = _sqrt(a * a + b * b), _sqrt(c * c + d * d)
+    half_sum = _arctan2(b, a)
+    half_diff = _arctan2(d, c)
     angles = np.empty(np.shape(a) + (3,), dtype=np.float64)
     first, third = (2, 0) if intrinsic else (0, 2)   # computed in the extrinsic order
     angles[..., first] = _wrap_half_open(half_sum - half_diff)
     outer = half_sum + half_diff
     angles[..., third] = _wrap_half_open(outer if proper else outer * sign)
-    angles[..., 1] = 2.0 * np.arctan2(h_cd, h_ab) - (0.0 if proper else 0.5 * np.pi)
+    angles[..., 1] = 2.0 * _arctan2(h_cd, h_ab) - (0.0 if proper else 0.5 * np.pi)
     # margin < LOCK_MARGIN_RAD, written without a further arctan2
-    locked = np.minimum(h_ab, h_cd) < _TAN_HALF_LOCK * np.maximum(h_ab, h_cd)
-    if np.any(locked):
+    locked = _minimum(h_ab, h_cd) < _TAN_HALF_LOCK * _maximum(h_ab, h_cd)
+    if locked if type(locked) is bool else locked.any():
         angles[locked] = _locked_angles(q[locked], sequence, intrinsic, angles[locked, 1])
     return angles + 0.0, locked
 
