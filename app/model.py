@@ -36,6 +36,7 @@ PREFERENCES = "preferences"  # how numbers are shown
 CHAIN = "chain"  # the mount chain: its steps, or whether the scene shows its frames
 CHECK = "check"  # the check: nominal and measured mounts, mode, axis, tolerances
 WORDS = "words"  # which names the reference directions get in words ("down", "north")
+SESSION = "session"  # a whole other session was loaded (or a new one begun): nothing of the last one holds
 
 # Continuous edits (typing, spin arrows, wheel, slider) merge while they keep coming; a pause this long
 # ends the run, as does committing a field, leaving the editor, or undo/redo.
@@ -169,7 +170,7 @@ class SessionModel(QObject):
             self._preferences = session.preferences
         self.file_path = file_path
         self.undo_stack.setClean()
-        self._emit({ORIENTATION, POSITION, MOUNTS, SELECTION, PREFERENCES, CHAIN, CHECK, WORDS}, None)
+        self._emit({ORIENTATION, POSITION, MOUNTS, SELECTION, PREFERENCES, CHAIN, CHECK, WORDS, SESSION}, None)
 
     # ---- view state (not undoable: it changes no data) -----------------------------------------
     def select(self, index: int, origin: object | None = None) -> None:

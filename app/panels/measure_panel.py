@@ -16,7 +16,7 @@ from PySide6.QtWidgets import (QComboBox, QHBoxLayout, QLabel, QLineEdit, QPlain
                                QPushButton, QStackedWidget, QVBoxLayout, QWidget)
 
 from app import dialog_folder, plain_text
-from app.model import MOUNTS, PREFERENCES, SELECTION, Change, SessionModel
+from app.model import MOUNTS, PREFERENCES, SELECTION, SESSION, Change, SessionModel
 from app.panels.measure_fit import (DIRECTIONS, POINTS, THREE_POINTS, MeasuredFit, fit_direction_rows,
                                     fit_point_rows, fit_three_points, result_lines, row_outputs)
 from app.panels.measure_rows import RowsError, rows_from_csv
@@ -266,6 +266,8 @@ class MeasurePanel(QWidget):
         self.mount_name.setPlaceholderText(self.model.unused_name("Measured"))
 
     def _model_changed(self, change: Change) -> None:
+        if change.touches(SESSION):
+            self._forget_fit()      # the points were measured on a mount of the last session, not this one
         if change.touches(MOUNTS):
             self._suggest_name()
         if change.touches(PREFERENCES):

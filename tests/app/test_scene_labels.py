@@ -149,3 +149,20 @@ def test_measured_points_are_shown_on_their_own_mount_only(qtbot, window):
     assert not any(lab.visible for key, lab in window.scene.labels.labels.items() if key.startswith("flag"))
     model.select(camera)
     assert panel["measured"].visible
+
+
+def test_measured_points_of_the_last_session_are_gone_after_opening_another(qtbot, window, tmp_path):
+    # The invented demo check session has a mount named like the fitted one: the points were still drawn on
+    # it after File > Open (seen in a screenshot). They belong to the last session, not to a name.
+    model = window.model
+    model.select(next(i for i, m in enumerate(model.mounts) if m.name.startswith("Mast-head camera")))
+    window.measure_panel.set_method("points")
+    window.measure_panel.import_csv(str(POINTS_CSV))
+    window.measure_panel.fit()
+    panel = window.scene.labels.panels
+    assert panel["measured"].visible
+    model.undo_stack.setClean()
+    assert window.open_file(str(POINTS_CSV.parent / "demo_check.fwsession.json"))
+    assert model.current_mount().name.startswith("Mast-head camera")      # same name, another session
+    assert not panel["measured"].visible
+    assert not any(lab.visible for key, lab in window.scene.labels.labels.items() if key.startswith("flag"))
