@@ -14,7 +14,7 @@ from PySide6.QtWidgets import (QAbstractSpinBox, QApplication, QComboBox, QFrame
                                QLabel, QLineEdit, QMainWindow, QMessageBox, QPlainTextEdit, QScrollArea,
                                QSpinBox, QSplitter, QTabWidget, QTextEdit, QVBoxLayout, QWidget)
 
-from app import about, copy_as, dialog_folder, plain_text, recent_files, recovery, settings
+from app import copy_as, dialog_folder, plain_text, recent_files, recovery, settings
 from app.editor_rows import EditorRows
 from core import atomic_file
 from app.editors.angles_editor import AnglesEditor
@@ -24,19 +24,14 @@ from app.editors.matrix_editor import MatrixEditor
 from app.editors.position_editor import PositionEditor
 from app.editors.quaternion_editor import QuaternionEditor
 from app.model import PREFERENCES, Change, SessionModel
-from app.panels.batch_panel import BatchPanel
-from app.panels.chain_panel import ChainPanel
-from app.panels.adjust_panel import AdjustPanel
-from app.panels.check_panel import CheckPanel
 from app.panels.decode_panel import DecodePanel
 from app.panels.gimbal_meter import GimbalMeter
-from app.panels.level_panel import LevelPanel
-from app.panels.measure_panel import MeasurePanel
 from app.panels.mounts_list import MountsList
 from app.part_dialog import PartDialog
 from app.preferences_dialog import PreferencesDialog
 from app.scene.model_binding import bind_scene_to_model
 from app.scene.scene_widget import SceneWidget
+from app.side_pages import SidePages, SidePanel
 from core.errors import FramewrightError
 from core.session import FILE_SUFFIX, Session, load_session, save_session
 
@@ -70,6 +65,15 @@ def _is_text_entry(widget) -> bool:
 
 
 class MainWindow(QMainWindow):
+    # The side tabs after the first are built when first shown (app/side_pages.py); reading one of these
+    # attributes builds that panel too.
+    chain_panel = SidePanel()
+    check_panel = SidePanel()
+    adjust_panel = SidePanel()
+    level_panel = SidePanel()
+    measure_panel = SidePanel()
+    batch_panel = SidePanel()
+
     def __init__(self, model: SessionModel, parent=None):
         super().__init__(parent)
         self.model = model
@@ -94,15 +98,8 @@ class MainWindow(QMainWindow):
         self.position = PositionEditor(model)
         self.meter = GimbalMeter(model)
         self.decode_panel = DecodePanel(model)
-        self.measure_panel = MeasurePanel(model)
-        self.batch_panel = BatchPanel(model)
-        self.chain_panel = ChainPanel(model)
-        self.check_panel = CheckPanel(model)
-        self.adjust_panel = AdjustPanel(model)
-        self.level_panel = LevelPanel(model)
         self.scene = SceneWidget()
         self._scene_binding = bind_scene_to_model(self.scene, model)
-        self.measure_panel.fit_changed.connect(self.scene.set_measured_points)
         self.editors: list[EditorBase] = [self.axis_angle, self.quaternion, self.matrix, self.angles]
         self.current_editor: EditorBase = self.axis_angle
 
@@ -128,16 +125,18 @@ class MainWindow(QMainWindow):
         # measure and batch. Each scrolls up and down when it is taller than the room, never sideways.
         self.side_tabs = QTabWidget()
         self.side_tabs.addTab(self.decode_panel, "Decode")
-        chain_area = _scrollable(self.chain_panel)
+        self.side_pages = SidePages(self.side_tabs)
+        chain_area = _scrollable(QWidget())
         # Its scroll bar is always there: the result grows with each step, and a bar that appeared then
         # would narrow the panel and shift the step form under the user's next click.
         chain_area.setVerticalScrollBarPolicy(Qt.ScrollBarPolicy.ScrollBarAlwaysOn)
-        self.side_tabs.addTab(chain_area, "Chain")
-        self.side_tabs.addTab(_scrollable(self.check_panel), "Check")
-        self.side_tabs.addTab(_scrollable(self.adjust_panel), "Adjust")
-        self.side_tabs.addTab(_scrollable(self.level_panel), "Level")
-        self.side_tabs.addTab(_scrollable(self.measure_panel), "Measure")
-        self.side_tabs.addTab(_scrollable(self.batch_panel), "Batch")
+        self.side_pages.add("chain_panel", "Chain", chain_area, self._build_chain_panel)
+        for name, title, build in (("check_panel", "Check", self._build_check_panel),
+                                   ("adjust_panel", "Adjust", self._build_adjust_panel),
+                                   ("level_panel", "Level", self._build_level_panel),
+                                   ("measure_panel", "Measure", self._build_measure_panel),
+                                   ("batch_panel", "Batch", self._build_batch_panel)):
+            self.side_pages.add(name, title, _scrollable(QWidget()), build)
 
         # Top: Mounts, the Scene and the side panels side by side; below them, across the whole width,
         # the editors. The Scene takes whatever height the editors leave.
@@ -196,6 +195,33 @@ class MainWindow(QMainWindow):
             self.restoreState(state)
 
     # ---- building ------------------------------------------------------------------------------
+    # The side panels, each imported and built when its tab is first shown (or the panel is asked for).
+    def _build_chain_panel(self) -> QWidget:
+        from app.panels.chain_panel import ChainPanel
+        return ChainPanel(self.model)
+
+    def _build_check_panel(self) -> QWidget:
+        from app.panels.check_panel import CheckPanel
+        return CheckPanel(self.model)
+
+    def _build_adjust_panel(self) -> QWidget:
+        from app.panels.adjust_panel import AdjustPanel
+        return AdjustPanel(self.model)
+
+    def _build_level_panel(self) -> QWidget:
+        from app.panels.level_panel import LevelPanel
+        return LevelPanel(self.model)
+
+    def _build_measure_panel(self) -> QWidget:
+        from app.panels.measure_panel import MeasurePanel
+        panel = MeasurePanel(self.model)
+        panel.fit_changed.connect(self.scene.set_measured_points)
+        return panel
+
+    def _build_batch_panel(self) -> QWidget:
+        from app.panels.batch_panel import BatchPanel
+        return BatchPanel(self.model)
+
     def _build_toolbar(self) -> None:
         """The angle unit and the digits, in the menu bar's free corner rather than a toolbar row of
         their own: the row's height goes to the Scene."""
@@ -313,7 +339,7 @@ class MainWindow(QMainWindow):
         self.demo_action = self._action("Open the &demo", self.open_demo, None,
                                         "Open the demo session (an invented scenario; asks about unsaved changes)")
         help_menu.addAction(self.demo_action)
-        self.about_action = self._action("&About Framewright", lambda: about.show_about(self))
+        self.about_action = self._action("&About Framewright", self.show_about)
         help_menu.addAction(self.about_action)
 
     def eventFilter(self, watched, event) -> bool:
@@ -570,6 +596,10 @@ class MainWindow(QMainWindow):
                                      "your changes.")
 
     # ---- dialogs and closing -------------------------------------------------------------------
+    def show_about(self) -> None:
+        from app import about   # late: it reads the package metadata and the export formats' caution
+        about.show_about(self)
+
     def show_part_dialog(self) -> None:
         PartDialog(self.model, self).exec()
 
