@@ -8,7 +8,7 @@ import sys
 from pathlib import Path
 
 from PySide6.QtCore import QEvent, QLocale, Qt, QTimer
-from PySide6.QtGui import QAction, QKeySequence
+from PySide6.QtGui import QAction, QColor, QKeySequence
 from PySide6.QtWidgets import (QAbstractSpinBox, QApplication, QComboBox, QFrame, QHBoxLayout,
                                QLabel, QLineEdit, QMainWindow, QMessageBox, QPlainTextEdit, QScrollArea,
                                QSpinBox, QSplitter, QTabWidget, QTextEdit, QVBoxLayout, QWidget)
@@ -28,8 +28,8 @@ from app.panels.gimbal_meter import GimbalMeter
 from app.panels.mounts_list import MountsList
 from app.part_dialog import PartDialog
 from app.preferences_dialog import PreferencesDialog
+from app.scene import VIEW_MINIMUM_SIZE, palette as scene_palette
 from app.scene.model_binding import bind_scene_to_model
-from app.scene.scene_widget import SceneWidget
 from app.side_pages import SidePages, SidePanel
 from core.errors import FramewrightError
 from core.session import FILE_SUFFIX, Session, load_session, save_session
@@ -59,6 +59,28 @@ def _scrollable(panel: QWidget, min_width: int = 300, across: bool = True) -> QS
     return area
 
 
+def _scene_placeholder(words_preset: str) -> QWidget:
+    """The Scene's place until it is built, laid out as the Scene is (its toolbar, shown inactive, over
+    the dark viewport), so it takes the same room and nothing moves when the Scene replaces it."""
+    from app.scene.scene_toolbar import SceneToolbar   # Qt only: no pyqtgraph, no OpenGL
+    slot = QWidget()
+    layout = QVBoxLayout(slot)
+    layout.setContentsMargins(0, 0, 0, 0)
+    layout.setSpacing(0)
+    toolbar = SceneToolbar(slot)
+    toolbar.select(toolbar.preset, words_preset)
+    toolbar.setEnabled(False)
+    viewport = QWidget()
+    viewport.setMinimumSize(*VIEW_MINIMUM_SIZE)
+    viewport.setAutoFillBackground(True)
+    colours = viewport.palette()
+    colours.setColor(viewport.backgroundRole(), QColor(*scene_palette.BACKGROUND))
+    viewport.setPalette(colours)
+    layout.addWidget(toolbar)
+    layout.addWidget(viewport, 1)
+    return slot
+
+
 def _is_text_entry(widget) -> bool:
     return isinstance(widget, (QLineEdit, QAbstractSpinBox, QPlainTextEdit, QTextEdit))
 
@@ -72,8 +94,10 @@ class MainWindow(QMainWindow):
     level_panel = SidePanel()
     measure_panel = SidePanel()
     batch_panel = SidePanel()
+    _scene_slot = None   # events arrive while __init__ runs: event() reads this before __init__ sets it
 
-    def __init__(self, model: SessionModel, parent=None):
+    def __init__(self, model: SessionModel, parent=None, scene_later: bool = False):
+        """scene_later: the Scene is built just after the window's first paint (build_scene), not now."""
         super().__init__(parent)
         self.model = model
         if model.parent() is None:
@@ -97,8 +121,13 @@ class MainWindow(QMainWindow):
         self.position = PositionEditor(model)
         self.meter = GimbalMeter(model)
         self.decode_panel = DecodePanel(model)
-        self.scene = SceneWidget()
-        self._scene_binding = bind_scene_to_model(self.scene, model)
+        self.scene = None              # the SceneWidget, once built (build_scene)
+        self._scene_slot = None        # what stands in its place until then
+        self._measured_fit = None      # the Measure panel's last fit, for the Scene to draw
+        if scene_later:
+            self._scene_slot = _scene_placeholder(model.words_preset)
+        else:
+            self.build_scene()
         self.editors: list[EditorBase] = [self.axis_angle, self.quaternion, self.matrix, self.angles]
         self.current_editor: EditorBase = self.axis_angle
 
@@ -149,7 +178,7 @@ class MainWindow(QMainWindow):
         column.addWidget(self.mounts, 1)
         column.addWidget(self.position, 0)
         splitter.addWidget(mounts_column)
-        splitter.addWidget(self.scene)
+        splitter.addWidget(self.scene if self.scene is not None else self._scene_slot)
         splitter.addWidget(self.side_tabs)
         splitter.setStretchFactor(0, 0)
         splitter.setStretchFactor(1, 1)
@@ -194,6 +223,34 @@ class MainWindow(QMainWindow):
             self.restoreState(state)
 
     # ---- building ------------------------------------------------------------------------------
+    def build_scene(self) -> None:
+        """The Scene, fed from the model. At launch it comes just after the window's first paint: its
+        module loads pyqtgraph and OpenGL, the largest part of the start-up, and the editors, the numbers
+        and the menus need not wait for that."""
+        if self.scene is not None:
+            return
+        from app.scene.scene_widget import SceneWidget
+        self.scene = SceneWidget()
+        self._scene_binding = bind_scene_to_model(self.scene, self.model)
+        if self._measured_fit is not None:
+            self.scene.set_measured_points(self._measured_fit)
+        if self._scene_slot is not None:
+            self.splitter.replaceWidget(1, self.scene)   # same place and size; the Scene never folds
+            self.splitter.setStretchFactor(1, 1)          # (the stretch lives in the widget's size policy)
+            self._scene_slot.deleteLater()
+            self._scene_slot = None
+
+    def event(self, event) -> bool:
+        handled = super().event(event)
+        if self._scene_slot is not None and event.type() == QEvent.Type.Paint:
+            QTimer.singleShot(0, self.build_scene)   # once this first paint is on the screen
+        return handled
+
+    def _measured_points_changed(self, fit) -> None:
+        self._measured_fit = fit
+        if self.scene is not None:
+            self.scene.set_measured_points(fit)
+
     # The side panels, each imported and built when its tab is first shown (or the panel is asked for).
     def _build_chain_panel(self) -> QWidget:
         from app.panels.chain_panel import ChainPanel
@@ -214,7 +271,7 @@ class MainWindow(QMainWindow):
     def _build_measure_panel(self) -> QWidget:
         from app.panels.measure_panel import MeasurePanel
         panel = MeasurePanel(self.model)
-        panel.fit_changed.connect(self.scene.set_measured_points)
+        panel.fit_changed.connect(self._measured_points_changed)
         return panel
 
     def _build_batch_panel(self) -> QWidget:
@@ -624,12 +681,13 @@ def demo_session() -> Session:
     return load_session(DEMO_SESSION)
 
 
-def make_window(session: Session | None = None) -> MainWindow:
-    """The window on a session (the demo by default), with the user's stored preferences."""
+def make_window(session: Session | None = None, scene_later: bool = False) -> MainWindow:
+    """The window on a session (the demo by default), with the user's stored preferences; scene_later as
+    in MainWindow."""
     QLocale.setDefault(QLocale.c())  # '.' as the decimal point in every Qt number widget
     model = SessionModel(session or demo_session())
     model.set_preferences(**settings.load_preferences().to_dict())
-    window = MainWindow(model)
+    window = MainWindow(model, scene_later=scene_later)
     window.showing_demo = session is None
     window._update_title()
     return window
@@ -643,7 +701,7 @@ def run_window(path: str | None = None) -> int:
     app = QApplication.instance() or QApplication(sys.argv)
     app.setOrganizationName(settings.ORGANISATION)
     app.setApplicationName(settings.APPLICATION)
-    window = make_window()
+    window = make_window(scene_later=True)   # the window paints first; the Scene follows at once
     window.show()
     if path is None:
         opened = window.reopen_last_session()
