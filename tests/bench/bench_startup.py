@@ -91,13 +91,10 @@ app.exec()
 # source tree may never get any (PYTHONDONTWRITEBYTECODE is set in some shells), and compiling our hundred
 # modules on every launch would be measured as start-up. So each child keeps its bytecode in one temporary
 # folder for the run, and a first launch of each script (not counted) fills it.
-_BYTECODE = tempfile.mkdtemp(prefix="framewright-bench-bytecode-")
-
-
-def launch(script: str) -> list[float] | None:
+def launch(script: str, bytecode: str) -> list[float] | None:
     """Seconds from spawn to each time the child printed (the first paint; for ours then the Scene)."""
     env = {k: v for k, v in os.environ.items() if k != "PYTHONDONTWRITEBYTECODE"}
-    env.update(PYTHONPATH=str(ROOT), PYTHONPYCACHEPREFIX=_BYTECODE)
+    env.update(PYTHONPATH=str(ROOT), PYTHONPYCACHEPREFIX=bytecode)
     start = time.time()
     result = subprocess.run([sys.executable, "-c", script], capture_output=True, text=True, cwd=ROOT, env=env,
                             timeout=120)
@@ -109,15 +106,23 @@ def launch(script: str) -> list[float] | None:
 
 
 def main():
+    bytecode = tempfile.mkdtemp(prefix="framewright-bench-bytecode-")
+    try:
+        measure(bytecode)
+    finally:
+        shutil.rmtree(bytecode, ignore_errors=True)
+
+
+def measure(bytecode: str):
     ours, scene, baseline = [], [], []
     for script in (OURS, BASELINE):           # fills the bytecode folder; not counted
-        launch(script)
+        launch(script, bytecode)
     for _ in range(LAUNCHES):                  # alternately, so load changes touch both alike
-        mine = launch(OURS)
+        mine = launch(OURS, bytecode)
         if mine is not None:
             ours.append(mine[0])
             scene.append(mine[-1])
-        base = launch(BASELINE)
+        base = launch(BASELINE, bytecode)
         if base is not None:
             baseline.append(base[0])
     if not ours or not baseline:
@@ -132,7 +137,4 @@ def main():
 
 
 if __name__ == "__main__":
-    try:
-        main()
-    finally:
-        shutil.rmtree(_BYTECODE, ignore_errors=True)
+    main()
