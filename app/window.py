@@ -243,7 +243,7 @@ class MainWindow(QMainWindow):
     def event(self, event) -> bool:
         handled = super().event(event)
         if self._scene_slot is not None and event.type() == QEvent.Type.Paint:
-            QTimer.singleShot(0, self.build_scene)   # once this first paint is on the screen
+            QTimer.singleShot(0, self, self.build_scene)   # once this first paint is on the screen
         return handled
 
     def _measured_points_changed(self, fit) -> None:
