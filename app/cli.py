@@ -18,6 +18,7 @@ import os
 import re
 import sys
 
+from app.display_check import open_display_problem
 from core import formats
 from core.check import CheckSettings, check
 from core.decode import KINDS, DecodeHints, decode
@@ -657,27 +658,6 @@ def run_average(args, stdin, stdout) -> int:
 # ---------------------------------------------------------------------------------------------------
 def add_open_arguments(parser: argparse.ArgumentParser) -> None:
     parser.add_argument("session", metavar="FILE", help="a session file (*.fwsession.json) to open in the window")
-
-
-# Qt platforms that draw on a display server, and the variable that names the server of each. Qt aborts
-# the whole process when the one it tries cannot connect, so `open` looks before Qt is ever loaded.
-_DISPLAY_PLATFORMS = {"xcb": ("DISPLAY",), "wayland": ("WAYLAND_DISPLAY",), "wayland-egl": ("WAYLAND_DISPLAY",)}
-
-
-def open_display_problem(environ=None, platform: str | None = None) -> str | None:
-    """Why the window cannot be shown here (None: it can, as far as the environment tells)."""
-    environ = os.environ if environ is None else environ
-    if (platform or sys.platform) in ("win32", "darwin", "cygwin"):
-        return None                       # the native platform needs no display variable
-    requested = [p.split(":")[0].strip() for p in environ.get("QT_QPA_PLATFORM", "").split(";") if p.strip()]
-    if any(p not in _DISPLAY_PLATFORMS for p in requested):
-        return None                       # e.g. offscreen or vnc, chosen on purpose: no display needed
-    candidates = requested or ["wayland", "xcb"]
-    if any(environ.get(var) for p in candidates for var in _DISPLAY_PLATFORMS[p]):
-        return None
-    names = " and ".join(sorted({v for p in candidates for v in _DISPLAY_PLATFORMS[p]}))
-    return (f"no display found ({names} not set); the window needs a desktop session "
-            "(the other commands work without one)")
 
 
 def run_open(args, stdin, stdout) -> int:

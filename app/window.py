@@ -5,16 +5,15 @@ from __future__ import annotations
 
 import dataclasses
 import sys
-import time
 from pathlib import Path
 
 from PySide6.QtCore import QEvent, QLocale, Qt, QTimer
-from PySide6.QtGui import QAction, QKeySequence
+from PySide6.QtGui import QAction, QColor, QKeySequence
 from PySide6.QtWidgets import (QAbstractSpinBox, QApplication, QComboBox, QFrame, QHBoxLayout,
                                QLabel, QLineEdit, QMainWindow, QMessageBox, QPlainTextEdit, QScrollArea,
                                QSpinBox, QSplitter, QTabWidget, QTextEdit, QVBoxLayout, QWidget)
 
-from app import about, copy_as, dialog_folder, plain_text, recent_files, recovery, settings
+from app import copy_as, dialog_folder, plain_text, recent_files, recovery, settings
 from app.editor_rows import EditorRows
 from core import atomic_file
 from app.editors.angles_editor import AnglesEditor
@@ -24,19 +23,14 @@ from app.editors.matrix_editor import MatrixEditor
 from app.editors.position_editor import PositionEditor
 from app.editors.quaternion_editor import QuaternionEditor
 from app.model import PREFERENCES, Change, SessionModel
-from app.panels.batch_panel import BatchPanel
-from app.panels.chain_panel import ChainPanel
-from app.panels.adjust_panel import AdjustPanel
-from app.panels.check_panel import CheckPanel
 from app.panels.decode_panel import DecodePanel
 from app.panels.gimbal_meter import GimbalMeter
-from app.panels.level_panel import LevelPanel
-from app.panels.measure_panel import MeasurePanel
 from app.panels.mounts_list import MountsList
 from app.part_dialog import PartDialog
 from app.preferences_dialog import PreferencesDialog
+from app.scene import VIEW_MINIMUM_SIZE, palette as scene_palette
 from app.scene.model_binding import bind_scene_to_model
-from app.scene.scene_widget import SceneWidget
+from app.side_pages import SidePages, SidePanel
 from core.errors import FramewrightError
 from core.session import FILE_SUFFIX, Session, load_session, save_session
 
@@ -65,12 +59,45 @@ def _scrollable(panel: QWidget, min_width: int = 300, across: bool = True) -> QS
     return area
 
 
+def _scene_placeholder(words_preset: str) -> QWidget:
+    """The Scene's place until it is built, laid out as the Scene is (its toolbar, shown inactive, over
+    the dark viewport), so it takes the same room and nothing moves when the Scene replaces it."""
+    from app.scene.scene_toolbar import SceneToolbar   # Qt only: no pyqtgraph, no OpenGL
+    slot = QWidget()
+    layout = QVBoxLayout(slot)
+    layout.setContentsMargins(0, 0, 0, 0)
+    layout.setSpacing(0)
+    toolbar = SceneToolbar(slot)
+    toolbar.select(toolbar.preset, words_preset)
+    toolbar.setEnabled(False)
+    viewport = QWidget()
+    viewport.setMinimumSize(*VIEW_MINIMUM_SIZE)
+    viewport.setAutoFillBackground(True)
+    colours = viewport.palette()
+    colours.setColor(viewport.backgroundRole(), QColor(*scene_palette.BACKGROUND))
+    viewport.setPalette(colours)
+    layout.addWidget(toolbar)
+    layout.addWidget(viewport, 1)
+    return slot
+
+
 def _is_text_entry(widget) -> bool:
     return isinstance(widget, (QLineEdit, QAbstractSpinBox, QPlainTextEdit, QTextEdit))
 
 
 class MainWindow(QMainWindow):
-    def __init__(self, model: SessionModel, parent=None):
+    # The side tabs after the first are built when first shown (app/side_pages.py); reading one of these
+    # attributes builds that panel too.
+    chain_panel = SidePanel()
+    check_panel = SidePanel()
+    adjust_panel = SidePanel()
+    level_panel = SidePanel()
+    measure_panel = SidePanel()
+    batch_panel = SidePanel()
+    _scene_slot = None   # events arrive while __init__ runs: event() reads this before __init__ sets it
+
+    def __init__(self, model: SessionModel, parent=None, scene_later: bool = False):
+        """scene_later: the Scene is built just after the window's first paint (build_scene), not now."""
         super().__init__(parent)
         self.model = model
         if model.parent() is None:
@@ -94,15 +121,13 @@ class MainWindow(QMainWindow):
         self.position = PositionEditor(model)
         self.meter = GimbalMeter(model)
         self.decode_panel = DecodePanel(model)
-        self.measure_panel = MeasurePanel(model)
-        self.batch_panel = BatchPanel(model)
-        self.chain_panel = ChainPanel(model)
-        self.check_panel = CheckPanel(model)
-        self.adjust_panel = AdjustPanel(model)
-        self.level_panel = LevelPanel(model)
-        self.scene = SceneWidget()
-        self._scene_binding = bind_scene_to_model(self.scene, model)
-        self.measure_panel.fit_changed.connect(self.scene.set_measured_points)
+        self.scene = None              # the SceneWidget, once built (build_scene)
+        self._scene_slot = None        # what stands in its place until then
+        self._measured_fit = None      # the Measure panel's last fit, for the Scene to draw
+        if scene_later:
+            self._scene_slot = _scene_placeholder(model.words_preset)
+        else:
+            self.build_scene()
         self.editors: list[EditorBase] = [self.axis_angle, self.quaternion, self.matrix, self.angles]
         self.current_editor: EditorBase = self.axis_angle
 
@@ -128,16 +153,18 @@ class MainWindow(QMainWindow):
         # measure and batch. Each scrolls up and down when it is taller than the room, never sideways.
         self.side_tabs = QTabWidget()
         self.side_tabs.addTab(self.decode_panel, "Decode")
-        chain_area = _scrollable(self.chain_panel)
+        self.side_pages = SidePages(self.side_tabs)
+        chain_area = _scrollable(QWidget())
         # Its scroll bar is always there: the result grows with each step, and a bar that appeared then
         # would narrow the panel and shift the step form under the user's next click.
         chain_area.setVerticalScrollBarPolicy(Qt.ScrollBarPolicy.ScrollBarAlwaysOn)
-        self.side_tabs.addTab(chain_area, "Chain")
-        self.side_tabs.addTab(_scrollable(self.check_panel), "Check")
-        self.side_tabs.addTab(_scrollable(self.adjust_panel), "Adjust")
-        self.side_tabs.addTab(_scrollable(self.level_panel), "Level")
-        self.side_tabs.addTab(_scrollable(self.measure_panel), "Measure")
-        self.side_tabs.addTab(_scrollable(self.batch_panel), "Batch")
+        self.side_pages.add("chain_panel", "Chain", chain_area, self._build_chain_panel)
+        for name, title, build in (("check_panel", "Check", self._build_check_panel),
+                                   ("adjust_panel", "Adjust", self._build_adjust_panel),
+                                   ("level_panel", "Level", self._build_level_panel),
+                                   ("measure_panel", "Measure", self._build_measure_panel),
+                                   ("batch_panel", "Batch", self._build_batch_panel)):
+            self.side_pages.add(name, title, _scrollable(QWidget()), build)
 
         # Top: Mounts, the Scene and the side panels side by side; below them, across the whole width,
         # the editors. The Scene takes whatever height the editors leave.
@@ -151,7 +178,7 @@ class MainWindow(QMainWindow):
         column.addWidget(self.mounts, 1)
         column.addWidget(self.position, 0)
         splitter.addWidget(mounts_column)
-        splitter.addWidget(self.scene)
+        splitter.addWidget(self.scene if self.scene is not None else self._scene_slot)
         splitter.addWidget(self.side_tabs)
         splitter.setStretchFactor(0, 0)
         splitter.setStretchFactor(1, 1)
@@ -196,6 +223,61 @@ class MainWindow(QMainWindow):
             self.restoreState(state)
 
     # ---- building ------------------------------------------------------------------------------
+    def build_scene(self) -> None:
+        """The Scene, fed from the model. At launch it comes just after the window's first paint: its
+        module loads pyqtgraph and OpenGL, the largest part of the start-up, and the editors, the numbers
+        and the menus need not wait for that."""
+        if self.scene is not None:
+            return
+        from app.scene.scene_widget import SceneWidget
+        self.scene = SceneWidget()
+        self._scene_binding = bind_scene_to_model(self.scene, self.model)
+        if self._measured_fit is not None:
+            self.scene.set_measured_points(self._measured_fit)
+        if self._scene_slot is not None:
+            self.splitter.replaceWidget(1, self.scene)   # same place and size; the Scene never folds
+            self.splitter.setStretchFactor(1, 1)          # (the stretch lives in the widget's size policy)
+            self._scene_slot.deleteLater()
+            self._scene_slot = None
+
+    def event(self, event) -> bool:
+        handled = super().event(event)
+        if self._scene_slot is not None and event.type() == QEvent.Type.Paint:
+            QTimer.singleShot(0, self, self.build_scene)   # once this first paint is on the screen
+        return handled
+
+    def _measured_points_changed(self, fit) -> None:
+        self._measured_fit = fit
+        if self.scene is not None:
+            self.scene.set_measured_points(fit)
+
+    # The side panels, each imported and built when its tab is first shown (or the panel is asked for).
+    def _build_chain_panel(self) -> QWidget:
+        from app.panels.chain_panel import ChainPanel
+        return ChainPanel(self.model)
+
+    def _build_check_panel(self) -> QWidget:
+        from app.panels.check_panel import CheckPanel
+        return CheckPanel(self.model)
+
+    def _build_adjust_panel(self) -> QWidget:
+        from app.panels.adjust_panel import AdjustPanel
+        return AdjustPanel(self.model)
+
+    def _build_level_panel(self) -> QWidget:
+        from app.panels.level_panel import LevelPanel
+        return LevelPanel(self.model)
+
+    def _build_measure_panel(self) -> QWidget:
+        from app.panels.measure_panel import MeasurePanel
+        panel = MeasurePanel(self.model)
+        panel.fit_changed.connect(self._measured_points_changed)
+        return panel
+
+    def _build_batch_panel(self) -> QWidget:
+        from app.panels.batch_panel import BatchPanel
+        return BatchPanel(self.model)
+
     def _build_toolbar(self) -> None:
         """The angle unit and the digits, in the menu bar's free corner rather than a toolbar row of
         their own: the row's height goes to the Scene."""
@@ -318,7 +400,7 @@ class MainWindow(QMainWindow):
         self.demo_action = self._action("Open the &demo", self.open_demo, None,
                                         "Open the demo session (an invented scenario; asks about unsaved changes)")
         help_menu.addAction(self.demo_action)
-        self.about_action = self._action("&About Framewright", lambda: about.show_about(self))
+        self.about_action = self._action("&About Framewright", self.show_about)
         help_menu.addAction(self.about_action)
 
     def eventFilter(self, watched, event) -> bool:
@@ -580,6 +662,10 @@ class MainWindow(QMainWindow):
                                      "your changes.")
 
     # ---- dialogs and closing -------------------------------------------------------------------
+    def show_about(self) -> None:
+        from app import about   # late: it reads the package metadata and the export formats' caution
+        about.show_about(self)
+
     def show_part_dialog(self) -> None:
         PartDialog(self.model, self).exec()
 
@@ -605,12 +691,13 @@ def demo_session() -> Session:
     return load_session(DEMO_SESSION)
 
 
-def make_window(session: Session | None = None) -> MainWindow:
-    """The window on a session (the demo by default), with the user's stored preferences."""
+def make_window(session: Session | None = None, scene_later: bool = False) -> MainWindow:
+    """The window on a session (the demo by default), with the user's stored preferences; scene_later as
+    in MainWindow."""
     QLocale.setDefault(QLocale.c())  # '.' as the decimal point in every Qt number widget
     model = SessionModel(session or demo_session())
     model.set_preferences(**settings.load_preferences().to_dict())
-    window = MainWindow(model)
+    window = MainWindow(model, scene_later=scene_later)
     window.showing_demo = session is None
     window._update_title()
     return window
@@ -620,11 +707,11 @@ def run_window(path: str | None = None) -> int:
     """Show the window on the session file `path` (or else the session open when it last closed; the demo
     on the first launch) and run until it closes. A recovery file left by a run that crashed is offered
     first."""
-    started = time.perf_counter()
+    from app.main import seconds_since_start   # the clock starts with the process, not after the imports
     app = QApplication.instance() or QApplication(sys.argv)
     app.setOrganizationName(settings.ORGANISATION)
     app.setApplicationName(settings.APPLICATION)
-    window = make_window()
+    window = make_window(scene_later=True)   # the window paints first; the Scene follows at once
     window.show()
     if path is None:
         opened = window.reopen_last_session()
@@ -632,8 +719,10 @@ def run_window(path: str | None = None) -> int:
         opened = f"Opened {path}"
     else:
         opened = "Demo session (an invented scenario)"
-    message = f"{opened} in {time.perf_counter() - started:.2f} s."
+    # Read once the event loop runs (the window is shown and its first frame is on the way), from the
+    # process's own start: the figure is what the person waited, interpreter and imports included.
     QTimer.singleShot(0, lambda: window.statusBar().showMessage(
-        f"{message} Verify every value against the governing drawing and procedure."))
+        f"{opened} in {seconds_since_start():.2f} s. Verify every value against the governing drawing and "
+        "procedure."))
     QTimer.singleShot(0, lambda: recovery.offer_recovery(window))
     return app.exec()

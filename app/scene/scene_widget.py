@@ -14,7 +14,7 @@ from PySide6 import QtCore, QtGui, QtWidgets
 from PySide6.QtOpenGL import QOpenGLFramebufferObject, QOpenGLFramebufferObjectFormat
 
 from app import dialog_folder
-from app.scene import camera, gl_helpers, overlay_text, palette
+from app.scene import VIEW_MINIMUM_SIZE, camera, gl_helpers, overlay_text, palette
 from app.scene.chain_frames import ChainFrames
 from app.scene.frame_triad import FrameTriad
 from app.scene.geometry import FACE_NAMES, FACE_NORMALS
@@ -53,7 +53,7 @@ class SceneWidget(QtWidgets.QWidget):
         self.view = SceneView()
         self.view.setBackgroundColor(palette.BACKGROUND)
         self.view.opts["fov"] = camera.FIELD_OF_VIEW
-        self.view.setMinimumSize(240, 100)  # small enough for a laptop; the window gives it the rest
+        self.view.setMinimumSize(*VIEW_MINIMUM_SIZE)
         self.toolbar = SceneToolbar(self)
         layout = QtWidgets.QVBoxLayout(self)
         layout.setContentsMargins(0, 0, 0, 0)

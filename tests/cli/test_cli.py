@@ -159,6 +159,7 @@ def test_no_arguments_opens_the_window(monkeypatch):
     fake.run_window = lambda: calls.append("opened") or 0
     monkeypatch.setitem(sys.modules, "app.window", fake)
     monkeypatch.setattr(app, "window", fake, raising=False)
+    monkeypatch.setenv("QT_QPA_PLATFORM", "offscreen")   # passes the display check without a display
     assert app.main.main([]) == 0 and calls == ["opened"]
     assert app.main.main(["decode", "1 0 0 0"]) == 0 and calls == ["opened"]   # a command opens no window
 
