@@ -10,7 +10,8 @@ from __future__ import annotations
 import math
 from dataclasses import replace
 
-from PySide6.QtWidgets import (QComboBox, QGridLayout, QGroupBox, QLabel, QListWidget, QPushButton, QVBoxLayout)
+from PySide6.QtWidgets import (QComboBox, QGridLayout, QGroupBox, QListWidget, QPushButton, QSizePolicy,
+                               QVBoxLayout)
 
 from app.editors.number_field import format_number
 from app.model import SessionModel
@@ -21,6 +22,7 @@ from core.measurement import SOURCES
 
 # The mount counts as being at the mean this close to it (degrees): then its uncertainty is the mean's.
 AT_THE_MEAN_DEG = 1e-9
+LIST_ROWS_SHOWN = 6                 # more rows scroll inside the list
 
 
 class RepeatedMeasurementsBox(QGroupBox):
@@ -30,7 +32,7 @@ class RepeatedMeasurementsBox(QGroupBox):
         self.mount_label = plain_label()
         self.mount_label.setWordWrap(True)
         self.list = QListWidget()
-        self.list.setMaximumHeight(110)
+        self.list.setSizePolicy(QSizePolicy.Policy.Expanding, QSizePolicy.Policy.Fixed)
         self.list.setToolTip("Each kept measurement with its angle to the mean of them all.")
         self.summary_label = plain_label()
         self.summary_label.setWordWrap(True)
@@ -54,7 +56,7 @@ class RepeatedMeasurementsBox(QGroupBox):
         self.message.setWordWrap(True)
 
         buttons = QGridLayout()
-        buttons.addWidget(QLabel("From"), 0, 0)
+        buttons.addWidget(plain_label("From"), 0, 0)
         buttons.addWidget(self.source_box, 0, 1)
         buttons.addWidget(self.add_button, 0, 2)
         buttons.addWidget(self.remove_button, 1, 1)
@@ -143,6 +145,9 @@ class RepeatedMeasurementsBox(QGroupBox):
                 facts.append(f"FAR: over {OUTLIER_SCATTERS:g} scatters from the others")
             head = f"{i + 1}. {measurement.source or 'no source'}"
             self.list.addItem(head + (": " + ", ".join(facts) if facts else ""))
+        # as tall as its rows, two to six of them: the tab keeps room for the decision below
+        rows = min(max(self.list.count(), 2), LIST_ROWS_SHOWN)
+        self.list.setFixedHeight(rows * self.list.fontMetrics().height() + 2 * self.list.frameWidth() + 6)
         if row >= 0 and self.list.count():              # keep the choice (the one before it after a removal)
             self.list.setCurrentRow(min(row, self.list.count() - 1))
         self.remove_button.setEnabled(self.list.currentRow() >= 0)

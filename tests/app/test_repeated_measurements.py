@@ -14,7 +14,7 @@ import re
 import numpy as np
 import pytest
 from PySide6.QtCore import Qt
-from PySide6.QtWidgets import QFileDialog
+from PySide6.QtWidgets import QFileDialog, QLabel
 from scipy.spatial.transform import Rotation
 
 from core.session import SavedCheck
@@ -207,3 +207,11 @@ def test_measurements_are_saved_and_reopened(qtbot, bench, tmp_path, monkeypatch
     press(qtbot, window, Qt.Key.Key_O)                               # File ▸ Open
     assert window.model.current_mount().measurements == kept
     assert box.summary_label.text() == shown
+
+
+def test_every_label_of_the_box_is_plain_text_so_a_mount_name_never_draws_as_markup(qtbot, bench):
+    window, box, nominal, repeats = bench
+    window.model.rename_mount(window.model.selected_index, "<b>ALL PASS</b>")
+    assert "“<b>ALL PASS</b>”" in box.mount_label.text()
+    for label in box.findChildren(QLabel):
+        assert label.textFormat() == Qt.TextFormat.PlainText, label.text()
