@@ -10,6 +10,10 @@ which is measured, and the CheckSettings), each replaced as a whole through an u
 rule: the scene's ghost is the check's nominal mount exactly when a nominal and a measured mount are both
 chosen, they are different mounts, and the selected mount is the measured one; otherwise there is no
 second orientation (the scene then shows the reference).
+
+Each mount may keep repeated measurements (core/measurement.py): adding the current orientation,
+removing one and clearing them are one undo step each (MEASUREMENTS), and using their average
+(core/average.py) is one orientation edit.
 """
 
 from __future__ import annotations
