@@ -106,3 +106,22 @@ class SetPositionCommand(QUndoCommand):
 
     def undo(self) -> None:
         self._model._apply_position(self.index, self.old, None)
+
+
+class SetMeasurementsCommand(QUndoCommand):
+    """Add, remove or clear one mount's repeated measurements: the whole tuple before and after."""
+
+    def __init__(self, model, index, old, new, text, origin):
+        super().__init__(text)
+        self._model = model
+        self.index = index
+        self.old = old
+        self.new = new
+        self._first_origin = origin
+
+    def redo(self) -> None:
+        origin, self._first_origin = self._first_origin, None
+        self._model._apply_measurements(self.index, self.new, origin)
+
+    def undo(self) -> None:
+        self._model._apply_measurements(self.index, self.old, None)

@@ -10,6 +10,10 @@ which is measured, and the CheckSettings), each replaced as a whole through an u
 rule: the scene's ghost is the check's nominal mount exactly when a nominal and a measured mount are both
 chosen, they are different mounts, and the selected mount is the measured one; otherwise there is no
 second orientation (the scene then shows the reference).
+
+Each mount may keep repeated measurements (core/measurement.py): adding the current orientation,
+removing one and clearing them are one undo step each (MEASUREMENTS), and using their average
+(core/average.py) is one orientation edit.
 """
 
 from __future__ import annotations
@@ -21,7 +25,10 @@ from PySide6.QtGui import QUndoStack
 
 from app import commands
 from core import describe
+from core.average import Average, average
 from core.chain import Chain
+from core.errors import FramewrightError
+from core.measurement import MAX_MEASUREMENTS_PER_MOUNT, Measurement
 from core.orientation import Orientation
 from core.position import Position
 from core.session import (Mount, Preferences, SavedCheck, Session, read_chains, read_checks,
@@ -37,6 +44,7 @@ CHAIN = "chain"  # the mount chain: its steps, or whether the scene shows its fr
 CHECK = "check"  # the check: nominal and measured mounts, mode, axis, tolerances
 WORDS = "words"  # which names the reference directions get in words ("down", "north")
 SESSION = "session"  # a whole other session was loaded (or a new one begun): nothing of the last one holds
+MEASUREMENTS = "measurements"  # the selected mount's repeated measurements
 
 # Continuous edits (typing, spin arrows, wheel, slider) merge while they keep coming; a pause this long
 # ends the run, as does committing a field, leaving the editor, or undo/redo.
@@ -170,7 +178,7 @@ class SessionModel(QObject):
             self._preferences = session.preferences
         self.file_path = file_path
         self.undo_stack.setClean()
-        self._emit({ORIENTATION, POSITION, MOUNTS, SELECTION, PREFERENCES, CHAIN, CHECK, WORDS, SESSION}, None)
+        self._emit({ORIENTATION, POSITION, MOUNTS, SELECTION, PREFERENCES, CHAIN, CHECK, WORDS, MEASUREMENTS, SESSION}, None)
 
     # ---- view state (not undoable: it changes no data) -----------------------------------------
     def select(self, index: int, origin: object | None = None) -> None:
@@ -180,7 +188,7 @@ class SessionModel(QObject):
             return
         self.end_continuous()
         self._selected = index
-        self._emit({SELECTION, ORIENTATION, POSITION}, origin)
+        self._emit({SELECTION, ORIENTATION, POSITION, MEASUREMENTS}, origin)
 
     def set_preferences(self, origin: object | None = None, **changes) -> None:
         """Change how numbers are shown (units, orders, sequence, digits, thresholds)."""
@@ -255,6 +263,54 @@ class SessionModel(QObject):
         self.set_orientation(orientation, origin=origin, text=text)
         self.set_position(position, origin=origin, text=text)
         self.undo_stack.endMacro()
+
+    # repeated measurements of the selected mount
+    def current_average(self) -> Average | None:
+        """The average of the selected mount's measurements (core/average.py); None when it has none or
+        every weight is 0."""
+        measured = self.current_mount().measurements
+        if not measured:
+            return None
+        try:
+            return average([m.orientation for m in measured], [m.weight for m in measured])
+        except FramewrightError:
+            return None
+
+    def add_measurement(self, source: str = "typed", origin: object | None = None) -> None:
+        """Keep the selected mount's current orientation as one more measurement: one undo step."""
+        mount = self.current_mount()
+        if len(mount.measurements) >= MAX_MEASUREMENTS_PER_MOUNT:
+            raise ValueError(f"“{mount.name}” already keeps {MAX_MEASUREMENTS_PER_MOUNT:,} measurements, the most "
+                             "a mount can; remove some first")
+        added = mount.measurements + (Measurement(mount.orientation, 1.0, source),)
+        self._push_measurements(added, f"Add measurement {len(added)} to “{mount.name}”", origin)
+
+    def remove_measurement(self, number: int, origin: object | None = None) -> None:
+        """Remove measurement `number` (0-based) of the selected mount: one undo step."""
+        mount = self.current_mount()
+        if not 0 <= number < len(mount.measurements):
+            raise IndexError(f"measurement {number + 1} is not one of the {len(mount.measurements)} kept")
+        left = mount.measurements[:number] + mount.measurements[number + 1:]
+        self._push_measurements(left, f"Remove measurement {number + 1} of “{mount.name}”", origin)
+
+    def clear_measurements(self, origin: object | None = None) -> None:
+        mount = self.current_mount()
+        if mount.measurements:
+            self._push_measurements((), f"Clear the measurements of “{mount.name}”", origin)
+
+    def use_average(self, origin: object | None = None) -> None:
+        """Set the selected mount's orientation to the average of its measurements: one undo step."""
+        result = self.current_average()
+        if result is None:
+            raise ValueError("there is no average: the mount keeps no measurements with a weight above 0")
+        name = self.current_mount().name
+        self.set_orientation(result.mean, origin=origin,
+                             text=f"Use the average of {result.count} measurements of “{name}”")
+
+    def _push_measurements(self, measurements, text, origin) -> None:
+        self.end_continuous()
+        self.undo_stack.push(commands.SetMeasurementsCommand(self, self._selected, self.current_mount().measurements,
+                                                             tuple(measurements), text, origin))
 
     def end_continuous(self) -> None:
         """End the current run of merging edits; the next edit starts a new undo step."""
@@ -412,10 +468,19 @@ class SessionModel(QObject):
         self._mounts = self._mounts[:index] + (mount.with_position(position),) + self._mounts[index + 1:]
         self._emit(what, origin)
 
+    def _apply_measurements(self, index: int, measurements, origin: object | None) -> None:
+        what = {MEASUREMENTS}
+        if index != self._selected:  # undo of an edit on another mount: show that mount again
+            self._selected = index
+            what |= {SELECTION, ORIENTATION, POSITION}
+        mount = self._mounts[index]
+        self._mounts = self._mounts[:index] + (mount.with_measurements(measurements),) + self._mounts[index + 1:]
+        self._emit(what, origin)
+
     def _apply_mounts(self, mounts: tuple[Mount, ...], selected: int, origin: object | None) -> None:
         self._mounts = mounts
         self._selected = selected
-        self._emit({MOUNTS, SELECTION, ORIENTATION, POSITION}, origin)
+        self._emit({MOUNTS, SELECTION, ORIENTATION, POSITION, MEASUREMENTS}, origin)
 
     def _emit(self, what, origin) -> None:
         self.changed.emit(Change(frozenset(what), origin))

@@ -16,7 +16,9 @@ File layout (version 2; version 1 is the same without positions)::
          "position": {"metres": [x, y, z], "unit": "mm"},    # optional (version 2): origin in reference
          "part": {"box_size_mm": [x, y, z], "face_names": {"+X": "connector", ...},
                   "boresight": "+Z"},
-         "notes": "..."}
+         "notes": "...",
+         "measurements": [                                   # optional: repeated measurements
+           {"orientation": {"quaternion_wxyz": [w, x, y, z]}, "weight": 1.0, "source": "typed"}]}
       ],
       "chains": [...],                   # Chain.to_dict() each (core/chain.py)
       "checks": [                        # SavedCheck.to_dict() each: which mounts a check compares
@@ -24,6 +26,9 @@ File layout (version 2; version 1 is the same without positions)::
          "settings": {...}}              # CheckSettings.to_dict() (core/check.py)
       ]
     }
+
+A mount's measurements are an optional key (written only when there are some; at most
+MAX_MEASUREMENTS_PER_MOUNT), so files without it read as before and the version stays 2.
 
 Chains and checks stay in ``Session.extra`` as read (so a file keeps exactly what it held); they are
 checked when the file is read, and `read_chains` / `read_checks` / `with_chains_and_checks` turn them
@@ -49,6 +54,8 @@ from core.adjustment_setup import AdjustmentSetup
 from core.chain import Chain
 from core.check import CheckSettings
 from core.errors import FramewrightError
+from core.measurement import MAX_MEASUREMENTS_PER_MOUNT, MAX_SOURCE_CHARS, MAX_WEIGHT, Measurement, \
+    measurements_problem
 from core.orientation import Orientation
 from core.position import LENGTH_UNITS, LIMIT_M, Position
 
@@ -161,11 +168,17 @@ class Mount:
     part: PartProperties = field(default_factory=PartProperties)
     notes: str = ""
     position: Position | None = None
+    measurements: tuple[Measurement, ...] = ()       # repeated measurements (core/measurement.py)
 
     def __post_init__(self):
         problem = name_problem(self.name)
         if problem:
             raise FramewrightError(f"mount name: {problem}")
+        if isinstance(self.measurements, list):
+            object.__setattr__(self, "measurements", tuple(self.measurements))
+        problem = measurements_problem(self.measurements)
+        if problem:
+            raise FramewrightError(f"mount {self.name!r} measurements: {problem}")
         if self.position is not None and not isinstance(self.position, Position):
             raise FramewrightError(f"mount {self.name!r} position: expected a Position or none")
         problem = free_text_problem(self.notes)
@@ -180,6 +193,9 @@ class Mount:
 
     def with_position(self, position: Position | None) -> "Mount":
         return replace(self, position=position)
+
+    def with_measurements(self, measurements) -> "Mount":
+        return replace(self, measurements=tuple(measurements))
 
 
 @dataclass(frozen=True)
@@ -354,6 +370,10 @@ def _mount_to_dict(mount: Mount) -> dict[str, Any]:
     }
     if mount.position is not None:       # no key at all for a mount without one
         data["position"] = mount.position.to_dict()
+    if mount.measurements:               # nor for one without measurements
+        data["measurements"] = [
+            {"orientation": {"quaternion_wxyz": [float(v) for v in m.orientation.as_quaternion()]},
+             "weight": m.weight, "source": m.source} for m in mount.measurements]
     return data
 
 
@@ -511,6 +531,28 @@ def _position(value: Any, where: str, version: int) -> Position:
     return Position(tuple(metres), unit)
 
 
+def _measurements(value: Any, where: str) -> tuple[Measurement, ...]:
+    """A mount's stored measurements, each checked by its place: a unit quaternion, a weight from 0 to
+    MAX_WEIGHT, a short one-line source note, no other keys, and not more than the mount may keep."""
+    _require(isinstance(value, list), where, f"expected a list of measurements, got {_kind(value)}")
+    _require(len(value) <= MAX_MEASUREMENTS_PER_MOUNT, where,
+             f"{len(value):,} measurements; a mount keeps at most {MAX_MEASUREMENTS_PER_MOUNT:,}")
+    out = []
+    for i, entry in enumerate(value):
+        here = _at(where, i)
+        entry = _object(entry, here, 'an object {"orientation": {...}, "weight": 1, "source": "typed"}')
+        unknown = sorted(set(entry) - {"orientation", "weight", "source"})
+        _require(not unknown, here, f'expected only "orientation", "weight" and "source", found also {unknown}')
+        _require("orientation" in entry, here, 'missing its orientation {"quaternion_wxyz": [w, x, y, z]}')
+        orientation = _orientation(entry["orientation"], _at(here, "orientation"))
+        weight = _number(entry.get("weight", 1.0), _at(here, "weight"), 0, MAX_WEIGHT, "a weight")
+        source = _name(entry.get("source", ""), _at(here, "source"), empty_ok=True)
+        _require(len(source) <= MAX_SOURCE_CHARS, _at(here, "source"),
+                 f"{len(source)} characters; expected a short note of at most {MAX_SOURCE_CHARS}")
+        out.append(Measurement(orientation, weight, source))
+    return tuple(out)
+
+
 def _part_from_dict(value: Any, where: str) -> PartProperties:
     data = _object(value, where)
     sizes = data.get("box_size_mm", list(PartProperties.box_size_mm))
@@ -537,7 +579,9 @@ def _mount_from_dict(data: Any, where: str, version: int = FORMAT_VERSION) -> Mo
     part = _part_from_dict(data.get("part", {}), _at(where, "part"))
     notes = _free_text(data.get("notes", ""), _at(where, "notes"))
     position = _position(data["position"], _at(where, "position"), version) if "position" in data else None
-    return Mount(name=name, orientation=orientation, part=part, notes=notes, position=position)
+    measurements = _measurements(data["measurements"], _at(where, "measurements")) if "measurements" in data else ()
+    return Mount(name=name, orientation=orientation, part=part, notes=notes, position=position,
+                 measurements=measurements)
 
 
 def _preferences_from_dict(value: Any, where: str) -> Preferences:

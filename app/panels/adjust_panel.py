@@ -4,7 +4,9 @@ For the check's nominal N and measured M it shows the correction C (M · C = N) 
 axes, the angles about the mount's own adjustment axes, the shims under its footprint with the turn about
 the face normal left for slotted holes, and, with a standard uncertainty, the ISO 14253-1 decision drawn
 on one bar (tolerance, guard band, measured value). Its inputs are saved with the check (one undo step
-each); the numbers come from core/correction.py, core/shims.py and core/decision.py.
+each); the numbers come from core/correction.py, core/shims.py and core/decision.py. Above the
+uncertainty, the selected mount's repeated measurements (app/panels/repeats_box.py), whose scatter can
+fill the uncertainty.
 """
 
 from __future__ import annotations
@@ -16,8 +18,9 @@ from PySide6.QtGui import QColor, QPainter
 from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QLabel, QLineEdit, QPlainTextEdit, QPushButton,
                                QSizePolicy, QSpinBox, QVBoxLayout, QWidget)
 
-from app.model import CHECK, MOUNTS, ORIENTATION, Change, SessionModel
+from app.model import CHECK, MEASUREMENTS, MOUNTS, ORIENTATION, PREFERENCES, SELECTION, Change, SessionModel
 from app.panels.render_when_seen import RendersWhenSeen
+from app.panels.repeats_box import RepeatedMeasurementsBox
 from core import describe
 from core.check import check
 from core.correction import adjustment_angles, correction, read_axes
@@ -131,6 +134,7 @@ class AdjustPanel(RendersWhenSeen, QWidget):
         self.decision_bar = DecisionBar()
         self.message = _plain(QLabel(""))
         self.message.setStyleSheet("color:#c62828")
+        self.repeats = RepeatedMeasurementsBox(model)
 
         what = QGroupBox("Correction (turns measured into nominal)")
         QVBoxLayout(what).addWidget(self.correction_label)
@@ -154,7 +158,7 @@ class AdjustPanel(RendersWhenSeen, QWidget):
         sure_form.addRow(self.decision_bar)
         sure_form.addRow(self.decision_label)
         layout = QVBoxLayout(self)
-        for box in (what, turn, feet, sure):
+        for box in (what, turn, feet, self.repeats, sure):
             layout.addWidget(box)
         layout.addWidget(self.message)
         layout.addStretch(1)
@@ -250,7 +254,7 @@ class AdjustPanel(RendersWhenSeen, QWidget):
     _rendering = False
 
     def _on_model_changed(self, change: Change) -> None:
-        if change.touches(CHECK, MOUNTS, ORIENTATION):
+        if change.touches(CHECK, MOUNTS, ORIENTATION, MEASUREMENTS, SELECTION, PREFERENCES):
             self.render_when_seen()
 
     def render(self) -> None:
@@ -258,6 +262,7 @@ class AdjustPanel(RendersWhenSeen, QWidget):
         try:
             self._render_inputs()
             self._render_results()
+            self.repeats.render()
         finally:
             self._rendering = False
 

@@ -25,6 +25,9 @@ def _rich_session() -> dict:
                        "settings": {"mode": "pointing_and_roll", "total_tolerance_deg": 0.5,
                                     "pointing_tolerance_deg": 0.25, "roll_tolerance_deg": 1.0,
                                     "body_axis": "+Z"}}]
+    data["mounts"][1]["measurements"] = [
+        {"orientation": {"quaternion_wxyz": [0.5, 0.5, 0.5, 0.5]}, "weight": 1.0, "source": "typed"},
+        {"orientation": {"quaternion_wxyz": [1.0, 0.0, 0.0, 0.0]}, "weight": 2.5, "source": "fit"}]
     data["added_by_a_newer_minor_revision"] = {"kept": [1, 2.5, "three", None, True]}
     return data
 
