@@ -153,10 +153,17 @@ def _adjust_shot(app, window, out_dir) -> bool:
     model = window.model
     model.select(next(i for i, m in enumerate(model.mounts) if m.name == "Radar antenna, as measured"))
     _show_tab(window, "Adjust")
-    # The tab is tall (correction, axes, shims, decision): a large screen shows it whole.
+    # The tab is tall (correction, axes, shims, repeated measurements, decision): a large screen, scrolled
+    # to the end, shows the shims and the decision with the correction's figures above them.
     window.resize(1920, 1080)
     window.splitter.setSizes([220, 1000, 700])
     _settle(app, 12)
+    page = window.adjust_panel
+    while page is not None and not hasattr(page, "verticalScrollBar"):
+        page = page.parentWidget()
+    if page is not None:
+        page.verticalScrollBar().setValue(page.verticalScrollBar().maximum())
+        _settle(app, 6)
     return _grab(window, out_dir / "adjust.png")
 
 

@@ -18,7 +18,7 @@ from PySide6.QtGui import QColor, QPainter
 from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QLabel, QLineEdit, QPlainTextEdit, QPushButton,
                                QSizePolicy, QSpinBox, QVBoxLayout, QWidget)
 
-from app.model import CHECK, MEASUREMENTS, MOUNTS, ORIENTATION, PREFERENCES, SELECTION, Change, SessionModel
+from app.model import CHECK, MEASUREMENTS, MOUNTS, ORIENTATION, PREFERENCES, SELECTION, SESSION, Change, SessionModel
 from app.panels.render_when_seen import RendersWhenSeen
 from app.panels.repeats_box import RepeatedMeasurementsBox
 from core import describe
@@ -254,6 +254,8 @@ class AdjustPanel(RendersWhenSeen, QWidget):
     _rendering = False
 
     def _on_model_changed(self, change: Change) -> None:
+        if change.touches(SESSION, SELECTION):
+            self.repeats.forget_message()   # it spoke of the last mount (or of another session's)
         if change.touches(CHECK, MOUNTS, ORIENTATION, MEASUREMENTS, SELECTION, PREFERENCES):
             self.render_when_seen()
 

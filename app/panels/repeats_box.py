@@ -78,6 +78,9 @@ class RepeatedMeasurementsBox(QGroupBox):
         self.list.currentRowChanged.connect(lambda row: self.remove_button.setEnabled(row >= 0))
         self.render()
 
+    def forget_message(self) -> None:
+        say(self.message, "")
+
     # ---- edits -------------------------------------------------------------------------------------
     def _run(self, edit) -> None:
         try:
