@@ -338,6 +338,11 @@ def run_fit(args, stdin, stdout) -> int:
     except FramewrightError as error:
         raise _Refused(f"{args.points}: not fitted: {error}") from None
     summary = orientation_summary(fit.orientation, args)
+    from core.uncertainty import point_fit_standard_uncertainty
+    try:
+        largest_u, axis_u = point_fit_standard_uncertainty(pairs.nominal, fit.orientation, fit.residuals, pairs.weights)
+    except FramewrightError:
+        largest_u, axis_u = None, None      # too few points (or collinear) for a covariance: said below
     flagged = set(fit.flagged)
     worst = fit.worst_index
     points = [{"row": i + 1, "distance": float(fit.distances[i]), "residual": [float(v) for v in fit.residuals[i]],
@@ -347,6 +352,7 @@ def run_fit(args, stdin, stdout) -> int:
                 "translation": [float(v) for v in fit.translation], "rms": fit.rms,
                 "worst_row": worst + 1, "flag_threshold": fit.flag_threshold,
                 "flagged_rows": [i + 1 for i in fit.flagged], "residuals": points,
+                "uncertainty_deg": largest_u, "uncertainty_axes_deg": list(axis_u) if axis_u else None,
                 "residual_meaning": "measured - (R nominal + t), reference frame",
                 "notes": list(pairs.notes) + list(fit.notes)}
         stdout.write(formats.json_object_text(data))
@@ -355,6 +361,11 @@ def run_fit(args, stdin, stdout) -> int:
     lines = [f"best fit of {len(points)} point pairs (measured = R nominal + t)"] + orientation_lines(summary)
     lines.append(f"  translation t (reference frame, {unit}): {', '.join(_n(v) for v in fit.translation)}")
     lines.append(f"  RMS residual {_n4(fit.rms)} {unit}; worst: row {worst + 1} at {_n4(fit.distances[worst])} {unit}")
+    if largest_u is None:
+        lines.append("  standard uncertainty of the orientation: not estimated (needs 3 or more spread points)")
+    else:
+        lines.append(f"  standard uncertainty of the orientation (from the residuals): {_n4(largest_u)} deg at most;"
+                     f" about reference X, Y, Z: {', '.join(_n4(v) for v in axis_u)} deg")
     if fit.flag_threshold is not None:
         lines.append(f"  flagged (residual above {_n4(fit.flag_threshold)} {unit}): "
                      + (", ".join(f"row {i + 1}" for i in fit.flagged) or "none"))

@@ -66,6 +66,16 @@ def point_fit_covariance(nominal_points, orientation: Orientation, residuals, we
                                 "(collinear)") from None
 
 
+def point_fit_standard_uncertainty(nominal_points, orientation: Orientation, residuals, weights=None):
+    """(largest, (about reference X, Y, Z)) standard uncertainty in degrees of a point fit's orientation:
+    the square roots of the covariance's largest eigenvalue and of its diagonal. The largest is what a
+    check may take as one uncertainty for every figure (no figure's projection of Cov(δ) exceeds it)."""
+    cov = point_fit_covariance(nominal_points, orientation, residuals, weights)
+    largest = math.degrees(math.sqrt(max(float(np.linalg.eigvalsh(cov).max()), 0.0)))
+    per_axis = tuple(math.degrees(math.sqrt(max(float(v), 0.0))) for v in np.diag(cov))
+    return largest, per_axis
+
+
 def figure_uncertainties(nominal: Orientation, measured: Orientation, covariance, body_axis=None) -> dict:
     """Standard uncertainties (degrees) of the total deviation and, for a body axis, of its pointing error
     and of the roll about it, from the measured orientation's covariance (radians², reference frame)."""

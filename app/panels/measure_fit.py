@@ -10,7 +10,9 @@ import numpy as np
 from app.editors.number_field import format_number
 from core.fit import FitRefusedError, fit_directions, fit_points, frame_from_three_points, triad
 from core.kernels import unit_vectors
+from core.errors import FramewrightError
 from core.orientation import Orientation
+from core.uncertainty import point_fit_standard_uncertainty
 
 POINTS, THREE_POINTS, DIRECTIONS = "points", "three_points", "directions"
 
@@ -38,6 +40,8 @@ class MeasuredFit:
     worst: int | None
     fit: object
     unit: str = "mm"
+    uncertainty_deg: float | None = None     # a point fit's largest standard uncertainty (core/uncertainty.py)
+    uncertainty_axes_deg: tuple | None = None
 
 
 def fit_point_rows(values: np.ndarray, weights: np.ndarray | None, rows: list[int], unit: str) -> MeasuredFit:
@@ -50,8 +54,12 @@ def fit_point_rows(values: np.ndarray, weights: np.ndarray | None, rows: list[in
     if not np.isfinite(fitted).all():   # R p + t beyond the largest double: nothing to draw it with
         raise FitRefusedError("the fitted points lie beyond the largest number a double holds (about 1.8e308); "
                               "expected coordinates well inside that", "range")
+    try:
+        largest, per_axis = point_fit_standard_uncertainty(nominal, fit.orientation, fit.residuals, weights)
+    except FramewrightError:
+        largest, per_axis = None, None
     return MeasuredFit(POINTS, fit.orientation, fit.translation, tuple(rows), nominal, measured, fitted,
-                       fit.residuals, fit.distances, fit.flagged, fit.worst_index, fit, unit)
+                       fit.residuals, fit.distances, fit.flagged, fit.worst_index, fit, unit, largest, per_axis)
 
 
 def fit_three_points(values: np.ndarray, rows: list[int], unit: str) -> MeasuredFit:
@@ -124,6 +132,10 @@ def result_lines(result: MeasuredFit, digits: int = 9, sequence: str = "ZYX", in
             lines.append(f"No point flagged (limit {fit.flag_threshold:.4g} {unit}).")
         lines.append(f"Spread of the nominal points off their main line: {fit.spread_ratio:.3g} "
                      f"(0 = all on one line, 1 = well spread).")
+        if result.uncertainty_deg is not None:
+            axes = ", ".join(_short(v) for v in result.uncertainty_axes_deg)
+            lines.append(f"Standard uncertainty of the orientation (from the residuals): {_short(result.uncertainty_deg)}°"
+                         f" at most; about reference X, Y, Z: {axes}°.")
     elif result.method == THREE_POINTS:
         lines.append("Body frame from three datum points (3-2-1): X towards the second point, Z normal to "
                      "the plane of the three, the third point on the +Y side.")

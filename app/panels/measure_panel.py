@@ -96,6 +96,11 @@ class MeasurePanel(QWidget):
         self.make_mount_button.setToolTip("Add the fitted orientation to the session as a new mount "
                                           "(undoable). The Check panel can use it as the measured side.")
         self.make_mount_button.setEnabled(False)
+        self.use_uncertainty_button = QPushButton("Use its uncertainty in the check")
+        self.use_uncertainty_button.setToolTip(
+            "Set the check's standard uncertainty (Adjust tab, ISO 14253-1 decision) to the fit's largest "
+            "standard uncertainty: no figure of the check spreads more than that (one undo step).")
+        self.use_uncertainty_button.setEnabled(False)
 
         layout = QVBoxLayout(self)
         top = QHBoxLayout()
@@ -124,6 +129,7 @@ class MeasurePanel(QWidget):
         bottom.addWidget(self.mount_name, 1)
         bottom.addWidget(self.make_mount_button)
         layout.addLayout(bottom)
+        layout.addWidget(self.use_uncertainty_button)
 
         self.method.currentIndexChanged.connect(self._method_changed)
         self.unit.currentIndexChanged.connect(self._inputs_edited)
@@ -134,6 +140,7 @@ class MeasurePanel(QWidget):
         self.clear_button.clicked.connect(lambda: self.current_table().clear_inputs())
         self.fit_button.clicked.connect(self.fit)
         self.make_mount_button.clicked.connect(self.make_mount)
+        self.use_uncertainty_button.clicked.connect(self.use_uncertainty)
         self.model.changed.connect(self._model_changed)
         self._method_changed()
         self._suggest_name()
@@ -205,8 +212,31 @@ class MeasurePanel(QWidget):
         flagged = len(result.flagged)
         self._show_info("Fitted." + (f" {flagged} row(s) flagged: look at them again." if flagged else ""))
         self.make_mount_button.setEnabled(True)
+        self.use_uncertainty_button.setEnabled(result.uncertainty_deg is not None)
         self._fit_mount = self.model.current_mount().name
         self.fit_changed.emit(result)
+
+    def use_uncertainty(self) -> None:
+        """The fit's largest standard uncertainty becomes the check's (it is the measured side's)."""
+        from dataclasses import replace
+        fit = self.last_fit
+        if fit is None or fit.uncertainty_deg is None:
+            return
+        check = self.model.check
+        _, measured = self.model.check_mount_indices()
+        if measured is None:
+            self._show_problem("Choose the check's measured mount in the Check panel first; the uncertainty "
+                               "belongs to it.")
+            return
+        try:
+            adjustment = replace(check.adjustment, uncertainty_deg=float(fit.uncertainty_deg))
+        except FramewrightError as error:
+            self._show_problem(f"{error} (the check is unchanged)")
+            return
+        self.model.set_check(replace(check, adjustment=adjustment), origin=self,
+                             text="Measure: the check's uncertainty from the fit")
+        self._show_info(f"The check's standard uncertainty is now {fit.uncertainty_deg:.4g}°, the fit's largest; "
+                        f"it applies to the measured mount “{self.model.mounts[measured].name}” (Undo takes it back).")
 
     def make_mount(self) -> None:
         if self.last_fit is None:
@@ -234,6 +264,7 @@ class MeasurePanel(QWidget):
         self.last_fit = None
         self.result_text.setPlainText("")
         self.make_mount_button.setEnabled(False)
+        self.use_uncertainty_button.setEnabled(False)
         if had_fit:
             self.fit_changed.emit(None)
 

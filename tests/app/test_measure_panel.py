@@ -271,3 +271,25 @@ def test_three_directions_match_scipy_align_vectors(qtbot, panel):
     expected, _ = Rotation.align_vectors(unit, body, weights=weights)
     np.testing.assert_allclose(panel.last_fit.orientation.as_matrix(), expected.as_matrix(), atol=1e-12)
     assert "least squares" in panel.result_text.toPlainText()
+
+
+def test_the_fit_uncertainty_becomes_the_checks_in_one_undo_step(qtbot, panel, model):
+    from core.session import SavedCheck
+    from core.uncertainty import point_fit_standard_uncertainty
+    rng = np.random.default_rng(11)
+    measured = ROTATION.apply(NOMINAL) + TRANSLATION + rng.normal(scale=0.02, size=NOMINAL.shape)
+    paste_into(qtbot, panel.current_table(), spreadsheet_text(NOMINAL, measured))
+    click(qtbot, panel.fit_button)
+    assert "Standard uncertainty of the orientation" in panel.result_text.toPlainText()
+    assert panel.use_uncertainty_button.isEnabled()
+    click(qtbot, panel.use_uncertainty_button)                 # no check yet: refused, nothing changes
+    assert model.check.adjustment.uncertainty_deg is None and "measured mount" in panel.message.text()
+    model.set_check(SavedCheck(nominal=model.mounts[0].name, measured=model.mounts[1].name))
+    steps = model.undo_stack.count()
+    click(qtbot, panel.use_uncertainty_button)
+    fit = panel.last_fit.fit
+    want, _ = point_fit_standard_uncertainty(NOMINAL, fit.orientation, fit.residuals)
+    assert model.check.adjustment.uncertainty_deg == pytest.approx(want, rel=1e-12)
+    assert model.undo_stack.count() == steps + 1
+    model.undo_stack.undo()
+    assert model.check.adjustment.uncertainty_deg is None

@@ -213,3 +213,14 @@ def test_open_hands_a_good_file_to_the_window(monkeypatch):
 def test_help_names_the_new_verbs():
     text = framewright("--help").stdout
     assert all(verb in text for verb in ("fit", "batch", "open"))
+
+
+def test_fit_reports_the_orientations_standard_uncertainty(noisy_points):
+    # The covariance itself is checked against hand-worked values and a Monte Carlo in
+    # tests/core/test_uncertainty.py; here: the command line carries it, largest at least every axis.
+    _, _, path = noisy_points
+    data = json.loads(framewright("fit", str(path), "--json").stdout)
+    assert data["uncertainty_deg"] > 0 and len(data["uncertainty_axes_deg"]) == 3
+    assert data["uncertainty_deg"] >= max(data["uncertainty_axes_deg"]) - 1e-15
+    text = framewright("fit", str(path)).stdout
+    assert "standard uncertainty of the orientation (from the residuals)" in text

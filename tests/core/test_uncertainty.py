@@ -101,3 +101,29 @@ def test_a_direction_fits_covariance_matches_2000_noisy_fits():
     empirical = np.cov(np.array(errors).T)
     expected = direction_fit_covariance(reference, truth, direction_uncertainty_deg=0.02)
     assert np.allclose(np.linalg.eigvalsh(empirical), np.linalg.eigvalsh(expected), rtol=0.10)
+
+
+def test_the_fit_uncertainty_of_six_points_on_the_axes_is_the_hand_worked_value():
+    # Worked here: six nominal points at ±L on the body axes give H = Σ(|c|² I − c cᵀ) = 6L² I − 2L² I = 4L² I,
+    # so Cov(δ) = σ² / (4L²) I with σ² = Σ|r|² / (3n − 6). With |r_i| = 0.1 mm for every point and L = 100 mm:
+    # σ² = 0.06 / 12 = 0.005 mm², and u = sqrt(0.005) / 200 rad on every axis.
+    from core.uncertainty import point_fit_standard_uncertainty
+    length = 100.0
+    points = length * np.vstack([np.eye(3), -np.eye(3)])
+    residuals = 0.1 * np.array([[0, 1, 0], [0, 0, 1], [1, 0, 0], [0, -1, 0], [0, 0, -1], [-1, 0, 0]], dtype=float)
+    largest, per_axis = point_fit_standard_uncertainty(points, Orientation.identity(), residuals)
+    want = math.degrees(math.sqrt(0.005) / 200.0)
+    assert largest == pytest.approx(want, rel=1e-12)
+    assert per_axis == pytest.approx((want, want, want), rel=1e-12)
+
+
+def test_the_fit_uncertainty_is_largest_across_the_line_of_nearly_collinear_points():
+    from core.uncertainty import point_fit_standard_uncertainty
+    rng = np.random.default_rng(3)
+    points = np.column_stack([np.linspace(-200, 200, 9), rng.normal(scale=2.0, size=9), np.zeros(9)])
+    residuals = rng.normal(scale=0.05, size=points.shape)
+    largest, per_axis = point_fit_standard_uncertainty(points, Orientation.identity(), residuals)
+    # The turn about the line (reference X) is the weakly determined one: its spread is the largest, and
+    # the largest eigen-direction lies close to X (the points leave the line by about 1 %).
+    assert per_axis[0] == max(per_axis) and per_axis[0] > 10 * max(per_axis[1:])
+    assert largest >= per_axis[0] and largest == pytest.approx(per_axis[0], rel=1e-3)
