@@ -103,6 +103,8 @@ def render_copy(model, fmt: str, editor=None) -> tuple[str, str | None, float]:
         return text, None, error
     orientation = model.current_orientation()
     options = _options(model, editor)
+    if fmt == "report":
+        options["notes"] = tuple(_check_notes(model))
     text = formats.render(orientation, fmt, options)
     if fmt == "csv":
         # the header names each column with its unit and convention (qw…/qx… order, r11… body -> reference
@@ -111,6 +113,25 @@ def render_copy(model, fmt: str, editor=None) -> tuple[str, str | None, float]:
     error = float(formats.round_trip_error(orientation, text, fmt, options))
     json_text = formats.render(orientation, "json", options) if fmt in ("json", "report") else None
     return text, json_text, error
+
+
+def _check_notes(model) -> list[str]:
+    """When the copied mount is the check's measured one: the check, its verdict and its decision."""
+    from core.check import check
+    from core.decision import check_lines
+    from core.errors import FramewrightError
+
+    nominal, measured = model.check_mount_indices()
+    if nominal is None or measured is None or measured != model.selected_index:
+        return []
+    state = model.check
+    setup = state.adjustment
+    try:
+        result = check(model.mounts[nominal].orientation, model.mounts[measured].orientation, state.settings)
+        lines = check_lines(result, setup.uncertainty_deg, setup.coverage)
+    except FramewrightError as error:
+        return [f"the check could not be judged: {error}"]
+    return [f"measured side of the check against “{model.mounts[nominal].name}”"] + lines
 
 
 def copy_to_clipboard(model, fmt: str, editor=None) -> CopyResult:

@@ -44,21 +44,25 @@ def keyed_poses(text: str) -> list[PoseText] | None:
         return None
     fields = with_shaped_matrices(fields)
     groups: dict[tuple, dict[str, Field]] = {}
+    twins: list[tuple[Field, Field]] = []     # the same key twice in one group (the last is kept)
     for f in fields:
         lowered = tuple(p.lower() for p in f.path)
         for depth in range(len(lowered)):        # every enclosing group, so 'pose:' sees its 'position:'
             groups.setdefault(lowered[:depth], {})
         group = groups.setdefault(lowered, {})
         key = _bare(f.name)
-        if key in group:    # two values for one key: reading either would drop the other unseen
-            where = f" under '{'.'.join(f.path)[:60]}'" if f.path else ""
-            raise DecodeError(f"line {f.line}: '{f.key[:40]}'{where} is written twice (lines {group[key].line} and"
-                              f" {f.line}); Framewright will not guess which one is meant")
+        if key in group:
+            twins.append((group[key], f))
         group[key] = f
     poses: list[PoseText] = []
     used: set[int] = set()
     for path, group in groups.items():
         poses += _group_poses(path, group, groups, used, layout)
+    for first, second in twins:     # a key read into a pose is written twice: which one is meant?
+        if id(second) in used:
+            where = f" under '{'.'.join(second.path)[:60]}'" if second.path else ""
+            raise DecodeError(f"line {second.line}: '{second.key[:40]}'{where} is written twice (lines {first.line}"
+                              f" and {second.line}); Framewright will not guess which one is meant")
     said = unit_said(text)                  # '# t in m' beside a transform whose key names no unit
     for p in poses:
         if p.translation is not None and p.unit is None and said:

@@ -82,3 +82,25 @@ def test_a_copy_of_an_orientation_from_scipy_round_trips_exactly(window):
     window.model.set_orientation(Orientation.from_quaternion((w, x, y, z)))
     for fmt in ORIENTATION_FORMATS:
         assert window.copy_as(fmt).verified
+
+
+def test_the_copied_report_of_a_checks_measured_mount_carries_the_verdict_and_decision(qtbot, window):
+    # The invented demo check: measured 3° off in pointing (tolerance 1°), u = 0.05°, k = 2, so U = 0.1° and
+    # ISO 14253-1 says 3° > 1° + 0.1°: does not conform; the roll of 0.4° is below 1° − 0.1°: conforms.
+    from pathlib import Path
+    from PySide6.QtGui import QGuiApplication
+    demo_check = Path(__file__).resolve().parents[2] / "resources" / "demo_check.fwsession.json"
+    window.model.undo_stack.setClean()
+    assert window.open_file(str(demo_check))
+    model = window.model
+    model.select(next(i for i, m in enumerate(model.mounts) if m.name == "Radar antenna, as measured"))
+    window.copy_as_actions["report"].trigger()
+    assert "verified" in window.statusBar().currentMessage()
+    text = QGuiApplication.clipboard().text()
+    assert "Note: Check verdict: FAIL" in text
+    assert "pointing error 3.0000 deg against 1.0000 deg: does not conform (U = 0.1°, k = 2)" in text
+    assert "roll 0.4000 deg against 1.0000 deg: conforms" in text
+    assert "Note: ISO 14253-1 decision: does not conform" in text
+    model.select(0)                      # another mount: no check lines
+    window.copy_as_actions["report"].trigger()
+    assert "Check verdict" not in QGuiApplication.clipboard().text()
