@@ -70,7 +70,17 @@ def point_fit_standard_uncertainty(nominal_points, orientation: Orientation, res
     """(largest, (about reference X, Y, Z)) standard uncertainty in degrees of a point fit's orientation:
     the square roots of the covariance's largest eigenvalue and of its diagonal. The largest is what a
     check may take as one uncertainty for every figure (no figure's projection of Cov(δ) exceeds it)."""
-    cov = point_fit_covariance(nominal_points, orientation, residuals, weights)
+    # Cov(δ) depends only on residuals over point spread: scale both by one length first, so points of
+    # 1e200 mm (or 1e-200) neither overflow nor underflow in the squares.
+    p = np.asarray(nominal_points, dtype=float)
+    r = np.asarray(residuals, dtype=float)
+    with np.errstate(all="ignore"):
+        spread = float(np.max(np.abs(p - p.mean(axis=0)))) if p.ndim == 2 and len(p) else 0.0
+    if not math.isfinite(spread) or spread == 0.0 or not np.all(np.isfinite(r)):
+        raise InvalidInputError("point fit uncertainty: the points' spread or residuals are not finite numbers")
+    cov = point_fit_covariance(p / spread, orientation, r / spread, weights)
+    if not np.all(np.isfinite(cov)):
+        raise InvalidInputError("point fit uncertainty: the covariance is not a finite number")
     largest = math.degrees(math.sqrt(max(float(np.linalg.eigvalsh(cov).max()), 0.0)))
     per_axis = tuple(math.degrees(math.sqrt(max(float(v), 0.0))) for v in np.diag(cov))
     return largest, per_axis

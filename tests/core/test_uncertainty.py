@@ -127,3 +127,20 @@ def test_the_fit_uncertainty_is_largest_across_the_line_of_nearly_collinear_poin
     # the largest eigen-direction lies close to X (the points leave the line by about 1 %).
     assert per_axis[0] == max(per_axis) and per_axis[0] > 10 * max(per_axis[1:])
     assert largest >= per_axis[0] and largest == pytest.approx(per_axis[0], rel=1e-3)
+
+
+@pytest.mark.parametrize("factor", [1e-200, 1e200])
+def test_the_fit_uncertainty_of_huge_or_tiny_points_is_that_of_the_same_points_at_millimetre_scale(factor):
+    # An angle's spread is residual over lever arm: scaling both by one factor changes nothing (worked here),
+    # and squares of 1e200 must not overflow into a refusal or a warning.
+    import warnings
+    from core.uncertainty import point_fit_standard_uncertainty
+    rng = np.random.default_rng(5)
+    points = rng.uniform(-100, 100, size=(8, 3))
+    residuals = rng.normal(scale=0.05, size=points.shape)
+    want = point_fit_standard_uncertainty(points, Orientation.identity(), residuals)
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        got = point_fit_standard_uncertainty(points * factor, Orientation.identity(), residuals * factor)
+    assert got[0] == pytest.approx(want[0], rel=1e-9)
+    assert got[1] == pytest.approx(want[1], rel=1e-9)
