@@ -89,39 +89,22 @@ class ReplaceValueCommand(QUndoCommand):
         self._model._apply_value(self.key, self.old, None)
 
 
-class SetPositionCommand(QUndoCommand):
-    """Set, change or clear one mount's position (None: no position), before and after."""
+class SetMountFieldCommand(QUndoCommand):
+    """Set one field of one mount that is replaced whole (its position, its repeated measurements),
+    before and after; the model says what the field means."""
 
-    def __init__(self, model, index, old, new, text, origin):
+    def __init__(self, model, index, field, old, new, text, origin):
         super().__init__(text)
         self._model = model
         self.index = index
+        self.field = field
         self.old = old
         self.new = new
         self._first_origin = origin
 
     def redo(self) -> None:
         origin, self._first_origin = self._first_origin, None
-        self._model._apply_position(self.index, self.new, origin)
+        self._model._apply_mount_field(self.index, self.field, self.new, origin)
 
     def undo(self) -> None:
-        self._model._apply_position(self.index, self.old, None)
-
-
-class SetMeasurementsCommand(QUndoCommand):
-    """Add, remove or clear one mount's repeated measurements: the whole tuple before and after."""
-
-    def __init__(self, model, index, old, new, text, origin):
-        super().__init__(text)
-        self._model = model
-        self.index = index
-        self.old = old
-        self.new = new
-        self._first_origin = origin
-
-    def redo(self) -> None:
-        origin, self._first_origin = self._first_origin, None
-        self._model._apply_measurements(self.index, self.new, origin)
-
-    def undo(self) -> None:
-        self._model._apply_measurements(self.index, self.old, None)
+        self._model._apply_mount_field(self.index, self.field, self.old, None)

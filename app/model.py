@@ -256,7 +256,7 @@ class SessionModel(QObject):
             text = (f"Clear the position of “{mount.name}”" if position is None else
                     f"Set the position of “{mount.name}”" if old is None else f"Edit the position of “{mount.name}”")
         self.end_continuous()
-        self.undo_stack.push(commands.SetPositionCommand(self, index, old, position, text, origin))
+        self.undo_stack.push(commands.SetMountFieldCommand(self, index, "position", old, position, text, origin))
 
     def apply_pose(self, orientation: Orientation, position, text: str, origin: object | None = None) -> None:
         """Set the selected mount's orientation and position together: one undo step."""
@@ -310,8 +310,9 @@ class SessionModel(QObject):
 
     def _push_measurements(self, measurements, text, origin) -> None:
         self.end_continuous()
-        self.undo_stack.push(commands.SetMeasurementsCommand(self, self._selected, self.current_mount().measurements,
-                                                             tuple(measurements), text, origin))
+        self.undo_stack.push(commands.SetMountFieldCommand(self, self._selected, "measurements",
+                                                           self.current_mount().measurements, tuple(measurements),
+                                                           text, origin))
 
     def end_continuous(self) -> None:
         """End the current run of merging edits; the next edit starts a new undo step."""
@@ -460,22 +461,17 @@ class SessionModel(QObject):
         self._mounts = self._mounts[:index] + (mount.with_orientation(orientation),) + self._mounts[index + 1:]
         self._emit(what, origin)
 
-    def _apply_position(self, index: int, position, origin: object | None) -> None:
-        what = {POSITION}
-        if index != self._selected:  # undo of an edit on another mount: show that mount again
-            self._selected = index
-            what |= {SELECTION, ORIENTATION}
-        mount = self._mounts[index]
-        self._mounts = self._mounts[:index] + (mount.with_position(position),) + self._mounts[index + 1:]
-        self._emit(what, origin)
+    # The mount fields replaced whole by SetMountFieldCommand, and the change each one is.
+    _MOUNT_FIELDS = {"position": POSITION, "measurements": MEASUREMENTS}
 
-    def _apply_measurements(self, index: int, measurements, origin: object | None) -> None:
-        what = {MEASUREMENTS}
+    def _apply_mount_field(self, index: int, field: str, value, origin: object | None) -> None:
+        what = {self._MOUNT_FIELDS[field]}
         if index != self._selected:  # undo of an edit on another mount: show that mount again
             self._selected = index
-            what |= {SELECTION, ORIENTATION, POSITION}
+            what |= {SELECTION, ORIENTATION, POSITION, MEASUREMENTS}
         mount = self._mounts[index]
-        self._mounts = self._mounts[:index] + (mount.with_measurements(measurements),) + self._mounts[index + 1:]
+        changed = mount.with_position(value) if field == "position" else mount.with_measurements(value)
+        self._mounts = self._mounts[:index] + (changed,) + self._mounts[index + 1:]
         self._emit(what, origin)
 
     def _apply_mounts(self, mounts: tuple[Mount, ...], selected: int, origin: object | None) -> None:
