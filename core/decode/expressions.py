@@ -12,6 +12,7 @@ from __future__ import annotations
 import math
 import re
 
+from core.decode.characters import _shorten
 from core.errors import DecodeError
 
 _MAX_LENGTH = 200          # an expression for one angle is short; longer text is not one
@@ -32,7 +33,7 @@ def evaluate(text: str) -> float:
     body = text.strip()
     if body.startswith("${"):
         if not body.endswith("}"):
-            raise DecodeError(f"'{_short(body)}': the '${{' has no closing '}}'")
+            raise DecodeError(f"'{_shorten(body)}': the '${{' has no closing '}}'")
         body = body[2:-1].strip()
     if len(body) > _MAX_LENGTH:
         raise DecodeError(f"an expression of {len(body)} characters is too long to be an angle (at most {_MAX_LENGTH})")
@@ -52,7 +53,7 @@ def _tokens(body: str) -> list[tuple[str, str]]:
         kind = m.lastgroup
         token = m.group(kind)
         if kind == "power":
-            raise DecodeError(f"'{_short(body)}': '**' (a power) is not evaluated; Framewright evaluates numbers,"
+            raise DecodeError(f"'{_shorten(body)}': '**' (a power) is not evaluated; Framewright evaluates numbers,"
                               " pi, + - * / and parentheses only")
         if kind == "name":
             if token in _PI_NAMES:
@@ -61,11 +62,11 @@ def _tokens(body: str) -> list[tuple[str, str]]:
             following = body[pos:].lstrip()
             what = "a function" if following.startswith("(") else "an attribute" if following.startswith(".") \
                 else "a name"
-            where = "" if token == body.strip() else f" in '{_short(body)}'"
-            raise DecodeError(f"'{_short(token, 24)}'{where} is {what} Framewright does not evaluate; only numbers,"
+            where = "" if token == body.strip() else f" in '{_shorten(body)}'"
+            raise DecodeError(f"'{_shorten(token, 24)}'{where} is {what} Framewright does not evaluate; only numbers,"
                               " pi, + - * / and parentheses are")
         if kind == "other":
-            raise DecodeError(f"'{token}' in '{_short(body)}' is not part of the arithmetic Framewright"
+            raise DecodeError(f"'{token}' in '{_shorten(body)}' is not part of the arithmetic Framewright"
                               " evaluates (numbers, pi, + - * / and parentheses)")
         out.append((kind, token))
     return out
@@ -82,10 +83,10 @@ class _Parser:
         result = self._expression()
         if self.pos != len(self.tokens):
             token = self.tokens[self.pos][1]
-            raise DecodeError(f"'{_short(self.text)}': unexpected '{token}'"
+            raise DecodeError(f"'{_shorten(self.text)}': unexpected '{token}'"
                               + (" (a ')' without its '(')" if token == ")" else ""))
         if not math.isfinite(result):
-            raise DecodeError(f"'{_short(self.text)}' has no finite value")
+            raise DecodeError(f"'{_shorten(self.text)}' has no finite value")
         return result
 
     def _peek(self) -> str | None:
@@ -107,18 +108,18 @@ class _Parser:
             self.pos += 1
             right = self._factor()
             if op == "/" and right == 0:
-                raise DecodeError(f"'{_short(self.text)}' divides by zero")
+                raise DecodeError(f"'{_shorten(self.text)}' divides by zero")
             result = result * right if op == "*" else result / right
         return result
 
     def _factor(self) -> float:
         self.depth += 1
         if self.depth > _MAX_DEPTH:
-            raise DecodeError(f"'{_short(self.text)}' nests more than {_MAX_DEPTH} deep; write the value instead")
+            raise DecodeError(f"'{_shorten(self.text)}' nests more than {_MAX_DEPTH} deep; write the value instead")
         try:
             token = self._peek()
             if token is None:
-                raise DecodeError(f"'{_short(self.text)}' ends where a number is expected")
+                raise DecodeError(f"'{_shorten(self.text)}' ends where a number is expected")
             kind = self.tokens[self.pos][0]
             self.pos += 1
             if token in ("+", "-"):
@@ -128,13 +129,13 @@ class _Parser:
                 return float(token)
             if token == "(":
                 if self._peek() == ")":
-                    raise DecodeError(f"'{_short(self.text)}' has empty parentheses")
+                    raise DecodeError(f"'{_shorten(self.text)}' has empty parentheses")
                 inner = self._expression()
                 if self._peek() != ")":
-                    raise DecodeError(f"'{_short(self.text)}': a '(' has no closing ')'")
+                    raise DecodeError(f"'{_shorten(self.text)}': a '(' has no closing ')'")
                 self.pos += 1
                 return inner
-            raise DecodeError(f"'{_short(self.text)}': '{token}' where a number is expected")
+            raise DecodeError(f"'{_shorten(self.text)}': '{token}' where a number is expected")
         finally:
             self.depth -= 1
 
@@ -156,7 +157,7 @@ def substitute(line: str, line_no: int, notes) -> str:
     if "${" in line:
         def one(m: re.Match) -> str:
             value = _evaluated(m.group(1), line_no, m.group())
-            notes.add(f"line {line_no}: evaluated '{_short(m.group())}' as {value:.12g}")
+            notes.add(f"line {line_no}: evaluated '{_shorten(m.group())}' as {value:.12g}")
             return f" {value!r} "
         line = _SUBSTITUTION.sub(one, line)
     if not any(c in line for c in "*/πPpI"):
@@ -186,10 +187,10 @@ def substitute(line: str, line_no: int, notes) -> str:
         start = m.start() + m.group().find(run)
         written = original(start, start + len(run))
         if "π" not in run and run.count("/") > 1:
-            raise DecodeError(f"line {line_no}: '{_short(written)}' holds two slashes (a date or a list?);"
+            raise DecodeError(f"line {line_no}: '{_shorten(written)}' holds two slashes (a date or a list?);"
                               " Framewright will not read it as a division: write the values apart")
         value = _evaluated(run, line_no, written)
-        notes.add(f"line {line_no}: evaluated '{_short(written)}' as {value:.12g}")
+        notes.add(f"line {line_no}: evaluated '{_shorten(written)}' as {value:.12g}")
         out += [original(pos, start), f" {value!r} "]
         pos = start + len(run)
     if not out:
@@ -213,7 +214,3 @@ def _balanced(run: str) -> str:
     while run.count(")") > run.count("(") and run.endswith(")"):
         run = run[:-1]
     return run
-
-
-def _short(text: str, width: int = 40) -> str:
-    return text if len(text) <= width else text[:width - 1] + "…"

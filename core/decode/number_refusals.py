@@ -65,3 +65,11 @@ def _words_between_numbers(rest: str, found: list, key_matches: list, line_no: i
             continue
         out.append((line_no, word))
     return out
+
+
+def refuse_strays(parsed, lines: set) -> None:
+    """A word between numbers on a line that is read (see _words_between_numbers) is refused."""
+    for line, word in parsed.strays:
+        if line in lines:
+            raise DecodeError(f"line {line}: '{_shorten(word, 24)}' between numbers is not a number, key, unit or"
+                              " component name; Framewright will not guess what it stands for (remove it)")

@@ -4,17 +4,13 @@
 from __future__ import annotations
 
 from core.decode.pose_fields import Field
-from core.decode.poses import PoseText, checked_translation, values_in
-from core.errors import DecodeError
+from core.decode.poses import PoseText, checked_translation, one_value
 
 _COMPONENTS_T = ("x", "y", "z")
 
 
 def _one(field: Field) -> float:
-    values = values_in(field.value, field.line)
-    if len(values) != 1:
-        raise DecodeError(f"line {field.line}: '--{field.key}' should hold one number; found {len(values)}")
-    return values[0]
+    return one_value(field.value, field.line, f"--{field.key}")
 
 
 def flag_pose(flags: list[Field]) -> list[PoseText] | None:

@@ -9,7 +9,7 @@ import re
 from core.decode.clues import _WXYZ, _XYZW
 from core.decode.pose_fields import ORPHAN, Field, flag_fields, json_fields, with_shaped_matrices, yaml_like_fields
 from core.decode.pose_flags import flag_pose
-from core.decode.poses import AS_WRITTEN, PoseText, checked_translation, homogeneous, unit_said, values_in
+from core.decode.poses import PoseText, checked_translation, homogeneous, one_value, unit_said, values_in
 from core.errors import DecodeError
 
 _TRANSLATION = {"translation", "position", "trans", "t", "xyz", "p", "pos", "tvec", "tvecs", "origin", "offset",
@@ -21,8 +21,6 @@ _WHOLE = re.compile(r"t|tr|rt|r_t|rt_\w+|\w+_rt|h|transform|transformation|pose|
                     r"transform_\w+|\w+_transform|\w+_pose|pose_\w+|extrinsics?_\w+")
 _ROTATION_ONLY = re.compile(r"r\d*_rect\w*|r_rect\w*|rectification\w*|r_\w+|rotation_\w+|\w+_rotation|rot_\w+")
 _UNIT_MARK = re.compile(r"(?:\[(mm|m|cm)\]|\((mm|m|cm)\)|_(mm|m|cm))$")
-_UNIT_IN_CAPTION = re.compile(r"[(\[][^()\[\]]*?(?<![a-z])(mm|millimet(?:re|er)s?|m|met(?:re|er)s?|cm)(?![a-z])[^()\[\]]*[)\]]")
-_UNIT_WORDS = {"millimetre": "mm", "millimeter": "mm", "metre": "m", "meter": "m"}
 _ROTATION_VECTOR = {"rvec", "rvecs", "om", "rotvec", "rotation_vector"}
 _COMPONENTS_Q = {"x", "y", "z", "w", "qx", "qy", "qz", "qw"}
 _COMPONENTS_T = ("x", "y", "z")
@@ -92,10 +90,9 @@ def _unit_of(field: Field, group: dict) -> str | None:
     m = _UNIT_MARK.search(field.key.lower().strip())
     if m:
         return next(g for g in m.groups() if g)
-    m = _UNIT_IN_CAPTION.search(field.key.lower())       # 'T_base_cam (translation in mm)'
-    if m:
-        word = m.group(1).rstrip("s")
-        return _UNIT_WORDS.get(word, word)
+    said = unit_said(field.key)                          # 'T_base_cam (translation in mm)'
+    if said:
+        return said
     for key in ("unit", "units", "length_unit"):
         if key in group and group[key].value.strip().strip("'\"").lower() in ("m", "mm", "cm", "in"):
             return group[key].value.strip().strip("'\"").lower()
@@ -140,7 +137,7 @@ def _group_poses(path, group, groups, used, layout) -> list[PoseText]:
                 if f.shape else f"read '{f.key}' as a {shape} transform, rows written one after another")
         name = _frames(path, groups) or (f.key if key not in _GENERIC_NAMES else _group_name(path, groups, f))
         out.append(PoseText(tuple(rotation), f"{shape} transform", f.line, {"kind": "matrix"}, t,
-                            _unit_of(f, group), name, [note], AS_WRITTEN))
+                            _unit_of(f, group), name, [note]))
     pose = _translation_and_rotation(path, group, groups, used, layout, whole=bool(out))
     if pose:
         out.append(pose)
@@ -203,10 +200,7 @@ def _components(group: dict, names) -> bool:
 
 
 def _one(field: Field) -> float:
-    values = values_in(field.value, field.line)
-    if len(values) != 1:
-        raise DecodeError(f"line {field.line}: '{field.key}' should hold one number; found {len(values)}")
-    return values[0]
+    return one_value(field.value, field.line, field.key)
 
 
 def _rotation_from_key(field: Field):
@@ -240,7 +234,7 @@ def _rotation_from_key(field: Field):
                            "orientation lists are usually x, y, z, w (common practice)"),)
         return values, fixed, prefer, notes
     if len(values) == 9:
-        return values, {"kind": "matrix"}, AS_WRITTEN, notes
+        return values, {"kind": "matrix"}, (), notes
     if len(values) == 3:
         return values, {}, (), notes
     raise DecodeError(f"line {field.line}: '{field.key}' holds {len(values)} numbers; a rotation is 9 (a matrix),"
@@ -278,8 +272,7 @@ def _suffix_pairs(group: dict, used: set) -> list[PoseText]:
         used.update((id(f), id(t)))
         out.append(PoseText(tuple(rotation), "rotation R with translation T", f.line, {"kind": "matrix"},
                             checked_translation(values_in(t.value, t.line), t.line), _unit_of(t, group),
-                            suffix.lstrip("_") or None, [f"read '{f.key}' (3x3) with '{t.key}' (translation)"],
-                            AS_WRITTEN))
+                            suffix.lstrip("_") or None, [f"read '{f.key}' (3x3) with '{t.key}' (translation)"]))
     return out
 
 
@@ -297,7 +290,7 @@ def _rotations_alone(group: dict, used: set, among_others: bool) -> list[PoseTex
             continue
         used.add(id(f))
         out.append(PoseText(tuple(values), "rotation", f.line, {"kind": "matrix"}, None, None, f.key,
-                            [f"read '{f.key}' as a 3x3 rotation (no translation is written with it)"], AS_WRITTEN))
+                            [f"read '{f.key}' as a 3x3 rotation (no translation is written with it)"]))
     vectors = [f for k, f in group.items() if id(f) not in used and f.shape in ((3, 1), (1, 3)) and k in _ROTATION]
     for f in vectors:
         rotation, fixed, prefer, notes = _rotation_from_key(f)

@@ -7,7 +7,8 @@ import re
 
 from core.decode.numbers import ParsedNumbers
 from core.errors import DecodeError
-from core.decode.poses import AS_WRITTEN, PoseText, homogeneous, unit_said
+from core.decode.number_refusals import refuse_strays
+from core.decode.poses import PoseText, homogeneous, unit_said
 
 _COLUMN_MAJOR = re.compile(r"column[ _-]?major|col[ _-]?major|fortran order|order=['\"]?f")
 
@@ -20,10 +21,7 @@ def matrix_poses(parsed: ParsedNumbers) -> list[PoseText] | None:
     shapes = [len(r) for r in rows]
     if shapes not in ([4] * (count // 4), [count]):
         return None                          # 16 numbers in another layout: not a transform we recognise
-    if parsed.strays:
-        line, word = parsed.strays[0]
-        raise DecodeError(f"line {line}: '{word[:24]}' between numbers is not a number, key, unit or component"
-                          " name; Framewright will not guess what it stands for (remove it)")
+    refuse_strays(parsed, {n.line for n in parsed.numbers})
     values = [n.value for n in parsed.numbers]
     layout = "4x4 transform" if count == 16 else "3x4 transform [R | t]"
     notes = []
@@ -41,4 +39,4 @@ def matrix_poses(parsed: ParsedNumbers) -> list[PoseText] | None:
     rotation, translation = homogeneous(grid, parsed.numbers[0].line, layout, parsed.numbers[-1].line)
     return [PoseText(tuple(rotation), layout, parsed.numbers[0].line, {"kind": "matrix"}, translation,
                      unit_said(parsed.words),
-                     None, notes, AS_WRITTEN)]
+                     None, notes)]

@@ -16,14 +16,14 @@ from dataclasses import dataclass, field, replace
 import numpy as np
 
 from core.decode.hints import DecodeHints, Reading
+from core.decode.number_refusals import refuse_strays
 from core.decode.numbers import parse_numbers
 from core.errors import DecodeError
 
 _MAX_TRANSLATION = 1e9       # a translation beyond this (in any unit) is a misread, not a mount
 
 
-AS_WRITTEN = (({"matrix": "body-to-reference"}, 2.0, "a transform's rotation maps the child frame into the parent"
-                                                      " frame: as written"),)
+TRANSFORM_DIRECTION = (False, "a transform's rotation maps the child frame into the parent frame: as written")
 
 
 @dataclass
@@ -65,14 +65,19 @@ def checked_translation(values, line: int) -> tuple[float, float, float]:
     return out
 
 
+def one_value(text: str, line: int, key: str) -> float:
+    """The single number a key holds (`x: 0.1`, `--yaw 0.5`)."""
+    values = values_in(text, line)
+    if len(values) != 1:
+        raise DecodeError(f"line {line}: '{key}' should hold one number; found {len(values)}")
+    return values[0]
+
+
 def values_in(fragment: str, line: int) -> list[float]:
     """The numbers in a piece of the text, with every refusal of parse_numbers (NaN, words between
     numbers, expressions outside the evaluated subset) reported at the line where the piece is."""
     parsed = parse_numbers(fragment, first_line=line)
-    strays = [word for _, word in parsed.strays]
-    if strays:
-        raise DecodeError(f"line {line}: '{strays[0][:24]}' between numbers is not a number, key, unit or"
-                          " component name; Framewright will not guess what it stands for (remove it)")
+    refuse_strays(parsed, {line for line, _ in parsed.strays})
     return [n.value for n in parsed.numbers]
 
 
@@ -95,7 +100,8 @@ def pose_readings(poses: list[PoseText], hints: DecodeHints, notes: list[str]) -
     for pose in poses:
         merged = _merged_hints(pose, hints)
         text = " ".join(repr(float(v)) for v in pose.rotation)
-        readings = readings_from_numbers(parse_numbers(text), merged)
+        direction = TRANSFORM_DIRECTION if merged.kind == "matrix" else None
+        readings = readings_from_numbers(parse_numbers(text), merged, direction)
         scored = []
         user = {k for k, v in hints.__dict__.items() if v is not None}
         for r in readings:
@@ -106,8 +112,6 @@ def pose_readings(poses: list[PoseText], hints: DecodeHints, notes: list[str]) -
             for wanted, points, reason in pose.prefer:
                 if all(r.conventions.get(k) == v for k, v in wanted.items()):
                     score, why = score + points, f"{reason}; {why}"
-                why = why.replace("; as written and transposed are equally likely: the text does not say which", "")
-                why = why.replace("as written and transposed are equally likely: the text does not say which; ", "")
             scored.append(replace(
                 r, score=round(score, 6), why=why, label=f"{pose.layout}: {r.label}",
                 notes=tuple(dict.fromkeys(list(notes) + list(pose.notes) + list(r.notes))),

@@ -49,9 +49,7 @@ def echo_poses(text: str) -> list[PoseText] | None:
         notes.append(_spread(blocks))
     rotation, fixed, what = best
     notes.append(f"read its {what}, the most precisely printed representation")
-    return [PoseText(tuple(rotation), "transform printout", line, fixed, translation, None, None, notes,
-                     (({"matrix": "body-to-reference"}, 2.0, "a printout's matrix maps the child frame into the"
-                                                              " parent frame: as written"),))]
+    return [PoseText(tuple(rotation), "transform printout", line, fixed, translation, None, None, notes)]
 
 
 def _line_of(text: str, pos: int) -> int:

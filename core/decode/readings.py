@@ -13,6 +13,7 @@ from core.decode.candidates import (_MAX_MAGNITUDE, _NEAR_LOCK_DEG, _Candidate, 
 from core.decode.characters import _shorten
 from core.decode.clues import _WXYZ, _XYZW, _read_clues
 from core.decode.hints import DecodeHints, Reading
+from core.decode.number_refusals import refuse_strays
 from core.decode.named import _COMPONENT, _keyed, _labels, _split_key
 from core.decode.numbers import ParsedNumbers, UNDERSTOOD_COUNTS
 
@@ -20,22 +21,24 @@ _COUNT_KINDS = {9: ("matrix",), 4: ("quaternion", "axis-angle"), 3: ("angles", "
 _KIND_COUNT = {"matrix": 9, "quaternion": 4, "axis-angle": 4, "angles": 3, "rotation-vector": 3}
 
 
-def readings_from_numbers(parsed: ParsedNumbers, hints=None) -> list[Reading]:
+def readings_from_numbers(parsed: ParsedNumbers, hints=None, direction=None) -> list[Reading]:
     """The readings of numbers already found (see decode). A first or last line that looks like a title
-    holding a number ('Mount 7 rotation:') is also tried without it, and both sets are ranked together."""
+    holding a number ('Mount 7 rotation:') is also tried without it, and both sets are ranked together.
+    `direction`: (transposed, reason) that the layout around the numbers establishes for a matrix (a
+    transform's rotation is as written), used when the words themselves say nothing."""
     hints = DecodeHints.coerce(hints)
     untitled = _without_title_line(parsed)
     from dataclasses import replace
     try:
-        readings = _readings(parsed, hints)
+        readings = _readings(parsed, hints, direction)
     except DecodeError:
         if untitled is None:
             raise
-        readings = _readings(untitled, hints)
+        readings = _readings(untitled, hints, direction)
     else:
         if untitled is not None:
             try:
-                others = _readings(untitled, hints)
+                others = _readings(untitled, hints, direction)
             except DecodeError:
                 others = []
             others = [replace(r, score=round(r.score - 0.5, 6), why=f"{r.why}; reads the text without its title"
@@ -44,14 +47,6 @@ def readings_from_numbers(parsed: ParsedNumbers, hints=None) -> list[Reading]:
     if len(readings) == 1:
         readings = [replace(readings[0], why=f"the only reading: {readings[0].why}")]
     return readings
-
-
-def _refuse_strays(parsed: ParsedNumbers, lines: set) -> None:
-    """A word between numbers on a line that is read (see _words_between_numbers) is refused."""
-    for line, word in parsed.strays:
-        if line in lines:
-            raise DecodeError(f"line {line}: '{_shorten(word, 24)}' between numbers is not a number, key, unit or"
-                              " component name; Framewright will not guess what it stands for (remove it)")
 
 
 _KNOWN_KEYS = frozenset(_COMPONENT) | {"q0", "q1", "q2", "q3", "q4", "yaw", "pitch", "roll", "heading", "bank",
@@ -82,8 +77,10 @@ def _refuse_square_of_two(parsed: ParsedNumbers, keyed, count: int) -> None:
                           " 3x3 matrix, or a quaternion or axis and angle written as one row")
 
 
-def _readings(parsed: ParsedNumbers, hints: DecodeHints) -> list[Reading]:
+def _readings(parsed: ParsedNumbers, hints: DecodeHints, direction=None) -> list[Reading]:
     clues = _read_clues(parsed)
+    if direction is not None and clues.transposed is None:
+        clues.transposed, clues.transposed_reason = direction
     notes = list(parsed.notes) + clues.notes
     keyed = _keyed(parsed)
     if keyed is None:
@@ -97,10 +94,10 @@ def _readings(parsed: ParsedNumbers, hints: DecodeHints) -> list[Reading]:
     if len(values) not in _COUNT_KINDS:
         picked = _labelled_quaternion_line(parsed)
         if picked is None:
-            _refuse_strays(parsed, {n.line for n in parsed.numbers})   # a stray word says more than a count
+            refuse_strays(parsed, {n.line for n in parsed.numbers})   # a stray word says more than a count
             raise DecodeError(_count_message(parsed, hints))
         values, line, caption_order = picked
-        _refuse_strays(parsed, {line})
+        refuse_strays(parsed, {line})
         notes.append(f"the text holds {len(parsed.numbers)} numbers; read the quaternion on line {line}")
         if caption_order and hints.order is None:
             clues.order = caption_order
@@ -108,7 +105,7 @@ def _readings(parsed: ParsedNumbers, hints: DecodeHints) -> list[Reading]:
         if hints.kind is None:
             hints = DecodeHints(**{**hints.__dict__, "kind": "quaternion"})
     else:
-        _refuse_strays(parsed, {n.line for n in parsed.numbers})
+        refuse_strays(parsed, {n.line for n in parsed.numbers})
     for n in parsed.numbers:
         if abs(n.value) > _MAX_MAGNITUDE:
             raise DecodeError(f"line {n.line}: {_shorten(n.text)} is too large for any part of an orientation")
