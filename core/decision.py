@@ -59,15 +59,22 @@ def overall_outcome(outcomes) -> str:
     return DOES_NOT_CONFORM if DOES_NOT_CONFORM in outcomes else CANNOT_DECIDE
 
 
+def decide_check(result, standard_uncertainty_deg=None, coverage=DEFAULT_COVERAGE):
+    """([(criterion, Decision)], overall outcome) of a check result (core/check.py): every judged figure
+    decided against its tolerance, and the check's decision from them (overall_outcome)."""
+    decisions = [(c, decide(c.value_deg, c.tolerance_deg, standard_uncertainty_deg, coverage)) for c in result.criteria]
+    return decisions, overall_outcome(d.outcome for _, d in decisions)
+
+
 def check_lines(result, standard_uncertainty_deg=None, coverage=DEFAULT_COVERAGE) -> list[str]:
     """A check's verdict and, with an uncertainty, its ISO 14253-1 decision, as lines for a report: the
     plain verdict first, then each judged figure against its tolerance with its decision."""
     lines = [f"Check verdict: {'PASS' if result.passed else 'FAIL'}"]
-    decisions = [(c, decide(c.value_deg, c.tolerance_deg, standard_uncertainty_deg, coverage)) for c in result.criteria]
+    decisions, overall = decide_check(result, standard_uncertainty_deg, coverage)
     for c, d in decisions:
         lines.append(f"  {c.name} {c.value_deg:.4f} deg against {c.tolerance_deg:.4f} deg: {d.words()}")
     if standard_uncertainty_deg is not None:
-        lines.append(f"ISO 14253-1 decision: {overall_outcome(d.outcome for _, d in decisions)}")
+        lines.append(f"ISO 14253-1 decision: {overall}")
     else:
         lines.append("ISO 14253-1 decision: none (no measurement uncertainty was given)")
     return lines

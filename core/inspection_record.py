@@ -20,7 +20,7 @@ from __future__ import annotations
 import hashlib
 import json
 import math
-from dataclasses import dataclass, field
+from dataclasses import dataclass
 from typing import Iterable
 
 import numpy as np
@@ -28,11 +28,11 @@ import numpy as np
 from core import describe, level, sequences
 from core.check import check, check_position
 from core.correction import adjustment_angles, correction, read_axes
-from core.decision import decide, overall_outcome
+from core.decision import decide_check
 from core.errors import FramewrightError
 from core.formats import SAFETY_CAUTION, format_number
 from core.orientation import Orientation
-from core.session import Mount, SavedCheck, Session, read_checks
+from core.session import SavedCheck, Session, read_checks
 from core.shims import outward_normal, shims
 
 RECORD_FORMAT = "framewright inspection record"
@@ -231,7 +231,7 @@ class _Builder:
         if mount.position is not None:
             unit = mount.position.unit
             shown = mount.position.shown()
-            items.append(Figure(f"{key}.position", f"Position of the body origin (x, y, z), in reference axes",
+            items.append(Figure(f"{key}.position", "Position of the body origin (x, y, z), in reference axes",
                                 self.n(shown), unit))
         items.append(self.level_table(key, o))
         items.append(f"Where the body axes point (directions named as {self.preset.title}):")
@@ -298,15 +298,13 @@ class _Builder:
         verdict_line = f"{verdict}: {self._criteria_words(result)}"
         items += [f"Note: {note}" for note in result.notes]
         if setup.uncertainty_deg is not None:
-            decisions = [decide(c.value_deg, c.tolerance_deg, setup.uncertainty_deg, setup.coverage)
-                         for c in result.criteria]
+            _, outcome = decide_check(result, setup.uncertainty_deg, setup.coverage)
             u, k = setup.uncertainty_deg, setup.coverage
             items.append(DECISION_RULE + ".")
             items += [self.fig(f"{key}.uncertainty", "Standard uncertainty u of the measured orientation", [u],
                                DEGREES),
                       self.fig(f"{key}.coverage", "Coverage factor k", [k], DIMENSIONLESS),
                       self.fig(f"{key}.expanded_uncertainty", "Expanded uncertainty U = k·u", [k * u], DEGREES)]
-            outcome = overall_outcome([d.outcome for d in decisions])
             items.append(self.words(f"{key}.decision", "Decision (ISO 14253-1)", outcome))
             verdict_line += f"; ISO 14253-1 decision: {outcome} (U = {self.n([k * u])[0]} deg, k = {self.n([k])[0]})"
         else:

@@ -24,7 +24,7 @@ from app.panels.repeats_box import RepeatedMeasurementsBox
 from core import describe
 from core.check import check
 from core.correction import adjustment_angles, correction, read_axes
-from core.decision import CANNOT_DECIDE, CONFORMS, DOES_NOT_CONFORM, decide, overall_outcome
+from core.decision import CANNOT_DECIDE, CONFORMS, DOES_NOT_CONFORM, decide_check
 from core.errors import FramewrightError
 from core.number_text import parse_number
 from core.shims import outward_normal, read_footprint, shims
@@ -345,13 +345,11 @@ class AdjustPanel(RendersWhenSeen, QWidget):
     def _render_decision(self, nominal, measured, setup) -> None:
         result = check(nominal, measured, self.model.check.settings)
         try:
-            decisions = [(c, decide(c.value_deg, c.tolerance_deg, setup.uncertainty_deg, setup.coverage))
-                         for c in result.criteria]
+            decisions, overall = decide_check(result, setup.uncertainty_deg, setup.coverage)
         except FramewrightError as error:
             self.decision_label.setText(str(error))
             self.decision_bar.show_decision(None)
             return
-        overall = overall_outcome(d.outcome for _, d in decisions)
         words = {CONFORMS: "Conforms", CANNOT_DECIDE: "Cannot decide", DOES_NOT_CONFORM: "Does not conform"}
         lines = [f"{words[overall]}"]
         lines += [f"• {c.name} {_deg(c.value_deg)} against {_deg(c.tolerance_deg)}: {d.words()}" for c, d in decisions]
