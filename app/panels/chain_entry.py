@@ -14,7 +14,6 @@ from core.errors import FramewrightError
 from core.orientation import Orientation
 
 
-
 def number(value: float, digits: int = 6) -> str:
     """Compact, never '-0'."""
     text = f"{value:.{digits}g}"
@@ -53,7 +52,9 @@ class PastedOrientation(QWidget):
         self.text_box.setToolTip("Text read by the same decoder as the Decode panel. '.' is the decimal point; "
                                  "the Unicode minus and en dash are accepted. A matrix is read body -> "
                                  "reference first: here the step's child frame -> its parent frame.")
-        self.text_box.setMaximumHeight(64)
+        # A fixed height: squeezed by a growing result, the box would shrink and the buttons below it
+        # would move under the user's pointer between clicks (the scroll area scrolls instead).
+        self.text_box.setFixedHeight(64)
         self.reading_box = QComboBox()
         self.reading_box.setToolTip("Which reading of the pasted text to use, most plausible first (the "
                                     "conventions of each are named).")
