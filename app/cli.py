@@ -1,6 +1,6 @@
 """The command line over the core: `framewright decode`, `compare`, `fit`, `batch`, `correct`, `average`,
-`report`, `verify-report` and `open`. Imports no Qt at start: `open` hands over to the window through
-app/main.py, and `report` loads Qt to lay out its pages, each only once its input has been read.
+`report`, `verify-report` and `open`. Never imports Qt: the two verbs that need it, `open` (the window)
+and `report` (laying out pages), are given it by app/main.py and call it only once their input has read.
 
 Each verb is one pair of functions, `add_<verb>_arguments(parser)` and `run_<verb>(args) -> exit status`,
 listed once in VERBS.
@@ -673,8 +673,8 @@ def add_open_arguments(parser: argparse.ArgumentParser) -> None:
 
 def run_open(args, stdin, stdout) -> int:
     """Read the file here first, so a damaged one is one line on stderr and no window; then check that
-    there is a display (Qt would abort the process without one); then hand over to the window (the only
-    verb that loads Qt, and only at this point)."""
+    there is a display (Qt would abort the process without one); then hand over to the window through
+    the opener app/main.py gives (the command line never imports the window, so it never loads Qt)."""
     from core.session import load_session
 
     try:
@@ -684,8 +684,9 @@ def run_open(args, stdin, stdout) -> int:
     problem = open_display_problem()
     if problem is not None:
         raise _Refused(problem)
-    from app.main import open_window
-    return open_window(args.session)
+    if args.open_window is None:
+        raise _Refused("opening a window needs the program's entry point (framewright open FILE)")
+    return args.open_window(args.session)
 
 
 # ---------------------------------------------------------------------------------------------------
@@ -719,8 +720,8 @@ def _report_target(out: str, session_path: str) -> str:
 
 
 def run_report(args, stdin, stdout) -> int:
-    """Read the session and build the record first (a refusal loads no Qt); then draw the pictures, with
-    a display when there is one and without one (offscreen, no pictures) otherwise, and write the file."""
+    """Read the session and build the record first (a refusal loads no Qt); then hand it to the writer
+    (app/report_with_qt.py), which draws the pictures and writes the file."""
     from pathlib import Path
 
     from core import inspection_record as records
@@ -745,7 +746,12 @@ def run_report(args, stdin, stdout) -> int:
                   else records.session_record(session, name, digest))
     except FramewrightError as error:
         raise _Refused(str(error)) from None
-    written = _write_report_with_qt(out, record, free)
+    if args.write_report is None:
+        raise _Refused("writing a report needs the program's entry point (framewright report ...)")
+    try:
+        written = args.write_report(out, record, free)
+    except OSError as error:
+        raise _Refused(f"{printable(out)}: cannot be written ({error.strerror or error})") from None
     lines = [f"wrote {printable(written.path)}" + (f" ({written.pages} pages)" if written.pages else ""),
              f"record SHA-256 {record.sha256()}; session file SHA-256 {digest}"]
     if record.verdict:
@@ -754,25 +760,6 @@ def run_report(args, stdin, stdout) -> int:
         lines.append(f"note: the Scene picture is left out: {written.picture_problem}")
     stdout.write("\n".join(lines) + "\n")
     return EXIT_OK
-
-
-def _write_report_with_qt(out: str, record, free: dict):
-    """Qt is loaded here only. Without a display Qt's offscreen platform lays out the pages (it has no
-    OpenGL, so the report says the picture is left out); Qt's own messages are kept off stderr."""
-    if open_display_problem() is not None:
-        os.environ["QT_QPA_PLATFORM"] = "offscreen"
-    import app.scene  # noqa: F401 - sets the GL context sharing the Scene needs, before the QApplication
-    from PySide6.QtCore import qInstallMessageHandler
-    from PySide6.QtWidgets import QApplication
-
-    from app.report_writer import write_report
-
-    qInstallMessageHandler(lambda *_: None)
-    application = QApplication.instance() or QApplication(["framewright"])  # noqa: F841 - kept alive
-    try:
-        return write_report(out, record, free)
-    except OSError as error:
-        raise _Refused(f"{printable(out)}: cannot be written ({error.strerror or error})") from None
 
 
 def add_verify_report_arguments(parser: argparse.ArgumentParser) -> None:
@@ -927,9 +914,11 @@ def _quiet_stdout() -> None:
         pass
 
 
-def main(argv=None, stdin=None, stdout=None, stderr=None) -> int:
+def main(argv=None, stdin=None, stdout=None, stderr=None, open_window=None, write_report=None) -> int:
     """Run one verb. Every outcome is an exit status and at most one line on stderr: 0 / 1 as the verb
-    says, 2 for refused input and usage errors, 3 for an internal error (the traceback goes to a log)."""
+    says, 2 for refused input and usage errors, 3 for an internal error (the traceback goes to a log).
+    The two verbs that need Qt get it from app/main.py, so this module never imports Qt: `open_window(path)
+    -> status` starts the window, `write_report(out, record, free) -> written` lays out and writes a report."""
     import warnings
 
     stdin, stdout, stderr = stdin or sys.stdin, _ReaderMayLeave(stdout or sys.stdout), stderr or sys.stderr
@@ -941,6 +930,7 @@ def main(argv=None, stdin=None, stdout=None, stderr=None) -> int:
     prefix = f"framewright {verb}" if verb else "framewright"
     try:
         args = build_parser().parse_args(argv)
+        args.open_window, args.write_report = open_window, write_report
         with warnings.catch_warnings():
             # A floating-point warning means a number that cannot be trusted: an error, never a line
             # of noise on stderr beside an exit status of 0.
