@@ -18,8 +18,9 @@ import os
 import re
 import sys
 
+from app.cli_units import add_units_option, angle_argument, as_given, degrees_of, in_unit, shown
 from app.display_check import open_display_problem
-from core import formats
+from core import formats, units
 from core.check import CheckSettings, check
 from core.decode import KINDS, DecodeHints, decode
 from core.errors import FramewrightError
@@ -212,10 +213,13 @@ def add_compare_arguments(parser: argparse.ArgumentParser) -> None:
     parser.add_argument("nominal", metavar="NOMINAL", help="the nominal orientation as text ('-': standard input)")
     parser.add_argument("measured", metavar="MEASURED", help="the measured orientation as text ('-': standard input)")
     add_reading_options(parser)
-    parser.add_argument("--tolerance", type=float, metavar="DEG", help="allowed total deviation in degrees")
-    parser.add_argument("--uncertainty", type=float, metavar="DEG",
-                        help="standard uncertainty of the measured orientation, degrees: the verdict then follows "
-                             "ISO 14253-1 (conforms / does not conform / cannot decide)")
+    parser.add_argument("--tolerance", type=angle_argument, metavar="ANGLE",
+                        help="allowed total deviation: degrees, or a number with its unit (0.5mrad, 30″, 1′30″, "
+                             "2gon)")
+    parser.add_argument("--uncertainty", type=angle_argument, metavar="ANGLE",
+                        help="standard uncertainty of the measured orientation (degrees, or with its unit): the "
+                             "verdict then follows ISO 14253-1 (conforms / does not conform / cannot decide)")
+    add_units_option(parser)
     parser.add_argument("--coverage", type=float, default=2.0, metavar="K",
                         help="coverage factor k of the expanded uncertainty U = k u (default 2)")
     parser.add_argument("--json", action="store_true", help="print one JSON object")
@@ -224,9 +228,10 @@ def add_compare_arguments(parser: argparse.ArgumentParser) -> None:
 def run_compare(args, stdin, stdout) -> int:
     if args.nominal == "-" and args.measured == "-":
         raise _Refused("only one of NOMINAL and MEASURED can be read from standard input")
+    tolerance, uncertainty, unit = degrees_of(args.tolerance), degrees_of(args.uncertainty), args.show_units
     try:
         settings = CheckSettings(mode="total",
-                                 total_tolerance_deg=180.0 if args.tolerance is None else args.tolerance)
+                                 total_tolerance_deg=180.0 if tolerance is None else tolerance)
     except FramewrightError as error:
         raise _Refused(f"--tolerance: {error}") from None
     hints = hints_from(args)
@@ -236,14 +241,14 @@ def run_compare(args, stdin, stdout) -> int:
     # D = Nᵀ M in the nominal body frame, judged by the same rule as the Check panel and batch files
     result = check(nominal.orientation, measured.orientation, settings)
     angle, axis = result.total_deg, result.axis
-    within = None if args.tolerance is None else result.passed
+    within = None if tolerance is None else result.passed
     decision = None
-    if args.uncertainty is not None:
-        if args.tolerance is None:
+    if uncertainty is not None:
+        if tolerance is None:
             raise _Refused("--uncertainty needs --tolerance: the decision compares the deviation with a tolerance")
         from core.decision import decide
         try:
-            decision = decide(angle, args.tolerance, args.uncertainty, args.coverage)
+            decision = decide(angle, tolerance, uncertainty, args.coverage)
         except FramewrightError as error:
             raise _Refused(str(error)) from None
     warnings = []
@@ -253,20 +258,25 @@ def run_compare(args, stdin, stdout) -> int:
                             "readings; options such as --kind make it unique)")
     if args.json:
         data = {"deviation_deg": angle, "axis": None if angle == 0 else [float(v) for v in axis],
-                "axis_frame": "nominal body", "within_tolerance": within, "tolerance_deg": args.tolerance,
-                "margin_deg": None if args.tolerance is None else args.tolerance - angle,
-                "uncertainty_deg": args.uncertainty, "coverage": args.coverage if decision else None,
+                "axis_frame": "nominal body", "within_tolerance": within, "tolerance_deg": tolerance,
+                "margin_deg": None if tolerance is None else tolerance - angle,
+                "uncertainty_deg": uncertainty, "coverage": args.coverage if decision else None,
                 "decision": decision.outcome if decision else None,
                 "warnings": warnings, "nominal": reading_object(nominal, args),
-                "measured": reading_object(measured, args)}
+                "measured": reading_object(measured, args),
+                # the same angles in the unit chosen with --units, and the options as they were typed
+                "units": unit, "in_units": {"deviation": in_unit(angle, unit), "tolerance": in_unit(tolerance, unit),
+                                            "margin": in_unit(None if tolerance is None else tolerance - angle, unit),
+                                            "uncertainty": in_unit(uncertainty, unit)},
+                "tolerance_given": as_given(args.tolerance), "uncertainty_given": as_given(args.uncertainty)}
         stdout.write(formats.json_object_text(data))
     else:
         where = "no rotation" if angle == 0 else f"about ({', '.join(_n(v) for v in axis)}) in nominal body axes"
-        lines = [f"deviation: {_n(angle)} deg {where}"]
-        if args.tolerance is not None:
-            margin = args.tolerance - angle
-            lines.append(f"within tolerance {_n(args.tolerance)} deg (margin {_n(margin)} deg)" if within else
-                         f"OUTSIDE tolerance {_n(args.tolerance)} deg (by {_n(-margin)} deg)")
+        lines = [f"deviation: {shown(angle, unit, _n)} {where}"]
+        if tolerance is not None:
+            margin = tolerance - angle
+            lines.append(f"within tolerance {shown(tolerance, unit, _n)} (margin {shown(margin, unit, _n)})" if within
+                         else f"OUTSIDE tolerance {shown(tolerance, unit, _n)} (by {shown(-margin, unit, _n)})")
         if decision is not None:
             lines.append(f"decision (ISO 14253-1): {decision.words()}")
         lines += [f"nominal: {nominal.label}", f"measured: {measured.label}"]
@@ -387,8 +397,10 @@ def add_batch_arguments(parser: argparse.ArgumentParser) -> None:
     parser.add_argument("file", metavar="FILE.csv",
                         help="CSV of mounts: name, then nominal_... and measured_... column sets "
                              "(e.g. nominal_qw..qz, measured_yaw/pitch/roll[deg]; see the README)")
-    parser.add_argument("--tolerance", type=float, required=True, metavar="DEG",
-                        help="allowed total deviation of each mount, in degrees")
+    parser.add_argument("--tolerance", type=angle_argument, required=True, metavar="ANGLE",
+                        help="allowed total deviation of each mount: degrees, or a number with its unit (0.5mrad, "
+                             "30″, 1′30″, 2gon)")
+    add_units_option(parser)
     parser.add_argument("--out", metavar="RESULT.csv", help="also write the table of deviations as CSV")
     parser.add_argument("--skip-errors", action="store_true",
                         help="list rows that cannot be checked as errors and judge the others (exit 0 or 1 by "
@@ -412,8 +424,9 @@ def run_batch(args, stdin, stdout) -> int:
     from core.check import CheckSettings
     from core.printable import printable
 
+    tolerance, unit = args.tolerance.degrees, args.show_units
     try:
-        settings = CheckSettings(total_tolerance_deg=args.tolerance)
+        settings = CheckSettings(total_tolerance_deg=tolerance)
     except FramewrightError as error:
         raise _Refused(f"--tolerance: {error}") from None
     if args.out and _same_file(args.out, args.file):
@@ -444,19 +457,22 @@ def run_batch(args, stdin, stdout) -> int:
     width = max(len("mount"), *(len(name) for name in names))
     problems = result.problem_texts()
     decided = result.decision is not None
-    lines = [f"{'mount'.ljust(width)}  deviation (deg)  result   margin (deg)"
-             + ("  u (deg)  decision (ISO 14253-1)" if decided else "")]
+    symbol = "deg" if unit in ("deg", "dms") else units.ANGLE_UNITS[unit].symbol
+    per = units.ANGLE_UNITS[unit].per_base if unit != "dms" else 1.0     # the table's numbers in that unit
+    column = f"deviation ({symbol})"
+    lines = [f"{'mount'.ljust(width)}  {column:>15}  result   {f'margin ({symbol})':>13}"
+             + (f"  {f'u ({symbol})':>7}  decision (ISO 14253-1)" if decided else "")]
     for row, (name, total, passed, margin) in enumerate(zip(names, result.total_deg, result.passed,
                                                              result.margin_deg)):
         if row in problems:
             lines.append(f"{name.ljust(width)}  {'-':>15}  {'ERROR':<6} {'-':>13}  {printable(problems[row])}")
         else:
-            line = f"{name.ljust(width)}  {total:15.4f}  {'pass' if passed else 'FAIL':<6} {margin + 0.0:13.4f}"
+            line = f"{name.ljust(width)}  {total * per:15.4f}  {'pass' if passed else 'FAIL':<6} {margin * per + 0.0:13.4f}"
             if decided:
-                line += f"  {result.uncertainty_deg[row]:7.4f}  {result.decision[row]}"
+                line += f"  {result.uncertainty_deg[row] * per:7.4f}  {result.decision[row]}"
             lines.append(line)
     failed = result.failed_count
-    lines.append(f"{len(names)} mounts, {failed} outside the tolerance of {_n(args.tolerance)} deg, "
+    lines.append(f"{len(names)} mounts, {failed} outside the tolerance of {shown(tolerance, unit, _n)}, "
                  f"{result.passed_count} within, {errors} in error (not checked)"
                  + (f"; results written to {printable(args.out)}" if args.out else ""))
     counts = result.decision_counts()
