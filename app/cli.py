@@ -718,6 +718,14 @@ def add_report_arguments(parser: argparse.ArgumentParser) -> None:
     for flag, field in (("--operator", "Operator"), ("--instrument", "Instrument"),
                         ("--calibration-due", "Instrument calibration due")):
         parser.add_argument(flag, metavar="TEXT", help=f"fills the report's '{field}' line (blank to fill by hand)")
+    parser.add_argument("--units", dest="show_units", default="deg", metavar="UNIT",
+                        choices=tuple(k for k in units.ANGLE_UNITS if k != "dms"),
+                        help="print the report's angles in this unit: " + ", ".join(
+                            f"{u.key} ({u.name})" for u in units.ANGLE_UNITS.values() if u.key != "dms"))
+    parser.add_argument("--slope-units", dest="slope_units", default="deg", metavar="UNIT",
+                        choices=tuple(units.SLOPE_UNITS),
+                        help="also print the level readings as slopes in this unit: " + ", ".join(
+                            f"{u.key} ({u.name})" for u in units.SLOPE_UNITS.values() if u.key != "deg"))
 
 
 def _report_target(out: str, session_path: str) -> str:
@@ -758,8 +766,9 @@ def run_report(args, stdin, stdout) -> int:
             free[field] = value
     name, digest = Path(args.session).name, records.sha256_of_bytes(raw)
     try:
-        record = (records.check_record(session, args.check, name, digest) if args.check is not None
-                  else records.session_record(session, name, digest))
+        shown = records.ReportUnits(args.show_units, args.slope_units)
+        record = (records.check_record(session, args.check, name, digest, shown=shown) if args.check is not None
+                  else records.session_record(session, name, digest, shown))
     except FramewrightError as error:
         raise _Refused(str(error)) from None
     if args.write_report is None:
@@ -799,7 +808,7 @@ def run_verify_report(args, stdin, stdout) -> int:
         raise _Refused(str(error)) from None
     try:
         record = records.record_for(session, data.get("scope"), data.get("check"), Path(args.session).name,
-                                    records.sha256_of_bytes(raw))
+                                    records.sha256_of_bytes(raw), records.ReportUnits.from_numbers(data))
     except FramewrightError as error:     # e.g. the check the report names is not in this session
         stdout.write(f"NOT the record of this session: {printable(error)}\n")
         return EXIT_OUTSIDE

@@ -19,7 +19,7 @@ from __future__ import annotations
 
 import numpy as np
 
-from core import describe, level, sequences
+from core import describe, level, sequences, units
 from core.check import check, check_position
 from core.correction import adjustment_angles, correction, read_axes
 from core.decision import decide_check
@@ -29,7 +29,7 @@ from core.session import SavedCheck, Session, read_checks
 from core.shims import outward_normal, shims
 # The record's values and comparison live in core/record_values.py; callers reach them through this module.
 from core.record_values import (CAUTION, DECISION_RULE, DEGREES, DIMENSIONLESS, FREE_FIELDS,  # noqa: F401
-                                MILLIMETRES, UNIT_VECTOR, WORDS, Figure,
+                                MILLIMETRES, UNIT_VECTOR, WORDS, Figure, ReportUnits,
                                 Picture, Record, RecordError, Section, Table, canonical_json, first_difference,
                                 numbers_sha256, printed_numbers, sha256_of_bytes)
 
@@ -38,8 +38,9 @@ from core.record_values import (CAUTION, DECISION_RULE, DEGREES, DIMENSIONLESS, 
 # Building it
 # ---------------------------------------------------------------------------------------------------
 class _Builder:
-    def __init__(self, session: Session):
+    def __init__(self, session: Session, shown: ReportUnits = ReportUnits()):
         self.session = session
+        self.units = shown
         self.prefs = session.preferences
         self.digits = self.prefs.significant_digits
         self.preset = describe.frame_preset(session.reference_frame)
@@ -59,7 +60,20 @@ class _Builder:
         flat, width = self.n([v for r in rows for v in r]), len(rows[0])
         return [tuple(flat[i * width:(i + 1) * width]) for i in range(len(rows))]
 
+    def angles(self, degrees):
+        """Angles in the record's unit (a number or a list, as given)."""
+        if self.units.angle == "deg":
+            return degrees
+        shown = units.degrees_to(np.asarray(degrees, dtype=float), self.units.angle)
+        return shown.tolist() if np.ndim(shown) else float(shown)
+
+    @property
+    def angle_unit(self) -> str:
+        return DEGREES if self.units.angle == "deg" else self.units.angle
+
     def fig(self, key, label, values, unit, shape=()) -> Figure:
+        if unit == DEGREES:
+            values, unit = self.angles(list(values)), self.angle_unit
         return Figure(key, label, self.n(values), unit, shape)
 
     def words(self, key, label, text) -> Figure:
@@ -100,6 +114,8 @@ class _Builder:
             items.append(Figure(f"{key}.position", "Position of the body origin (x, y, z), in reference axes",
                                 self.n(shown), unit))
         items.append(self.level_table(key, o))
+        if self.units.slope != "deg":
+            items.append(self.slope_table(key, o))
         items.append(f"Where the body axes point (directions named as {self.preset.title}):")
         items += ["    " + line for line in describe.describe_orientation(o, self.preset)]
         if mount.notes.strip():
@@ -109,14 +125,27 @@ class _Builder:
     def level_table(self, key: str, o: Orientation) -> Table:
         down = describe.gravity_direction(self.session.reference_frame)
         report = level.level_readings(o, down)
-        printed = self.table([r.tilt_deg, r.off_plumb_deg, r.from_up_deg] for r in report.faces)
-        rows = tuple(Figure(f"{key}.level[{r.face}]", f"face {r.face}, facing {r.facing}", values, DEGREES)
+        printed = self.table(self.angles([r.tilt_deg, r.off_plumb_deg, r.from_up_deg]) for r in report.faces)
+        rows = tuple(Figure(f"{key}.level[{r.face}]", f"face {r.face}, facing {r.facing}", values, self.angle_unit)
                      for r, values in zip(report.faces, printed))
         axis = int(np.argmax(np.abs(down)))
         down_name = describe.signed_axis_name(axis, int(np.sign(down[axis])))
         return Table(f"Level readings: what a level shows on each face (gravity along reference {down_name}, "
                      f"'down' in {self.preset.key.upper()})",
                      ("face", "tilt from level", "off plumb", "normal from straight up"), rows)
+
+    def slope_table(self, key: str, o: Orientation) -> Table:
+        """What a level shows on each face as a slope: the tilt of an up or down face from level, the lean
+        of a side face from plumb (each at most 45°, so every slope is finite)."""
+        report = level.level_readings(o, describe.gravity_direction(self.session.reference_frame))
+        unit = units.SLOPE_UNITS[self.units.slope]
+        shown = [float(units.tilt_to_slope(r.off_plumb_deg if r.facing == "side" else r.tilt_deg, unit.key))
+                 for r in report.faces]
+        rows = tuple(Figure(f"{key}.level_slope[{r.face}]", f"face {r.face}, "
+                            + ("from plumb" if r.facing == "side" else "from level"), values, unit.symbol)
+                     for r, values in zip(report.faces, self.table([v] for v in shown)))
+        return Table(f"Level readings as slopes, {unit.name} (an up or down face from level, a side face from "
+                     "plumb)", ("face", "slope"), rows)
 
     # -- one check ------------------------------------------------------------------------------------
     def check_items(self, index: int, saved: SavedCheck) -> tuple[list, str, Picture]:
@@ -154,8 +183,9 @@ class _Builder:
             items.append(self.fig(f"{key}.roll", "Roll about the body axis (signed, right-hand rule)"
                                   + ("" if result.roll_defined else "; undefined: the axis points backwards"),
                                   [result.roll_deg], DEGREES))
-        printed = self.table([c.value_deg, c.tolerance_deg, c.margin_deg] for c in result.criteria)
-        rows = [Figure(f"{key}.criterion[{i}]", f"{c.name}: {'PASS' if c.passed else 'FAIL'}", values, DEGREES)
+        printed = self.table(self.angles([c.value_deg, c.tolerance_deg, c.margin_deg]) for c in result.criteria)
+        rows = [Figure(f"{key}.criterion[{i}]", f"{c.name}: {'PASS' if c.passed else 'FAIL'}", values,
+                       self.angle_unit)
                 for i, (c, values) in enumerate(zip(result.criteria, printed))]
         items.append(Table("Figures against their tolerances (a figure equal to its tolerance passes)",
                            ("figure", "value", "tolerance", "margin"), tuple(rows)))
@@ -172,7 +202,8 @@ class _Builder:
                       self.fig(f"{key}.coverage", "Coverage factor k", [k], DIMENSIONLESS),
                       self.fig(f"{key}.expanded_uncertainty", "Expanded uncertainty U = k·u", [k * u], DEGREES)]
             items.append(self.words(f"{key}.decision", "Decision (ISO 14253-1)", outcome))
-            verdict_line += f"; ISO 14253-1 decision: {outcome} (U = {self.n([k * u])[0]} deg, k = {self.n([k])[0]})"
+            verdict_line += (f"; ISO 14253-1 decision: {outcome} (U = {self.n([self.angles(k * u)])[0]} "
+                             f"{self.angle_unit}, k = {self.n([k])[0]})")
         else:
             items.append("No measurement uncertainty was given: the verdict is the plain comparison, with no "
                          "guard band (an ISO 14253-1 decision needs U).")
@@ -212,9 +243,9 @@ class _Builder:
             if setup.axes:
                 target = fix.body if setup.axes_frame == "body" else fix.reference
                 adjust = adjustment_angles(target, read_axes(setup.axes))
-                printed = self.table([a] for a in adjust.angles_deg)
+                printed = self.table([self.angles(a)] for a in adjust.angles_deg)
                 rows = tuple(Figure(f"{key}.adjustment[{i}]", f"{i + 1}. about ({', '.join(self.n(axis))})",
-                                    values, DEGREES)
+                                    values, self.angle_unit)
                              for i, (axis, values) in enumerate(zip(adjust.axes, printed)))
                 items.append(Table(f"Adjustment angles about the mount's {setup.axes_frame} axes, in the order "
                                    "they are turned", ("axis", "angle"), rows))
@@ -256,12 +287,13 @@ class _Builder:
                       ("point", "x", "y", "z", "distance"), tuple(table_rows))]
 
 
-def _conventions(session: Session, digits: int) -> tuple:
+def _conventions(session: Session, digits: int, shown: ReportUnits) -> tuple:
+    angles = units.ANGLE_UNITS[shown.angle].name
     return ("An orientation R maps body to reference: v_ref = R · v_body, so the columns of R are the body "
             "axes in reference coordinates.",
             "Quaternions are Hamilton (i j = k), written w first, with w not negative; q and −q are the same "
             "orientation.",
-            "Angles are in degrees. Intrinsic angles turn about the moving body axes, extrinsic about the fixed "
+            f"Angles are in {angles}. Intrinsic angles turn about the moving body axes, extrinsic about the fixed "
             "reference axes.",
             f"Numbers are printed to {digits} significant digits counted from the largest of each group, "
             "trailing zeros dropped; '.' is the decimal point.",
@@ -279,10 +311,12 @@ def find_check(session: Session, name: str) -> tuple[int, SavedCheck]:
 
 
 def check_record(session: Session, check_name: str, session_name: str, session_sha256: str,
-                 fit=None, fit_rows=None, fit_unit: str = "mm", fit_source: str | None = None) -> Record:
+                 fit=None, fit_rows=None, fit_unit: str = "mm", fit_source: str | None = None,
+                 shown: ReportUnits = ReportUnits()) -> Record:
     """The record of one check: its nominal and measured mounts and everything the check works out.
-    `fit`: the point fit the measured orientation came from (core/fit.PointFit), when there is one."""
-    b = _Builder(session)
+    `fit`: the point fit the measured orientation came from (core/fit.PointFit), when there is one.
+    `shown`: the units angles and level slopes are printed in."""
+    b = _Builder(session, shown)
     index, saved = find_check(session, check_name)
     items, verdict, picture = b.check_items(index, saved)
     names = [m.name for m in session.mounts]
@@ -294,14 +328,15 @@ def check_record(session: Session, check_name: str, session_name: str, session_s
         sections.append(Section("The measured orientation's point fit", tuple(b.fit_items(f"check[{index}]",
                                                                                             fit, fit_rows, fit_unit))))
     return Record(f"Inspection record: {session.mounts[measured_i].name}", "check", saved.name, session_name,
-                  session_sha256, b.preset.title, b.digits, _conventions(session, b.digits), tuple(sections),
-                  verdict, fit_source=fit_source)
+                  session_sha256, b.preset.title, b.digits, _conventions(session, b.digits, shown), tuple(sections),
+                  verdict, fit_source=fit_source, units=shown)
 
 
-def session_record(session: Session, session_name: str, session_sha256: str) -> Record:
+def session_record(session: Session, session_name: str, session_sha256: str,
+                   shown: ReportUnits = ReportUnits()) -> Record:
     """The record of a whole session: every mount, then every check that names both its mounts (a check
     that does not is listed as not judged)."""
-    b = _Builder(session)
+    b = _Builder(session, shown)
     sections = []
     for i, mount in enumerate(session.mounts):
         picture = Picture(mount.orientation, Orientation.identity(), "reference", mount.part, session.reference_frame)
@@ -314,7 +349,7 @@ def session_record(session: Session, session_name: str, session_sha256: str) -> 
             continue
         sections.append(Section(f"Check “{saved.name}”: {verdict.split(':')[0]}", tuple(items), picture))
     return Record(f"Inspection record: {session_name}", "all", None, session_name, session_sha256, b.preset.title,
-                  b.digits, _conventions(session, b.digits), tuple(sections), None)
+                  b.digits, _conventions(session, b.digits, shown), tuple(sections), None, units=shown)
 
 
 def _clean(items) -> list:
@@ -322,17 +357,18 @@ def _clean(items) -> list:
 
 
 def record_for(session: Session, scope: str, check_name: str | None, session_name: str,
-               session_sha256: str) -> Record:
-    """The record a report file names (its scope and check): what verify-report rebuilds."""
+               session_sha256: str, shown: ReportUnits = ReportUnits()) -> Record:
+    """The record a report file names (its scope, check and units): what verify-report rebuilds."""
     if scope == "check":
         if not isinstance(check_name, str):
             raise RecordError("the report names no check")
-        return check_record(session, check_name, session_name, session_sha256)
+        return check_record(session, check_name, session_name, session_sha256, shown=shown)
     if scope == "all":
-        return session_record(session, session_name, session_sha256)
+        return session_record(session, session_name, session_sha256, shown)
     raise RecordError(f"unknown report scope {scope!r}; expected check or all")
 
 
-__all__ = ["CAUTION", "DECISION_RULE", "FREE_FIELDS", "Figure", "Picture", "Record", "RecordError", "Section",
+__all__ = ["CAUTION", "DECISION_RULE", "FREE_FIELDS", "Figure", "Picture", "Record", "RecordError", "ReportUnits",
+           "Section",
            "Table", "canonical_json", "check_record", "find_check", "first_difference", "numbers_sha256",
            "printed_numbers", "record_for", "session_record", "sha256_of_bytes"]

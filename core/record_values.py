@@ -10,6 +10,7 @@ import math
 from dataclasses import dataclass
 from typing import Iterable
 
+from core import units
 from core.errors import FramewrightError
 from core.formats import SAFETY_CAUTION, format_number
 from core.orientation import Orientation
@@ -91,6 +92,40 @@ class Section:
 
 
 @dataclass(frozen=True)
+class ReportUnits:
+    """The units a record prints angles and level tilts in (degrees unless asked; core/units.py keys).
+    Degrees-minutes-seconds is a way of showing, not a number, so a record takes decimal units only."""
+
+    angle: str = "deg"
+    slope: str = "deg"
+
+    def __post_init__(self):
+        if not isinstance(self.angle, str) or not isinstance(self.slope, str):
+            raise RecordError(f"units must be named by text, got {self.angle!r} and {self.slope!r}")
+        try:
+            units.angle_unit(self.angle)
+            units.slope_unit(self.slope)
+        except FramewrightError as error:
+            raise RecordError(str(error)) from None
+        if self.angle == "dms":
+            raise RecordError("a record prints decimal numbers; choose deg, arcmin or arcsec rather than "
+                              "degrees-minutes-seconds")
+
+    @property
+    def default(self) -> bool:
+        return self == ReportUnits()
+
+
+    @classmethod
+    def from_numbers(cls, numbers: dict) -> "ReportUnits":
+        """The units a record's numbers name (absent: degrees, as every record before units were chosen)."""
+        given = numbers.get("units", {}) if isinstance(numbers, dict) else {}
+        if not isinstance(given, dict) or set(given) - {"angle", "slope"}:
+            raise RecordError(f"the report's units are not readable: {given!r}")
+        return cls(**given)
+
+
+@dataclass(frozen=True)
 class Record:
     title: str
     scope: str                 # "check" or "all"
@@ -105,6 +140,7 @@ class Record:
     caution: str = CAUTION
     free_fields: tuple = FREE_FIELDS
     fit_source: str | None = None   # the points file of a fit's residuals, when the record holds one
+    units: ReportUnits = ReportUnits()
 
     def figures(self) -> list[Figure]:
         out = []
@@ -121,7 +157,9 @@ class Record:
         return {"format": RECORD_FORMAT, "version": RECORD_VERSION, "scope": self.scope,
                 "check": self.check_name, "session_sha256": self.session_sha256, "digits": self.digits,
                 "figures": [{"key": f.key, "label": f.label, "values": list(f.values), "unit": f.unit}
-                            for f in self.figures()]}
+                            for f in self.figures()],
+                # only when not degrees, so a record made before units could be chosen keeps its hash
+                **({} if self.units.default else {"units": {"angle": self.units.angle, "slope": self.units.slope}})}
 
     def canonical_json(self) -> str:
         return canonical_json(self.numbers())

@@ -107,3 +107,26 @@ def test_batch_takes_a_tolerance_with_its_unit_and_prints_the_table_in_it(tmp_pa
     imu = float(lines[2].split()[1])
     assert imu == pytest.approx(math.radians(0.1) * 1e3, abs=1e-4)
     assert "outside the tolerance of 1 mrad" in out
+
+
+def test_a_report_in_arcseconds_and_mm_per_metre_verifies_and_an_edited_unit_does_not(tmp_path):
+    import re
+
+    from core.record_files import read_report
+    from tests.cli.test_cli import ROOT, framewright
+
+    session = ROOT / "resources" / "demo_check.fwsession.json"
+    out = tmp_path / "record.html"
+    result = framewright("report", str(session), "--check", "Radar antenna after remount", "--units", "arcsec",
+                         "--slope-units", "mm/m", "-o", str(out))
+    assert result.returncode == 0, result.stderr
+    data, _, _ = read_report(str(out))
+    assert data["units"] == {"angle": "arcsec", "slope": "mm/m"}
+    assert any(f["unit"] == "arcsec" for f in data["figures"]) and any(f["unit"] == "mm/m" for f in data["figures"])
+    assert framewright("verify-report", str(out), str(session)).returncode == 0
+    # The same numbers claimed to be degrees: the record's hash no longer matches, so it is refused.
+    html = out.read_text(encoding="utf-8")
+    edited = tmp_path / "edited.html"
+    edited.write_text(re.sub(r'"angle":\s*"arcsec"', '"angle":"deg"', html, count=1), encoding="utf-8")
+    assert framewright("verify-report", str(edited), str(session)).returncode == 1
+    assert framewright("report", str(session), "--units", "dms", "-o", str(tmp_path / "x.pdf")).returncode == 2
