@@ -9,6 +9,7 @@ window and the printed report show, so a minus sign never looks like a hyphen.
 from __future__ import annotations
 
 import reprlib
+from types import MappingProxyType
 
 import numpy as np
 
@@ -19,12 +20,14 @@ MINUS = "\u2212"  # the typographic minus sign, as in every printed direction ("
 LETTERS = ("X", "Y", "Z")
 SIGNED_AXES = ("+X", "-X", "+Y", "-Y", "+Z", "-Z")  # this order everywhere: faces, choices, tables
 POSITIVE_AXES = SIGNED_AXES[0::2]  # +X, +Y, +Z: the body axes themselves
+NEGATIVE_AXES = SIGNED_AXES[1::2]
 
 # Row i is the unit vector of SIGNED_AXES[i]: the identity's columns, each with its sign (+ 0.0 turns the
 # -0.0 the product leaves into 0.0, so no printed component reads "-0"). Read-only, so no caller can
 # change an axis for everyone.
 UNIT_VECTORS = np.repeat(np.eye(3), 2, axis=0) * np.tile([[1.0], [-1.0]], (3, 1)) + 0.0
 UNIT_VECTORS.setflags(write=False)
+VECTORS = MappingProxyType(dict(zip(SIGNED_AXES, UNIT_VECTORS)))  # '+X' -> its (read-only) unit vector
 
 _LONGEST_ECHO = 40  # characters of a refused text repeated in the message
 
@@ -57,7 +60,7 @@ def parse_axis(spec, what: str = "axis", or_else: str = "") -> str:
 
 def unit_vector(spec, what: str = "axis", or_else: str = "") -> np.ndarray:
     """The unit 3-vector of a signed axis ('+Z', '-x', 'Y'), a fresh array the caller may change."""
-    return UNIT_VECTORS[SIGNED_AXES.index(parse_axis(spec, what, or_else))].copy()
+    return VECTORS[parse_axis(spec, what, or_else)].copy()
 
 
 def signed_axis(index: int, sign) -> str:
@@ -70,7 +73,7 @@ def name_of_vector(vector) -> str | None:
     v = np.asarray(vector, dtype=float)
     if v.shape != (3,):
         return None
-    for name, axis in zip(SIGNED_AXES, UNIT_VECTORS):
+    for name, axis in VECTORS.items():
         if np.array_equal(v, axis):
             return name
     return None

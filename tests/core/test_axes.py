@@ -140,3 +140,10 @@ def test_the_scan_finds_planted_tables(tmp_path):
                        '           np.array([0.0, 0.0, -1.0])]\n'
                        'FINE = ("+X", "+Y", "+Z", "boresight")\n', encoding="utf-8")
     assert _own_axis_tables(planted) == ["planted.py:1", "planted.py:2", "planted.py:3", "planted.py:4"]
+
+
+def test_no_other_module_keeps_its_own_table_of_the_six_axes():
+    sources = [p for folder in ("core", "app") for p in sorted((ROOT / folder).rglob("*.py"))]
+    assert len(sources) > 50
+    found = [hit for p in sources if p != ROOT / "core" / "axes.py" for hit in _own_axis_tables(p)]
+    assert found == [], f"tables of the signed axes outside core/axes.py (use core.axes): {found}"
