@@ -68,13 +68,14 @@ def signed_axis(index: int, sign) -> str:
     return ("+" if sign > 0 else "-") + LETTERS[index]
 
 
-def name_of_vector(vector) -> str | None:
-    """'-Z' for (0, 0, -1): the signed axis a vector is exactly; None for any other direction."""
+def name_of_vector(vector, atol: float = 0.0, rtol: float = 0.0) -> str | None:
+    """'-Z' for (0, 0, -1): the signed axis a vector is (exactly, unless tolerances are given, as for
+    numpy.allclose); None for any other direction."""
     v = np.asarray(vector, dtype=float)
     if v.shape != (3,):
         return None
     for name, axis in VECTORS.items():
-        if np.array_equal(v, axis):
+        if np.allclose(v, axis, atol=atol, rtol=rtol):
             return name
     return None
 

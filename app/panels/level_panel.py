@@ -247,8 +247,7 @@ class LevelPanel(RendersWhenSeen, QWidget):
 
 def _vec(v) -> str:
     """A body axis name when the vector is one, else its numbers."""
-    for k, name in enumerate("XYZ"):
-        for sign in (1, -1):
-            if np.allclose(v, sign * np.eye(3)[k], atol=1e-12):
-                return ("+" if sign > 0 else describe.MINUS) + name
+    name = axes.name_of_vector(v, atol=1e-12, rtol=1e-5)   # near enough: v comes out of a projection
+    if name:
+        return axes.display(name)
     return "(" + ", ".join(f"{c:.3f}" for c in v) + ")"

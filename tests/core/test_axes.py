@@ -85,6 +85,10 @@ def test_names_of_vectors_and_of_matrix_columns():
     assert axes.name_of_vector((-0.0, 0.0, -1.0)) == "-Z"
     for other in ((0.0, 0.0, -2.0), (1e-17, 0.0, 1.0), (np.nan, 0.0, 1.0), (0.0, 0.0, 0.0), (1.0, 0.0), [[1, 0, 0]]):
         assert axes.name_of_vector(other) is None
+    assert axes.name_of_vector((1e-13, 0.0, 1.0)) is None                     # exact unless told otherwise
+    assert axes.name_of_vector((1e-13, 0.0, 1.0), atol=1e-12) == "+Z"
+    assert axes.name_of_vector((1e-11, 0.0, 1.0), atol=1e-12) is None
+    assert axes.name_of_vector((np.nan, 0.0, 1.0), atol=1.0) is None
 
 
 def test_display_uses_the_unicode_minus():
