@@ -13,7 +13,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from core import axes
-from core.axes import MINUS  # noqa: F401 - the typographic minus, named here for the many callers
+from core.axes import MINUS  # many callers still name it describe.MINUS
 
 ARROW = "\u2192"
 
