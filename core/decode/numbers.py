@@ -267,6 +267,22 @@ def parse_numbers(text: str, max_numbers: int | None = None, first_line: int = 1
                          bool(re.search(r"\d,\d", clean)), tuple(line_words), tuple(strays), _library_call(clean))
 
 
+def _inside_quotes(line: str, position: int, quote: str) -> bool:
+    """Whether `position` is inside a string opened by `quote` earlier on the line. A quote right after a
+    digit (or after such a mark, as in 30'') is a minutes or seconds mark when no string is open."""
+    inside, mark_end = False, -1
+    for i in range(position):
+        if line[i] != quote:
+            continue
+        if inside:
+            inside = False
+        elif i > 0 and (line[i - 1].isdigit() or i - 1 == mark_end):
+            mark_end = i
+        else:
+            inside = True
+    return inside
+
+
 def _other_unit(line: str, m, end: int, value: float, line_no: int, notes) -> tuple:
     """(value, unit, converted_from, end): a number marked in milliradians, arcminutes (′), arcseconds (″)
     or gon, converted to degrees (core/units.py's definitions); unchanged when it carries no such mark.
@@ -278,9 +294,8 @@ def _other_unit(line: str, m, end: int, value: float, line_no: int, notes) -> tu
         return value, None, None, end
     key = mark.lastgroup
     quote = mark.group().strip()
-    if quote in ("'", '"', "''") and line[:m.start()].count(quote[0]) % 2 == 1:
-        # an opening quote before it on the line: '0.5', rpy="0 0 1.57" close a quoted string, they are
-        # not minutes or seconds
+    if quote in ("'", '"', "''") and _inside_quotes(line, m.start(), quote[0]):
+        # '0.5', rpy="0 0 1.57": the quote closes a quoted string; it is not minutes or seconds
         return value, None, None, end
     if key == "mil":
         raise DecodeError(f"line {line_no}: '{_shorten(line[m.start():mark.end()].strip())}': 'mil' is either a NATO "

@@ -99,3 +99,11 @@ def test_unmarked_text_reads_as_before():
     readings = decode("yaw 30, pitch 20, roll 10")
     _same(readings[0].orientation, Rotation.from_euler("ZYX", [30, 20, 10], degrees=True))
     assert decode("0 0 1 90")[0].kind == "axis-angle"
+
+
+def test_degrees_minutes_and_seconds_on_one_line_each_read_by_its_mark():
+    # the prime after 1°30 once counted as an opening quote and hid the −12′ that followed
+    readings = decode("yaw 1°30′, pitch −12′, roll 40″")
+    _same(readings[0].orientation, Rotation.from_euler("ZYX", [1.5, -0.2, 40 / 3600], degrees=True))
+    readings = decode("name 'bracket': yaw 30′ pitch 0 roll 0")
+    _same(readings[0].orientation, Rotation.from_euler("ZYX", [0.5, 0, 0], degrees=True))
