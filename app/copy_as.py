@@ -55,7 +55,7 @@ def _options(model, editor) -> dict:
     return {
         "representation": _editor_representation(editor),
         "angle_units": prefs.angle_units,
-        "degrees": prefs.angle_units == "deg",
+        "degrees": prefs.angle_units != "rad",   # copies are in degrees or radians, their unit stated
         "quaternion_order": prefs.quaternion_order,
         "scalar_last": prefs.quaternion_order == "xyzw",
         "matrix_meaning": prefs.matrix_meaning,

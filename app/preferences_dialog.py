@@ -2,11 +2,13 @@
 
 from __future__ import annotations
 
-from PySide6.QtWidgets import (QComboBox, QDialog, QDialogButtonBox, QDoubleSpinBox, QFormLayout, QLabel,
+from PySide6.QtWidgets import (QComboBox, QDialog, QDialogButtonBox, QDoubleSpinBox, QFormLayout,
                                QSpinBox)
 
 from app import plain_text
+from core import units
 from core.errors import FramewrightError
+from core.session import ANGLE_UNITS
 
 
 class PreferencesDialog(QDialog):
@@ -16,9 +18,11 @@ class PreferencesDialog(QDialog):
         prefs = model.preferences
         self.model = model
         self.units = QComboBox()
-        self.units.addItem("degrees", "deg")
-        self.units.addItem("radians", "rad")
-        self.units.setCurrentIndex(0 if prefs.angle_units == "deg" else 1)
+        for key in ANGLE_UNITS:
+            self.units.addItem(units.ANGLE_UNITS[key].name, key)
+        self.units.setCurrentIndex(max(0, self.units.findData(prefs.angle_units)))
+        self.units.setToolTip("The unit every angle field shows and reads (a field also reads a number with its "
+                              "own unit mark, e.g. 0.5 mrad or 30″). NATO mils: 6400 to a turn.")
         self.digits = QSpinBox()
         self.digits.setRange(3, 17)
         self.digits.setValue(prefs.significant_digits)

@@ -15,7 +15,7 @@ from PySide6.QtWidgets import (QAbstractSpinBox, QApplication, QComboBox, QFrame
 
 from app import copy_as, dialog_folder, plain_text, recent_files, recovery, settings
 from app.editor_rows import EditorRows
-from core import atomic_file
+from core import atomic_file, units
 from app.editors.angles_editor import AnglesEditor
 from app.editors.axis_angle_editor import AxisAngleEditor
 from app.editors.base import EditorBase
@@ -32,7 +32,7 @@ from app.scene import VIEW_MINIMUM_SIZE, palette as scene_palette
 from app.scene.model_binding import bind_scene_to_model
 from app.side_pages import SidePages, SidePanel
 from core.errors import FramewrightError
-from core.session import FILE_SUFFIX, Session, load_session, save_session
+from core.session import ANGLE_UNITS, FILE_SUFFIX, Session, load_session, save_session
 
 RESOURCES = Path(__file__).resolve().parents[1] / "resources"
 DEMO_SESSION = RESOURCES / "demo.fwsession.json"
@@ -286,8 +286,10 @@ class MainWindow(QMainWindow):
         row.setContentsMargins(0, 0, 6, 0)
         row.setSpacing(4)
         self.units_box = QComboBox()
-        self.units_box.addItem("degrees", "deg")
-        self.units_box.addItem("radians", "rad")
+        for key in ANGLE_UNITS:     # the one preference for every angle field
+            self.units_box.addItem(units.ANGLE_UNITS[key].name, key)
+        self.units_box.setToolTip("Angles in every field and readout in this unit; a field also reads a number "
+                                  "with its own mark (0.5 mrad, 30″, 1°30′, 2 gon). NATO mils: 6400 to a turn.")
         self.units_box.setToolTip("Unit of every angle shown and typed (the gimbal margin is always in degrees).")
         self.digits_box = QSpinBox()
         self.digits_box.setRange(3, 17)
@@ -452,7 +454,7 @@ class MainWindow(QMainWindow):
 
     def _render_toolbar(self) -> None:
         prefs = self.model.preferences
-        self.units_box.setCurrentIndex(0 if prefs.angle_units == "deg" else 1)
+        self.units_box.setCurrentIndex(max(0, self.units_box.findData(prefs.angle_units)))
         self.digits_box.blockSignals(True)
         self.digits_box.setValue(prefs.significant_digits)
         self.digits_box.blockSignals(False)

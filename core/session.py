@@ -70,7 +70,8 @@ FILE_SUFFIX = ".fwsession.json"
 RESERVED_KEYS = ("chains", "checks")
 
 FACE_KEYS = SIGNED_AXES
-ANGLE_UNITS = ("deg", "rad")
+# The display units of angles (core/units.py keys); degrees-minutes-seconds is for readouts, not fields.
+ANGLE_UNITS = ("deg", "rad", "mrad", "arcmin", "arcsec", "gon", "mil")
 QUATERNION_ORDERS = ("wxyz", "xyzw")
 MATRIX_MEANINGS = ("body_to_reference", "reference_to_body")
 # A box of a micrometre or a kilometre is a typing error, not a part; the bounds also keep the Scene's

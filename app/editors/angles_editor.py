@@ -100,11 +100,12 @@ class AnglesEditor(EditorBase):
         for i, (label, text) in enumerate(zip(self.labels, axis_labels(seq, intr))):
             label.setText(f"{text} ({self.angle_unit})")
             self.fields[i].set_convention_tooltip(self._tooltip(i))
-            self.fields[i].set_step(1.0 if self.degrees else 0.01)
-        angle_set = self.model.current_orientation().as_angles(seq, intrinsic=intr, degrees=self.degrees)
-        for field, value in zip(self.fields, angle_set.angles):
+            self.fields[i].set_step(self.angle_step)
+        angle_set = self.model.current_orientation().as_angles(seq, intrinsic=intr, degrees=True)
+        shown = self.shown_angles(angle_set.angles)
+        for field, value in zip(self.fields, shown):
             field.set_text(self.fmt(value))
-        self._show_other(angle_set.angles)
+        self._show_other(shown)
         self.note.setText(
             "Gimbal lock: θ1 and θ3 are coupled (see Gimbal margin); θ3 is shown as 0."
             if angle_set.locked else "")
@@ -124,7 +125,8 @@ class AnglesEditor(EditorBase):
         if values is None:
             return None
         try:
-            o = Orientation.from_angles(self.sequence, values, intrinsic=self.intrinsic, degrees=self.degrees)
+            o = Orientation.from_angles(self.sequence, self.angles_in_degrees(values), intrinsic=self.intrinsic,
+                                        degrees=True)
         except FramewrightError as exc:
             for field in self.fields:
                 field.set_problem(str(exc))

@@ -72,7 +72,7 @@ class AxisAngleEditor(EditorBase):
         self.angle_field.setVisible(not rotvec)
         self.slider.setVisible(not rotvec)
         self.angle_field.set_convention_tooltip(_ANGLE_TIP.format(unit=unit))
-        self.angle_field.set_step(1.0 if self.degrees else 0.01)
+        self.angle_field.set_step(self.angle_step)
         self.limit_angles([self.angle_field] + (self.axis_fields if rotvec else []))
         if not rotvec:
             for field in self.axis_fields:
@@ -81,13 +81,16 @@ class AxisAngleEditor(EditorBase):
         for c, label, field in zip("xyz", self.axis_labels, self.axis_fields):
             label.setText(f"Vector {c} ({unit})" if rotvec else f"Axis {c}")
             field.set_convention_tooltip((_ROTVEC_TIP if rotvec else _AXIS_TIP).format(c=c, unit=unit))
-            field.set_step((1.0 if self.degrees else 0.01) if rotvec else 0.01)
+            field.set_step(self.angle_step if rotvec else 0.01)
+            if not rotvec:
+                field.set_angle_unit(None)          # axis components are plain numbers
         if rotvec:
-            for field, v in zip(self.axis_fields, o.as_rotation_vector(degrees=self.degrees)):
+            for field, v in zip(self.axis_fields, self.shown_angles(o.as_rotation_vector(degrees=True))):
                 field.set_text(self.fmt(v))
             self.note.setText("Length = angle; direction = axis.")
             return
-        axis, angle = o.as_axis_angle(degrees=self.degrees)
+        axis, angle = o.as_axis_angle(degrees=True)
+        angle = float(self.shown_angles(angle))
         if angle == 0:
             axis = self._last_axis
             self.note.setText("Angle 0: the axis is undefined (last axis kept).")
@@ -111,8 +114,8 @@ class AxisAngleEditor(EditorBase):
             return None
         try:
             if self.showing_rotation_vector:
-                return Orientation.from_rotation_vector(values, degrees=self.degrees)
-            o = Orientation.from_axis_angle(values[:3], values[3], degrees=self.degrees)
+                return Orientation.from_rotation_vector(self.angles_in_degrees(values), degrees=True)
+            o = Orientation.from_axis_angle(values[:3], float(self.angles_in_degrees(values[3])), degrees=True)
         except FramewrightError as exc:
             for field in self.axis_fields:
                 field.set_problem(str(exc))
@@ -145,7 +148,7 @@ class AxisAngleEditor(EditorBase):
         axis = self._last_axis
         angle = tenths / 10.0
         o = Orientation.from_axis_angle(axis, angle, degrees=True)
-        self.angle_field.set_text(self.fmt(angle if self.degrees else np.radians(angle)))
+        self.angle_field.set_text(self.fmt(self.shown_angles(angle)))
         for field, v in zip(self.axis_fields, axis):
             field.set_text(self.fmt(v))
         self.push(o, "slider")

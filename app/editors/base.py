@@ -3,12 +3,11 @@ user's spelling until focus leaves the editor, then show the canonical form."""
 
 from __future__ import annotations
 
-import math
-
 from PySide6.QtCore import Qt
 from PySide6.QtWidgets import QApplication, QGroupBox, QLabel, QWidget
 
 from app.editors.number_field import NumberField, format_number, quoted
+from core import units
 from app.model import ORIENTATION, PREFERENCES, Change, SessionModel
 
 
@@ -62,6 +61,10 @@ class EditorBase(QGroupBox):
         if o is not None:
             self.push(o, "typing")
             self.after_edit(o)
+            understood = field.understood if field is not None else None
+            note = getattr(self, "note", None)
+            if understood and note is not None:
+                note.setText(f"Reading {understood}.")
             return
         # Half-typed or out of range: withdraw what the run previewed, so nothing of it stays committed,
         # and say why in the note, where it can be seen without hovering.
@@ -105,8 +108,27 @@ class EditorBase(QGroupBox):
         return self.model.preferences.angle_units == "deg"
 
     @property
+    def angle_key(self) -> str:
+        """The display unit of angles (core/units.py key): the one preference for every editor."""
+        return self.model.preferences.angle_units
+
+    @property
     def angle_unit(self) -> str:
-        return "°" if self.degrees else "rad"
+        """The unit's symbol for labels: '°', 'rad', 'mrad', '′', '″', 'gon', 'mil'."""
+        return units.ANGLE_UNITS[self.angle_key].symbol
+
+    @property
+    def angle_step(self) -> float:
+        """One arrow step: a whole unit, or a hundredth of a radian."""
+        return 0.01 if self.angle_key == "rad" else 1.0
+
+    def shown_angles(self, degrees):
+        """Angles in degrees, in the display unit."""
+        return units.degrees_to(degrees, self.angle_key)
+
+    def angles_in_degrees(self, shown):
+        """Angles typed in the display unit, in degrees."""
+        return units.to_degrees(shown, self.angle_key)
 
     def fmt(self, value: float) -> str:
         return format_number(float(value), self.digits)
@@ -129,6 +151,7 @@ class EditorBase(QGroupBox):
         """The user is done here (Enter, or focus went elsewhere): end the undo run, show canonical. Text
         that could not be used is named in the editor's note, so leaving the editor loses nothing unsaid."""
         unused = [(f.text(), f.problem) for f in self.findChildren(NumberField) if f.problem]
+        understood = [f.understood for f in self.findChildren(NumberField) if f.understood and not f.problem]
         if unused:
             self._withdraw_preview()
         self._preview_start = self._field_start = None
@@ -139,6 +162,8 @@ class EditorBase(QGroupBox):
         if unused and note is not None:
             text, problem = unused[0]
             note.setText(f"Not used: {quoted(text)} ({problem}); the last good value is shown.")
+        elif understood and note is not None:   # a number typed with its own unit: say how it was read
+            note.setText("Read " + "; ".join(understood) + ".")
 
     def push(self, orientation, key: str) -> None:
         """Send an edit to the model; runs of the same key merge into one undo step."""
@@ -152,14 +177,14 @@ class EditorBase(QGroupBox):
 
     def limit_angles(self, fields: list[NumberField]) -> None:
         """Angles are refused beyond two full turns either way: no mounting needs more, and a larger
-        number is a slip (an exponent, a digit too many) that would otherwise reduce to some angle."""
-        if self.degrees:
-            for field in fields:
-                field.set_range(-ANGLE_LIMIT_DEG, ANGLE_LIMIT_DEG, f"±{ANGLE_LIMIT_DEG:g}° (two full turns)")
-        else:
-            limit = math.radians(ANGLE_LIMIT_DEG)
-            for field in fields:
-                field.set_range(-limit, limit, f"±{limit:.6g} rad (two full turns)")
+        number is a slip (an exponent, a digit too many) that would otherwise reduce to some angle. Each
+        field also reads a number with its own unit mark (0.5 mrad, 30″, 1°30′) in the display unit."""
+        limit = float(self.shown_angles(ANGLE_LIMIT_DEG))
+        symbol = self.angle_unit
+        shown = f"{limit:.6g}{symbol}" if symbol in "°′″" else f"{limit:.6g} {symbol}"
+        for field in fields:
+            field.set_range(-limit, limit, f"±{shown} (two full turns)")
+            field.set_angle_unit(self.angle_key)
 
     @staticmethod
     def read_fields(fields: list[NumberField]) -> list[float] | None:

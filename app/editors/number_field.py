@@ -6,6 +6,8 @@ The field never rewrites its own text while the user types; the editor decides w
 
 from __future__ import annotations
 
+import re
+
 from PySide6.QtCore import QEvent, QRectF, Qt, Signal
 from PySide6.QtGui import QColor, QKeySequence, QPainter, QPen, QValidator
 from PySide6.QtWidgets import QAbstractSpinBox
@@ -24,6 +26,8 @@ def format_number(value: float, digits: int) -> str:
 
 
 INVALID_COLOUR = QColor("#c62828")
+# A number followed by a unit mark or word: '0.5 mrad', '30″', "1'30", '2gon'
+_MARKED = re.compile(r"\d[\d.]*\s*(?![eE][+\-\d])[A-Za-z°′″'\"]")
 
 # Keys a field leaves to the window, so undo and redo reach the model's undo stack from any field rather
 # than the line edit's private history (which would undo keystrokes the model already holds).
@@ -54,6 +58,8 @@ class NumberField(QAbstractSpinBox):
         self._steppable = steppable
         self._problem: str | None = None
         self._range: tuple[float, float, bool, str] | None = None  # low, high, low excluded, why
+        self._angle_unit: str | None = None   # an angle field: its display unit, and it reads unit marks
+        self.understood: str | None = None    # what a number with a unit mark was read as, for the note
         self.setToolTip(convention_tooltip)
         self.setAccelerated(True)
         self.setKeyboardTracking(True)
@@ -82,17 +88,43 @@ class NumberField(QAbstractSpinBox):
         if self.lineEdit().text() != text:
             self.lineEdit().setText(text)
         self.set_problem(None)
+        self.understood = None
 
     def text(self) -> str:  # noqa: D401 - the field's current text
         return self.lineEdit().text()
 
+    def set_angle_unit(self, key: str | None) -> None:
+        """Make this an angle field shown in `key` (core/units.py): it also reads '0.5 mrad', '30″',
+        '1°30′', '2 gon' and converts them to its unit. None: a plain number field."""
+        self._angle_unit = key
+
     def value(self) -> float:
         """The number typed, when it is complete and inside the field's range; ValueError saying why not."""
-        value = parse_number(self.text())
+        self.understood = None
+        try:
+            value = parse_number(self.text())
+        except ValueError:
+            if self._angle_unit is None or not _MARKED.search(self.text()):
+                raise                       # no unit mark typed: the plain number's reason says most
+            value = self._angle_with_mark()
         if self._range is not None:
             low, high, low_excluded, why = self._range
             if value > high or value < low or (low_excluded and value == low):
                 raise ValueError(f"{quoted(self.text())} is outside {why}")
+        return value
+
+    def _angle_with_mark(self) -> float:
+        """The typed angle with its unit mark, in this field's unit (ValueError saying why not)."""
+        from core import units
+        from core.errors import FramewrightError
+
+        try:
+            read = units.read_angle(self.text(), self._angle_unit)
+        except FramewrightError as error:
+            raise ValueError(str(error)) from None
+        value = float(units.degrees_to(read.degrees, self._angle_unit))
+        self.understood = f"{read.said} = {units.format_angle(read.degrees, self._angle_unit, decimals=9)}" \
+            if self._angle_unit != "deg" else read.said
         return value
 
     def set_range(self, low: float, high: float, why: str, low_excluded: bool = False) -> None:

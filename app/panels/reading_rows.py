@@ -66,7 +66,7 @@ def _angle(value: float, degrees: bool, digits: int) -> str:
 
 def rotation_words(orientation, preferences) -> list[str]:
     """Axis and angle, then the angles in the preferred sequence, in the preferred angle unit."""
-    digits, degrees = preferences.significant_digits, preferences.angle_units == "deg"
+    digits, degrees = preferences.significant_digits, preferences.angle_units != "rad"
     axis, angle = orientation.as_axis_angle(degrees=degrees)
     if format_number(float(angle), digits) == "0":
         lines = ["rotation: none (angle 0)"]
