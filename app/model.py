@@ -31,8 +31,7 @@ from core.errors import FramewrightError
 from core.measurement import MAX_MEASUREMENTS_PER_MOUNT, Measurement
 from core.orientation import Orientation
 from core.position import Position
-from core.session import (Mount, Preferences, SavedCheck, Session, read_chains, read_checks,
-                          with_chains_and_checks)
+from core.session import Mount, Preferences, SavedCheck, Session
 
 # What a change can touch.
 ORIENTATION = "orientation"  # the selected mount's orientation
@@ -78,8 +77,8 @@ class SessionModel(QObject):
         self._mounts: tuple[Mount, ...] = self._session.mounts
         self._selected = self._session.selected
         self._preferences = self._session.preferences
-        self._chains: tuple[Chain, ...] = read_chains(self._session)
-        self._checks: tuple[SavedCheck, ...] = read_checks(self._session)
+        self._chains: tuple[Chain, ...] = self._session.chains
+        self._checks: tuple[SavedCheck, ...] = self._session.checks
         self._show_chain_frames = True
         self._words_preset = self._session.reference_frame
         self.file_path: str | None = None
@@ -160,8 +159,9 @@ class SessionModel(QObject):
     def session(self) -> Session:
         """The state as plain data, ready to save."""
         session = replace(self._session, mounts=self._mounts, selected=self._selected,
-                          preferences=self._preferences, reference_frame=self._words_preset)
-        return with_chains_and_checks(session, self._chains, self._checks)
+                          preferences=self._preferences, reference_frame=self._words_preset,
+                          chains=self._chains, checks=self._checks)
+        return session
 
     # ---- whole-session changes (not undoable: they start a new history) ------------------------
     def load_session(self, session: Session, file_path: str | None = None, keep_preferences: bool = True) -> None:
@@ -171,8 +171,8 @@ class SessionModel(QObject):
         self._session = session
         self._mounts = session.mounts
         self._selected = session.selected
-        self._chains = read_chains(session)
-        self._checks = read_checks(session)
+        self._chains = session.chains
+        self._checks = session.checks
         self._words_preset = session.reference_frame
         if not keep_preferences:
             self._preferences = session.preferences
