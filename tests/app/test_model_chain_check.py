@@ -14,13 +14,6 @@ from core.orientation import Orientation
 from core.session import SavedCheck, SessionFileError, load_session, save_session
 
 
-@pytest.fixture
-def changes(model):
-    seen = []
-    model.changed.connect(seen.append)
-    return seen
-
-
 def sample_chain():
     return Chain((ChainStep("bracket", Orientation.from_axis_angle((0, 0, 1), 90)),
                   ChainStep("plate", Orientation.from_axis_angle((1, 0, 0), 90), inverted=True),

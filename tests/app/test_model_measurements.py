@@ -12,13 +12,6 @@ from core.measurement import MAX_MEASUREMENTS_PER_MOUNT, Measurement
 from core.orientation import Orientation
 
 
-@pytest.fixture
-def changes(model):
-    seen = []
-    model.changed.connect(seen.append)
-    return seen
-
-
 def _orientation(rotation):
     x, y, z, w = rotation.as_quat()                  # SciPy: scalar last
     return Orientation.from_quaternion((w, x, y, z))

@@ -5,7 +5,6 @@ Check values: the model's documented rules (app/model.py, app/commands.py), work
 
 from dataclasses import replace
 
-import pytest
 
 from app.changes import CURRENT_MOUNT, kinds_between
 from app.model import CHAIN, CHECK, MEASUREMENTS, MOUNTS, ORIENTATION, POSITION, PREFERENCES, SELECTION, WORDS
@@ -13,13 +12,6 @@ from core import operations
 from core.orientation import Orientation
 from core.position import Position
 from core.session import Mount, SavedCheck, Session
-
-
-@pytest.fixture
-def changes(model):
-    seen = []
-    model.changed.connect(seen.append)
-    return seen
 
 
 def test_undo_restores_only_what_its_edit_changed(model):
