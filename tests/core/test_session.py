@@ -195,3 +195,17 @@ def test_an_orientation_with_a_second_representation_is_refused(tmp_path):
     path.write_text(json.dumps(data))
     with pytest.raises(SessionFileError, match="only"):
         load_session(path)
+
+
+def test_chains_and_checks_are_typed_fields_held_once():
+    # One place for each value: a second copy among the kept keys could disagree with the field.
+    with pytest.raises(FramewrightError, match="chains are fields of the session"):
+        Session((Mount("A"),), extra={"chains": [{"steps": []}]})
+    with pytest.raises(FramewrightError, match="chains must each be a Chain"):
+        Session((Mount("A"),), chains=({"steps": []},))
+    with pytest.raises(FramewrightError, match="checks must each be a SavedCheck"):
+        Session((Mount("A"),), checks=("A",))
+    with pytest.raises(FramewrightError, match="mounts must each be a Mount"):
+        Session(("A",))
+    session = Session((Mount("A"),), chains=[Chain()], checks=[])      # lists are kept as tuples
+    assert session.chains == (Chain(),) and session.checks == ()
