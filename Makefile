@@ -38,7 +38,7 @@ fuzz: system-packages $(TEST_STAMP)
 
 # Mutation run (mutmut, settings in setup.cfg; never part of `make test`). MODULE narrows it to some
 # files, e.g. `make mutate MODULE="core/check.py core/nearest.py"`; JOBS sets how many run at once.
-MODULE ?= core/ app/model.py app/commands.py app/copy_as.py
+MODULE ?= core/ app/model.py app/commands.py app/changes.py app/copy_as.py
 JOBS ?= 2
 MUTANT_PATTERNS = $(foreach m,$(MODULE),$(if $(filter %.py,$(m)),$(subst /,.,$(basename $(m))).*,$(subst /,.,$(patsubst %/,%,$(m))).*))
 MUTATE_STAMP := $(VENV)/.installed-mutate

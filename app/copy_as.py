@@ -62,8 +62,8 @@ def _options(model, editor) -> dict:
         "transposed": prefs.matrix_meaning == "reference_to_body",
         "sequence": prefs.sequence,
         "intrinsic": prefs.intrinsic,
-        "words_preset": model.words_preset,
-        "gravity_down": describe.gravity_direction(model.words_preset),
+        "reference_frame": model.reference_frame,
+        "gravity_down": describe.gravity_direction(model.reference_frame),
         "name": model.current_mount().name,
         "timestamp": datetime.now().astimezone().isoformat(timespec="seconds"),
     }

@@ -16,7 +16,7 @@ from app import dialog_folder, report_html, settings as app_settings
 from app.report_writer import now_text, pictures_for, write_report
 from core import inspection_record as records
 from core.errors import FramewrightError
-from core.session import load_session_and_bytes, name_problem, read_checks
+from core.session import load_session_and_bytes, name_problem
 
 KIND_KEY = "report/kind"
 FILTERS = {"pdf": "PDF document (*.pdf)", "html": "HTML file, self-contained (*.html)"}
@@ -151,7 +151,7 @@ def export_report(window) -> str | None:
         if answer != save or not window.save_file():
             return None
     nominal, measured = model.check_mount_indices()
-    saved_names = [c.name for c in read_checks(model.session())]
+    saved_names = [c.name for c in model.session().checks]
     complete = nominal is not None and measured is not None and model.check.name in saved_names
     check_name = model.check.name if complete else None
     try:

@@ -59,7 +59,7 @@ def _scrollable(panel: QWidget, min_width: int = 300, across: bool = True) -> QS
     return area
 
 
-def _scene_placeholder(words_preset: str) -> QWidget:
+def _scene_placeholder(reference_frame: str) -> QWidget:
     """The Scene's place until it is built, laid out as the Scene is (its toolbar, shown inactive, over
     the dark viewport), so it takes the same room and nothing moves when the Scene replaces it."""
     from app.scene.scene_toolbar import SceneToolbar   # Qt only: no pyqtgraph, no OpenGL
@@ -68,7 +68,7 @@ def _scene_placeholder(words_preset: str) -> QWidget:
     layout.setContentsMargins(0, 0, 0, 0)
     layout.setSpacing(0)
     toolbar = SceneToolbar(slot)
-    toolbar.select(toolbar.preset, words_preset)
+    toolbar.select(toolbar.preset, reference_frame)
     toolbar.setEnabled(False)
     viewport = QWidget()
     viewport.setMinimumSize(*VIEW_MINIMUM_SIZE)
@@ -125,7 +125,7 @@ class MainWindow(QMainWindow):
         self._scene_slot = None        # what stands in its place until then
         self._measured_fit = None      # the Measure panel's last fit, for the Scene to draw
         if scene_later:
-            self._scene_slot = _scene_placeholder(model.words_preset)
+            self._scene_slot = _scene_placeholder(model.reference_frame)
         else:
             self.build_scene()
         self.editors: list[EditorBase] = [self.axis_angle, self.quaternion, self.matrix, self.angles]
@@ -537,7 +537,7 @@ class MainWindow(QMainWindow):
         preferences stay as they are."""
         if not self._confirm_discard():
             return False
-        self.model.load_session(dataclasses.replace(Session.single(), reference_frame=self.model.words_preset))
+        self.model.load_session(dataclasses.replace(Session.single(), reference_frame=self.model.reference_frame))
         self.showing_demo = False
         self._update_title()
         self._remember_session()
@@ -565,7 +565,7 @@ class MainWindow(QMainWindow):
         or the demo); the demo on the first launch. Returns what was opened, in words."""
         last = settings.load_text(LAST_SESSION_KEY, "demo", self._settings)
         if last == "new":
-            self.model.load_session(dataclasses.replace(Session.single(), reference_frame=self.model.words_preset))
+            self.model.load_session(dataclasses.replace(Session.single(), reference_frame=self.model.reference_frame))
             self.showing_demo = False
             self._update_title()
             return "A new session (the last one was never saved)"

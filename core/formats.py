@@ -53,7 +53,7 @@ class FormatOptions:
     matrix reference -> body (rows are the body axes); name: variable name in code, mount name in the
     report; timestamp: date and time for the report (the caller passes it: text or datetime);
     caution: the report's safety caution (SAFETY_CAUTION unless the caller passes its own wording);
-    words_preset: the frame preset (core/describe.py) naming the reference directions in the report's
+    reference_frame: the frame preset (core/describe.py) naming the reference directions in the report's
     words (ENU unless given); gravity_down: the reference direction gravity points along for the report's
     level readings ((0, 0, -1), the reference Z up, unless given; (0, 0, 1) for NED).
 
@@ -70,7 +70,7 @@ class FormatOptions:
     timestamp: object = None
     notes: tuple = ()
     caution: str | None = None
-    words_preset: str | None = None
+    reference_frame: str | None = None
     gravity_down: tuple | None = None
 
     def checked(self) -> "FormatOptions":
@@ -377,7 +377,7 @@ def _report_words(orientation, o: FormatOptions) -> list[str]:
     """Where each body axis points and the nearest right-angle orientation (core/describe.py)."""
     from core import describe
 
-    preset = describe.frame_preset(o.words_preset)
+    preset = describe.frame_preset(o.reference_frame)
     return ([f"Where the body axes point (reference directions named as {preset.title}):"]
             + ["    " + line for line in describe.describe_orientation(orientation, preset)])
 

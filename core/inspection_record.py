@@ -25,7 +25,7 @@ from core.correction import adjustment_angles, correction, read_axes
 from core.decision import decide_check
 from core.errors import FramewrightError
 from core.orientation import Orientation
-from core.session import SavedCheck, Session, read_checks
+from core.session import SavedCheck, Session
 from core.shims import outward_normal, shims
 # The record's values and comparison live in core/record_values.py; callers reach them through this module.
 from core.record_values import (CAUTION, DECISION_RULE, DEGREES, DIMENSIONLESS, FREE_FIELDS,  # noqa: F401
@@ -302,7 +302,7 @@ def _conventions(session: Session, digits: int, shown: ReportUnits) -> tuple:
 
 
 def find_check(session: Session, name: str) -> tuple[int, SavedCheck]:
-    checks = read_checks(session)
+    checks = session.checks
     for i, saved in enumerate(checks):
         if saved.name == name:
             return i, saved
@@ -341,7 +341,7 @@ def session_record(session: Session, session_name: str, session_sha256: str,
     for i, mount in enumerate(session.mounts):
         picture = Picture(mount.orientation, Orientation.identity(), "reference", mount.part, session.reference_frame)
         sections.append(Section(f"Mount {i + 1}: {mount.name}", tuple(_clean(b.mount_items(i))), picture))
-    for i, saved in enumerate(read_checks(session)):
+    for i, saved in enumerate(session.checks):
         try:
             items, verdict, picture = b.check_items(i, saved)
         except RecordError as why:

@@ -8,6 +8,7 @@ import math
 from dataclasses import dataclass
 
 from core.errors import FramewrightError
+from core.name_rules import name_problem
 from core.orientation import Orientation
 
 MAX_MEASUREMENTS_PER_MOUNT = 1_000
@@ -34,8 +35,6 @@ class Measurement:
             raise FramewrightError(f"measurement weight {weight!r}: expected a finite number from 0 to "
                                    f"{MAX_WEIGHT:g}")
         object.__setattr__(self, "weight", weight)
-        from core.session import name_problem          # late: session.py imports this module
-
         problem = name_problem(self.source, empty_ok=True)
         if problem is None and len(self.source) > MAX_SOURCE_CHARS:
             problem = f"{len(self.source)} characters; expected at most {MAX_SOURCE_CHARS}"

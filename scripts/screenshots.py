@@ -69,6 +69,7 @@ def _check_shot(app, window, out_dir) -> bool:
     as the ghost."""
     from core.check import CheckSettings
     from core.orientation import Orientation
+    from core import operations
     from core.session import SavedCheck
 
     model = window.model
@@ -83,7 +84,7 @@ def _check_shot(app, window, out_dir) -> bool:
     model.set_orientation(turned)
     settings = CheckSettings(mode="pointing_and_roll", pointing_tolerance_deg=1.0, roll_tolerance_deg=1.0,
                              body_axis="+X")
-    model.set_check(SavedCheck(nominal=nominal.name, measured=measured_name, settings=settings))
+    model.apply(operations.set_check, SavedCheck(nominal=nominal.name, measured=measured_name, settings=settings))
     _show_tab(window, "Check")
     _settle(app)
     return _grab(window, out_dir / "check.png")
@@ -94,13 +95,14 @@ def _repeats_shot(app, window, out_dir) -> bool:
     times about 0.45° off its nominal (small turns about body X, Y and Z between the readings), set to
     their average, with their scatter taken as the uncertainty, so the decision needs the guard band."""
     from core.orientation import Orientation
+    from core import operations
     from core.session import SavedCheck
 
     model = window.model
     nominal = next(m for m in model.mounts if m.name.startswith("Radar antenna") and "measured" not in m.name)
     measured_name = "Radar antenna, as measured"
     model.select(next(i for i, m in enumerate(model.mounts) if m.name == measured_name))
-    model.set_check(SavedCheck(nominal=nominal.name, measured=measured_name))
+    model.apply(operations.set_check, SavedCheck(nominal=nominal.name, measured=measured_name))
     off = nominal.orientation @ Orientation.from_axis_angle((0, 1, 0), 0.45)
     box = window.adjust_panel.repeats
     window.resize(1280, 800)

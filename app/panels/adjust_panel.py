@@ -21,7 +21,7 @@ from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QLabel, QLineE
 from app.model import CHECK, MEASUREMENTS, MOUNTS, ORIENTATION, PREFERENCES, SELECTION, SESSION, Change, SessionModel
 from app.panels.render_when_seen import RendersWhenSeen
 from app.panels.repeats_box import RepeatedMeasurementsBox
-from core import describe
+from core import describe, operations
 from core.check import check
 from core.correction import adjustment_angles, correction, read_axes
 from core.decision import CANNOT_DECIDE, CONFORMS, DOES_NOT_CONFORM, decide_check
@@ -185,8 +185,8 @@ class AdjustPanel(RendersWhenSeen, QWidget):
             return False
         self.message.setText("")
         if setup != check_state.adjustment:
-            self.model.set_check(replace(check_state, adjustment=setup), origin=self,
-                                 text="Adjust: " + ", ".join(k.replace("_", " ") for k in fields))
+            self.model.apply(operations.set_check, replace(check_state, adjustment=setup), origin=self,
+                             text="Adjust: " + ", ".join(k.replace("_", " ") for k in fields))
         return True
 
     def _axes_typed(self) -> None:

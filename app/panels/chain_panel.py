@@ -19,7 +19,7 @@ from PySide6.QtWidgets import (QAbstractItemView, QCheckBox, QGridLayout, QGroup
 from app import plain_text
 from app.model import CHAIN, SELECTION, ORIENTATION, WORDS, Change, SessionModel
 from app.panels.chain_entry import PastedOrientation, axis_angle_summary, full_tooltip
-from core import describe
+from core import describe, operations
 from core.chain import ChainStep
 
 COLUMNS = ("#", "On", "Step", "Orientation", "Inverted")
@@ -162,8 +162,8 @@ class ChainPanel(QWidget):
             return
         chain = self.model.chain
         name = self.step_name.text().strip() or f"step {len(chain) + 1}"
-        self.model.set_chain(chain.with_step(ChainStep(name, orientation)), origin=self,
-                             text=f"Add chain step “{name}”")
+        self.model.apply(operations.set_chain, chain.with_step(ChainStep(name, orientation)), origin=self,
+                         text=f"Add chain step “{name}”")
         self.step_name.clear()
         self.select_row(len(self.model.chain) - 1)
 
@@ -173,8 +173,8 @@ class ChainPanel(QWidget):
             return
         chain = self.model.chain
         step = chain.steps[row]
-        self.model.set_chain(chain.with_step_replaced(row, replace(step, orientation=orientation)), origin=self,
-                             text=f"Set chain step “{step.name}”")
+        self.model.apply(operations.set_chain, chain.with_step_replaced(row, replace(step, orientation=orientation)),
+                         origin=self, text=f"Set chain step “{step.name}”")
         self.select_row(row)
 
     def move_step(self, by: int) -> None:
@@ -182,8 +182,8 @@ class ChainPanel(QWidget):
         chain = self.model.chain
         if row is None or not 0 <= row + by < len(chain):
             return
-        self.model.set_chain(chain.moved(row, row + by), origin=self,
-                             text=f"Move chain step “{chain.steps[row].name}” {'up' if by < 0 else 'down'}")
+        self.model.apply(operations.set_chain, chain.moved(row, row + by), origin=self,
+                         text=f"Move chain step “{chain.steps[row].name}” {'up' if by < 0 else 'down'}")
         self.select_row(row + by)
 
     def invert_step(self) -> None:
@@ -201,8 +201,8 @@ class ChainPanel(QWidget):
         if row is None:
             return
         chain = self.model.chain
-        self.model.set_chain(chain.without_step(row), origin=self,
-                             text=f"Delete chain step “{chain.steps[row].name}”")
+        self.model.apply(operations.set_chain, chain.without_step(row), origin=self,
+                         text=f"Delete chain step “{chain.steps[row].name}”")
         self.select_row(min(row, len(self.model.chain) - 1))
 
     def _set_flag(self, row: int, flag: str, value: bool) -> None:
@@ -212,7 +212,7 @@ class ChainPanel(QWidget):
             new, text = chain.with_inverted(row, value), f"{'Invert' if value else 'Un-invert'} chain step “{name}”"
         else:
             new, text = chain.with_enabled(row, value), f"Switch {'on' if value else 'off'} chain step “{name}”"
-        self.model.set_chain(new, origin=self, text=text)
+        self.model.apply(operations.set_chain, new, origin=self, text=text)
         self.select_row(row)
 
     def _rename_chain(self) -> None:
@@ -222,7 +222,8 @@ class ChainPanel(QWidget):
             self.name_field.setText(chain.name)  # a chain needs a name: keep the old one
             return
         if name != chain.name:
-            self.model.set_chain(chain.renamed(name), origin=self, text=f"Rename chain to “{name}”")
+            self.model.apply(operations.set_chain, chain.renamed(name),
+                             origin=self, text=f"Rename chain to “{name}”")
 
     def _on_item_changed(self, item: QTableWidgetItem) -> None:
         if self._rendering:
@@ -239,8 +240,8 @@ class ChainPanel(QWidget):
         elif column == NAME_COLUMN:
             name = item.text().strip()
             if name and name != step.name:
-                self.model.set_chain(chain.with_step_replaced(row, replace(step, name=name)), origin=self,
-                                     text=f"Rename chain step to “{name}”")
+                self.model.apply(operations.set_chain, chain.with_step_replaced(row, replace(step, name=name)),
+                                 origin=self, text=f"Rename chain step to “{name}”")
             else:
                 self.render()  # an empty name: show the kept one
 
@@ -293,7 +294,7 @@ class ChainPanel(QWidget):
 
     def _result_text(self) -> str:
         chain = self.model.chain
-        preset = self.model.words_preset
+        preset = self.model.reference_frame
         frames = chain.frames()
         if not chain.steps:
             return "No steps yet. Add the first step (the one fixed to the reference) from the editors or from " \

@@ -20,7 +20,7 @@ from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QHBoxLayout, Q
 from app import plain_text
 from app.editors.number_field import NumberField, parse_number
 from app.model import CHECK, MOUNTS, ORIENTATION, POSITION, SELECTION, Change, SessionModel
-from core import axes, describe
+from core import axes, describe, operations
 from core.check import POSITION_TOLERANCE_LIMIT_MM, CheckSettings, check, check_position
 from core.errors import FramewrightError
 
@@ -227,8 +227,8 @@ class CheckPanel(QWidget):
     # ---- edits -------------------------------------------------------------------------------------
     def _choose(self, which: str, name) -> None:
         check_state = self.model.check
-        self.model.set_check(replace(check_state, **{which: name}), origin=self,
-                             text=f"Check: {which} {('“' + name + '”') if name else 'none'}")
+        self.model.apply(operations.set_check, replace(check_state, **{which: name}), origin=self,
+                         text=f"Check: {which} {('“' + name + '”') if name else 'none'}")
         if which == "measured":
             self.show_measured()
 
@@ -246,8 +246,8 @@ class CheckPanel(QWidget):
             plain_text.say(self.message, f"{exc} (kept the last good setting)", problem=True)
             return str(exc)
         plain_text.say(self.message, "")
-        self.model.set_check(replace(check_state, settings=settings), origin=self,
-                             text=f"Check: {key.replace('_deg', '').replace('_', ' ')}")
+        self.model.apply(operations.set_check, replace(check_state, settings=settings), origin=self,
+                         text=f"Check: {key.replace('_deg', '').replace('_', ' ')}")
         return None
 
     def _mode_chosen(self, index: int) -> None:
@@ -258,8 +258,8 @@ class CheckPanel(QWidget):
             _, measured = self.model.check_mount_indices()
             axis = self.model.mounts[measured].part.boresight if measured is not None else "+Z"
             new = replace(settings, mode=mode, body_axis=axis)
-            self.model.set_check(replace(self.model.check, settings=new), origin=self,
-                                 text="Check: pointing error and roll")
+            self.model.apply(operations.set_check, replace(self.model.check, settings=new), origin=self,
+                             text="Check: pointing error and roll")
             plain_text.say(self.message, f"Pointing needs a body axis: took the boresight, {axes.display(axis)}.")
             self.render()
             return

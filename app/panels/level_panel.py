@@ -49,7 +49,7 @@ class LevelPanel(RendersWhenSeen, QWidget):
     def __init__(self, model: SessionModel, parent=None):
         super().__init__(parent)
         self.model = model
-        self._down = np.array(describe.gravity_direction(model.words_preset))
+        self._down = np.array(describe.gravity_direction(model.reference_frame))
 
         self.words = WordsBox(model)
 
@@ -203,7 +203,7 @@ class LevelPanel(RendersWhenSeen, QWidget):
     # ---- model -> view -----------------------------------------------------------------------------
     def _on_model_changed(self, change: Change) -> None:
         if change.touches(WORDS):   # the reference frame was named anew: gravity is its "down"
-            self.set_down(describe.gravity_direction(self.model.words_preset))
+            self.set_down(describe.gravity_direction(self.model.reference_frame))
         elif change.touches(ORIENTATION, SELECTION, MOUNTS):
             self.render_when_seen()
 

@@ -55,7 +55,7 @@ class WordsBox(RendersWhenSeen, QGroupBox):
         layout.addLayout(snap_row)
 
         self.preset_box.activated.connect(
-            lambda i: self.model.set_words_preset(self.preset_box.itemData(i), origin=self))
+            lambda i: self.model.set_reference_frame(self.preset_box.itemData(i), origin=self))
         self.snap_button.clicked.connect(lambda: self.model.snap_to_right_angle(origin=self))
         model.changed.connect(self._on_model_changed)
         self.render()
@@ -66,7 +66,7 @@ class WordsBox(RendersWhenSeen, QGroupBox):
 
     def render(self) -> None:
         orientation = self.model.current_orientation()
-        preset = self.model.words_preset
+        preset = self.model.reference_frame
         self.preset_box.setCurrentIndex(self.preset_box.findData(preset))
         self.axes_label.setText("\n".join(describe.describe_axes(orientation, preset)))
         near = describe.nearest_right_angle(orientation)

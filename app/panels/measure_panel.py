@@ -21,6 +21,7 @@ from app.panels.measure_fit import (DIRECTIONS, POINTS, THREE_POINTS, MeasuredFi
                                     fit_point_rows, fit_three_points, result_lines, row_outputs)
 from app.panels.measure_rows import RowsError, rows_from_csv
 from app.panels.measure_table import MeasureTable, TableInputError
+from core import operations
 from core.errors import FramewrightError
 from core.point_rows import DIRECTION_COLUMNS, POINT_COLUMNS, THREE_POINT_COLUMNS, THREE_POINT_ROWS
 
@@ -233,8 +234,8 @@ class MeasurePanel(QWidget):
         except FramewrightError as error:
             self._show_problem(f"{error} (the check is unchanged)")
             return
-        self.model.set_check(replace(check, adjustment=adjustment), origin=self,
-                             text="Measure: the check's uncertainty from the fit")
+        self.model.apply(operations.set_check, replace(check, adjustment=adjustment), origin=self,
+                         text="Measure: the check's uncertainty from the fit")
         self._show_info(f"The check's standard uncertainty is now {fit.uncertainty_deg:.4g}°, the fit's largest; "
                         f"it applies to the measured mount “{self.model.mounts[measured].name}” (Undo takes it back).")
 

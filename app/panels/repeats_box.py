@@ -16,6 +16,7 @@ from PySide6.QtWidgets import (QComboBox, QGridLayout, QGroupBox, QListWidget, Q
 from app.editors.number_field import format_number
 from app.model import SessionModel
 from app.plain_text import plain_label, say
+from core import operations
 from core.average import OUTLIER_SCATTERS
 from core.errors import FramewrightError
 from core.measurement import SOURCES
@@ -123,8 +124,8 @@ class RepeatedMeasurementsBox(QGroupBox):
             return
         what = "of the mean (the mount is at the average)" if at_mean else \
             "of one measurement (the mount is not at the average)"
-        self.model.set_check(replace(check, adjustment=adjustment), origin=self,
-                             text=f"Use the scatter of {result.count} measurements as the uncertainty")
+        self.model.apply(operations.set_check, replace(check, adjustment=adjustment), origin=self,
+                         text=f"Use the scatter of {result.count} measurements as the uncertainty")
         say(self.message, f"u = {self._fmt(u)}°, the standard uncertainty {what}.")
 
     # ---- model -> view -----------------------------------------------------------------------------

@@ -21,9 +21,9 @@ class SceneBinding:
         self._ghost = ()
         self._frames = []
         model.changed.connect(self.refresh)
-        if hasattr(model, "set_words_preset"):
+        if hasattr(model, "set_reference_frame"):
             # the scene's own "Direction names" choice is the model's: one name for the reference axes
-            scene.toolbar.preset_chosen.connect(lambda key: model.set_words_preset(key, origin=scene))
+            scene.toolbar.preset_chosen.connect(lambda key: model.set_reference_frame(key, origin=scene))
         self.refresh()
 
     def refresh(self, change=None):
@@ -47,7 +47,7 @@ class SceneBinding:
         if frames != self._frames:
             self._frames = list(frames)
             scene.set_extra_frames(self._frames)
-        preset = getattr(model, "words_preset", None)
+        preset = getattr(model, "reference_frame", None)
         if preset is not None and preset != scene.frame_preset():
             scene.set_frame_preset(preset)
         prefs = getattr(model, "preferences", None)

@@ -28,6 +28,14 @@ def model(demo_session):
 
 
 @pytest.fixture
+def changes(model):
+    """Every Change the model announces, in order."""
+    seen = []
+    model.changed.connect(seen.append)
+    return seen
+
+
+@pytest.fixture
 def window(qtbot, isolated_settings):
     win = window_module.make_window()
     win.show()

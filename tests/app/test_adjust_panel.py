@@ -12,6 +12,7 @@ from PySide6.QtCore import Qt
 from scipy.spatial.transform import Rotation
 
 from app.panels.adjust_panel import AdjustPanel
+from core import operations
 from core.session import SavedCheck
 from tests.app.test_check_panel import orientation_of
 from tests.app.window_driver import focus, scipy_rotation
@@ -28,7 +29,7 @@ def checked(model):
     nominal = scipy_rotation(model.mounts[nominal_index].orientation)
     measured = nominal * Rotation.from_rotvec([0, math.radians(TURN_DEG), 0])      # about body Y
     model.set_orientation(orientation_of(measured))
-    model.set_check(SavedCheck(model.mounts[nominal_index].name, "Radar antenna, as measured"))
+    model.apply(operations.set_check, SavedCheck(model.mounts[nominal_index].name, "Radar antenna, as measured"))
     return nominal, measured
 
 

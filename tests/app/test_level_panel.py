@@ -20,7 +20,7 @@ TILT_DEG = 10.0
 
 @pytest.fixture
 def tilted(model):
-    model.set_words_preset("enu")   # the hand-worked case has Z up (gravity −Z); the demo session is NED
+    model.set_reference_frame("enu")   # the hand-worked case has Z up (gravity −Z); the demo session is NED
     model.set_orientation(Orientation.from_axis_angle((1, 0, 0), TILT_DEG))
     return model
 
@@ -28,12 +28,12 @@ def tilted(model):
 def test_gravity_follows_the_sessions_reference_frame(qtbot, model):
     # CONVENTIONS.md: gravity along −Z of the reference by default, +Z in NED. The demo session's
     # reference frame is the mast frame, x north, y east, z down: NED.
-    assert model.words_preset == "ned"
+    assert model.reference_frame == "ned"
     widget = LevelPanel(model)
     qtbot.addWidget(widget)
     assert tuple(widget.down) == (0.0, 0.0, 1.0)
     assert tuple(widget.gravity_box.currentData()) == (0.0, 0.0, 1.0)   # the choice shown says so too
-    model.set_words_preset("enu")
+    model.set_reference_frame("enu")
     assert tuple(widget.down) == (0.0, 0.0, -1.0)
     assert tuple(widget.gravity_box.currentData()) == (0.0, 0.0, -1.0)
 
@@ -126,7 +126,7 @@ def test_a_level_panel_in_a_background_tab_catches_up_when_shown(qtbot, window):
     tabs = window.side_tabs
     tabs.setCurrentIndex([tabs.tabText(i) for i in range(tabs.count())].index("Decode"))
     panel = window.level_panel
-    window.model.set_words_preset("enu")
+    window.model.set_reference_frame("enu")
     window.model.set_orientation(Orientation.from_axis_angle((1, 0, 0), TILT_DEG))
     assert panel._stale
     tabs.setCurrentIndex([tabs.tabText(i) for i in range(tabs.count())].index("Level"))

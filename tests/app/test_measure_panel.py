@@ -274,6 +274,7 @@ def test_three_directions_match_scipy_align_vectors(qtbot, panel):
 
 
 def test_the_fit_uncertainty_becomes_the_checks_in_one_undo_step(qtbot, panel, model):
+    from core import operations
     from core.session import SavedCheck
     from core.uncertainty import point_fit_standard_uncertainty
     rng = np.random.default_rng(11)
@@ -284,7 +285,7 @@ def test_the_fit_uncertainty_becomes_the_checks_in_one_undo_step(qtbot, panel, m
     assert panel.use_uncertainty_button.isEnabled()
     click(qtbot, panel.use_uncertainty_button)                 # no check yet: refused, nothing changes
     assert model.check.adjustment.uncertainty_deg is None and "measured mount" in panel.message.text()
-    model.set_check(SavedCheck(nominal=model.mounts[0].name, measured=model.mounts[1].name))
+    model.apply(operations.set_check, SavedCheck(nominal=model.mounts[0].name, measured=model.mounts[1].name))
     steps = model.undo_stack.count()
     click(qtbot, panel.use_uncertainty_button)
     fit = panel.last_fit.fit

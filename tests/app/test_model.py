@@ -6,13 +6,6 @@ from app.model import MOUNTS, ORIENTATION, PREFERENCES, SELECTION, SessionModel
 from core.orientation import Orientation
 
 
-@pytest.fixture
-def changes(model):
-    seen = []
-    model.changed.connect(seen.append)
-    return seen
-
-
 def test_an_edit_is_one_undo_step_and_undo_redo_restore_exactly(model, changes):
     start = model.current_orientation()
     target = Orientation.from_angles("ZYX", (12.5, -3.25, 170.0))

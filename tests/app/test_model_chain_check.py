@@ -6,18 +6,12 @@ import json
 import pytest
 
 from app.model import CHAIN, CHECK, SessionModel
+from core import operations
 from core.chain import Chain, ChainStep
 from core.check import CheckSettings
 from core.errors import FramewrightError
 from core.orientation import Orientation
 from core.session import SavedCheck, SessionFileError, load_session, save_session
-
-
-@pytest.fixture
-def changes(model):
-    seen = []
-    model.changed.connect(seen.append)
-    return seen
 
 
 def sample_chain():
@@ -34,9 +28,9 @@ def sample_check(model):
 
 
 def test_chain_and_check_edits_are_undo_steps_with_their_own_change_kinds(model, changes):
-    model.set_chain(sample_chain(), origin="panel", text="Add steps")
+    model.apply(operations.set_chain, sample_chain(), origin="panel", text="Add steps")
     assert changes[-1].what == frozenset({CHAIN}) and changes[-1].origin == "panel"
-    model.set_check(sample_check(model), origin="check panel")
+    model.apply(operations.set_check, sample_check(model), origin="check panel")
     assert changes[-1].what == frozenset({CHECK})
     assert model.undo_stack.count() == 2 and model.undo_stack.undoText() == "Edit check"
     model.undo()
@@ -46,24 +40,24 @@ def test_chain_and_check_edits_are_undo_steps_with_their_own_change_kinds(model,
     model.redo()
     assert model.chain == sample_chain()
     with pytest.raises(TypeError):
-        model.set_chain("bracket")
+        model.apply(operations.set_chain, "bracket")
 
 
 def test_ghost_rule(model):
     assert model.ghost_orientation() is None and model.ghost_label() is None
-    model.set_check(SavedCheck(model.mounts[3].name, model.mounts[4].name))
+    model.apply(operations.set_check, SavedCheck(model.mounts[3].name, model.mounts[4].name))
     model.select(3)                                   # the nominal itself: no ghost
     assert model.ghost_orientation() is None
     model.select(4)                                   # the measured: the nominal is its ghost
     assert model.ghost_orientation() == model.mounts[3].orientation
     assert model.ghost_label() == f"nominal, {model.mounts[3].name}"
-    model.set_check(SavedCheck(model.mounts[4].name, model.mounts[4].name))  # the same mount twice: none
+    model.apply(operations.set_check, SavedCheck(model.mounts[4].name, model.mounts[4].name))  # the same mount twice: none
     assert model.ghost_orientation() is None
 
 
 def test_a_session_with_a_chain_and_check_saved_and_reopened_is_identical(tmp_path, model):
-    model.set_chain(sample_chain())
-    model.set_check(sample_check(model))
+    model.apply(operations.set_chain, sample_chain())
+    model.apply(operations.set_check, sample_check(model))
     path = tmp_path / "mast.fwsession.json"
     save_session(model.session(), path)
     reopened = SessionModel(load_session(path))
@@ -82,13 +76,13 @@ def test_a_session_with_a_chain_and_check_saved_and_reopened_is_identical(tmp_pa
 
 
 def test_loading_a_session_replaces_the_chain_and_check_and_clears_history(tmp_path, model, demo_session):
-    model.set_chain(sample_chain())
+    model.apply(operations.set_chain, sample_chain())
     model.load_session(demo_session)
     assert model.chain == Chain() and model.undo_stack.count() == 0
 
 
 def test_a_damaged_chain_in_a_file_is_refused_naming_it(tmp_path, model):
-    model.set_chain(sample_chain())
+    model.apply(operations.set_chain, sample_chain())
     path = tmp_path / "bad.fwsession.json"
     save_session(model.session(), path)
     data = json.loads(path.read_text(encoding="utf-8"))

@@ -7,15 +7,9 @@ import pytest
 from scipy.spatial.transform import Rotation
 
 from app.model import MEASUREMENTS, ORIENTATION, SELECTION
+from core import operations
 from core.measurement import MAX_MEASUREMENTS_PER_MOUNT, Measurement
 from core.orientation import Orientation
-
-
-@pytest.fixture
-def changes(model):
-    seen = []
-    model.changed.connect(seen.append)
-    return seen
 
 
 def _orientation(rotation):
@@ -57,7 +51,7 @@ def test_the_weighted_average_is_scipys_mean_and_using_it_is_one_step(model):
     rotations = Rotation.from_euler("XYZ", [[1, 2, 3], [1.5, 2.2, 2.6], [0.7, 1.9, 3.3]], degrees=True)
     weights = [1.0, 3.0, 0.5]
     kept = tuple(Measurement(_orientation(r), w, "fit") for r, w in zip(rotations, weights))
-    model._apply_mount_field(model.selected_index, "measurements", kept, None)
+    model._put(operations.set_measurements(model.session(), kept), None)
     expected = rotations.mean(weights=weights)                       # SciPy: Markley's weighted mean
     result = model.current_average()
     assert (Rotation.from_quat(np.roll(result.mean.as_quaternion(), -1)).inv() * expected).magnitude() < 1e-12
@@ -68,7 +62,7 @@ def test_the_weighted_average_is_scipys_mean_and_using_it_is_one_step(model):
 
 def test_a_mount_keeps_at_most_the_limit_and_says_so(model):
     one = Measurement(model.current_orientation())
-    model._apply_mount_field(model.selected_index, "measurements", (one,) * MAX_MEASUREMENTS_PER_MOUNT, None)
+    model._put(operations.set_measurements(model.session(), (one,) * MAX_MEASUREMENTS_PER_MOUNT), None)
     with pytest.raises(ValueError, match="already keeps 1,000 measurements"):
         model.add_measurement()
     assert len(model.current_mount().measurements) == MAX_MEASUREMENTS_PER_MOUNT
@@ -77,7 +71,7 @@ def test_a_mount_keeps_at_most_the_limit_and_says_so(model):
 def test_no_average_without_measurements_or_with_every_weight_zero(model):
     with pytest.raises(ValueError, match="no average"):
         model.use_average()
-    model._apply_mount_field(model.selected_index, "measurements", (Measurement(model.current_orientation(), 0.0),), None)
+    model._put(operations.set_measurements(model.session(), (Measurement(model.current_orientation(), 0.0),)), None)
     assert model.current_average() is None
     with pytest.raises(ValueError, match="no average"):
         model.use_average()

@@ -15,6 +15,7 @@ from PySide6.QtCore import Qt
 from PySide6.QtGui import QGuiApplication
 
 from app.panels import decode_panel
+from core import operations
 from core.decode import decode
 from core.position import Position
 from core.session import FORMAT_NAME
@@ -197,7 +198,7 @@ def test_the_check_reports_the_position_offset_after_the_orientation(qtbot, wind
     model.set_position(Position.from_shown((100.0, 0.0, 0.0), "mm"), index=0)
     model.set_position(Position.from_shown((100.3, 0.4, 0.0), "mm"), index=1)
     from core.session import SavedCheck
-    model.set_check(SavedCheck(nominal=nominal.name, measured=measured.name))
+    model.apply(operations.set_check, SavedCheck(nominal=nominal.name, measured=measured.name))
     panel = window.check_panel
     window.side_tabs.setCurrentIndex(2)
     assert "not judged" in panel.position_result.text()

@@ -17,6 +17,7 @@ from PySide6.QtCore import Qt
 from PySide6.QtWidgets import QFileDialog, QLabel
 from scipy.spatial.transform import Rotation
 
+from core import operations
 from core.session import SavedCheck
 from tests.app.window_driver import canonical_wxyz, focus, scipy_rotation, type_into
 
@@ -33,7 +34,7 @@ def bench(qtbot, window):
     model.select(RADAR)
     model.duplicate_mount()
     model.rename_mount(RADAR + 1, "Radar antenna, as measured")
-    model.set_check(SavedCheck(model.mounts[RADAR].name, "Radar antenna, as measured"))
+    model.apply(operations.set_check, SavedCheck(model.mounts[RADAR].name, "Radar antenna, as measured"))
     model.undo_stack.clear()                     # the set-up is not what the tests undo
     tabs = window.side_tabs
     tabs.setCurrentIndex([tabs.tabText(i) for i in range(tabs.count())].index("Adjust"))

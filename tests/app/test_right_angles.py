@@ -101,7 +101,7 @@ def test_the_report_has_the_words_and_level_readings_and_still_round_trips():
                  "    elevation above the horizontal: +X 0.000, +Y 10.000, +Z 80.000"):
         assert line in text.splitlines(), line
     assert formats.round_trip_error(o, text, "report") <= 1e-12
-    ned = formats.render(o, "report", {"gravity_down": (0, 0, 1), "words_preset": "ned"})
+    ned = formats.render(o, "report", {"gravity_down": (0, 0, 1), "reference_frame": "ned"})
     assert "    elevation above the horizontal: +X 0.000, +Y −10.000, +Z −80.000" in ned.splitlines()
     assert "    +Y → +Y (east), 10.0° off" in ned.splitlines()
 

@@ -66,6 +66,6 @@ def test_the_view_presets_look_the_way_they_say_in_ned(scene):
 
 def test_the_model_frame_turns_the_scene_in_the_window(qtbot, window):
     # the demo session's reference frame is NED (resources/README.md)
-    assert window.model.words_preset == "ned" and window.scene.view.up_z == -1
-    window.model.set_words_preset("enu")
+    assert window.model.reference_frame == "ned" and window.scene.view.up_z == -1
+    window.model.set_reference_frame("enu")
     assert window.scene.view.up_z == 1

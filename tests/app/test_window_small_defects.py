@@ -78,6 +78,6 @@ def test_file_new_starts_an_empty_session_after_asking_about_unsaved_changes(qtb
     monkeypatch.setattr(QMessageBox, "question", lambda *a, **k: QMessageBox.StandardButton.Discard)
     window.new_action.trigger()
     assert len(model.mounts) == 1 and model.file_path is None
-    assert model.words_preset == before.reference_frame  # the frame's names stay (the demo's NED)
+    assert model.reference_frame == before.reference_frame  # the frame's names stay (the demo's NED)
     assert model.undo_stack.count() == 0 and model.undo_stack.isClean()
     assert window.new_action.shortcut().toString() == "Ctrl+N"

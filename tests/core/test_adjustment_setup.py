@@ -1,11 +1,13 @@
 """The adjustment setup a check keeps (axes, footprint, pivot, pitch, uncertainty): checked values and a
 session file round trip; an older check without one still reads."""
 
+from dataclasses import replace
+
 import pytest
 
 from core.adjustment_setup import AdjustmentSetup
 from core.errors import FramewrightError
-from core.session import SavedCheck, Session, load_session, save_session, with_chains_and_checks, read_checks
+from core.session import SavedCheck, Session, load_session, save_session
 
 FEET = ((100, 50, -20), (-100, 50, -20), (-100, -50, -20))
 
@@ -13,10 +15,10 @@ FEET = ((100, 50, -20), (-100, 50, -20), (-100, -50, -20))
 def test_a_check_with_an_adjustment_setup_saves_and_reads_back(tmp_path):
     setup = AdjustmentSetup(axes="+Z; 0.2 1 0", axes_frame="reference", footprint=FEET, pivot=2, pitch_mm=0.5,
                             uncertainty_deg=0.02, coverage=2.0)
-    session = with_chains_and_checks(Session.single(), (), (SavedCheck("Mount 1", "Mount 1", adjustment=setup),))
+    session = replace(Session.single(), checks=(SavedCheck("Mount 1", "Mount 1", adjustment=setup),))
     path = tmp_path / "s.fwsession.json"
     save_session(session, path)
-    assert read_checks(load_session(path))[0].adjustment == setup
+    assert load_session(path).checks[0].adjustment == setup
 
 
 def test_a_check_without_one_writes_no_key_and_reads_the_default():

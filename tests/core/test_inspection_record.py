@@ -11,7 +11,7 @@ from scipy.spatial.transform import Rotation
 from core import inspection_record as records
 from core.formats import SAFETY_CAUTION
 from core.orientation import Orientation
-from core.session import load_session, with_chains_and_checks, read_checks
+from core.session import load_session
 
 ROOT = Path(__file__).resolve().parents[2]
 SESSION = load_session(ROOT / "resources" / "demo_check.fwsession.json")
@@ -40,7 +40,7 @@ def test_check_figures_agree_with_scipy():
     record = records.check_record(SESSION, CHECK, "demo_check.fwsession.json", "0" * 64)
     figures = _figures(record)
     mounts = {m.name: m for m in SESSION.mounts}
-    saved = read_checks(SESSION)[0]
+    saved = SESSION.checks[0]
     n = Rotation.from_quat(mounts[saved.nominal].orientation.as_quaternion(), scalar_first=True)
     m = Rotation.from_quat(mounts[saved.measured].orientation.as_quaternion(), scalar_first=True)
     # SciPy's Rotation: the deviation D = N^T M, its angle; the pointing error of +X (angle between N x, M x)
@@ -69,9 +69,9 @@ def test_the_hash_follows_every_figure_and_first_difference_names_it():
     record = records.check_record(SESSION, CHECK, "a", "0" * 64)
     again = records.check_record(SESSION, CHECK, "b", "0" * 64)
     assert record.canonical_json() == again.canonical_json() and record.sha256() == again.sha256()
-    saved = read_checks(SESSION)[0]
+    saved = SESSION.checks[0]
     looser = replace(saved, settings=replace(saved.settings, pointing_tolerance_deg=3.5))
-    other = records.check_record(with_chains_and_checks(SESSION, (), (looser,)), CHECK, "a", "0" * 64)
+    other = records.check_record(replace(SESSION, chains=(), checks=(looser,)), CHECK, "a", "0" * 64)
     assert other.sha256() != record.sha256()
     difference = records.first_difference(record.numbers()["figures"], other.numbers()["figures"])
     assert difference.startswith("check[0].criterion[0]")
@@ -81,10 +81,10 @@ def test_the_hash_follows_every_figure_and_first_difference_names_it():
 def test_unknown_and_incomplete_checks_are_refused_by_name():
     with pytest.raises(records.RecordError, match="no check named 'nope'.*Radar antenna after remount"):
         records.check_record(SESSION, "nope", "a", "0" * 64)
-    saved = replace(read_checks(SESSION)[0], measured=None)
+    saved = replace(SESSION.checks[0], measured=None)
     with pytest.raises(records.RecordError, match="no measured mount"):
-        records.check_record(with_chains_and_checks(SESSION, (), (saved,)), CHECK, "a", "0" * 64)
-    whole = records.session_record(with_chains_and_checks(SESSION, (), (saved,)), "a", "0" * 64)
+        records.check_record(replace(SESSION, chains=(), checks=(saved,)), CHECK, "a", "0" * 64)
+    whole = records.session_record(replace(SESSION, chains=(), checks=(saved,)), "a", "0" * 64)
     assert whole.sections[-1].title.endswith("not judged")
 
 

@@ -10,7 +10,7 @@ import pytest
 from scipy.spatial.transform import Rotation
 
 from core import inspection_record as records
-from core.session import load_session, read_checks
+from core.session import load_session
 
 ROOT = Path(__file__).resolve().parents[2]
 SESSION = load_session(ROOT / "resources" / "demo_check.fwsession.json")
@@ -28,8 +28,8 @@ def _check(shown=records.ReportUnits()):
 
 def test_the_deviation_in_arcseconds_agrees_with_scipy():
     record = _figures(_check(ARCSEC_MM_M))
-    index = [c.name for c in read_checks(SESSION)].index(CHECK)
-    saved = read_checks(SESSION)[index]
+    index = [c.name for c in SESSION.checks].index(CHECK)
+    saved = SESSION.checks[index]
     mounts = {m.name: m for m in SESSION.mounts}
     n = Rotation.from_quat(mounts[saved.nominal].orientation.as_quaternion(), scalar_first=True)
     m = Rotation.from_quat(mounts[saved.measured].orientation.as_quaternion(), scalar_first=True)
@@ -58,7 +58,7 @@ def test_level_slopes_in_mm_per_metre_agree_with_scipy():
     slopes = {f.key: f for f in record.figures() if ".level_slope[" in f.key}
     assert len(slopes) == 6 * 2                                              # nominal and measured mounts
     mounts = {m.name: m for m in SESSION.mounts}
-    saved = read_checks(SESSION)[[c.name for c in read_checks(SESSION)].index(CHECK)]
+    saved = SESSION.checks[[c.name for c in SESSION.checks].index(CHECK)]
     measured = Rotation.from_quat(mounts[saved.measured].orientation.as_quaternion(), scalar_first=True)
     up = np.array([0.0, 0.0, -1.0]) if SESSION.reference_frame == "ned" else np.array([0.0, 0.0, 1.0])
     for face, body_normal in (("+X", [1, 0, 0]), ("-Z", [0, 0, -1]), ("+Y", [0, 1, 0])):

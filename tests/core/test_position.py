@@ -193,8 +193,7 @@ def test_a_saved_check_keeps_its_position_tolerance_and_a_version_1_file_may_not
     data = file_with(version=2)
     data["checks"] = [{"name": "check", "nominal": "a", "measured": "a",
                        "settings": {"mode": "total", "position_tolerance_mm": 0.5}}]
-    from core.session import read_checks
-    assert read_checks(session_from_dict(data))[0].settings.position_tolerance_mm == 0.5
+    assert session_from_dict(data).checks[0].settings.position_tolerance_mm == 0.5
     data["checks"][0]["settings"]["position_tolerance_mm"] = -1
     with pytest.raises(SessionFileError, match=r"checks\[0\]\.settings\.position_tolerance_mm: expected a tolerance"):
         session_from_dict(data)

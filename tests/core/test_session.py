@@ -10,6 +10,7 @@ import numpy as np
 import pytest
 from scipy.spatial.transform import Rotation
 
+from core.chain import Chain
 from core.errors import FramewrightError
 from core.orientation import Orientation
 from core.session import (FORMAT_NAME, FORMAT_VERSION, Mount, PartProperties, Preferences, Session,
@@ -28,7 +29,7 @@ def _session():
                         sequence="XYZ", intrinsic=False, significant_digits=12, amber_margin_deg=15.0,
                         red_margin_deg=2.0)
     return Session(mounts, selected=1, preferences=prefs, description="test rig",
-                   extra={"chains": [{"steps": []}]})
+                   chains=(Chain(),))
 
 
 def test_save_then_load_gives_the_same_session_exactly(tmp_path):
@@ -51,9 +52,11 @@ def test_file_names_its_format_and_version_and_keeps_reserved_keys(tmp_path):
     save_session(_session(), path)
     data = json.loads(path.read_text(encoding="utf-8"))
     assert data["format"] == FORMAT_NAME and data["version"] == FORMAT_VERSION
-    assert data["chains"] == [{"steps": []}]  # someone else's settings survive a load/save round trip
+    # the chains (a typed field, written with every key) survive a load/save round trip
+    assert data["chains"] == [{"name": "chain", "steps": []}]
     save_session(load_session(path), path)
-    assert json.loads(path.read_text(encoding="utf-8"))["chains"] == [{"steps": []}]
+    assert json.loads(path.read_text(encoding="utf-8"))["chains"] == [{"name": "chain", "steps": []}]
+    assert "checks" not in data                    # none: no key, as before chains and checks were typed
 
 
 def test_save_is_atomic_old_file_survives_a_failed_rename(tmp_path, monkeypatch):
@@ -192,3 +195,17 @@ def test_an_orientation_with_a_second_representation_is_refused(tmp_path):
     path.write_text(json.dumps(data))
     with pytest.raises(SessionFileError, match="only"):
         load_session(path)
+
+
+def test_chains_and_checks_are_typed_fields_held_once():
+    # One place for each value: a second copy among the kept keys could disagree with the field.
+    with pytest.raises(FramewrightError, match="chains are fields of the session"):
+        Session((Mount("A"),), extra={"chains": [{"steps": []}]})
+    with pytest.raises(FramewrightError, match="chains must each be a Chain"):
+        Session((Mount("A"),), chains=({"steps": []},))
+    with pytest.raises(FramewrightError, match="checks must each be a SavedCheck"):
+        Session((Mount("A"),), checks=("A",))
+    with pytest.raises(FramewrightError, match="mounts must each be a Mount"):
+        Session(("A",))
+    session = Session((Mount("A"),), chains=[Chain()], checks=[])      # lists are kept as tuples
+    assert session.chains == (Chain(),) and session.checks == ()

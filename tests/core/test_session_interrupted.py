@@ -37,7 +37,7 @@ from core.session import Mount, Session
 def die_before_rename(src, dst):
     os.kill(os.getpid(), 9)          # killed after write and fsync, before the rename
 
-session_module.os.replace = die_before_rename
+os.replace = die_before_rename
 session_module.save_session(Session((Mount("new contents"),)), sys.argv[1])
 print("not reached")
 """

@@ -12,6 +12,7 @@ import time
 import pytest
 
 from core import atomic_file
+from core.chain import Chain
 from core.orientation import Orientation
 from core.session import Mount, Session, SessionFileError, load_session, save_session
 
@@ -147,9 +148,9 @@ def test_a_full_disk_leaves_the_old_file_intact_and_no_temporary(saved, monkeypa
 
 def test_text_that_cannot_be_written_is_refused_by_its_field_before_anything_is_written(saved):
     before = saved.read_bytes()
-    # Mount names are checked when a Mount is made, so a lone surrogate can only come in through data
-    # kept for other parts of the program (chains here); the save names it and writes nothing.
-    session = Session((Mount("A"),), extra={"chains": [{"name": "lone \ud800", "steps": []}]})
+    # Mount names are checked when a Mount is made, so a lone surrogate can only come in through a value
+    # that checks less (a chain's name need only be text); the save names it and writes nothing.
+    session = Session((Mount("A"),), chains=(Chain(name="lone \ud800"),))
     with pytest.raises(SessionFileError, match=r"chains\[0\]\.name.*lone surrogate U\+D800"):
         save_session(session, saved)
     with pytest.raises(SessionFileError, match=r"kept\.x.*not a finite number"):
