@@ -2,6 +2,9 @@
 
 from __future__ import annotations
 
+import bisect
+import functools
+
 import math
 import re
 from dataclasses import dataclass
@@ -269,10 +272,20 @@ def parse_numbers(text: str, max_numbers: int | None = None, first_line: int = 1
 
 def _inside_quotes(line: str, position: int, quote: str) -> bool:
     """Whether `position` is inside a string opened by `quote` earlier on the line. A quote right after a
-    digit (or after such a mark, as in 30'') is a minutes or seconds mark when no string is open."""
+    digit (or after such a mark, as in 30'') is a minutes or seconds mark when no string is open. The line
+    is walked once per quote character (cached), so a long line of numbers stays linear."""
+    positions, states = _quote_states(line, quote)
+    at = bisect.bisect_left(positions, position)       # quotes before `position`
+    return states[at - 1] if at else False
+
+
+@functools.lru_cache(maxsize=8)
+def _quote_states(line: str, quote: str) -> tuple[tuple[int, ...], tuple[bool, ...]]:
+    """(the index of every `quote` on the line, whether a string is open just after each)."""
+    positions, states = [], []
     inside, mark_end = False, -1
-    for i in range(position):
-        if line[i] != quote:
+    for i, ch in enumerate(line):
+        if ch != quote:
             continue
         if inside:
             inside = False
@@ -280,7 +293,9 @@ def _inside_quotes(line: str, position: int, quote: str) -> bool:
             mark_end = i
         else:
             inside = True
-    return inside
+        positions.append(i)
+        states.append(inside)
+    return tuple(positions), tuple(states)
 
 
 def _other_unit(line: str, m, end: int, value: float, line_no: int, notes) -> tuple:
