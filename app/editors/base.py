@@ -8,7 +8,7 @@ import math
 from PySide6.QtCore import Qt
 from PySide6.QtWidgets import QApplication, QGroupBox, QLabel, QWidget
 
-from app.editors.number_field import NumberField, format_number, quoted
+from app.widgets.number_field import NumberField, format_number, quoted
 from app.model import ORIENTATION, PREFERENCES, Change, SessionModel
 
 

@@ -11,7 +11,7 @@ from PySide6.QtCore import Qt
 from PySide6.QtWidgets import QApplication, QComboBox, QFrame, QGridLayout, QLabel, QVBoxLayout
 
 from app.editors.base import EditorBase, focus_left
-from app.editors.number_field import NumberField, format_number
+from app.widgets.number_field import NumberField, format_number
 from app.model import MOUNTS, POSITION, PREFERENCES, SELECTION, Change, SessionModel
 from core.errors import FramewrightError
 from core.position import DEFAULT_UNIT, LENGTH_UNITS, Position, position_problem

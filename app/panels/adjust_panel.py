@@ -19,7 +19,7 @@ from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QLabel, QLineE
                                QSizePolicy, QSpinBox, QVBoxLayout, QWidget)
 
 from app.model import CHECK, MEASUREMENTS, MOUNTS, ORIENTATION, PREFERENCES, SELECTION, SESSION, Change, SessionModel
-from app.panels.render_when_seen import RendersWhenSeen
+from app.panels.base import Panel
 from app.panels.repeats_box import RepeatedMeasurementsBox
 from core import describe
 from core.check import check
@@ -87,10 +87,11 @@ class DecisionBar(QWidget):
         painter.end()
 
 
-class AdjustPanel(RendersWhenSeen, QWidget):
+class AdjustPanel(Panel):
+    watches = frozenset({CHECK, MOUNTS, ORIENTATION, MEASUREMENTS, SELECTION, PREFERENCES})
+
     def __init__(self, model: SessionModel, parent=None):
-        super().__init__(parent)
-        self.model = model
+        super().__init__(model, parent)
 
         self.correction_label = _plain(QLabel(""))
         self.axes_field = QLineEdit()
@@ -132,8 +133,6 @@ class AdjustPanel(RendersWhenSeen, QWidget):
         self.coverage_field.setToolTip("Coverage factor k of the expanded uncertainty U = k·u (usually 2).")
         self.decision_label = _plain(QLabel(""))
         self.decision_bar = DecisionBar()
-        self.message = _plain(QLabel(""))
-        self.message.setStyleSheet("color:#c62828")
         self.repeats = RepeatedMeasurementsBox(model)
 
         what = QGroupBox("Correction (turns measured into nominal)")
@@ -172,7 +171,6 @@ class AdjustPanel(RendersWhenSeen, QWidget):
         self.uncertainty_field.returnPressed.connect(
             lambda: self._optional_number(self.uncertainty_field, "uncertainty_deg"))
         self.coverage_field.returnPressed.connect(self._coverage_typed)
-        model.changed.connect(self._on_model_changed)
         self.render()
 
     # ---- edits -------------------------------------------------------------------------------------
@@ -181,9 +179,9 @@ class AdjustPanel(RendersWhenSeen, QWidget):
         try:
             setup = replace(check_state.adjustment, **fields)
         except FramewrightError as error:
-            self.message.setText(f"{error} (kept the last good value)")
+            self.message.problem(f"{error} (kept the last good value)")
             return False
-        self.message.setText("")
+        self.message.clear()
         if setup != check_state.adjustment:
             self.model.set_check(replace(check_state, adjustment=setup), origin=self,
                                  text="Adjust: " + ", ".join(k.replace("_", " ") for k in fields))
@@ -195,7 +193,7 @@ class AdjustPanel(RendersWhenSeen, QWidget):
             try:
                 read_axes(text)
             except FramewrightError as error:
-                self.message.setText(f"{error} (kept the last good axes)")
+                self.message.problem(f"{error} (kept the last good axes)")
                 return
         self._set(axes=text)
 
@@ -206,7 +204,7 @@ class AdjustPanel(RendersWhenSeen, QWidget):
             if len(feet):
                 outward_normal(feet)
         except FramewrightError as error:
-            self.message.setText(f"{error} (kept the last good footprint)")
+            self.message.problem(f"{error} (kept the last good footprint)")
             return
         setup = self.model.check.adjustment
         self._set(footprint=tuple(map(tuple, feet)), pivot=min(setup.pivot, max(len(feet) - 1, 0)))
@@ -214,7 +212,7 @@ class AdjustPanel(RendersWhenSeen, QWidget):
     def _corners(self) -> None:
         _, measured = self.model.check_mount_indices()
         if measured is None:
-            self.message.setText("Choose a measured mount in the Check panel first.")
+            self.message.problem("Choose a measured mount in the Check panel first.")
             return
         part = self.model.mounts[measured].part
         sign = -1.0 if part.boresight.startswith("+") else 1.0
@@ -238,7 +236,7 @@ class AdjustPanel(RendersWhenSeen, QWidget):
         try:
             value = None if text in ("", "none") else parse_number(text)
         except ValueError as error:
-            self.message.setText(f"{error} (kept the last good value)")
+            self.message.problem(f"{error} (kept the last good value)")
             return
         self._set(**{key: value})
 
@@ -246,27 +244,20 @@ class AdjustPanel(RendersWhenSeen, QWidget):
         try:
             value = parse_number(self.coverage_field.text())
         except ValueError as error:
-            self.message.setText(f"{error} (kept the last good value)")
+            self.message.problem(f"{error} (kept the last good value)")
             return
         self._set(coverage=value)
 
     # ---- model -> view -----------------------------------------------------------------------------
-    _rendering = False
-
-    def _on_model_changed(self, change: Change) -> None:
+    def follow(self, change: Change) -> None:
         if change.touches(SESSION, SELECTION):
             self.repeats.forget_message()   # it spoke of the last mount (or of another session's)
-        if change.touches(CHECK, MOUNTS, ORIENTATION, MEASUREMENTS, SELECTION, PREFERENCES):
-            self.render_when_seen()
 
     def render(self) -> None:
-        self._rendering = True
-        try:
+        with self.rendering():
             self._render_inputs()
             self._render_results()
             self.repeats.render()
-        finally:
-            self._rendering = False
 
     def _render_inputs(self) -> None:
         setup = self.model.check.adjustment

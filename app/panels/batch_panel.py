@@ -14,11 +14,11 @@ import numpy as np
 
 from PySide6.QtCore import Qt, QTimer, Signal
 from PySide6.QtWidgets import (QAbstractItemView, QApplication, QCheckBox, QHBoxLayout,
-                               QHeaderView, QLabel, QProgressDialog, QPushButton, QTableView, QVBoxLayout,
-                               QWidget)
+                               QHeaderView, QLabel, QProgressDialog, QPushButton, QTableView, QVBoxLayout)
 
 from app import dialog_folder, plain_text
-from app.editors.number_field import NumberField, format_number
+from app.panels.base import Panel
+from app.widgets.number_field import NumberField, format_number
 from app.panels.batch_conventions_dialog import BatchConventionsDialog
 from app.panels.batch_table_model import BatchFilterProxy, BatchResultModel
 from core.atomic_file import write_atomically
@@ -28,16 +28,15 @@ from core.check import CheckSettings
 from core.errors import FramewrightError
 
 LARGE_FILE_ROWS = 5000
-ERROR_STYLE = "color:#c62828"
 _STAGES = {"reading": (0, 40), "computing": (40, 100), "writing": (0, 100)}
 
 
-class BatchPanel(QWidget):
+class BatchPanel(Panel):
+    """The batch changes no mount and follows no change of the session: it watches nothing."""
     results_changed = Signal(object)  # the BatchResult shown, or None
 
     def __init__(self, model=None, parent=None):
-        super().__init__(parent)
-        self.model = model  # the session model; the batch changes no mount, it only reads preferences later
+        super().__init__(model, parent)
         self.table = None          # core.batch.MountTable of the file shown
         self.result = None         # core.batch.BatchResult shown
         self.file_path: str | None = None
@@ -68,11 +67,7 @@ class BatchPanel(QWidget):
         self.file_label.setWordWrap(True)  # a long file name and its conventions wrap in a narrow side area
         self.summary = QLabel("")
         self.summary.setWordWrap(True)
-        self.message = QLabel("")
-        for label in (self.file_label, self.summary, self.message):   # names and cells are the file's text
-            label.setTextFormat(Qt.TextFormat.PlainText)
-        self.message.setWordWrap(True)
-        self.message.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
+        plain_text.plain(self.file_label, self.summary)   # names and cells are the file's text
 
         self.results = BatchResultModel(self)
         self.proxy = BatchFilterProxy(self)
@@ -243,8 +238,7 @@ class BatchPanel(QWidget):
                      f"row {worst + 1}).")
         if errors:
             text += f" First error: {result.problems[0].message}"
-        self.summary.setText(text)
-        self.summary.setStyleSheet(ERROR_STYLE if errors else "")
+        plain_text.say(self.summary, text, problem=bool(errors))
         self.view.resizeColumnsToContents()
         header = self.view.horizontalHeader()
         for column in range(header.count()):   # room for the sort arrow beside each title
@@ -252,12 +246,10 @@ class BatchPanel(QWidget):
         self.results_changed.emit(result)
 
     def _problem(self, text: str) -> None:
-        self.message.setStyleSheet(ERROR_STYLE)
-        self.message.setText(text)
+        self.say(text, problem=True)
 
     def _say(self, text: str) -> None:
-        self.message.setStyleSheet("")
-        self.message.setText(text)
+        self.say(text)
 
     def _start_progress(self, title: str):
         dialog = QProgressDialog(title, "Cancel", 0, 100, self)

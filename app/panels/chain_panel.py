@@ -14,10 +14,11 @@ from dataclasses import replace
 from PySide6.QtCore import Qt
 from PySide6.QtWidgets import (QAbstractItemView, QCheckBox, QGridLayout, QGroupBox, QHBoxLayout,
                                QHeaderView, QLabel, QLineEdit, QPushButton, QTableWidget, QTableWidgetItem,
-                               QVBoxLayout, QWidget)
+                               QVBoxLayout)
 
 from app import plain_text
 from app.model import CHAIN, SELECTION, ORIENTATION, WORDS, Change, SessionModel
+from app.panels.base import Panel
 from app.panels.chain_entry import PastedOrientation, axis_angle_summary, full_tooltip
 from core import describe
 from core.chain import ChainStep
@@ -32,12 +33,11 @@ def _position_words(position) -> str:
     return f"x {x}, y {y}, z {z} {position.unit}"
 
 
-class ChainPanel(QWidget):
-    def __init__(self, model: SessionModel, parent=None):
-        super().__init__(parent)
-        self.model = model
-        self._rendering = False
+class ChainPanel(Panel):
+    watches = frozenset({CHAIN, WORDS, SELECTION, ORIENTATION})
 
+    def __init__(self, model: SessionModel, parent=None):
+        super().__init__(model, parent)
         self.name_field = QLineEdit()
         self.name_field.setToolTip("The chain's name; a mount made from its product is named after it.")
         self.table = QTableWidget(0, len(COLUMNS))
@@ -144,7 +144,6 @@ class ChainPanel(QWidget):
         self.pasted.reading_changed.connect(self._update_buttons)
         self.frames_box.toggled.connect(lambda on: self.model.set_show_chain_frames(on, origin=self))
         self.make_mount_button.clicked.connect(lambda: self.model.make_chain_mount(origin=self))
-        model.changed.connect(self._on_model_changed)
         self.render()
 
     # ---- reading -----------------------------------------------------------------------------------
@@ -245,17 +244,16 @@ class ChainPanel(QWidget):
                 self.render()  # an empty name: show the kept one
 
     # ---- model -> view -------------------------------------------------------------------------------
-    def _on_model_changed(self, change: Change) -> None:
+    def render_change(self, change: Change) -> None:
         if change.touches(CHAIN, WORDS):
             self.render()
-        elif change.touches(SELECTION, ORIENTATION):
+        else:                          # the editors' orientation: what "from the editors" would take
             self._update_buttons()
 
     def render(self) -> None:
         chain = self.model.chain
         row = self.selected_row()
-        self._rendering = True
-        try:
+        with self.rendering():
             if self.name_field.text() != chain.name and not self.name_field.hasFocus():
                 self.name_field.setText(chain.name)
             self.table.setRowCount(len(chain))
@@ -286,8 +284,6 @@ class ChainPanel(QWidget):
             if row is not None and row < len(chain):
                 self.table.selectRow(row)
             self.frames_box.setChecked(self.model.show_chain_frames)
-        finally:
-            self._rendering = False
         self.product_label.setText(self._result_text())
         self._update_buttons()
 

@@ -15,11 +15,13 @@ import numpy as np
 from PySide6.QtCore import Qt
 from PySide6.QtGui import QFont
 from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QHBoxLayout, QLabel, QLineEdit,
-                               QPushButton, QVBoxLayout, QWidget)
+                               QPushButton, QVBoxLayout)
 
 from app import plain_text
-from app.editors.number_field import NumberField, parse_number
 from app.model import CHECK, MOUNTS, ORIENTATION, POSITION, SELECTION, Change, SessionModel
+from app.panels.base import Panel
+from app.widgets.message_line import MessageLine
+from app.widgets.number_field import NumberField, parse_number
 from core import describe
 from core.check import POSITION_TOLERANCE_LIMIT_MM, CheckSettings, axis_name, check, check_position
 from core.errors import FramewrightError
@@ -62,12 +64,11 @@ def _axis_text(name: str) -> str:
     return name.replace("-", describe.MINUS)
 
 
-class CheckPanel(QWidget):
-    def __init__(self, model: SessionModel, parent=None):
-        super().__init__(parent)
-        self.model = model
-        self._rendering = False
+class CheckPanel(Panel):
+    watches = frozenset({CHECK, MOUNTS, ORIENTATION, SELECTION, POSITION})
 
+    def __init__(self, model: SessionModel, parent=None):
+        super().__init__(model, parent)
         self.nominal_box = QComboBox()
         self.nominal_box.setToolTip("The mount that holds the orientation the part should have (from the "
                                     "drawing). It is drawn as the ghost while the measured mount is shown.")
@@ -114,8 +115,6 @@ class CheckPanel(QWidget):
         self.position_field.set_range(0.0, POSITION_TOLERANCE_LIMIT_MM,
                                       f"0 to {POSITION_TOLERANCE_LIMIT_MM:g} mm")
         self.position_field.fit_digits(4)
-        self.message = plain_text.plain_label()   # quotes typed text
-        self.message.setWordWrap(True)
 
         choose = QGroupBox("Compare")
         form = QFormLayout(choose)
@@ -142,10 +141,7 @@ class CheckPanel(QWidget):
         position_row.addStretch(1)
         t_form.addRow("Position", position_row)
         # What is wrong with a typed tolerance is said here, under the tolerances, not under the axis.
-        self.tolerance_note = QLabel("")
-        self.tolerance_note.setWordWrap(True)
-        self.tolerance_note.setTextFormat(Qt.TextFormat.PlainText)  # it quotes what was typed
-        self.tolerance_note.setStyleSheet(plain_text.ERROR_STYLE)
+        self.tolerance_note = MessageLine()
         t_form.addRow(self.tolerance_note)
 
         result = QGroupBox("Result")
@@ -205,7 +201,6 @@ class CheckPanel(QWidget):
                 f"{k}", min(TOLERANCE_MAX_DEG, max(0.0, round(v, 9)))))
         self.position_field.committed.connect(self._position_tolerance_typed)
         self.position_field.editingFinished.connect(self._position_tolerance_typed)
-        model.changed.connect(self._on_model_changed)
         self.render()
 
     def _position_tolerance_typed(self) -> None:
@@ -214,9 +209,9 @@ class CheckPanel(QWidget):
             value = None if not text else self.position_field.value()
         except ValueError as exc:
             self.position_field.set_problem(str(exc))
-            self.tolerance_note.setText(f"{exc} (kept the last good position tolerance)")
+            self.tolerance_note.problem(f"{exc} (kept the last good position tolerance)")
             return
-        self.tolerance_note.setText("")
+        self.tolerance_note.clear()
         self.position_field.set_problem(None)
         if value != self.model.check.settings.position_tolerance_mm:
             self.position_field.set_problem(self._set_settings("position_tolerance_mm", value))
@@ -248,9 +243,9 @@ class CheckPanel(QWidget):
         try:
             settings = replace(check_state.settings, **{key: value})
         except FramewrightError as exc:
-            plain_text.say(self.message, f"{exc} (kept the last good setting)", problem=True)
+            self.say(f"{exc} (kept the last good setting)", problem=True)
             return str(exc)
-        plain_text.say(self.message, "")
+        self.say("")
         self.model.set_check(replace(check_state, settings=settings), origin=self,
                              text=f"Check: {key.replace('_deg', '').replace('_', ' ')}")
         return None
@@ -265,7 +260,7 @@ class CheckPanel(QWidget):
             new = replace(settings, mode=mode, body_axis=axis)
             self.model.set_check(replace(self.model.check, settings=new), origin=self,
                                  text="Check: pointing error and roll")
-            plain_text.say(self.message, f"Pointing needs a body axis: took the boresight, {_axis_text(axis)}.")
+            self.say(f"Pointing needs a body axis: took the boresight, {_axis_text(axis)}.")
             self.render()
             return
         self._set_settings("mode", mode)
@@ -278,8 +273,8 @@ class CheckPanel(QWidget):
             self.render_axis_field_only()
             return
         if choice == NO_AXIS and self.model.check.settings.mode == "pointing_and_roll":
-            plain_text.say(self.message, "Pointing error and roll need a body axis; choose one, or check by "
-                           "total deviation (kept the last axis).", problem=True)
+            self.say("Pointing error and roll need a body axis; choose one, or check by "
+                     "total deviation (kept the last axis).", problem=True)
             self.render()
             return
         self._set_settings("body_axis", None if choice == NO_AXIS else choice)
@@ -296,7 +291,7 @@ class CheckPanel(QWidget):
                 raise ValueError(f"type three numbers x, y, z for the body axis; got “{text.strip()}”")
             values = tuple(parse_number(p) for p in parts)
         except ValueError as exc:
-            plain_text.say(self.message, f"{exc} (kept the last good axis)", problem=True)
+            self.say(f"{exc} (kept the last good axis)", problem=True)
             return
         self._set_settings("body_axis", values)
 
@@ -305,23 +300,27 @@ class CheckPanel(QWidget):
             value = field.value()
         except ValueError as exc:
             field.set_problem(str(exc))
-            self.tolerance_note.setText(f"{exc} (kept the last good tolerance)")
+            self.tolerance_note.problem(f"{exc} (kept the last good tolerance)")
             return
-        self.tolerance_note.setText("")
+        self.tolerance_note.clear()
         if value == getattr(self.model.check.settings, key):
             field.set_problem(None)
             return
         field.set_problem(self._set_settings(key, value))
 
     # ---- model -> view -----------------------------------------------------------------------------
-    def _on_model_changed(self, change: Change) -> None:
+    def render_change(self, change: Change) -> None:
         if change.touches(CHECK, MOUNTS):
             self.render()
-        elif change.touches(ORIENTATION, SELECTION, POSITION):
+        else:                          # the orientations or positions compared: the result only
             self._render_result()
 
     def render(self) -> None:
-        self._rendering = True
+        with self.rendering():
+            self._render_choices()
+        self._render_result()
+
+    def _render_choices(self) -> None:
         state = self.model.check
         settings = state.settings
         for box, name in ((self.nominal_box, state.nominal), (self.measured_box, state.measured)):
@@ -355,8 +354,6 @@ class CheckPanel(QWidget):
         if not self.position_field.hasFocus() or self.position_field.problem is None:
             tolerance = settings.position_tolerance_mm
             self.position_field.set_text("" if tolerance is None else f"{tolerance:g}")
-        self._rendering = False
-        self._render_result()
 
     def _render_result(self) -> None:
         nominal, measured = self.model.check_mount_indices()

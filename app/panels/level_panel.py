@@ -10,13 +10,12 @@ from __future__ import annotations
 import numpy as np
 from PySide6.QtCore import Qt
 from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QHBoxLayout, QHeaderView, QLabel, QLineEdit,
-                               QTableWidget, QTableWidgetItem, QVBoxLayout, QWidget)
+                               QTableWidget, QTableWidgetItem, QVBoxLayout)
 
-from app import plain_text
-from app.editors.number_field import parse_number
 from app.model import MOUNTS, ORIENTATION, SELECTION, WORDS, Change, SessionModel
+from app.panels.base import Panel
 from app.panels.level_words import WordsBox
-from app.panels.render_when_seen import RendersWhenSeen
+from app.widgets.number_field import parse_number
 from core import describe
 from core.errors import FramewrightError
 from core.level import DEFAULT_IN_FACE, DOWN_NED, DOWN_Z_UP, FACES, inclinometer_reading, level_readings
@@ -53,10 +52,11 @@ def _face(name: str) -> str:
     return name.replace("-", describe.MINUS)
 
 
-class LevelPanel(RendersWhenSeen, QWidget):
+class LevelPanel(Panel):
+    watches = frozenset({ORIENTATION, SELECTION, MOUNTS, WORDS})
+
     def __init__(self, model: SessionModel, parent=None):
-        super().__init__(parent)
-        self.model = model
+        super().__init__(model, parent)
         self._down = np.array(describe.gravity_direction(model.words_preset))
 
         self.words = WordsBox(model)
@@ -74,8 +74,6 @@ class LevelPanel(RendersWhenSeen, QWidget):
         self.gravity_field.setToolTip("Gravity as a reference-frame direction x, y, z (any length; '.' is the "
                                       "decimal point); Enter to use it.")
         self.gravity_field.setEnabled(False)
-        self.message = plain_text.plain_label()
-        self.message.setWordWrap(True)
 
         self.faces = QTableWidget(len(FACES), len(FACE_COLUMNS))
         self.faces.setHorizontalHeaderLabels(FACE_COLUMNS)
@@ -138,7 +136,6 @@ class LevelPanel(RendersWhenSeen, QWidget):
         self.gravity_field.returnPressed.connect(self._gravity_typed)
         self.face_box.activated.connect(self._face_picked)
         self.direction_box.activated.connect(lambda *_: self.render())
-        model.changed.connect(self._on_model_changed)
         self.face_box.setCurrentIndex(self.face_box.findData("+Z"))
         self._fill_directions()
         self._size_table()
@@ -151,6 +148,10 @@ class LevelPanel(RendersWhenSeen, QWidget):
         return self._down.copy()
 
     def set_down(self, down) -> None:
+        self._take_down(down)
+        self.render_when_seen()
+
+    def _take_down(self, down) -> None:
         vector = np.asarray(down, dtype=float)
         if vector.shape != (3,) or not np.all(np.isfinite(vector)) or np.linalg.norm(vector) == 0:
             raise ValueError("gravity needs three finite numbers, not all zero")
@@ -164,7 +165,6 @@ class LevelPanel(RendersWhenSeen, QWidget):
             self.gravity_box.setCurrentIndex(self.gravity_box.findData(TYPED))
             self.gravity_field.setText(", ".join(f"{c:g}" for c in self._down))
         self.gravity_field.setEnabled(self.gravity_box.currentData() == TYPED)
-        self.render()
 
     def _gravity_chosen(self, index: int) -> None:
         data = self.gravity_box.itemData(index)
@@ -172,7 +172,7 @@ class LevelPanel(RendersWhenSeen, QWidget):
         if data == TYPED:
             self.gravity_field.setFocus()
             return
-        plain_text.say(self.message, "")
+        self.say("")
         self.set_down(data)
 
     def _gravity_typed(self) -> None:
@@ -183,9 +183,9 @@ class LevelPanel(RendersWhenSeen, QWidget):
                 raise ValueError(f"type three numbers x, y, z for gravity; got “{text.strip()}”")
             self.set_down([parse_number(p) for p in parts])
         except ValueError as exc:
-            plain_text.say(self.message, f"{exc} (kept the last good direction)", problem=True)
+            self.say(f"{exc} (kept the last good direction)", problem=True)
             return
-        plain_text.say(self.message, "")
+        self.say("")
 
     def _face_picked(self, *_) -> None:
         self._face_chosen = True
@@ -209,18 +209,16 @@ class LevelPanel(RendersWhenSeen, QWidget):
         self.faces.setFixedHeight(height + 2 * self.faces.frameWidth() + 2)
 
     # ---- model -> view -----------------------------------------------------------------------------
-    def _on_model_changed(self, change: Change) -> None:
+    def follow(self, change: Change) -> None:
         if change.touches(WORDS):   # the reference frame was named anew: gravity is its "down"
-            self.set_down(describe.gravity_direction(self.model.words_preset))
-        elif change.touches(ORIENTATION, SELECTION, MOUNTS):
-            self.render_when_seen()
+            self._take_down(describe.gravity_direction(self.model.words_preset))
 
     def render(self) -> None:
         mount = self.model.current_mount()
         try:
             report = level_readings(mount.orientation, self._down)
         except FramewrightError as exc:  # cannot happen with a checked direction; never a blank panel
-            plain_text.say(self.message, f"{exc}", problem=True)
+            self.say(f"{exc}", problem=True)
             return
         names = mount.part.face_names
         for row, reading in enumerate(report.faces):

@@ -13,10 +13,11 @@ import numpy as np
 from PySide6.QtCore import Signal
 from PySide6.QtGui import QFontDatabase, QGuiApplication
 from PySide6.QtWidgets import (QComboBox, QHBoxLayout, QLabel, QLineEdit, QPlainTextEdit,
-                               QPushButton, QStackedWidget, QVBoxLayout, QWidget)
+                               QPushButton, QStackedWidget, QVBoxLayout)
 
-from app import dialog_folder, plain_text
+from app import dialog_folder
 from app.model import MOUNTS, PREFERENCES, SELECTION, SESSION, Change, SessionModel
+from app.panels.base import Panel
 from app.panels.measure_fit import (DIRECTIONS, POINTS, THREE_POINTS, MeasuredFit, fit_direction_rows,
                                     fit_point_rows, fit_three_points, result_lines, row_outputs)
 from app.panels.measure_rows import RowsError, rows_from_csv
@@ -37,12 +38,12 @@ METHODS = [
 ]
 
 
-class MeasurePanel(QWidget):
+class MeasurePanel(Panel):
     fit_changed = Signal(object)  # a MeasuredFit, or None when there is no valid fit
+    watches = frozenset({MOUNTS, PREFERENCES})
 
     def __init__(self, model: SessionModel, parent=None):
-        super().__init__(parent)
-        self.model = model
+        super().__init__(model, parent)
         self.last_fit: MeasuredFit | None = None
         self._fit_mount = None   # the name of the mount selected when the fit was made: the Scene shows it on that one only
 
@@ -82,8 +83,6 @@ class MeasurePanel(QWidget):
         self.fit_button.setToolTip("Find the orientation from the rows of this table.")
         self.fit_button.setDefault(True)
 
-        self.message = plain_text.plain_label()
-        self.message.setWordWrap(True)
         self.result_text = QPlainTextEdit()
         self.result_text.setReadOnly(True)
         self.result_text.setFont(QFontDatabase.systemFont(QFontDatabase.SystemFont.FixedFont))
@@ -141,9 +140,8 @@ class MeasurePanel(QWidget):
         self.fit_button.clicked.connect(self.fit)
         self.make_mount_button.clicked.connect(self.make_mount)
         self.use_uncertainty_button.clicked.connect(self.use_uncertainty)
-        self.model.changed.connect(self._model_changed)
         self._method_changed()
-        self._suggest_name()
+        self.render()
 
     # ---- reading the panel ------------------------------------------------------------------------
     def current_method(self) -> str:
@@ -269,10 +267,10 @@ class MeasurePanel(QWidget):
             self.fit_changed.emit(None)
 
     def _show_problem(self, text: str) -> None:
-        plain_text.say(self.message, text, problem=True)
+        self.say(text, problem=True)
 
     def _show_info(self, text: str) -> None:
-        plain_text.say(self.message, text)
+        self.say(text)
 
     def _inputs_edited(self, *_):
         if self.last_fit is not None:
@@ -291,18 +289,18 @@ class MeasurePanel(QWidget):
         for table in self.tables.values():
             table.clear_outputs()
         self._forget_fit()
-        plain_text.say(self.message, "")
+        self.say("")
 
     def _suggest_name(self) -> None:
         self.mount_name.setPlaceholderText(self.model.unused_name("Measured"))
 
-    def _model_changed(self, change: Change) -> None:
+    def render(self) -> None:
+        self._suggest_name()
+        self._render_result()
+
+    def follow(self, change: Change) -> None:
         if change.touches(SESSION):
             self._forget_fit()      # the points were measured on a mount of the last session, not this one
-        if change.touches(MOUNTS):
-            self._suggest_name()
-        if change.touches(PREFERENCES):
-            self._render_result()
         if change.touches(SELECTION) and self.last_fit is not None:
             # the measured points belong to the mount they were fitted on: hidden on any other, back on it
             on_its_mount = self.model.current_mount().name == self._fit_mount

@@ -6,7 +6,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-from app.editors.number_field import format_number
+from app.widgets.number_field import format_number
 from core.sequences import preset_names, spelled_sequence
 
 # More readings than this and the list is grouped by kind: at a laptop size the list shows about four

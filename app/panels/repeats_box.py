@@ -13,9 +13,10 @@ from dataclasses import replace
 from PySide6.QtWidgets import (QComboBox, QGridLayout, QGroupBox, QListWidget, QPushButton, QSizePolicy,
                                QVBoxLayout)
 
-from app.editors.number_field import format_number
+from app.plain_text import plain_label
+from app.widgets.message_line import MessageLine
+from app.widgets.number_field import format_number
 from app.model import SessionModel
-from app.plain_text import plain_label, say
 from core.average import OUTLIER_SCATTERS
 from core.errors import FramewrightError
 from core.measurement import SOURCES
@@ -52,8 +53,7 @@ class RepeatedMeasurementsBox(QGroupBox):
             "Fill the standard uncertainty u below from the scatter: the uncertainty of the mean while the "
             "mount is at the average, of one measurement otherwise. The check's measured mount must be the "
             "selected one.")
-        self.message = plain_label()
-        self.message.setWordWrap(True)
+        self.message = MessageLine()
 
         buttons = QGridLayout()
         buttons.addWidget(plain_label("From"), 0, 0)
@@ -79,16 +79,16 @@ class RepeatedMeasurementsBox(QGroupBox):
         self.render()
 
     def forget_message(self) -> None:
-        say(self.message, "")
+        self.message.say("")
 
     # ---- edits -------------------------------------------------------------------------------------
     def _run(self, edit) -> None:
         try:
             edit()
         except (ValueError, IndexError) as error:      # FramewrightError is a ValueError
-            say(self.message, f"{error}", problem=True)
+            self.message.say(f"{error}", problem=True)
             return
-        say(self.message, "")
+        self.message.say("")
 
     def _add(self) -> None:
         self._run(lambda: self.model.add_measurement(self.source_box.currentText(), origin=self))
@@ -101,15 +101,15 @@ class RepeatedMeasurementsBox(QGroupBox):
     def _use_scatter(self) -> None:
         result = self.model.current_average()
         if result is None or result.standard_uncertainty_deg is None:
-            say(self.message, "Keep two or more measurements to have a scatter.", problem=True)
+            self.message.say("Keep two or more measurements to have a scatter.", problem=True)
             return
         _, measured = self.model.check_mount_indices()
         mount = self.model.current_mount()
         if measured is None:
-            say(self.message, "Choose a measured mount in the Check panel first.", problem=True)
+            self.message.say("Choose a measured mount in the Check panel first.", problem=True)
             return
         if measured != self.model.selected_index:
-            say(self.message, f"The check's measured mount is “{self.model.mounts[measured].name}”, not "
+            self.message.say(f"The check's measured mount is “{self.model.mounts[measured].name}”, not "
                               f"“{mount.name}”: select it to use its scatter.", problem=True)
             return
         at_mean = mount.orientation.angle_to(result.mean) <= AT_THE_MEAN_DEG
@@ -119,13 +119,13 @@ class RepeatedMeasurementsBox(QGroupBox):
         try:
             adjustment = replace(check.adjustment, uncertainty_deg=u)
         except FramewrightError as error:
-            say(self.message, f"{error} (kept the last good value)", problem=True)
+            self.message.say(f"{error} (kept the last good value)", problem=True)
             return
         what = "of the mean (the mount is at the average)" if at_mean else \
             "of one measurement (the mount is not at the average)"
         self.model.set_check(replace(check, adjustment=adjustment), origin=self,
                              text=f"Use the scatter of {result.count} measurements as the uncertainty")
-        say(self.message, f"u = {self._fmt(u)}°, the standard uncertainty {what}.")
+        self.message.say(f"u = {self._fmt(u)}°, the standard uncertainty {what}.")
 
     # ---- model -> view -----------------------------------------------------------------------------
     def _fmt(self, value: float) -> str:

@@ -9,7 +9,7 @@ from PySide6.QtCore import QPoint, Qt
 from PySide6.QtGui import QGuiApplication
 from scipy.spatial.transform import Rotation
 
-from app.editors.number_field import format_number
+from app.widgets.number_field import format_number
 from tests.app.window_driver import assert_editors_agree, focus
 
 # Four decimals as on a drawing; rows of a reference -> body matrix. The numbers are cos/sin of 12°
