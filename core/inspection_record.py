@@ -30,7 +30,8 @@ from core.check import check, check_position
 from core.correction import adjustment_angles, correction, read_axes
 from core.decision import decide_check
 from core.errors import FramewrightError
-from core.formats import SAFETY_CAUTION, format_number
+from core.formats import SAFETY_CAUTION
+from core.number_text import format_number
 from core.orientation import Orientation
 from core.session import SavedCheck, Session, read_checks
 from core.shims import outward_normal, shims
@@ -55,7 +56,7 @@ class RecordError(FramewrightError):
 # ---------------------------------------------------------------------------------------------------
 def printed_numbers(values: Iterable[float], digits: int) -> tuple[str, ...]:
     """The values of one group printed with `digits` significant digits counted from the group's largest,
-    trailing zeros dropped, never '-0' (core/formats.format_number does the rounding)."""
+    trailing zeros dropped, never '-0' (core/number_text.format_number does the rounding)."""
     numbers = [float(v) for v in values]
     if not all(math.isfinite(v) for v in numbers):
         raise RecordError("a figure is not a finite number; the record is not made")

@@ -8,7 +8,8 @@ import math
 from PySide6.QtCore import Qt
 from PySide6.QtWidgets import QApplication, QGroupBox, QLabel, QWidget
 
-from app.widgets.number_field import NumberField, format_number, quoted
+from app.text import significant
+from app.widgets.number_field import NumberField, quoted
 from app.model import ORIENTATION, PREFERENCES, Change, SessionModel
 
 
@@ -109,7 +110,7 @@ class EditorBase(QGroupBox):
         return "°" if self.degrees else "rad"
 
     def fmt(self, value: float) -> str:
-        return format_number(float(value), self.digits)
+        return significant(float(value), self.digits)
 
     def _on_model_changed(self, change: Change) -> None:
         if change.made_by(self) and change.what == frozenset({ORIENTATION}):

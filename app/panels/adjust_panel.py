@@ -21,26 +21,13 @@ from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QLabel, QLineE
 from app.model import CHECK, MEASUREMENTS, MOUNTS, ORIENTATION, PREFERENCES, SELECTION, SESSION, Change, SessionModel
 from app.panels.base import Panel
 from app.panels.repeats_box import RepeatedMeasurementsBox
-from core import describe
+from app.text import degrees, vector
 from core.check import check
 from core.correction import adjustment_angles, correction, read_axes
 from core.decision import CANNOT_DECIDE, CONFORMS, DOES_NOT_CONFORM, decide_check
 from core.errors import FramewrightError
 from core.number_text import parse_number
 from core.shims import outward_normal, read_footprint, shims
-
-
-def _deg(value: float, digits: int = 4) -> str:
-    return _number(value, digits) + "°"
-
-
-def _number(value: float, digits: int) -> str:
-    text = f"{float(value):.{digits}f}"
-    return ("0." + "0" * digits if float(text) == 0 else text).replace("-", describe.MINUS)
-
-
-def _triple(values, digits: int = 4) -> str:
-    return "(" + ", ".join(_number(v, digits) for v in values) + ")"
 
 
 def _plain(label: QLabel) -> QLabel:
@@ -291,9 +278,9 @@ class AdjustPanel(Panel):
             self.correction_label.setText("No correction needed: the measured orientation is the nominal.")
         else:
             self.correction_label.setText(
-                f"{_deg(fix.angle_deg)} about {_triple(fix.axis_body)} in body axes\n"
-                f"{_deg(fix.angle_deg)} about {_triple(fix.axis_reference)} in reference axes\n"
-                f"Small turns about body X, Y, Z: {_triple(fix.small_angles_body_deg)}°")
+                f"{degrees(fix.angle_deg, 4)} about {vector(fix.axis_body)} in body axes\n"
+                f"{degrees(fix.angle_deg, 4)} about {vector(fix.axis_reference)} in reference axes\n"
+                f"Small turns about body X, Y, Z: {vector(fix.small_angles_body_deg)}°")
         self.angles_label.setText(self._angles_text(fix, setup))
         self.shims_label.setText(self._shims_text(fix, setup))
         self._render_decision(nominal, measured, setup)
@@ -307,10 +294,10 @@ class AdjustPanel(Panel):
                                        read_axes(setup.axes))
         except FramewrightError as error:
             return str(error)
-        lines = [f"{i}. about {_triple(axis, 3)}: {_deg(angle)}"
+        lines = [f"{i}. about {vector(axis, 3)}: {degrees(angle, 4)}"
                  for i, (axis, angle) in enumerate(zip(result.axes, result.angles_deg), start=1)]
         lines.append("These reach the correction exactly." if result.exact else
-                     f"These axes cannot reach the correction: {_deg(result.residual_deg)} remains "
+                     f"These axes cannot reach the correction: {degrees(result.residual_deg, 4)} remains "
                      "(the closest they can do).")
         return "\n".join(lines)
 
@@ -326,9 +313,9 @@ class AdjustPanel(Panel):
         lines = []
         for i, (foot, thickness) in enumerate(zip(setup.footprint, result.shims_mm), start=1):
             turns = "" if result.turns is None else f", {result.turns[i - 1]:.3f} turns"
-            lines.append(f"Foot {i} at {_triple(foot, 1)}: {thickness:.3f} mm{turns}")
-        lines.append(f"Tilt made by the shims: {_deg(result.tilt_deg)}; turn about the face normal "
-                     f"{_triple(normal, 3)} left for the slotted holes: {_deg(result.twist_deg)}")
+            lines.append(f"Foot {i} at {vector(foot, 1)}: {thickness:.3f} mm{turns}")
+        lines.append(f"Tilt made by the shims: {degrees(result.tilt_deg, 4)}; turn about the face normal "
+                     f"{vector(normal, 3)} left for the slotted holes: {degrees(result.twist_deg, 4)}")
         if result.pivot_lifted_mm > 0:
             lines.append(f"The pivot foot needs {result.pivot_lifted_mm:.3f} mm too: no shim can be negative.")
         return "\n".join(lines)
@@ -343,7 +330,7 @@ class AdjustPanel(Panel):
             return
         words = {CONFORMS: "Conforms", CANNOT_DECIDE: "Cannot decide", DOES_NOT_CONFORM: "Does not conform"}
         lines = [f"{words[overall]}"]
-        lines += [f"• {c.name} {_deg(c.value_deg)} against {_deg(c.tolerance_deg)}: {d.words()}" for c, d in decisions]
+        lines += [f"• {c.name} {degrees(c.value_deg, 4)} against {degrees(c.tolerance_deg, 4)}: {d.words()}" for c, d in decisions]
         self.decision_label.setText("\n".join(lines))
         closest = max(decisions, key=lambda cd: cd[0].value_deg - cd[0].tolerance_deg)
         self.decision_bar.show_decision(closest[1])

@@ -18,7 +18,8 @@ from PySide6.QtWidgets import (QAbstractItemView, QApplication, QCheckBox, QHBox
 
 from app import dialog_folder, plain_text
 from app.panels.base import Panel
-from app.widgets.number_field import NumberField, format_number
+from app.text import significant
+from app.widgets.number_field import NumberField
 from app.panels.batch_conventions_dialog import BatchConventionsDialog
 from app.panels.batch_table_model import BatchFilterProxy, BatchResultModel
 from core.atomic_file import write_atomically
@@ -55,7 +56,7 @@ class BatchPanel(Panel):
                                            "for files whose header does not state them.")
         self.tolerance = NumberField("Tolerance on the total deviation, in degrees (0 or more). '.' is the "
                                      "decimal point.", step=0.1)
-        self.tolerance.set_text(format_number(self.tolerance_deg, 6))
+        self.tolerance.set_text(significant(self.tolerance_deg, 6))
         self.tolerance.fit_digits(5)
         self.only_failed = QCheckBox("Show only out of tolerance")
         self.only_failed.setToolTip("Hide the rows within the tolerance.")
@@ -131,7 +132,7 @@ class BatchPanel(Panel):
             self.set_conventions(*dialog.conventions())
 
     def _tolerance_stepped(self, value: float) -> None:
-        self.tolerance.set_text(format_number(max(value, 0.0), 6))
+        self.tolerance.set_text(significant(max(value, 0.0), 6))
         self._tolerance_settled()
 
     def _tolerance_settled(self) -> None:
@@ -140,7 +141,7 @@ class BatchPanel(Panel):
             value = self.tolerance.value()
             CheckSettings(total_tolerance_deg=value)  # validates (finite, 0 or more)
         except (ValueError, FramewrightError) as exc:
-            self.tolerance.set_problem(f"{exc}; the tolerance stays {format_number(self.tolerance_deg, 6)}°")
+            self.tolerance.set_problem(f"{exc}; the tolerance stays {significant(self.tolerance_deg, 6)}°")
             return
         self.tolerance.set_problem(None)
         if value == self.tolerance_deg:
@@ -230,7 +231,7 @@ class BatchPanel(Panel):
         self.export_button.setEnabled(True)
         failed, errors = result.failed_count, result.error_count
         judged = ~result.error_mask()
-        text = (f"{len(result.names)} mounts checked against {format_number(self.tolerance_deg, 6)}°: "
+        text = (f"{len(result.names)} mounts checked against {significant(self.tolerance_deg, 6)}°: "
                 f"{result.passed_count} within, {failed} out of tolerance, {errors} in error (not checked).")
         if judged.any():
             worst = int(np.flatnonzero(judged)[np.argmax(result.total_deg[judged])])

@@ -9,15 +9,9 @@ from PySide6.QtWidgets import QComboBox, QLabel, QPlainTextEdit, QVBoxLayout, QW
 
 from app import plain_text
 from app.panels.reading_rows import conventions_words
-from core import describe
+from app.text import compact
 from core.errors import FramewrightError
 from core.orientation import Orientation
-
-
-def number(value: float, digits: int = 6) -> str:
-    """Compact, never '-0'."""
-    text = f"{value:.{digits}g}"
-    return "0" if text in ("-0", "-0.0") else text.replace("-", describe.MINUS)
 
 
 def axis_angle_summary(orientation: Orientation) -> str:
@@ -25,16 +19,16 @@ def axis_angle_summary(orientation: Orientation) -> str:
     axis, angle = orientation.as_axis_angle()
     if angle == 0:
         return "no turn"
-    return f"{number(angle)}° about ({', '.join(number(v, 4) for v in axis)})"
+    return f"{compact(angle)}° about ({', '.join(compact(v, 4) for v in axis)})"
 
 
 def full_tooltip(orientation: Orientation) -> str:
     """Every representation of a step, for its tooltip."""
     q = orientation.as_quaternion()
     m = orientation.as_matrix()
-    rows = "\n".join("    " + "  ".join(number(v, 6).rjust(9) for v in row) for row in m)
+    rows = "\n".join("    " + "  ".join(compact(v, 6).rjust(9) for v in row) for row in m)
     return (f"Axis and angle: {axis_angle_summary(orientation)}\n"
-            f"Quaternion (w, x, y, z), Hamilton: {', '.join(number(v, 9) for v in q)}\n"
+            f"Quaternion (w, x, y, z), Hamilton: {', '.join(compact(v, 9) for v in q)}\n"
             f"Rotation matrix, child -> parent (columns are the child axes in the parent):\n{rows}")
 
 

@@ -20,6 +20,7 @@ from app import plain_text
 from app.model import CHAIN, SELECTION, ORIENTATION, WORDS, Change, SessionModel
 from app.panels.base import Panel
 from app.panels.chain_entry import PastedOrientation, axis_angle_summary, full_tooltip
+from app.text import compact
 from core import describe
 from core.chain import ChainStep
 
@@ -29,7 +30,7 @@ ON_COLUMN, NAME_COLUMN, INVERTED_COLUMN = 1, 2, 4
 
 def _position_words(position) -> str:
     """'x 120, y −35.5, z 8.25 mm': a position in its own unit, for a person."""
-    x, y, z = (f"{v + 0.0:.6g}".replace("-", "−") for v in position.shown())
+    x, y, z = (compact(v) for v in position.shown())
     return f"x {x}, y {y}, z {z} {position.unit}"
 
 

@@ -11,7 +11,6 @@ from __future__ import annotations
 
 from dataclasses import replace
 
-import numpy as np
 from PySide6.QtCore import Qt
 from PySide6.QtGui import QFont
 from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QHBoxLayout, QLabel, QLineEdit,
@@ -20,6 +19,7 @@ from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QHBoxLayout, Q
 from app import plain_text
 from app.model import CHECK, MOUNTS, ORIENTATION, POSITION, SELECTION, Change, SessionModel
 from app.panels.base import Panel
+from app.text import degrees, fixed, vector
 from app.widgets.message_line import MessageLine
 from app.widgets.number_field import NumberField, parse_number
 from core import describe
@@ -38,26 +38,6 @@ NO_AXIS = "none"
 
 # No two orientations are more than 180° apart, so a larger tolerance could never fail.
 TOLERANCE_MAX_DEG = 180.0
-
-
-def _deg(value: float) -> str:
-    text = f"{value:.3f}"
-    return ("0.000" if float(text) == 0 else text).replace("-", describe.MINUS) + "\u00b0"
-
-
-def _signed_deg(value: float) -> str:
-    text = f"{value:+.3f}"
-    if float(text) == 0:
-        text = "0.000"
-    return text.replace("-", describe.MINUS) + "\u00b0"
-
-
-def _vector(v) -> str:
-    parts = []
-    for c in np.asarray(v, dtype=float):
-        text = f"{c:.4f}"
-        parts.append(("0.0000" if float(text) == 0 else text).replace("-", describe.MINUS))
-    return "(" + ", ".join(parts) + ")"
 
 
 def _axis_text(name: str) -> str:
@@ -372,26 +352,26 @@ class CheckPanel(Panel):
         self.position_result.setText(self._position_words(offset, mounts[nominal], mounts[measured], settings))
         deciding = min(result.criteria, key=lambda c: c.margin_deg)
         self.margin_label.setText(
-            f"Margin {_signed_deg(result.margin_deg)}: {deciding.name} {_deg(deciding.value_deg)} "
-            f"{'within' if deciding.passed else 'exceeds'} {_deg(deciding.tolerance_deg)}")
+            f"Margin {degrees(result.margin_deg, signed=True)}: {deciding.name} {degrees(deciding.value_deg)} "
+            f"{'within' if deciding.passed else 'exceeds'} {degrees(deciding.tolerance_deg)}")
         lines = []
         if nominal == measured:
             lines.append("The nominal and the measured are the same mount.")
         if result.total_deg == 0:
             lines.append("Total deviation: 0.000° (the orientations are the same)")
         else:
-            lines.append(f"Total deviation: {_deg(result.total_deg)}, about {_vector(result.axis)} "
+            lines.append(f"Total deviation: {degrees(result.total_deg)}, about {vector(result.axis)} "
                          "in the nominal body axes")
         if result.body_axis is not None:
             name = axis_name(settings.body_axis) if isinstance(settings.body_axis, str) else None
-            axis = _axis_text(name) if name else _vector(result.body_axis)
-            lines.append(f"Pointing error of body {axis}: {_deg(result.pointing_deg)}")
-            roll = _signed_deg(result.roll_deg) if result.roll_defined else "undefined (the axis points backwards)"
+            axis = _axis_text(name) if name else vector(result.body_axis)
+            lines.append(f"Pointing error of body {axis}: {degrees(result.pointing_deg)}")
+            roll = degrees(result.roll_deg, signed=True) if result.roll_defined else "undefined (the axis points backwards)"
             lines.append(f"Roll about body {axis}: {roll}")
         for c in result.criteria:
             verdict = "within" if c.passed else "exceeds"
-            lines.append(f"• {c.name}: {_deg(c.value_deg)} {verdict} its tolerance {_deg(c.tolerance_deg)}, "
-                         f"margin {_signed_deg(c.margin_deg)}")
+            lines.append(f"• {c.name}: {degrees(c.value_deg)} {verdict} its tolerance {degrees(c.tolerance_deg)}, "
+                         f"margin {degrees(c.margin_deg, signed=True)}")
         lines.extend(result.notes)
         self.details.setText("\n".join(lines))
 
@@ -403,12 +383,12 @@ class CheckPanel(Panel):
             missing = " and ".join(m for m, mount in (("nominal", nominal), ("measured", measured))
                                    if mount.position is None)
             return f"Position not judged: the {missing} mount has no position."
-        x, y, z = (f"{v + 0.0:+.3f}".replace("-", "−") for v in offset.along_nominal_mm)
+        x, y, z = (fixed(v, 3, signed=True) for v in offset.along_nominal_mm)
         along = f"along the nominal body axes x {x}, y {y}, z {z} mm"
         if offset.tolerance_mm is None:
             return f"Position offset {offset.distance_mm:.3f} mm, {along} (not judged: no position tolerance)."
         word = "within" if offset.passed else "exceeds"
-        margin = f"{offset.margin_mm + 0.0:+.3f}".replace("-", "−")
+        margin = fixed(offset.margin_mm, 3, signed=True)
         return (f"Position {'PASS' if offset.passed else 'FAIL'}: offset {offset.distance_mm:.3f} mm {word} "
                 f"{offset.tolerance_mm:.3f} mm (margin {margin} mm), {along}.")
 

@@ -11,6 +11,7 @@ from app import plain_text
 from app.model import PREFERENCES, SessionModel
 from app.panels.base import Panel
 from app.panels import reading_rows
+from app.text import numbers
 from core.errors import FramewrightError
 from core.position import LENGTH_UNITS, Position
 
@@ -232,8 +233,8 @@ class DecodePanel(Panel):
         reading = self._current_reading()
         needs_unit = reading is not None and self._needs_unit(reading)
         if needs_unit:
-            numbers = reading_rows.translation_words(reading, self.model.preferences.significant_digits)
-            plain_text.say(self.unit_label, f"Translation {numbers}: the text gives no unit.")
+            spelled = reading_rows.translation_words(reading, self.model.preferences.significant_digits)
+            plain_text.say(self.unit_label, f"Translation {spelled}: the text gives no unit.")
         else:
             self.unit_box.setCurrentIndex(0)
         self.unit_row.setVisible(needs_unit)
@@ -272,5 +273,5 @@ class DecodePanel(Panel):
             self.say(f"Applied: {reading.label}.")
             return
         self.model.apply_pose(reading.orientation, position, text=text, origin=self)
-        numbers = reading_rows.numbers_words(reading.translation, self.model.preferences.significant_digits)
-        self.say(f"Applied: {reading.label}; translation {numbers} {how}.")
+        spelled = numbers(reading.translation, self.model.preferences.significant_digits)
+        self.say(f"Applied: {reading.label}; translation {spelled} {how}.")

@@ -15,6 +15,7 @@ from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QHBoxLayout, Q
 from app.model import MOUNTS, ORIENTATION, SELECTION, WORDS, Change, SessionModel
 from app.panels.base import Panel
 from app.panels.level_words import WordsBox
+from app.text import degrees, vector
 from app.widgets.number_field import parse_number
 from core import describe
 from core.errors import FramewrightError
@@ -39,13 +40,6 @@ FACE_TIPS = (
     "Whether the face looks up, down or to the side: up or down when its normal is within 45° of straight "
     "up or down (the angle of the normal from straight up is in the tooltip of its tilt).",
 )
-
-
-def _deg(value: float, decimals: int = 3) -> str:
-    text = f"{value:.{decimals}f}"
-    if float(text) == 0:
-        text = text.lstrip("-")
-    return text.replace("-", describe.MINUS) + "\u00b0"
 
 
 def _face(name: str) -> str:
@@ -152,10 +146,10 @@ class LevelPanel(Panel):
         self.render_when_seen()
 
     def _take_down(self, down) -> None:
-        vector = np.asarray(down, dtype=float)
-        if vector.shape != (3,) or not np.all(np.isfinite(vector)) or np.linalg.norm(vector) == 0:
+        direction = np.asarray(down, dtype=float)
+        if direction.shape != (3,) or not np.all(np.isfinite(direction)) or np.linalg.norm(direction) == 0:
             raise ValueError("gravity needs three finite numbers, not all zero")
-        self._down = vector / np.linalg.norm(vector)
+        self._down = direction / np.linalg.norm(direction)
         for i in range(self.gravity_box.count()):
             data = self.gravity_box.itemData(i)
             if data != TYPED and np.allclose(data, self._down, atol=0, rtol=0):
@@ -222,8 +216,8 @@ class LevelPanel(Panel):
             return
         names = mount.part.face_names
         for row, reading in enumerate(report.faces):
-            cells = (_face(reading.face), names.get(reading.face, ""), _deg(reading.tilt_deg),
-                     _deg(reading.off_plumb_deg), reading.facing)
+            cells = (_face(reading.face), names.get(reading.face, ""), degrees(reading.tilt_deg),
+                     degrees(reading.off_plumb_deg), reading.facing)
             for column, text in enumerate(cells):
                 item = self.faces.item(row, column)
                 if item is None:
@@ -234,10 +228,10 @@ class LevelPanel(Panel):
                 item.setText(text)
                 tip = FACE_TIPS[column]
                 if column == 2:
-                    tip += f"\nNormal {_deg(reading.from_up_deg)} from straight up."
+                    tip += f"\nNormal {degrees(reading.from_up_deg)} from straight up."
                 item.setToolTip(tip)
         self.up_label.setText(f"Up: face {_face(report.up_face)}; down: face {_face(report.down_face)}.")
-        self.elevations.setText("    ".join(f"{_face(a.axis)}  {_deg(a.elevation_deg)}" for a in report.axes))
+        self.elevations.setText("    ".join(f"{_face(a.axis)}  {degrees(a.elevation_deg)}" for a in report.axes))
         if not self._face_chosen and self.face_box.currentData() != report.up_face:
             self.face_box.setCurrentIndex(self.face_box.findData(report.up_face))
             self._fill_directions()
@@ -245,9 +239,9 @@ class LevelPanel(Panel):
                                        self.direction_box.currentData(), self._down)
         x, y = reading.direction, reading.cross_direction
         self.incline_label.setText(
-            f"x along body {_vec(x)}: {_deg(reading.along_deg)}\n"
-            f"y along body {_vec(y)}: {_deg(reading.across_deg)}\n"
-            f"face {_face(reading.face)}: normal {_deg(reading.tilt_deg)} from straight up"
+            f"x along body {_vec(x)}: {degrees(reading.along_deg)}\n"
+            f"y along body {_vec(y)}: {degrees(reading.across_deg)}\n"
+            f"face {_face(reading.face)}: normal {degrees(reading.tilt_deg)} from straight up"
             + "".join(f"\n{n}" for n in reading.notes))
 
 
@@ -257,4 +251,4 @@ def _vec(v) -> str:
         for sign in (1, -1):
             if np.allclose(v, sign * np.eye(3)[k], atol=1e-12):
                 return ("+" if sign > 0 else describe.MINUS) + name
-    return "(" + ", ".join(f"{c:.3f}" for c in v) + ")"
+    return vector(v, 3)

@@ -15,7 +15,7 @@ from PySide6.QtWidgets import (QComboBox, QGridLayout, QGroupBox, QListWidget, Q
 
 from app.plain_text import plain_label
 from app.widgets.message_line import MessageLine
-from app.widgets.number_field import format_number
+from app.text import numbers, significant
 from app.model import SessionModel
 from core.average import OUTLIER_SCATTERS
 from core.errors import FramewrightError
@@ -125,25 +125,24 @@ class RepeatedMeasurementsBox(QGroupBox):
             "of one measurement (the mount is not at the average)"
         self.model.set_check(replace(check, adjustment=adjustment), origin=self,
                              text=f"Use the scatter of {result.count} measurements as the uncertainty")
-        self.message.say(f"u = {self._fmt(u)}°, the standard uncertainty {what}.")
+        digits = self.model.preferences.significant_digits
+        self.message.say(f"u = {significant(u, digits)}°, the standard uncertainty {what}.")
 
     # ---- model -> view -----------------------------------------------------------------------------
-    def _fmt(self, value: float) -> str:
-        return format_number(float(value), self.model.preferences.significant_digits)
-
     def render(self) -> None:
         mount = self.model.current_mount()
         measured = mount.measurements
         result = self.model.current_average()
         row = self.list.currentRow()
+        digits = self.model.preferences.significant_digits
         self.list.clear()
         flagged = set(result.flagged) if result is not None else set()
         for i, measurement in enumerate(measured):
             facts = []
             if measurement.weight != 1:
-                facts.append(f"weight {self._fmt(measurement.weight)}")
+                facts.append(f"weight {significant(measurement.weight, digits)}")
             if result is not None:
-                facts.append(f"{self._fmt(result.angles_deg[i])}° from the mean")
+                facts.append(f"{significant(result.angles_deg[i], digits)}° from the mean")
             if i in flagged:
                 facts.append(f"FAR: over {OUTLIER_SCATTERS:g} scatters from the others")
             head = f"{i + 1}. {measurement.source or 'no source'}"
@@ -170,14 +169,15 @@ class RepeatedMeasurementsBox(QGroupBox):
         order = "(x, y, z, w)" if prefs.quaternion_order == "xyzw" else "(w, x, y, z)"
         angles = result.mean.as_angles(prefs.sequence, intrinsic=prefs.intrinsic).angles
         kind = "intrinsic" if prefs.intrinsic else "extrinsic"
-        lines = [f"Mean quaternion {order}: (" + ", ".join(self._fmt(v) for v in q) + ")",
-                 f"Mean, {kind} {prefs.sequence}: (" + ", ".join(self._fmt(v) for v in angles) + ")°",
-                 f"RMS scatter: {self._fmt(result.rms_deg)}°",
-                 f"Largest angle to the mean: {self._fmt(result.max_deg)}°"]
+        digits = prefs.significant_digits
+        lines = [f"Mean quaternion {order}: ({numbers(q, digits)})",
+                 f"Mean, {kind} {prefs.sequence}: ({numbers(angles, digits)})°",
+                 f"RMS scatter: {significant(result.rms_deg, digits)}°",
+                 f"Largest angle to the mean: {significant(result.max_deg, digits)}°"]
         if result.standard_uncertainty_deg is None:
             lines.append("Standard uncertainty of the mean: needs two or more measurements")
         else:
-            lines.append(f"Standard uncertainty of the mean: {self._fmt(result.standard_uncertainty_deg)}° per axis")
+            lines.append(f"Standard uncertainty of the mean: {significant(result.standard_uncertainty_deg, digits)}° per axis")
         off = mount.orientation.angle_to(result.mean)
-        lines.append(f"The mount's orientation is {self._fmt(off)}° from the mean.")
+        lines.append(f"The mount's orientation is {significant(off, digits)}° from the mean.")
         return "\n".join(lines)
