@@ -2,8 +2,7 @@
 
 from __future__ import annotations
 
-from PySide6.QtWidgets import (QComboBox, QDialog, QDialogButtonBox, QDoubleSpinBox, QFormLayout, QLabel,
-                               QSpinBox)
+from PySide6.QtWidgets import QComboBox, QDialog, QDialogButtonBox, QDoubleSpinBox, QFormLayout, QSpinBox
 
 from app.widgets.message_line import MessageLine
 from core.errors import FramewrightError

@@ -13,28 +13,22 @@ from __future__ import annotations
 
 from dataclasses import replace
 
-from PySide6.QtCore import QRectF, Qt
+from PySide6.QtCore import QRectF
 from PySide6.QtGui import QColor, QPainter
-from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QLabel, QLineEdit, QPlainTextEdit, QPushButton,
-                               QSizePolicy, QSpinBox, QVBoxLayout, QWidget)
+from PySide6.QtWidgets import (QFormLayout, QGroupBox, QLineEdit, QPlainTextEdit, QSizePolicy, QSpinBox, QVBoxLayout,
+                               QWidget)
 
 from app.model import CHECK, MEASUREMENTS, MOUNTS, ORIENTATION, PREFERENCES, SELECTION, SESSION, Change, SessionModel
 from app.panels.base import Panel
 from app.panels.repeats_box import RepeatedMeasurementsBox
 from app.text import degrees, vector
+from app.widgets.with_tips import button, choice_box, line_field, reading_label
 from core.check import check
 from core.correction import adjustment_angles, correction, read_axes
 from core.decision import CANNOT_DECIDE, CONFORMS, DOES_NOT_CONFORM, decide_check
 from core.errors import FramewrightError
 from core.number_text import parse_number
 from core.shims import outward_normal, read_footprint, shims
-
-
-def _plain(label: QLabel) -> QLabel:
-    label.setTextFormat(Qt.TextFormat.PlainText)
-    label.setWordWrap(True)
-    label.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
-    return label
 
 
 class DecisionBar(QWidget):
@@ -80,17 +74,13 @@ class AdjustPanel(Panel):
     def __init__(self, model: SessionModel, parent=None):
         super().__init__(model, parent)
 
-        self.correction_label = _plain(QLabel(""))
-        self.axes_field = QLineEdit()
-        self.axes_field.setPlaceholderText("+Z; +Y; +X   or   0 0 1; 0.2 1 0")
-        self.axes_field.setToolTip("The mount's adjustment axes in the order they are turned, separated by ';': "
-                                   "a named axis (+X, −Y, Z) or three numbers. Any directions; they need not be "
-                                   "at right angles. Enter to use them.")
-        self.frame_box = QComboBox()
-        self.frame_box.addItem("body axes", "body")
-        self.frame_box.addItem("reference axes", "reference")
-        self.frame_box.setToolTip("The frame the adjustment axes are written in.")
-        self.angles_label = _plain(QLabel(""))
+        self.correction_label = reading_label()
+        self.axes_field = line_field("The mount's adjustment axes in the order they are turned, separated by ';': a "
+                                     "named axis (+X, −Y, Z) or three numbers. Any directions; they need not be at "
+                                     "right angles. Enter to use them.", placeholder="+Z; +Y; +X   or   0 0 1; 0.2 1 0")
+        self.frame_box = choice_box("The frame the adjustment axes are written in.",
+                                    [("body axes", "body"), ("reference axes", "reference")])
+        self.angles_label = reading_label()
 
         self.footprint_field = QPlainTextEdit()
         self.footprint_field.setPlaceholderText("one foot a line: x y z (body mm)")
@@ -98,27 +88,23 @@ class AdjustPanel(Panel):
                                         "They must lie on one face; its outward normal is taken on the side away "
                                         "from the body origin.")
         self.footprint_field.setMaximumHeight(90)
-        self.corners_button = QPushButton("Corners of the face opposite the boresight")
-        self.corners_button.setToolTip("Fill in the four corners of the part box's face opposite its boresight "
-                                       "face (Edit ▸ Part of the mount…).")
-        self.use_feet_button = QPushButton("Use these feet")
+        self.corners_button = button("Corners of the face opposite the boresight",
+                                     "Fill in the four corners of the part box's face opposite its boresight "
+                                     "face (Edit ▸ Part of the mount…).")
+        self.use_feet_button = button("Use these feet", "Take the feet typed above (a footprint that is refused "
+                                                        "keeps the last good one).")
         self.pivot_box = QSpinBox()
         self.pivot_box.setMinimum(1)
         self.pivot_box.setToolTip("The foot that should stay put.")
-        self.pitch_field = QLineEdit()
-        self.pitch_field.setPlaceholderText("none")
-        self.pitch_field.setToolTip("Thread pitch of levelling screws under the feet, mm per turn (empty: none). "
-                                    "Enter to use it.")
-        self.shims_label = _plain(QLabel(""))
+        self.pitch_field = line_field("Thread pitch of levelling screws under the feet, mm per turn (empty: none). "
+                                      "Enter to use it.", placeholder="none")
+        self.shims_label = reading_label()
 
-        self.uncertainty_field = QLineEdit()
-        self.uncertainty_field.setPlaceholderText("none")
-        self.uncertainty_field.setToolTip("Standard uncertainty u of the measured orientation, degrees, the same "
-                                          "about every axis (empty: none). With it the check decides by ISO "
-                                          "14253-1. Enter to use it.")
-        self.coverage_field = QLineEdit()
-        self.coverage_field.setToolTip("Coverage factor k of the expanded uncertainty U = k·u (usually 2).")
-        self.decision_label = _plain(QLabel(""))
+        self.uncertainty_field = line_field("Standard uncertainty u of the measured orientation, degrees, the same "
+                                            "about every axis (empty: none). With it the check decides by ISO "
+                                            "14253-1. Enter to use it.", placeholder="none")
+        self.coverage_field = line_field("Coverage factor k of the expanded uncertainty U = k·u (usually 2).")
+        self.decision_label = reading_label()
         self.decision_bar = DecisionBar()
         self.repeats = RepeatedMeasurementsBox(model)
 
@@ -330,7 +316,8 @@ class AdjustPanel(Panel):
             return
         words = {CONFORMS: "Conforms", CANNOT_DECIDE: "Cannot decide", DOES_NOT_CONFORM: "Does not conform"}
         lines = [f"{words[overall]}"]
-        lines += [f"• {c.name} {degrees(c.value_deg, 4)} against {degrees(c.tolerance_deg, 4)}: {d.words()}" for c, d in decisions]
+        lines += [f"• {c.name} {degrees(c.value_deg, 4)} against {degrees(c.tolerance_deg, 4)}: {d.words()}"
+                  for c, d in decisions]
         self.decision_label.setText("\n".join(lines))
         closest = max(decisions, key=lambda cd: cd[0].value_deg - cd[0].tolerance_deg)
         self.decision_bar.show_decision(closest[1])

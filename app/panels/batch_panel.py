@@ -14,7 +14,7 @@ import numpy as np
 
 from PySide6.QtCore import Qt, QTimer, Signal
 from PySide6.QtWidgets import (QAbstractItemView, QApplication, QCheckBox, QHBoxLayout,
-                               QHeaderView, QLabel, QProgressDialog, QPushButton, QTableView, QVBoxLayout)
+                               QHeaderView, QLabel, QProgressDialog, QTableView, QVBoxLayout)
 
 from app import dialog_folder, plain_text
 from app.panels.base import Panel
@@ -22,6 +22,7 @@ from app.text import significant
 from app.widgets.number_field import NumberField
 from app.panels.batch_conventions_dialog import BatchConventionsDialog
 from app.panels.batch_table_model import BatchFilterProxy, BatchResultModel
+from app.widgets.with_tips import button
 from core.atomic_file import write_atomically
 from core.batch import (BatchCancelledError, BatchFileError, SetConventions, compute_deviations, read_mounts,
                         write_results)
@@ -48,21 +49,19 @@ class BatchPanel(Panel):
         self.tolerance_deg = CheckSettings().total_tolerance_deg
         self.progress_dialog: QProgressDialog | None = None
 
-        self.open_button = QPushButton("Open CSV…")
-        self.open_button.setToolTip("Read a CSV of mounts: a header row, then one mount per row (name, "
-                                    "nominal columns, measured columns).")
-        self.conventions_button = QPushButton("Conventions…")
-        self.conventions_button.setToolTip("Angle unit, sequence, intrinsic/extrinsic and matrix meaning "
-                                           "for files whose header does not state them.")
+        self.open_button = button("Open CSV…", "Read a CSV of mounts: a header row, then one mount per row (name, "
+                                               "nominal columns, measured columns).")
+        self.conventions_button = button("Conventions…", "Angle unit, sequence, intrinsic/extrinsic and matrix "
+                                                         "meaning for files whose header does not state them.")
         self.tolerance = NumberField("Tolerance on the total deviation, in degrees (0 or more). '.' is the "
                                      "decimal point.", step=0.1)
         self.tolerance.set_text(significant(self.tolerance_deg, 6))
         self.tolerance.fit_digits(5)
         self.only_failed = QCheckBox("Show only out of tolerance")
         self.only_failed.setToolTip("Hide the rows within the tolerance.")
-        self.export_button = QPushButton("Export results…")
-        self.export_button.setToolTip("Write every row's deviation, result and margin as CSV (degrees, "
-                                      "axis in the nominal body frame), in the file's row order.")
+        self.export_button = button("Export results…", "Write every row's deviation, result and margin as CSV "
+                                                       "(degrees, axis in the nominal body frame), in the file's row "
+                                                       "order.")
         self.export_button.setEnabled(False)
         self.file_label = QLabel("No file open.")
         self.file_label.setWordWrap(True)  # a long file name and its conventions wrap in a narrow side area

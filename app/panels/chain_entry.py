@@ -5,7 +5,7 @@ with every plausible reading offered in a list, most plausible first."""
 from __future__ import annotations
 
 from PySide6.QtCore import Signal
-from PySide6.QtWidgets import QComboBox, QLabel, QPlainTextEdit, QVBoxLayout, QWidget
+from PySide6.QtWidgets import QComboBox, QPlainTextEdit, QVBoxLayout, QWidget
 
 from app import plain_text
 from app.panels.reading_rows import conventions_words

@@ -13,17 +13,16 @@ from dataclasses import replace
 
 from PySide6.QtCore import Qt
 from PySide6.QtGui import QFont
-from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QHBoxLayout, QLabel, QLineEdit,
-                               QPushButton, QVBoxLayout)
+from PySide6.QtWidgets import QComboBox, QFormLayout, QGroupBox, QHBoxLayout, QLabel, QVBoxLayout
 
-from app import plain_text
 from app.model import CHECK, MOUNTS, ORIENTATION, POSITION, SELECTION, Change, SessionModel
 from app.panels.base import Panel
 from app.text import degrees, fixed, vector
 from app.widgets.message_line import MessageLine
 from app.widgets.number_field import NumberField, parse_number
+from app.widgets.with_tips import button, choice_box, line_field, reading_label
 from core import describe
-from core.check import POSITION_TOLERANCE_LIMIT_MM, CheckSettings, axis_name, check, check_position
+from core.check import POSITION_TOLERANCE_LIMIT_MM, axis_name, check, check_position
 from core.errors import FramewrightError
 
 PASS_STYLE = "background:#2e7d32; color:white; padding:6px 18px; border-radius:4px"
@@ -49,25 +48,18 @@ class CheckPanel(Panel):
 
     def __init__(self, model: SessionModel, parent=None):
         super().__init__(model, parent)
-        self.nominal_box = QComboBox()
-        self.nominal_box.setToolTip("The mount that holds the orientation the part should have (from the "
-                                    "drawing). It is drawn as the ghost while the measured mount is shown.")
-        self.measured_box = QComboBox()
-        self.measured_box.setToolTip("The mount that holds the orientation the part was measured to have. "
-                                     "Choosing it shows it in the Scene, with the nominal as the ghost.")
-        for box in (self.nominal_box, self.measured_box):
-            box.setSizeAdjustPolicy(QComboBox.SizeAdjustPolicy.AdjustToMinimumContentsLengthWithIcon)
-            box.setMinimumContentsLength(14)
-        self.show_button = QPushButton("Show the measured mount")
-        self.show_button.setToolTip("Select the measured mount, so the editors and the Scene show it with the "
-                                    "nominal as the ghost.")
-        self.mode_box = QComboBox()
-        for key, label in MODES:
-            self.mode_box.addItem(label, key)
-        self.mode_box.setToolTip("Total deviation: the angle of the one turn from the nominal to the measured "
-                                 "orientation (D = Nᵀ M), against one tolerance. Pointing error and roll: how "
-                                 "far the chosen body axis points off, and the turn left about that axis, each "
-                                 "against its own tolerance.")
+        self.nominal_box = choice_box("The mount that holds the orientation the part should have (from the "
+                                      "drawing). It is drawn as the ghost while the measured mount is shown.",
+                                      least_chars=14)
+        self.measured_box = choice_box("The mount that holds the orientation the part was measured to have. "
+                                       "Choosing it shows it in the Scene, with the nominal as the ghost.",
+                                       least_chars=14)
+        self.show_button = button("Show the measured mount", "Select the measured mount, so the editors and the "
+                                                             "Scene show it with the nominal as the ghost.")
+        self.mode_box = choice_box("Total deviation: the angle of the one turn from the nominal to the measured "
+                                   "orientation (D = Nᵀ M), against one tolerance. Pointing error and roll: how "
+                                   "far the chosen body axis points off, and the turn left about that axis, each "
+                                   "against its own tolerance.", [(label, key) for key, label in MODES])
         self.axis_box = QComboBox()
         self.axis_box.addItem("none", NO_AXIS)
         for name in AXES:
@@ -75,10 +67,8 @@ class CheckPanel(Panel):
         self.axis_box.addItem("typed (x, y, z)", TYPED)
         self.axis_box.setToolTip("The body axis whose pointing is judged (e.g. the boresight), in body "
                                  "coordinates. 'none' reports the total deviation only.")
-        self.axis_field = QLineEdit()
-        self.axis_field.setPlaceholderText("x, y, z")
-        self.axis_field.setToolTip("A body-frame direction as three numbers x, y, z (any length; '.' is the "
-                                   "decimal point); Enter to use it.")
+        self.axis_field = line_field("A body-frame direction as three numbers x, y, z (any length; '.' is the "
+                                     "decimal point); Enter to use it.", placeholder="x, y, z")
         self.total_field = self._tolerance_field(
             "Total deviation tolerance in degrees: the largest angle of the turn from nominal to measured that "
             "passes. A value equal to the tolerance passes.")
@@ -139,12 +129,9 @@ class CheckPanel(Panel):
         self.margin_label.setFont(margin_font)
         self.margin_label.setToolTip("Margin = tolerance − value of the figure closest to failing; negative when "
                                      "it fails.")
-        self.details = plain_text.plain_label()   # names the mounts
-        self.details.setWordWrap(True)
-        self.details.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
-        self.details.setToolTip("Deviation D = Nᵀ M, written in the nominal body frame; its axis is in nominal "
-                                "body axes. Pointing error: angle between N·a and M·a. Roll: the turn about a "
-                                "left after the pointing correction (right-hand rule about a).")
+        self.details = reading_label("Deviation D = Nᵀ M, written in the nominal body frame; its axis is in nominal "
+                                     "body axes. Pointing error: angle between N·a and M·a. Roll: the turn about a "
+                                     "left after the pointing correction (right-hand rule about a).")
         self.margin_label.setWordWrap(True)
         verdict_row = QHBoxLayout()
         verdict_row.addWidget(self.verdict)
@@ -154,11 +141,8 @@ class CheckPanel(Panel):
         result_layout.addWidget(self.margin_label)
         result_layout.addWidget(self.details)
         # After the orientation's figures: the position offset, when both mounts have a position.
-        self.position_result = plain_text.plain_label()
-        self.position_result.setWordWrap(True)
-        self.position_result.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
-        self.position_result.setToolTip("Offset of the measured origin from the nominal one: the distance, and "
-                                        "its parts along the nominal body axes, Nᵀ (t_measured − t_nominal).")
+        self.position_result = reading_label("Offset of the measured origin from the nominal one: the distance, and "
+                                             "its parts along the nominal body axes, Nᵀ (t_measured − t_nominal).")
         result_layout.addWidget(self.position_result)
 
         layout = QVBoxLayout(self)
@@ -366,7 +350,8 @@ class CheckPanel(Panel):
             name = axis_name(settings.body_axis) if isinstance(settings.body_axis, str) else None
             axis = _axis_text(name) if name else vector(result.body_axis)
             lines.append(f"Pointing error of body {axis}: {degrees(result.pointing_deg)}")
-            roll = degrees(result.roll_deg, signed=True) if result.roll_defined else "undefined (the axis points backwards)"
+            roll = (degrees(result.roll_deg, signed=True) if result.roll_defined
+                    else "undefined (the axis points backwards)")
             lines.append(f"Roll about body {axis}: {roll}")
         for c in result.criteria:
             verdict = "within" if c.passed else "exceeds"

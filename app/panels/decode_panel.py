@@ -4,14 +4,14 @@ from __future__ import annotations
 
 from PySide6.QtCore import QObject, QRunnable, Qt, QThreadPool, QTimer, Signal
 from PySide6.QtGui import QGuiApplication, QPalette
-from PySide6.QtWidgets import (QComboBox, QHBoxLayout, QLabel, QListWidget, QListWidgetItem, QPlainTextEdit,
-                               QPushButton, QVBoxLayout, QWidget)
+from PySide6.QtWidgets import QComboBox, QHBoxLayout, QListWidget, QListWidgetItem, QPlainTextEdit, QVBoxLayout, QWidget
 
 from app import plain_text
 from app.model import PREFERENCES, SessionModel
 from app.panels.base import Panel
 from app.panels import reading_rows
 from app.text import numbers
+from app.widgets.with_tips import button
 from core.errors import FramewrightError
 from core.position import LENGTH_UNITS, Position
 
@@ -67,18 +67,16 @@ class DecodePanel(Panel):
         self.paste_box.setToolTip("Text to decode. '.' is the decimal point; the Unicode minus, en dash and "
                                   "non-breaking spaces are accepted.")
         self.paste_box.setMaximumHeight(120)
-        self.read_button = QPushButton("Read")
-        self.read_button.setToolTip("List every plausible reading of the text, most likely first.")
-        self.paste_button = QPushButton("Paste")
-        self.paste_button.setToolTip("Replace the text with the clipboard and read it.")
+        self.read_button = button("Read", "List every plausible reading of the text, most likely first.")
+        self.paste_button = button("Paste", "Replace the text with the clipboard and read it.")
         self.list = QListWidget()
         self.list.setWordWrap(True)
         self.list.setSpacing(2)
         self.list.setAlternatingRowColors(True)
         self.list.setToolTip("Readings of the text, most plausible first. Double-click or Apply to use one "
                              "(undo takes it back).")
-        self.apply_button = QPushButton("Apply reading")
-        self.apply_button.setToolTip("Set the selected mount's orientation to the chosen reading (undoable).")
+        self.apply_button = button("Apply reading", "Set the selected mount's orientation to the chosen reading "
+                                                    "(undoable).")
         self.apply_button.setEnabled(False)
         # A translation without a unit in the text: the person says which unit it is before Apply.
         self.unit_label = plain_text.plain_label()

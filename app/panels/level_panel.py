@@ -9,7 +9,7 @@ from __future__ import annotations
 
 import numpy as np
 from PySide6.QtCore import Qt
-from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QHBoxLayout, QHeaderView, QLabel, QLineEdit,
+from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QHBoxLayout, QHeaderView, QLabel,
                                QTableWidget, QTableWidgetItem, QVBoxLayout)
 
 from app.model import MOUNTS, ORIENTATION, SELECTION, WORDS, Change, SessionModel
@@ -17,6 +17,7 @@ from app.panels.base import Panel
 from app.panels.level_words import WordsBox
 from app.text import degrees, vector
 from app.widgets.number_field import parse_number
+from app.widgets.with_tips import line_field
 from core import describe
 from core.errors import FramewrightError
 from core.level import DEFAULT_IN_FACE, DOWN_NED, DOWN_Z_UP, FACES, inclinometer_reading, level_readings
@@ -63,10 +64,8 @@ class LevelPanel(Panel):
         self.gravity_box.addItem("typed (x, y, z)", TYPED)
         self.gravity_box.setToolTip("The reference direction gravity points along (straight down). −Z when the "
                                     "reference Z is up (a bench, ENU); +Z in NED.")
-        self.gravity_field = QLineEdit()
-        self.gravity_field.setPlaceholderText("x, y, z")
-        self.gravity_field.setToolTip("Gravity as a reference-frame direction x, y, z (any length; '.' is the "
-                                      "decimal point); Enter to use it.")
+        self.gravity_field = line_field("Gravity as a reference-frame direction x, y, z (any length; '.' is the "
+                                        "decimal point); Enter to use it.", placeholder="x, y, z")
         self.gravity_field.setEnabled(False)
 
         self.faces = QTableWidget(len(FACES), len(FACE_COLUMNS))

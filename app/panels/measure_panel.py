@@ -12,8 +12,7 @@ from pathlib import Path
 import numpy as np
 from PySide6.QtCore import Signal
 from PySide6.QtGui import QFontDatabase, QGuiApplication
-from PySide6.QtWidgets import (QComboBox, QHBoxLayout, QLabel, QLineEdit, QPlainTextEdit,
-                               QPushButton, QStackedWidget, QVBoxLayout)
+from PySide6.QtWidgets import QHBoxLayout, QLabel, QPlainTextEdit, QStackedWidget, QVBoxLayout
 
 from app import dialog_folder
 from app.model import MOUNTS, PREFERENCES, SELECTION, SESSION, Change, SessionModel
@@ -22,6 +21,7 @@ from app.panels.measure_fit import (DIRECTIONS, POINTS, THREE_POINTS, MeasuredFi
                                     fit_point_rows, fit_three_points, result_lines, row_outputs)
 from app.panels.measure_rows import RowsError, rows_from_csv
 from app.panels.measure_table import MeasureTable, TableInputError
+from app.widgets.with_tips import button, choice_box, line_field
 from core.errors import FramewrightError
 from core.point_rows import DIRECTION_COLUMNS, POINT_COLUMNS, THREE_POINT_COLUMNS, THREE_POINT_ROWS
 
@@ -47,14 +47,11 @@ class MeasurePanel(Panel):
         self.last_fit: MeasuredFit | None = None
         self._fit_mount = None   # the name of the mount selected when the fit was made: the Scene shows it on that one only
 
-        self.method = QComboBox()
-        for key, label, help_text in METHODS:
-            self.method.addItem(label, key)
-        self.method.setToolTip("How the orientation is found from the measurements.")
-        self.unit = QComboBox()
-        self.unit.addItems(["mm", "in", "m"])
-        self.unit.setToolTip("The length unit of every point (nominal and measured alike). It only labels "
-                             "the residuals: the orientation does not depend on it.")
+        self.method = choice_box("How the orientation is found from the measurements.",
+                                 [(label, key) for key, label, _ in METHODS])
+        self.unit = choice_box("The length unit of every point (nominal and measured alike). It only labels "
+                               "the residuals: the orientation does not depend on it.",
+                               [(unit, None) for unit in ("mm", "in", "m")])
         self.help = QLabel()
         self.help.setWordWrap(True)
 
@@ -67,20 +64,16 @@ class MeasurePanel(Panel):
             table.inputs_edited.connect(self._inputs_edited)
             table.problem.connect(self._show_problem)
 
-        self.add_button = QPushButton("Add row")
-        self.add_button.setToolTip("Add an empty row at the end of the table.")
-        self.remove_button = QPushButton("Remove rows")
-        self.remove_button.setToolTip("Remove the selected rows.")
-        self.paste_button = QPushButton("Paste rows")
-        self.paste_button.setToolTip("Paste rows copied from a spreadsheet (tab-, comma- or space-separated, "
-                                     "one row per line) at the current cell; Ctrl+V in the table does the same.")
-        self.import_button = QPushButton("Import CSV…")
-        self.import_button.setToolTip("Replace the table with the rows of a CSV file whose first row names "
-                                      "the columns (hover the column titles for the names accepted).")
-        self.clear_button = QPushButton("Clear")
-        self.clear_button.setToolTip("Empty every cell of this table.")
-        self.fit_button = QPushButton("Fit")
-        self.fit_button.setToolTip("Find the orientation from the rows of this table.")
+        self.add_button = button("Add row", "Add an empty row at the end of the table.")
+        self.remove_button = button("Remove rows", "Remove the selected rows.")
+        self.paste_button = button("Paste rows", "Paste rows copied from a spreadsheet (tab-, comma- or "
+                                                 "space-separated, one row per line) at the current cell; Ctrl+V in "
+                                                 "the table does the same.")
+        self.import_button = button("Import CSV…", "Replace the table with the rows of a CSV file whose first row "
+                                                   "names the columns (hover the column titles for the names "
+                                                   "accepted).")
+        self.clear_button = button("Clear", "Empty every cell of this table.")
+        self.fit_button = button("Fit", "Find the orientation from the rows of this table.")
         self.fit_button.setDefault(True)
 
         self.result_text = QPlainTextEdit()
@@ -89,14 +82,12 @@ class MeasurePanel(Panel):
         self.result_text.setToolTip("The fitted orientation (body → reference), its quality figures and "
                                     "notes. Angles in degrees.")
         self.result_text.setMinimumHeight(self.fontMetrics().height() * 15)
-        self.mount_name = QLineEdit()
-        self.mount_name.setToolTip("Name of the new mount (blank: the suggested name).")
-        self.make_mount_button = QPushButton("Make mount")
-        self.make_mount_button.setToolTip("Add the fitted orientation to the session as a new mount "
-                                          "(undoable). The Check panel can use it as the measured side.")
+        self.mount_name = line_field("Name of the new mount (blank: the suggested name).")
+        self.make_mount_button = button("Make mount", "Add the fitted orientation to the session as a new mount "
+                                                      "(undoable). The Check panel can use it as the measured side.")
         self.make_mount_button.setEnabled(False)
-        self.use_uncertainty_button = QPushButton("Use its uncertainty in the check")
-        self.use_uncertainty_button.setToolTip(
+        self.use_uncertainty_button = button(
+            "Use its uncertainty in the check",
             "Set the check's standard uncertainty (Adjust tab, ISO 14253-1 decision) to the fit's largest "
             "standard uncertainty: no figure of the check spreads more than that (one undo step).")
         self.use_uncertainty_button.setEnabled(False)
@@ -112,12 +103,12 @@ class MeasurePanel(Panel):
         layout.addWidget(self.stack, 1)
         # Two short rows of buttons, Fit on the first, so it is in reach in a narrow side area.
         buttons, more = QHBoxLayout(), QHBoxLayout()
-        for button in (self.add_button, self.remove_button, self.paste_button):
-            buttons.addWidget(button)
+        for control in (self.add_button, self.remove_button, self.paste_button):
+            buttons.addWidget(control)
         buttons.addStretch(1)
         buttons.addWidget(self.fit_button)
-        for button in (self.import_button, self.clear_button):
-            more.addWidget(button)
+        for control in (self.import_button, self.clear_button):
+            more.addWidget(control)
         more.addStretch(1)
         layout.addLayout(buttons)
         layout.addLayout(more)

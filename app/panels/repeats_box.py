@@ -10,8 +10,7 @@ from __future__ import annotations
 import math
 from dataclasses import replace
 
-from PySide6.QtWidgets import (QComboBox, QGridLayout, QGroupBox, QListWidget, QPushButton, QSizePolicy,
-                               QVBoxLayout)
+from PySide6.QtWidgets import QComboBox, QGridLayout, QGroupBox, QListWidget, QPushButton, QSizePolicy, QVBoxLayout
 
 from app.plain_text import plain_label
 from app.widgets.message_line import MessageLine
