@@ -98,3 +98,6 @@ class Panel(FollowsModel, QWidget):
 
     def say(self, text: str, problem: bool = False) -> None:
         self.message.say(text, problem)
+
+    def problem(self, text: str) -> None:
+        self.message.problem(text)

@@ -158,7 +158,7 @@ class BatchPanel(Panel):
         try:
             text = Path(path).read_text(encoding="utf-8-sig")
         except (OSError, UnicodeDecodeError) as exc:
-            self._problem(f"Cannot read {Path(path).name}: {exc}. Nothing changed.")
+            self.problem(f"Cannot read {Path(path).name}: {exc}. Nothing changed.")
             return False
         return self._load(text, path)
 
@@ -177,23 +177,23 @@ class BatchPanel(Panel):
             finally:
                 self._end_progress()
         except BatchCancelledError:
-            self._problem(f"Reading “{name}” was cancelled. Nothing changed.")
+            self.problem(f"Reading “{name}” was cancelled. Nothing changed.")
             return False
         except BatchFileError as exc:
             where = ", ".join(part for part in (f"row {exc.row}" if exc.row else "",
                                                 f"column {exc.column}" if exc.column else "") if part)
             hint = (" Choose them with Conventions… (the file is read again)."
                     if "need a sequence" in str(exc) else "")
-            self._problem(f"“{name}” refused{' at ' + where if where else ''}. Nothing changed.\n{exc}{hint}")
+            self.problem(f"“{name}” refused{' at ' + where if where else ''}. Nothing changed.\n{exc}{hint}")
             return False
         except FramewrightError as exc:
-            self._problem(f"“{name}” refused. Nothing changed.\n{exc}")
+            self.problem(f"“{name}” refused. Nothing changed.\n{exc}")
             return False
         self.table, self.file_path = table, path
         self.file_label.setText(f"{name}: {len(table.names)} mounts. "
                                 + "; ".join(s.describe() for s in table.sets))
         self.file_label.setToolTip(plain_text.plain_tip(str(path)))
-        self._say("; ".join(table.notes))
+        self.say("; ".join(table.notes))
         self._show(result)
         return True
 
@@ -215,12 +215,12 @@ class BatchPanel(Panel):
                 self._end_progress()
             write_atomically(path, text.encode("utf-8"))
         except BatchCancelledError:
-            self._problem("Export cancelled; no file was written.")
+            self.problem("Export cancelled; no file was written.")
             return False
         except OSError as exc:
-            self._problem(f"Cannot write {Path(path).name}: {exc}")
+            self.problem(f"Cannot write {Path(path).name}: {exc}")
             return False
-        self._say(f"Exported {len(self.result.names)} rows to {Path(path).name}.")
+        self.say(f"Exported {len(self.result.names)} rows to {Path(path).name}.")
         return True
 
     # ---- showing ----------------------------------------------------------------------------------
@@ -244,12 +244,6 @@ class BatchPanel(Panel):
         for column in range(header.count()):   # room for the sort arrow beside each title
             header.resizeSection(column, max(header.sectionSize(column), header.sectionSizeHint(column) + 16))
         self.results_changed.emit(result)
-
-    def _problem(self, text: str) -> None:
-        self.say(text, problem=True)
-
-    def _say(self, text: str) -> None:
-        self.say(text)
 
     def _start_progress(self, title: str):
         dialog = QProgressDialog(title, "Cancel", 0, 100, self)

@@ -62,7 +62,7 @@ class MeasurePanel(Panel):
         for table in self.tables.values():
             self.stack.addWidget(table)
             table.inputs_edited.connect(self._inputs_edited)
-            table.problem.connect(self._show_problem)
+            table.problem.connect(self.problem)
 
         self.add_button = button("Add row", "Add an empty row at the end of the table.")
         self.remove_button = button("Remove rows", "Remove the selected rows.")
@@ -150,9 +150,9 @@ class MeasurePanel(Panel):
         try:
             rows = table.paste_text(QGuiApplication.clipboard().text())
         except RowsError as exc:
-            self._show_problem(f"Paste refused, the table is unchanged: {exc}")
+            self.problem(f"Paste refused, the table is unchanged: {exc}")
             return
-        self._show_info(f"Pasted {len(rows.values)} row(s)." + "".join(f" {n}." for n in rows.notes[:3]))
+        self.say(f"Pasted {len(rows.values)} row(s)." + "".join(f" {n}." for n in rows.notes[:3]))
 
     def import_csv(self, path: str | None = None) -> None:
         if path is None:
@@ -165,13 +165,13 @@ class MeasurePanel(Panel):
             rows = rows_from_csv(text, [table.columns[c] for c in table.inputs])
             table.replace_all(rows)
         except (OSError, UnicodeDecodeError) as exc:
-            self._show_problem(f"Cannot read {Path(path).name}: {exc}")
+            self.problem(f"Cannot read {Path(path).name}: {exc}")
             return
         except RowsError as exc:
-            self._show_problem(f"{Path(path).name} refused, the table is unchanged: {exc}")
+            self.problem(f"{Path(path).name} refused, the table is unchanged: {exc}")
             return
-        self._show_info(f"Imported {len(rows.values)} row(s) from {Path(path).name}."
-                        + "".join(f" {n}." for n in rows.notes))
+        self.say(f"Imported {len(rows.values)} row(s) from {Path(path).name}."
+                 + "".join(f" {n}." for n in rows.notes))
 
     def fit(self) -> None:
         """Fit the current table; a refusal says why and leaves every typed cell as it was."""
@@ -199,7 +199,7 @@ class MeasurePanel(Panel):
         table.show_outputs(list(result.rows), texts, marked)
         self._render_result()
         flagged = len(result.flagged)
-        self._show_info("Fitted." + (f" {flagged} row(s) flagged: look at them again." if flagged else ""))
+        self.say("Fitted." + (f" {flagged} row(s) flagged: look at them again." if flagged else ""))
         self.make_mount_button.setEnabled(True)
         self.use_uncertainty_button.setEnabled(result.uncertainty_deg is not None)
         self._fit_mount = self.model.current_mount().name
@@ -214,25 +214,25 @@ class MeasurePanel(Panel):
         check = self.model.check
         _, measured = self.model.check_mount_indices()
         if measured is None:
-            self._show_problem("Choose the check's measured mount in the Check panel first; the uncertainty "
-                               "belongs to it.")
+            self.problem("Choose the check's measured mount in the Check panel first; the uncertainty "
+                         "belongs to it.")
             return
         try:
             adjustment = replace(check.adjustment, uncertainty_deg=float(fit.uncertainty_deg))
         except FramewrightError as error:
-            self._show_problem(f"{error} (the check is unchanged)")
+            self.problem(f"{error} (the check is unchanged)")
             return
         self.model.set_check(replace(check, adjustment=adjustment), origin=self,
                              text="Measure: the check's uncertainty from the fit")
-        self._show_info(f"The check's standard uncertainty is now {fit.uncertainty_deg:.4g}°, the fit's largest; "
-                        f"it applies to the measured mount “{self.model.mounts[measured].name}” (Undo takes it back).")
+        self.say(f"The check's standard uncertainty is now {fit.uncertainty_deg:.4g}°, the fit's largest; "
+                 f"it applies to the measured mount “{self.model.mounts[measured].name}” (Undo takes it back).")
 
     def make_mount(self) -> None:
         if self.last_fit is None:
             return
         name = self.mount_name.text().strip() or self.mount_name.placeholderText()
         self.model.add_mount(self.model.unused_name(name), self.last_fit.orientation, origin=self)
-        self._show_info(f"Mount “{self.model.mounts[-1].name}” made from the fit (Undo takes it back).")
+        self.say(f"Mount “{self.model.mounts[-1].name}” made from the fit (Undo takes it back).")
         self.mount_name.clear()
 
     # ---- rendering --------------------------------------------------------------------------------
@@ -246,7 +246,7 @@ class MeasurePanel(Panel):
 
     def _refuse(self, text: str) -> None:
         self._forget_fit()
-        self._show_problem(text)
+        self.problem(text)
 
     def _forget_fit(self) -> None:
         had_fit = self.last_fit is not None
@@ -257,17 +257,11 @@ class MeasurePanel(Panel):
         if had_fit:
             self.fit_changed.emit(None)
 
-    def _show_problem(self, text: str) -> None:
-        self.say(text, problem=True)
-
-    def _show_info(self, text: str) -> None:
-        self.say(text)
-
     def _inputs_edited(self, *_):
         if self.last_fit is not None:
             self.current_table().clear_outputs()
             self._forget_fit()
-            self._show_info("The rows changed since the last fit: press Fit again.")
+            self.say("The rows changed since the last fit: press Fit again.")
 
     def _method_changed(self, *_):
         key = self.current_method()
