@@ -21,15 +21,14 @@ from app.text import degrees, fixed, vector
 from app.widgets.message_line import MessageLine
 from app.widgets.number_field import NumberField, parse_number
 from app.widgets.with_tips import button, choice_box, line_field, reading_label
-from core import describe
-from core.check import POSITION_TOLERANCE_LIMIT_MM, axis_name, check, check_position
+from core import axes
+from core.check import POSITION_TOLERANCE_LIMIT_MM, check, check_position
 from core.errors import FramewrightError
 
 PASS_STYLE = "background:#2e7d32; color:white; padding:6px 18px; border-radius:4px"
 FAIL_STYLE = "background:#c62828; color:white; padding:6px 18px; border-radius:4px"
 IDLE_STYLE = "background:#5f6368; color:white; padding:6px 18px; border-radius:4px"
 NOT_CHOSEN = "(none chosen)"
-AXES = ("+X", "-X", "+Y", "-Y", "+Z", "-Z")
 MODES = (("total", "Total deviation"), ("pointing_and_roll", "Pointing error and roll"))
 TYPED = "typed"
 NO_AXIS = "none"
@@ -37,10 +36,6 @@ NO_AXIS = "none"
 
 # No two orientations are more than 180° apart, so a larger tolerance could never fail.
 TOLERANCE_MAX_DEG = 180.0
-
-
-def _axis_text(name: str) -> str:
-    return name.replace("-", describe.MINUS)
 
 
 class CheckPanel(Panel):
@@ -62,8 +57,8 @@ class CheckPanel(Panel):
                                    "against its own tolerance.", [(label, key) for key, label in MODES])
         self.axis_box = QComboBox()
         self.axis_box.addItem("none", NO_AXIS)
-        for name in AXES:
-            self.axis_box.addItem(_axis_text(name), name)
+        for name in axes.SIGNED_AXES:
+            self.axis_box.addItem(axes.display(name), name)
         self.axis_box.addItem("typed (x, y, z)", TYPED)
         self.axis_box.setToolTip("The body axis whose pointing is judged (e.g. the boresight), in body "
                                  "coordinates. 'none' reports the total deviation only.")
@@ -224,7 +219,7 @@ class CheckPanel(Panel):
             new = replace(settings, mode=mode, body_axis=axis)
             self.model.set_check(replace(self.model.check, settings=new), origin=self,
                                  text="Check: pointing error and roll")
-            self.say(f"Pointing needs a body axis: took the boresight, {_axis_text(axis)}.")
+            self.say(f"Pointing needs a body axis: took the boresight, {axes.display(axis)}.")
             self.render()
             return
         self._set_settings("mode", mode)
@@ -347,8 +342,8 @@ class CheckPanel(Panel):
             lines.append(f"Total deviation: {degrees(result.total_deg)}, about {vector(result.axis)} "
                          "in the nominal body axes")
         if result.body_axis is not None:
-            name = axis_name(settings.body_axis) if isinstance(settings.body_axis, str) else None
-            axis = _axis_text(name) if name else vector(result.body_axis)
+            name = axes.axis_name(settings.body_axis) if isinstance(settings.body_axis, str) else None
+            axis = axes.display(name) if name else vector(result.body_axis)
             lines.append(f"Pointing error of body {axis}: {degrees(result.pointing_deg)}")
             roll = (degrees(result.roll_deg, signed=True) if result.roll_defined
                     else "undefined (the axis points backwards)")
