@@ -20,6 +20,7 @@ import sys
 
 from app.cli_units import add_units_option, angle_argument, as_given, degrees_of, in_unit, shown
 from app.display_check import open_display_problem
+from app.text import significant
 from core import formats, units
 from core.check import CheckSettings, check
 from core.decode import KINDS, DecodeHints, decode
@@ -122,9 +123,7 @@ def reading_object(reading, args) -> dict:
 
 def _n(value: float) -> str:
     """Ten significant digits for reading; round-off dust below 5e-13 shows as 0."""
-    value = float(value)
-    text = f"{(0.0 if abs(value) < 5e-13 else value) + 0.0:.10g}"
-    return "0" if text == "-0" else text
+    return significant(value, 10, dust=5e-13)
 
 
 def orientation_lines(data: dict) -> list[str]:
@@ -145,8 +144,7 @@ def orientation_lines(data: dict) -> list[str]:
 
 def _n4(value: float) -> str:
     """Four significant digits, for residuals (their own uncertainty makes more digits noise)."""
-    text = f"{float(value) + 0.0:.4g}"
-    return "0" if text == "-0" else text
+    return significant(value, 4, dust=0.0)
 
 
 def reading_text(reading, args, rank: int, total: int, best=None) -> str:

@@ -6,13 +6,12 @@ from __future__ import annotations
 from PySide6.QtWidgets import (QComboBox, QDialog, QDialogButtonBox, QFormLayout, QGroupBox, QHBoxLayout,
                                QLabel, QLineEdit, QVBoxLayout)
 
-from app import plain_text
+from app.widgets.message_line import MessageLine
 from core import axes
 from core.errors import FramewrightError
 from core.number_text import parse_number
 from core.session import PartProperties
 
-ERROR_STYLE = "color: #b00020;"
 # The sizes a box part can have, in mm: a micrometre to a kilometre. Smaller or larger is a typo or a unit
 # mix-up, and near zero the Scene's drawing scale (1 / size) would divide by nearly nothing. The session
 # loader holds saved sizes to the same range.
@@ -52,9 +51,7 @@ class PartDialog(QDialog):
         self.boresight_box.setCurrentIndex(axes.SIGNED_AXES.index(part.boresight))
         self.boresight_box.setToolTip("The face the part points with: its normal is the boresight axis.")
         names.addRow("Boresight face", self.boresight_box)
-        self.message = plain_text.plain_label()
-        self.message.setStyleSheet(ERROR_STYLE)
-        self.message.setWordWrap(True)
+        self.message = MessageLine()
         buttons = QDialogButtonBox(QDialogButtonBox.StandardButton.Ok | QDialogButtonBox.StandardButton.Cancel)
         buttons.accepted.connect(self.apply)
         buttons.rejected.connect(self.reject)
@@ -88,7 +85,7 @@ class PartDialog(QDialog):
         try:
             part = self.part()
         except (ValueError, FramewrightError) as exc:
-            self.message.setText(f"{exc}; nothing was changed.")
+            self.message.problem(f"{exc}; nothing was changed.")
             return
         self.model.set_part(part, origin=self)
         self.accept()

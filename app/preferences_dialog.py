@@ -2,10 +2,9 @@
 
 from __future__ import annotations
 
-from PySide6.QtWidgets import (QComboBox, QDialog, QDialogButtonBox, QDoubleSpinBox, QFormLayout,
-                               QSpinBox)
+from PySide6.QtWidgets import QComboBox, QDialog, QDialogButtonBox, QDoubleSpinBox, QFormLayout, QSpinBox
 
-from app import plain_text
+from app.widgets.message_line import MessageLine
 from core import units
 from core.errors import FramewrightError
 from core.session import ANGLE_UNITS
@@ -40,8 +39,7 @@ class PreferencesDialog(QDialog):
         for key, label in copy_formats.items():
             self.copy_default.addItem(label, key)
         self.copy_default.setCurrentIndex(max(0, self.copy_default.findData(default_copy)))
-        self.problem = plain_text.plain_label()
-        self.problem.setStyleSheet("color: #c62828;")
+        self.problem = MessageLine()
         form = QFormLayout(self)
         form.addRow("Angle units", self.units)
         form.addRow("Significant digits shown", self.digits)
@@ -60,7 +58,7 @@ class PreferencesDialog(QDialog):
                 origin=self, angle_units=self.units.currentData(), significant_digits=self.digits.value(),
                 amber_margin_deg=self.amber.value(), red_margin_deg=self.red.value())
         except FramewrightError as exc:
-            self.problem.setText(str(exc))
+            self.problem.problem(str(exc))
             return
         self.accept()
 

@@ -16,6 +16,7 @@ import numpy as np
 
 from core.decode import DecodeHints, decode
 from core.errors import FramewrightError
+from core.number_text import format_number
 from core.position import LENGTH_UNITS, Position
 
 POSE_FORMATS = (
@@ -31,11 +32,6 @@ _LINE_HEADER = ("# Pose: position x, y, z in {unit}, then quaternion {order} (Ha
                 "# {columns}")
 
 
-def _number(value: float) -> str:
-    from core.formats import format_number   # late: formats imports this module
-    return format_number(value)
-
-
 def render_pose(orientation, position: Position, fmt: str, scalar_last: bool = False) -> str:
     """The pose as text: the header line, then the numbers (position in its own unit)."""
     if not isinstance(position, Position):
@@ -44,7 +40,7 @@ def render_pose(orientation, position: Position, fmt: str, scalar_last: bool = F
     if fmt == "pose-matrix":
         r = orientation.as_matrix()
         rows = [list(r[i]) + [t[i]] for i in range(3)]
-        lines = ["  ".join(_number(v) for v in row) for row in rows] + ["0.0  0.0  0.0  1.0"]
+        lines = ["  ".join(format_number(v) for v in row) for row in rows] + ["0.0  0.0  0.0  1.0"]
         return _MATRIX_HEADER.format(unit=position.unit) + "\n" + "\n".join(lines) + "\n"
     if fmt == "pose-line":
         q = orientation.as_quaternion(scalar_last=scalar_last)
@@ -52,7 +48,7 @@ def render_pose(orientation, position: Position, fmt: str, scalar_last: bool = F
             ["qx", "qy", "qz", "qw"] if scalar_last else ["qw", "qx", "qy", "qz"])
         header = _LINE_HEADER.format(unit=position.unit, order="x, y, z, w" if scalar_last else "w, x, y, z",
                                      scalar="scalar last" if scalar_last else "scalar first", columns=" ".join(columns))
-        return header + "\n" + ", ".join(_number(v) for v in list(t) + list(q)) + "\n"
+        return header + "\n" + ", ".join(format_number(v) for v in list(t) + list(q)) + "\n"
     raise FramewrightError(f"unknown pose format {fmt!r}; expected one of {', '.join(POSE_FORMAT_NAMES)}")
 
 

@@ -12,7 +12,8 @@ from typing import Iterable
 
 from core import units
 from core.errors import FramewrightError
-from core.formats import SAFETY_CAUTION, format_number
+from core.formats import SAFETY_CAUTION
+from core.number_text import format_number
 from core.orientation import Orientation
 
 RECORD_FORMAT = "framewright inspection record"
@@ -35,7 +36,7 @@ class RecordError(FramewrightError):
 # ---------------------------------------------------------------------------------------------------
 def printed_numbers(values: Iterable[float], digits: int) -> tuple[str, ...]:
     """The values of one group printed with `digits` significant digits counted from the group's largest,
-    trailing zeros dropped, never '-0' (core/formats.format_number does the rounding)."""
+    trailing zeros dropped, never '-0' (core/number_text.format_number does the rounding)."""
     numbers = [float(v) for v in values]
     if not all(math.isfinite(v) for v in numbers):
         raise RecordError("a figure is not a finite number; the record is not made")

@@ -7,7 +7,7 @@ from PySide6.QtCore import Qt
 from PySide6.QtWidgets import QCheckBox, QGridLayout, QLabel, QSlider
 
 from app.editors.base import EditorBase
-from app.editors.number_field import NumberField
+from app.widgets.number_field import NumberField
 from core.errors import FramewrightError
 from core.orientation import Orientation
 

@@ -6,7 +6,8 @@ from __future__ import annotations
 from PySide6.QtCore import Qt
 from PySide6.QtWidgets import QApplication, QGroupBox, QLabel, QWidget
 
-from app.editors.number_field import NumberField, format_number, quoted
+from app.text import significant
+from app.widgets.number_field import NumberField, quoted
 from core import units
 from app.model import ORIENTATION, PREFERENCES, Change, SessionModel
 
@@ -131,7 +132,7 @@ class EditorBase(QGroupBox):
         return units.to_degrees(shown, self.angle_key)
 
     def fmt(self, value: float) -> str:
-        return format_number(float(value), self.digits)
+        return significant(float(value), self.digits)
 
     def _on_model_changed(self, change: Change) -> None:
         if change.made_by(self) and change.what == frozenset({ORIENTATION}):

@@ -10,7 +10,7 @@ from PySide6.QtGui import QGuiApplication, QKeySequence
 from PySide6.QtWidgets import QButtonGroup, QGridLayout, QHBoxLayout, QLabel, QRadioButton
 
 from app.editors.base import EditorBase
-from app.editors.number_field import NumberField
+from app.widgets.number_field import NumberField
 from app.editors.pasted_numbers import numbers_in_text
 from core.errors import FramewrightError, MatrixRefusedError
 from core.nearest import orthogonality_report

@@ -11,7 +11,8 @@ from PySide6.QtCore import Qt
 from PySide6.QtWidgets import QApplication, QComboBox, QFrame, QGridLayout, QLabel, QVBoxLayout
 
 from app.editors.base import EditorBase, focus_left
-from app.editors.number_field import NumberField, format_number
+from app.text import significant
+from app.widgets.number_field import NumberField
 from app.model import MOUNTS, POSITION, PREFERENCES, SELECTION, Change, SessionModel
 from core.errors import FramewrightError
 from core.position import DEFAULT_UNIT, LENGTH_UNITS, Position, position_problem
@@ -77,7 +78,7 @@ class PositionEditor(QFrame):
         digits = self.model.preferences.significant_digits
         values = position.shown() if position is not None else ("", "", "")
         for field, value in zip(self.fields, values):
-            field.set_text(value if value == "" else format_number(value, digits))
+            field.set_text(value if value == "" else significant(value, digits))
         for field in self.fields:
             field.lineEdit().setPlaceholderText("none")
         self._say("")

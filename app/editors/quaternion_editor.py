@@ -7,7 +7,7 @@ import numpy as np
 from PySide6.QtWidgets import QComboBox, QGridLayout, QHBoxLayout, QLabel, QPushButton
 
 from app.editors.base import EditorBase
-from app.editors.number_field import NumberField
+from app.widgets.number_field import NumberField
 from core.errors import FramewrightError
 from core.orientation import Orientation
 

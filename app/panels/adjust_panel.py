@@ -13,41 +13,23 @@ from __future__ import annotations
 
 from dataclasses import replace
 
-from PySide6.QtCore import QRectF, Qt
+from PySide6.QtCore import QRectF
 from PySide6.QtGui import QColor, QPainter
-from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QLabel, QLineEdit, QPlainTextEdit, QPushButton,
-                               QSizePolicy, QSpinBox, QVBoxLayout, QWidget)
+from PySide6.QtWidgets import (QFormLayout, QGroupBox, QLineEdit, QPlainTextEdit, QSizePolicy, QSpinBox, QVBoxLayout,
+                               QWidget)
 
 from app.model import CHECK, MEASUREMENTS, MOUNTS, ORIENTATION, PREFERENCES, SELECTION, SESSION, Change, SessionModel
-from app.panels.render_when_seen import RendersWhenSeen
+from app.panels.base import Panel
 from app.panels.repeats_box import RepeatedMeasurementsBox
-from core import describe, operations
+from app.text import degrees, vector
+from app.widgets.with_tips import button, choice_box, line_field, reading_label
+from core import operations
 from core.check import check
 from core.correction import adjustment_angles, correction, read_axes
 from core.decision import CANNOT_DECIDE, CONFORMS, DOES_NOT_CONFORM, decide_check
 from core.errors import FramewrightError
 from core.number_text import parse_number
 from core.shims import outward_normal, read_footprint, shims
-
-
-def _deg(value: float, digits: int = 4) -> str:
-    return _number(value, digits) + "°"
-
-
-def _number(value: float, digits: int) -> str:
-    text = f"{float(value):.{digits}f}"
-    return ("0." + "0" * digits if float(text) == 0 else text).replace("-", describe.MINUS)
-
-
-def _triple(values, digits: int = 4) -> str:
-    return "(" + ", ".join(_number(v, digits) for v in values) + ")"
-
-
-def _plain(label: QLabel) -> QLabel:
-    label.setTextFormat(Qt.TextFormat.PlainText)
-    label.setWordWrap(True)
-    label.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
-    return label
 
 
 class DecisionBar(QWidget):
@@ -87,22 +69,19 @@ class DecisionBar(QWidget):
         painter.end()
 
 
-class AdjustPanel(RendersWhenSeen, QWidget):
-    def __init__(self, model: SessionModel, parent=None):
-        super().__init__(parent)
-        self.model = model
+class AdjustPanel(Panel):
+    watches = frozenset({CHECK, MOUNTS, ORIENTATION, MEASUREMENTS, SELECTION, PREFERENCES})
 
-        self.correction_label = _plain(QLabel(""))
-        self.axes_field = QLineEdit()
-        self.axes_field.setPlaceholderText("+Z; +Y; +X   or   0 0 1; 0.2 1 0")
-        self.axes_field.setToolTip("The mount's adjustment axes in the order they are turned, separated by ';': "
-                                   "a named axis (+X, −Y, Z) or three numbers. Any directions; they need not be "
-                                   "at right angles. Enter to use them.")
-        self.frame_box = QComboBox()
-        self.frame_box.addItem("body axes", "body")
-        self.frame_box.addItem("reference axes", "reference")
-        self.frame_box.setToolTip("The frame the adjustment axes are written in.")
-        self.angles_label = _plain(QLabel(""))
+    def __init__(self, model: SessionModel, parent=None):
+        super().__init__(model, parent)
+
+        self.correction_label = reading_label()
+        self.axes_field = line_field("The mount's adjustment axes in the order they are turned, separated by ';': a "
+                                     "named axis (+X, −Y, Z) or three numbers. Any directions; they need not be at "
+                                     "right angles. Enter to use them.", placeholder="+Z; +Y; +X   or   0 0 1; 0.2 1 0")
+        self.frame_box = choice_box("The frame the adjustment axes are written in.",
+                                    [("body axes", "body"), ("reference axes", "reference")])
+        self.angles_label = reading_label()
 
         self.footprint_field = QPlainTextEdit()
         self.footprint_field.setPlaceholderText("one foot a line: x y z (body mm)")
@@ -110,30 +89,24 @@ class AdjustPanel(RendersWhenSeen, QWidget):
                                         "They must lie on one face; its outward normal is taken on the side away "
                                         "from the body origin.")
         self.footprint_field.setMaximumHeight(90)
-        self.corners_button = QPushButton("Corners of the face opposite the boresight")
-        self.corners_button.setToolTip("Fill in the four corners of the part box's face opposite its boresight "
-                                       "face (Edit ▸ Part of the mount…).")
-        self.use_feet_button = QPushButton("Use these feet")
+        self.corners_button = button("Corners of the face opposite the boresight",
+                                     "Fill in the four corners of the part box's face opposite its boresight "
+                                     "face (Edit ▸ Part of the mount…).")
+        self.use_feet_button = button("Use these feet", "Take the feet typed above (a footprint that is refused "
+                                                        "keeps the last good one).")
         self.pivot_box = QSpinBox()
         self.pivot_box.setMinimum(1)
         self.pivot_box.setToolTip("The foot that should stay put.")
-        self.pitch_field = QLineEdit()
-        self.pitch_field.setPlaceholderText("none")
-        self.pitch_field.setToolTip("Thread pitch of levelling screws under the feet, mm per turn (empty: none). "
-                                    "Enter to use it.")
-        self.shims_label = _plain(QLabel(""))
+        self.pitch_field = line_field("Thread pitch of levelling screws under the feet, mm per turn (empty: none). "
+                                      "Enter to use it.", placeholder="none")
+        self.shims_label = reading_label()
 
-        self.uncertainty_field = QLineEdit()
-        self.uncertainty_field.setPlaceholderText("none")
-        self.uncertainty_field.setToolTip("Standard uncertainty u of the measured orientation, degrees, the same "
-                                          "about every axis (empty: none). With it the check decides by ISO "
-                                          "14253-1. Enter to use it.")
-        self.coverage_field = QLineEdit()
-        self.coverage_field.setToolTip("Coverage factor k of the expanded uncertainty U = k·u (usually 2).")
-        self.decision_label = _plain(QLabel(""))
+        self.uncertainty_field = line_field("Standard uncertainty u of the measured orientation, degrees, the same "
+                                            "about every axis (empty: none). With it the check decides by ISO "
+                                            "14253-1. Enter to use it.", placeholder="none")
+        self.coverage_field = line_field("Coverage factor k of the expanded uncertainty U = k·u (usually 2).")
+        self.decision_label = reading_label()
         self.decision_bar = DecisionBar()
-        self.message = _plain(QLabel(""))
-        self.message.setStyleSheet("color:#c62828")
         self.repeats = RepeatedMeasurementsBox(model)
 
         what = QGroupBox("Correction (turns measured into nominal)")
@@ -172,7 +145,6 @@ class AdjustPanel(RendersWhenSeen, QWidget):
         self.uncertainty_field.returnPressed.connect(
             lambda: self._optional_number(self.uncertainty_field, "uncertainty_deg"))
         self.coverage_field.returnPressed.connect(self._coverage_typed)
-        model.changed.connect(self._on_model_changed)
         self.render()
 
     # ---- edits -------------------------------------------------------------------------------------
@@ -181,9 +153,9 @@ class AdjustPanel(RendersWhenSeen, QWidget):
         try:
             setup = replace(check_state.adjustment, **fields)
         except FramewrightError as error:
-            self.message.setText(f"{error} (kept the last good value)")
+            self.message.problem(f"{error} (kept the last good value)")
             return False
-        self.message.setText("")
+        self.message.clear()
         if setup != check_state.adjustment:
             self.model.apply(operations.set_check, replace(check_state, adjustment=setup), origin=self,
                              text="Adjust: " + ", ".join(k.replace("_", " ") for k in fields))
@@ -195,7 +167,7 @@ class AdjustPanel(RendersWhenSeen, QWidget):
             try:
                 read_axes(text)
             except FramewrightError as error:
-                self.message.setText(f"{error} (kept the last good axes)")
+                self.message.problem(f"{error} (kept the last good axes)")
                 return
         self._set(axes=text)
 
@@ -206,7 +178,7 @@ class AdjustPanel(RendersWhenSeen, QWidget):
             if len(feet):
                 outward_normal(feet)
         except FramewrightError as error:
-            self.message.setText(f"{error} (kept the last good footprint)")
+            self.message.problem(f"{error} (kept the last good footprint)")
             return
         setup = self.model.check.adjustment
         self._set(footprint=tuple(map(tuple, feet)), pivot=min(setup.pivot, max(len(feet) - 1, 0)))
@@ -214,7 +186,7 @@ class AdjustPanel(RendersWhenSeen, QWidget):
     def _corners(self) -> None:
         _, measured = self.model.check_mount_indices()
         if measured is None:
-            self.message.setText("Choose a measured mount in the Check panel first.")
+            self.message.problem("Choose a measured mount in the Check panel first.")
             return
         part = self.model.mounts[measured].part
         sign = -1.0 if part.boresight.startswith("+") else 1.0
@@ -238,7 +210,7 @@ class AdjustPanel(RendersWhenSeen, QWidget):
         try:
             value = None if text in ("", "none") else parse_number(text)
         except ValueError as error:
-            self.message.setText(f"{error} (kept the last good value)")
+            self.message.problem(f"{error} (kept the last good value)")
             return
         self._set(**{key: value})
 
@@ -246,27 +218,20 @@ class AdjustPanel(RendersWhenSeen, QWidget):
         try:
             value = parse_number(self.coverage_field.text())
         except ValueError as error:
-            self.message.setText(f"{error} (kept the last good value)")
+            self.message.problem(f"{error} (kept the last good value)")
             return
         self._set(coverage=value)
 
     # ---- model -> view -----------------------------------------------------------------------------
-    _rendering = False
-
-    def _on_model_changed(self, change: Change) -> None:
+    def follow(self, change: Change) -> None:
         if change.touches(SESSION, SELECTION):
             self.repeats.forget_message()   # it spoke of the last mount (or of another session's)
-        if change.touches(CHECK, MOUNTS, ORIENTATION, MEASUREMENTS, SELECTION, PREFERENCES):
-            self.render_when_seen()
 
     def render(self) -> None:
-        self._rendering = True
-        try:
+        with self.rendering():
             self._render_inputs()
             self._render_results()
             self.repeats.render()
-        finally:
-            self._rendering = False
 
     def _render_inputs(self) -> None:
         setup = self.model.check.adjustment
@@ -300,9 +265,9 @@ class AdjustPanel(RendersWhenSeen, QWidget):
             self.correction_label.setText("No correction needed: the measured orientation is the nominal.")
         else:
             self.correction_label.setText(
-                f"{_deg(fix.angle_deg)} about {_triple(fix.axis_body)} in body axes\n"
-                f"{_deg(fix.angle_deg)} about {_triple(fix.axis_reference)} in reference axes\n"
-                f"Small turns about body X, Y, Z: {_triple(fix.small_angles_body_deg)}°")
+                f"{degrees(fix.angle_deg, 4)} about {vector(fix.axis_body)} in body axes\n"
+                f"{degrees(fix.angle_deg, 4)} about {vector(fix.axis_reference)} in reference axes\n"
+                f"Small turns about body X, Y, Z: {vector(fix.small_angles_body_deg)}°")
         self.angles_label.setText(self._angles_text(fix, setup))
         self.shims_label.setText(self._shims_text(fix, setup))
         self._render_decision(nominal, measured, setup)
@@ -316,10 +281,10 @@ class AdjustPanel(RendersWhenSeen, QWidget):
                                        read_axes(setup.axes))
         except FramewrightError as error:
             return str(error)
-        lines = [f"{i}. about {_triple(axis, 3)}: {_deg(angle)}"
+        lines = [f"{i}. about {vector(axis, 3)}: {degrees(angle, 4)}"
                  for i, (axis, angle) in enumerate(zip(result.axes, result.angles_deg), start=1)]
         lines.append("These reach the correction exactly." if result.exact else
-                     f"These axes cannot reach the correction: {_deg(result.residual_deg)} remains "
+                     f"These axes cannot reach the correction: {degrees(result.residual_deg, 4)} remains "
                      "(the closest they can do).")
         return "\n".join(lines)
 
@@ -335,9 +300,9 @@ class AdjustPanel(RendersWhenSeen, QWidget):
         lines = []
         for i, (foot, thickness) in enumerate(zip(setup.footprint, result.shims_mm), start=1):
             turns = "" if result.turns is None else f", {result.turns[i - 1]:.3f} turns"
-            lines.append(f"Foot {i} at {_triple(foot, 1)}: {thickness:.3f} mm{turns}")
-        lines.append(f"Tilt made by the shims: {_deg(result.tilt_deg)}; turn about the face normal "
-                     f"{_triple(normal, 3)} left for the slotted holes: {_deg(result.twist_deg)}")
+            lines.append(f"Foot {i} at {vector(foot, 1)}: {thickness:.3f} mm{turns}")
+        lines.append(f"Tilt made by the shims: {degrees(result.tilt_deg, 4)}; turn about the face normal "
+                     f"{vector(normal, 3)} left for the slotted holes: {degrees(result.twist_deg, 4)}")
         if result.pivot_lifted_mm > 0:
             lines.append(f"The pivot foot needs {result.pivot_lifted_mm:.3f} mm too: no shim can be negative.")
         return "\n".join(lines)
@@ -352,7 +317,8 @@ class AdjustPanel(RendersWhenSeen, QWidget):
             return
         words = {CONFORMS: "Conforms", CANNOT_DECIDE: "Cannot decide", DOES_NOT_CONFORM: "Does not conform"}
         lines = [f"{words[overall]}"]
-        lines += [f"• {c.name} {_deg(c.value_deg)} against {_deg(c.tolerance_deg)}: {d.words()}" for c, d in decisions]
+        lines += [f"• {c.name} {degrees(c.value_deg, 4)} against {degrees(c.tolerance_deg, 4)}: {d.words()}"
+                  for c, d in decisions]
         self.decision_label.setText("\n".join(lines))
         closest = max(decisions, key=lambda cd: cd[0].value_deg - cd[0].tolerance_deg)
         self.decision_bar.show_decision(closest[1])

@@ -14,13 +14,15 @@ import numpy as np
 
 from PySide6.QtCore import Qt, QTimer, Signal
 from PySide6.QtWidgets import (QAbstractItemView, QApplication, QCheckBox, QHBoxLayout,
-                               QHeaderView, QLabel, QProgressDialog, QPushButton, QTableView, QVBoxLayout,
-                               QWidget)
+                               QHeaderView, QLabel, QProgressDialog, QTableView, QVBoxLayout)
 
 from app import dialog_folder, plain_text
-from app.editors.number_field import NumberField, format_number
+from app.panels.base import Panel
+from app.text import significant
+from app.widgets.number_field import NumberField
 from app.panels.batch_conventions_dialog import BatchConventionsDialog
 from app.panels.batch_table_model import BatchFilterProxy, BatchResultModel
+from app.widgets.with_tips import button
 from core.atomic_file import write_atomically
 from core.batch import (BatchCancelledError, BatchFileError, SetConventions, compute_deviations, read_mounts,
                         write_results)
@@ -28,16 +30,15 @@ from core.check import CheckSettings
 from core.errors import FramewrightError
 
 LARGE_FILE_ROWS = 5000
-ERROR_STYLE = "color:#c62828"
 _STAGES = {"reading": (0, 40), "computing": (40, 100), "writing": (0, 100)}
 
 
-class BatchPanel(QWidget):
+class BatchPanel(Panel):
+    """The batch changes no mount and follows no change of the session: it watches nothing."""
     results_changed = Signal(object)  # the BatchResult shown, or None
 
     def __init__(self, model=None, parent=None):
-        super().__init__(parent)
-        self.model = model  # the session model; the batch changes no mount, it only reads preferences later
+        super().__init__(model, parent)
         self.table = None          # core.batch.MountTable of the file shown
         self.result = None         # core.batch.BatchResult shown
         self.file_path: str | None = None
@@ -48,31 +49,25 @@ class BatchPanel(QWidget):
         self.tolerance_deg = CheckSettings().total_tolerance_deg
         self.progress_dialog: QProgressDialog | None = None
 
-        self.open_button = QPushButton("Open CSV…")
-        self.open_button.setToolTip("Read a CSV of mounts: a header row, then one mount per row (name, "
-                                    "nominal columns, measured columns).")
-        self.conventions_button = QPushButton("Conventions…")
-        self.conventions_button.setToolTip("Angle unit, sequence, intrinsic/extrinsic and matrix meaning "
-                                           "for files whose header does not state them.")
+        self.open_button = button("Open CSV…", "Read a CSV of mounts: a header row, then one mount per row (name, "
+                                               "nominal columns, measured columns).")
+        self.conventions_button = button("Conventions…", "Angle unit, sequence, intrinsic/extrinsic and matrix "
+                                                         "meaning for files whose header does not state them.")
         self.tolerance = NumberField("Tolerance on the total deviation, in degrees (0 or more). '.' is the "
                                      "decimal point.", step=0.1)
-        self.tolerance.set_text(format_number(self.tolerance_deg, 6))
+        self.tolerance.set_text(significant(self.tolerance_deg, 6))
         self.tolerance.fit_digits(5)
         self.only_failed = QCheckBox("Show only out of tolerance")
         self.only_failed.setToolTip("Hide the rows within the tolerance.")
-        self.export_button = QPushButton("Export results…")
-        self.export_button.setToolTip("Write every row's deviation, result and margin as CSV (degrees, "
-                                      "axis in the nominal body frame), in the file's row order.")
+        self.export_button = button("Export results…", "Write every row's deviation, result and margin as CSV "
+                                                       "(degrees, axis in the nominal body frame), in the file's row "
+                                                       "order.")
         self.export_button.setEnabled(False)
         self.file_label = QLabel("No file open.")
         self.file_label.setWordWrap(True)  # a long file name and its conventions wrap in a narrow side area
         self.summary = QLabel("")
         self.summary.setWordWrap(True)
-        self.message = QLabel("")
-        for label in (self.file_label, self.summary, self.message):   # names and cells are the file's text
-            label.setTextFormat(Qt.TextFormat.PlainText)
-        self.message.setWordWrap(True)
-        self.message.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
+        plain_text.plain(self.file_label, self.summary)   # names and cells are the file's text
 
         self.results = BatchResultModel(self)
         self.proxy = BatchFilterProxy(self)
@@ -136,7 +131,7 @@ class BatchPanel(QWidget):
             self.set_conventions(*dialog.conventions())
 
     def _tolerance_stepped(self, value: float) -> None:
-        self.tolerance.set_text(format_number(max(value, 0.0), 6))
+        self.tolerance.set_text(significant(max(value, 0.0), 6))
         self._tolerance_settled()
 
     def _tolerance_settled(self) -> None:
@@ -145,7 +140,7 @@ class BatchPanel(QWidget):
             value = self.tolerance.value()
             CheckSettings(total_tolerance_deg=value)  # validates (finite, 0 or more)
         except (ValueError, FramewrightError) as exc:
-            self.tolerance.set_problem(f"{exc}; the tolerance stays {format_number(self.tolerance_deg, 6)}°")
+            self.tolerance.set_problem(f"{exc}; the tolerance stays {significant(self.tolerance_deg, 6)}°")
             return
         self.tolerance.set_problem(None)
         if value == self.tolerance_deg:
@@ -163,7 +158,7 @@ class BatchPanel(QWidget):
         try:
             text = Path(path).read_text(encoding="utf-8-sig")
         except (OSError, UnicodeDecodeError) as exc:
-            self._problem(f"Cannot read {Path(path).name}: {exc}. Nothing changed.")
+            self.problem(f"Cannot read {Path(path).name}: {exc}. Nothing changed.")
             return False
         return self._load(text, path)
 
@@ -182,23 +177,23 @@ class BatchPanel(QWidget):
             finally:
                 self._end_progress()
         except BatchCancelledError:
-            self._problem(f"Reading “{name}” was cancelled. Nothing changed.")
+            self.problem(f"Reading “{name}” was cancelled. Nothing changed.")
             return False
         except BatchFileError as exc:
             where = ", ".join(part for part in (f"row {exc.row}" if exc.row else "",
                                                 f"column {exc.column}" if exc.column else "") if part)
             hint = (" Choose them with Conventions… (the file is read again)."
                     if "need a sequence" in str(exc) else "")
-            self._problem(f"“{name}” refused{' at ' + where if where else ''}. Nothing changed.\n{exc}{hint}")
+            self.problem(f"“{name}” refused{' at ' + where if where else ''}. Nothing changed.\n{exc}{hint}")
             return False
         except FramewrightError as exc:
-            self._problem(f"“{name}” refused. Nothing changed.\n{exc}")
+            self.problem(f"“{name}” refused. Nothing changed.\n{exc}")
             return False
         self.table, self.file_path = table, path
         self.file_label.setText(f"{name}: {len(table.names)} mounts. "
                                 + "; ".join(s.describe() for s in table.sets))
         self.file_label.setToolTip(plain_text.plain_tip(str(path)))
-        self._say("; ".join(table.notes))
+        self.say("; ".join(table.notes))
         self._show(result)
         return True
 
@@ -220,12 +215,12 @@ class BatchPanel(QWidget):
                 self._end_progress()
             write_atomically(path, text.encode("utf-8"))
         except BatchCancelledError:
-            self._problem("Export cancelled; no file was written.")
+            self.problem("Export cancelled; no file was written.")
             return False
         except OSError as exc:
-            self._problem(f"Cannot write {Path(path).name}: {exc}")
+            self.problem(f"Cannot write {Path(path).name}: {exc}")
             return False
-        self._say(f"Exported {len(self.result.names)} rows to {Path(path).name}.")
+        self.say(f"Exported {len(self.result.names)} rows to {Path(path).name}.")
         return True
 
     # ---- showing ----------------------------------------------------------------------------------
@@ -235,7 +230,7 @@ class BatchPanel(QWidget):
         self.export_button.setEnabled(True)
         failed, errors = result.failed_count, result.error_count
         judged = ~result.error_mask()
-        text = (f"{len(result.names)} mounts checked against {format_number(self.tolerance_deg, 6)}°: "
+        text = (f"{len(result.names)} mounts checked against {significant(self.tolerance_deg, 6)}°: "
                 f"{result.passed_count} within, {failed} out of tolerance, {errors} in error (not checked).")
         if judged.any():
             worst = int(np.flatnonzero(judged)[np.argmax(result.total_deg[judged])])
@@ -243,21 +238,12 @@ class BatchPanel(QWidget):
                      f"row {worst + 1}).")
         if errors:
             text += f" First error: {result.problems[0].message}"
-        self.summary.setText(text)
-        self.summary.setStyleSheet(ERROR_STYLE if errors else "")
+        plain_text.say(self.summary, text, problem=bool(errors))
         self.view.resizeColumnsToContents()
         header = self.view.horizontalHeader()
         for column in range(header.count()):   # room for the sort arrow beside each title
             header.resizeSection(column, max(header.sectionSize(column), header.sectionSizeHint(column) + 16))
         self.results_changed.emit(result)
-
-    def _problem(self, text: str) -> None:
-        self.message.setStyleSheet(ERROR_STYLE)
-        self.message.setText(text)
-
-    def _say(self, text: str) -> None:
-        self.message.setStyleSheet("")
-        self.message.setText(text)
 
     def _start_progress(self, title: str):
         dialog = QProgressDialog(title, "Cancel", 0, 100, self)

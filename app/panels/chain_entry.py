@@ -5,19 +5,13 @@ with every plausible reading offered in a list, most plausible first."""
 from __future__ import annotations
 
 from PySide6.QtCore import Signal
-from PySide6.QtWidgets import QComboBox, QLabel, QPlainTextEdit, QVBoxLayout, QWidget
+from PySide6.QtWidgets import QComboBox, QPlainTextEdit, QVBoxLayout, QWidget
 
-from app import plain_text
 from app.panels.reading_rows import conventions_words
-from core import describe
+from app.text import compact
+from app.widgets.message_line import MessageLine
 from core.errors import FramewrightError
 from core.orientation import Orientation
-
-
-def number(value: float, digits: int = 6) -> str:
-    """Compact, never '-0'."""
-    text = f"{value:.{digits}g}"
-    return "0" if text in ("-0", "-0.0") else text.replace("-", describe.MINUS)
 
 
 def axis_angle_summary(orientation: Orientation) -> str:
@@ -25,16 +19,16 @@ def axis_angle_summary(orientation: Orientation) -> str:
     axis, angle = orientation.as_axis_angle()
     if angle == 0:
         return "no turn"
-    return f"{number(angle)}° about ({', '.join(number(v, 4) for v in axis)})"
+    return f"{compact(angle)}° about ({', '.join(compact(v, 4) for v in axis)})"
 
 
 def full_tooltip(orientation: Orientation) -> str:
     """Every representation of a step, for its tooltip."""
     q = orientation.as_quaternion()
     m = orientation.as_matrix()
-    rows = "\n".join("    " + "  ".join(number(v, 6).rjust(9) for v in row) for row in m)
+    rows = "\n".join("    " + "  ".join(compact(v, 6).rjust(9) for v in row) for row in m)
     return (f"Axis and angle: {axis_angle_summary(orientation)}\n"
-            f"Quaternion (w, x, y, z), Hamilton: {', '.join(number(v, 9) for v in q)}\n"
+            f"Quaternion (w, x, y, z), Hamilton: {', '.join(compact(v, 9) for v in q)}\n"
             f"Rotation matrix, child -> parent (columns are the child axes in the parent):\n{rows}")
 
 
@@ -60,8 +54,7 @@ class PastedOrientation(QWidget):
                                     "conventions of each are named).")
         self.reading_box.setSizeAdjustPolicy(QComboBox.SizeAdjustPolicy.AdjustToMinimumContentsLengthWithIcon)
         self.reading_box.setMinimumContentsLength(20)
-        self.message = plain_text.plain_label()
-        self.message.setWordWrap(True)
+        self.message = MessageLine()
         layout = QVBoxLayout(self)
         layout.setContentsMargins(0, 0, 0, 0)
         layout.addWidget(self.text_box)
@@ -82,19 +75,18 @@ class PastedOrientation(QWidget):
         self.reading_box.blockSignals(True)
         self.reading_box.clear()
         if not text.strip():
-            plain_text.say(self.message, "")
+            self.message.say("")
         else:
             try:
                 self.readings = list(decode(text))
             except FramewrightError as exc:
-                plain_text.say(self.message, f"Cannot read this: {exc}", problem=True)
+                self.message.say(f"Cannot read this: {exc}", problem=True)
             else:
                 if not self.readings:
-                    plain_text.say(self.message, "No reading of this text is a valid orientation.")
+                    self.message.say("No reading of this text is a valid orientation.")
                 else:
                     plural = "s" if len(self.readings) > 1 else ""
-                    plain_text.say(self.message, f"{len(self.readings)} reading{plural}; the first is the most "
-                                                 "plausible.")
+                    self.message.say(f"{len(self.readings)} reading{plural}; the first is the most plausible.")
                 for rank, reading in enumerate(self.readings, start=1):
                     self.reading_box.addItem(f"{rank}. {reading.kind}: {conventions_words(reading)}")
                     self.reading_box.setItemData(rank - 1, f"{full_tooltip(reading.orientation)}",

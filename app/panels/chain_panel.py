@@ -13,12 +13,14 @@ from dataclasses import replace
 
 from PySide6.QtCore import Qt
 from PySide6.QtWidgets import (QAbstractItemView, QCheckBox, QGridLayout, QGroupBox, QHBoxLayout,
-                               QHeaderView, QLabel, QLineEdit, QPushButton, QTableWidget, QTableWidgetItem,
-                               QVBoxLayout, QWidget)
+                               QHeaderView, QLabel, QTableWidget, QTableWidgetItem,
+                               QVBoxLayout)
 
-from app import plain_text
 from app.model import CHAIN, SELECTION, ORIENTATION, WORDS, Change, SessionModel
+from app.panels.base import Panel
 from app.panels.chain_entry import PastedOrientation, axis_angle_summary, full_tooltip
+from app.text import compact
+from app.widgets.with_tips import button, line_field, reading_label
 from core import describe, operations
 from core.chain import ChainStep
 
@@ -28,18 +30,16 @@ ON_COLUMN, NAME_COLUMN, INVERTED_COLUMN = 1, 2, 4
 
 def _position_words(position) -> str:
     """'x 120, y −35.5, z 8.25 mm': a position in its own unit, for a person."""
-    x, y, z = (f"{v + 0.0:.6g}".replace("-", "−") for v in position.shown())
+    x, y, z = (compact(v) for v in position.shown())
     return f"x {x}, y {y}, z {z} {position.unit}"
 
 
-class ChainPanel(QWidget):
-    def __init__(self, model: SessionModel, parent=None):
-        super().__init__(parent)
-        self.model = model
-        self._rendering = False
+class ChainPanel(Panel):
+    watches = frozenset({CHAIN, WORDS, SELECTION, ORIENTATION})
 
-        self.name_field = QLineEdit()
-        self.name_field.setToolTip("The chain's name; a mount made from its product is named after it.")
+    def __init__(self, model: SessionModel, parent=None):
+        super().__init__(model, parent)
+        self.name_field = line_field("The chain's name; a mount made from its product is named after it.")
         self.table = QTableWidget(0, len(COLUMNS))
         self.table.setHorizontalHeaderLabels(COLUMNS)
         self.table.verticalHeader().setVisible(False)
@@ -57,32 +57,26 @@ class ChainPanel(QWidget):
         self.table.horizontalHeaderItem(3).setToolTip("The step's orientation in its parent (child -> parent), "
                                                       "as axis and angle; hover a cell for every representation.")
 
-        self.up_button = QPushButton("Move up")
-        self.up_button.setToolTip("Move the step one place towards the reference.")
-        self.down_button = QPushButton("Move down")
-        self.down_button.setToolTip("Move the step one place towards the body.")
-        self.invert_button = QPushButton("Invert")
-        self.invert_button.setToolTip("Use the step's inverse (its value was given parent in child); again to undo.")
-        self.enable_button = QPushButton("Switch off")
-        self.enable_button.setToolTip("Leave the step out of the product (e.g. a spacer not fitted); again to "
-                                      "switch it back on.")
-        self.delete_button = QPushButton("Delete")
-        self.delete_button.setToolTip("Delete the step (undo brings it back).")
+        self.up_button = button("Move up", "Move the step one place towards the reference.")
+        self.down_button = button("Move down", "Move the step one place towards the body.")
+        self.invert_button = button("Invert", "Use the step's inverse (its value was given parent in child); again "
+                                              "to undo.")
+        self.enable_button = button("Switch off", "Leave the step out of the product (e.g. a spacer not fitted); "
+                                                  "again to switch it back on.")
+        self.delete_button = button("Delete", "Delete the step (undo brings it back).")
 
         entry = QGroupBox("Step orientation")
-        self.step_name = QLineEdit()
-        self.step_name.setPlaceholderText("bracket")
-        self.step_name.setToolTip("Name of a new step, e.g. the part it stands for (bracket, plate, shim).")
-        self.add_from_editors = QPushButton("Add from the editors")
-        self.add_from_editors.setToolTip("Add a step at the body end holding the orientation the editors show "
-                                         "(the selected mount's), typed there in any representation.")
-        self.set_from_editors = QPushButton("Set from the editors")
-        self.set_from_editors.setToolTip("Give the chosen step the orientation the editors show.")
+        self.step_name = line_field("Name of a new step, e.g. the part it stands for (bracket, plate, shim).",
+                                    placeholder="bracket")
+        self.add_from_editors = button("Add from the editors", "Add a step at the body end holding the orientation "
+                                                               "the editors show (the selected mount's), typed there "
+                                                               "in any representation.")
+        self.set_from_editors = button("Set from the editors", "Give the chosen step the orientation the editors "
+                                                               "show.")
         self.pasted = PastedOrientation()
-        self.add_from_text = QPushButton("Add from the text")
-        self.add_from_text.setToolTip("Add a step at the body end holding the chosen reading of the pasted text.")
-        self.set_from_text = QPushButton("Set from the text")
-        self.set_from_text.setToolTip("Give the chosen step the chosen reading of the pasted text.")
+        self.add_from_text = button("Add from the text", "Add a step at the body end holding the chosen reading of "
+                                                         "the pasted text.")
+        self.set_from_text = button("Set from the text", "Give the chosen step the chosen reading of the pasted text.")
         grid = QGridLayout(entry)
         name_row = QHBoxLayout()
         name_row.addWidget(QLabel("New step's name"))
@@ -95,18 +89,15 @@ class ChainPanel(QWidget):
         grid.addWidget(self.set_from_text, 3, 1)
 
         result = QGroupBox("Result")
-        self.product_label = plain_text.plain_label()   # names the steps
-        self.product_label.setWordWrap(True)
-        self.product_label.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
-        self.product_label.setToolTip("The product body -> reference of every step that is on, R = R1 · R2 · …, "
-                                      "and each intermediate frame: where its axes point in the reference "
-                                      "(names of the directions as chosen in the Level panel).")
+        self.product_label = reading_label("The product body -> reference of every step that is on, R = R1 · R2 · …, "
+                                           "and each intermediate frame: where its axes point in the reference "
+                                           "(names of the directions as chosen in the Level panel).")
         self.frames_box = QCheckBox("Show the frames in the Scene")
         self.frames_box.setToolTip("Draw each intermediate frame small and labelled in a row beside the part "
                                    "(the last one is the product).")
-        self.make_mount_button = QPushButton("Make the product a mount")
-        self.make_mount_button.setToolTip("Add the product to the session as a new mount, named after the chain, "
-                                          "and select it (undo removes it).")
+        self.make_mount_button = button("Make the product a mount", "Add the product to the session as a new mount, "
+                                                                    "named after the chain, and select it (undo "
+                                                                    "removes it).")
         result_layout = QVBoxLayout(result)
         result_layout.addWidget(self.product_label)
         result_layout.addWidget(self.frames_box)
@@ -144,7 +135,6 @@ class ChainPanel(QWidget):
         self.pasted.reading_changed.connect(self._update_buttons)
         self.frames_box.toggled.connect(lambda on: self.model.set_show_chain_frames(on, origin=self))
         self.make_mount_button.clicked.connect(lambda: self.model.make_chain_mount(origin=self))
-        model.changed.connect(self._on_model_changed)
         self.render()
 
     # ---- reading -----------------------------------------------------------------------------------
@@ -246,17 +236,16 @@ class ChainPanel(QWidget):
                 self.render()  # an empty name: show the kept one
 
     # ---- model -> view -------------------------------------------------------------------------------
-    def _on_model_changed(self, change: Change) -> None:
+    def render_change(self, change: Change) -> None:
         if change.touches(CHAIN, WORDS):
             self.render()
-        elif change.touches(SELECTION, ORIENTATION):
+        else:                          # the editors' orientation: what "from the editors" would take
             self._update_buttons()
 
     def render(self) -> None:
         chain = self.model.chain
         row = self.selected_row()
-        self._rendering = True
-        try:
+        with self.rendering():
             if self.name_field.text() != chain.name and not self.name_field.hasFocus():
                 self.name_field.setText(chain.name)
             self.table.setRowCount(len(chain))
@@ -287,8 +276,6 @@ class ChainPanel(QWidget):
             if row is not None and row < len(chain):
                 self.table.selectRow(row)
             self.frames_box.setChecked(self.model.show_chain_frames)
-        finally:
-            self._rendering = False
         self.product_label.setText(self._result_text())
         self._update_buttons()
 

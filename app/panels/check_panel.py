@@ -11,17 +11,18 @@ from __future__ import annotations
 
 from dataclasses import replace
 
-import numpy as np
 from PySide6.QtCore import Qt
 from PySide6.QtGui import QFont
-from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QHBoxLayout, QLabel, QLineEdit,
-                               QPushButton, QVBoxLayout, QWidget)
+from PySide6.QtWidgets import QComboBox, QFormLayout, QGroupBox, QHBoxLayout, QLabel, QVBoxLayout
 
-from app import plain_text
-from app.editors.number_field import NumberField, parse_number
 from app.model import CHECK, MOUNTS, ORIENTATION, POSITION, SELECTION, Change, SessionModel
-from core import axes, describe, operations
-from core.check import POSITION_TOLERANCE_LIMIT_MM, CheckSettings, check, check_position
+from app.panels.base import Panel
+from app.text import degrees, fixed, vector
+from app.widgets.message_line import MessageLine
+from app.widgets.number_field import NumberField, parse_number
+from app.widgets.with_tips import button, choice_box, line_field, reading_label
+from core import axes, operations
+from core.check import POSITION_TOLERANCE_LIMIT_MM, check, check_position
 from core.errors import FramewrightError
 
 PASS_STYLE = "background:#2e7d32; color:white; padding:6px 18px; border-radius:4px"
@@ -37,51 +38,23 @@ NO_AXIS = "none"
 TOLERANCE_MAX_DEG = 180.0
 
 
-def _deg(value: float) -> str:
-    text = f"{value:.3f}"
-    return ("0.000" if float(text) == 0 else text).replace("-", describe.MINUS) + "\u00b0"
+class CheckPanel(Panel):
+    watches = frozenset({CHECK, MOUNTS, ORIENTATION, SELECTION, POSITION})
 
-
-def _signed_deg(value: float) -> str:
-    text = f"{value:+.3f}"
-    if float(text) == 0:
-        text = "0.000"
-    return text.replace("-", describe.MINUS) + "\u00b0"
-
-
-def _vector(v) -> str:
-    parts = []
-    for c in np.asarray(v, dtype=float):
-        text = f"{c:.4f}"
-        parts.append(("0.0000" if float(text) == 0 else text).replace("-", describe.MINUS))
-    return "(" + ", ".join(parts) + ")"
-
-
-class CheckPanel(QWidget):
     def __init__(self, model: SessionModel, parent=None):
-        super().__init__(parent)
-        self.model = model
-        self._rendering = False
-
-        self.nominal_box = QComboBox()
-        self.nominal_box.setToolTip("The mount that holds the orientation the part should have (from the "
-                                    "drawing). It is drawn as the ghost while the measured mount is shown.")
-        self.measured_box = QComboBox()
-        self.measured_box.setToolTip("The mount that holds the orientation the part was measured to have. "
-                                     "Choosing it shows it in the Scene, with the nominal as the ghost.")
-        for box in (self.nominal_box, self.measured_box):
-            box.setSizeAdjustPolicy(QComboBox.SizeAdjustPolicy.AdjustToMinimumContentsLengthWithIcon)
-            box.setMinimumContentsLength(14)
-        self.show_button = QPushButton("Show the measured mount")
-        self.show_button.setToolTip("Select the measured mount, so the editors and the Scene show it with the "
-                                    "nominal as the ghost.")
-        self.mode_box = QComboBox()
-        for key, label in MODES:
-            self.mode_box.addItem(label, key)
-        self.mode_box.setToolTip("Total deviation: the angle of the one turn from the nominal to the measured "
-                                 "orientation (D = Nᵀ M), against one tolerance. Pointing error and roll: how "
-                                 "far the chosen body axis points off, and the turn left about that axis, each "
-                                 "against its own tolerance.")
+        super().__init__(model, parent)
+        self.nominal_box = choice_box("The mount that holds the orientation the part should have (from the "
+                                      "drawing). It is drawn as the ghost while the measured mount is shown.",
+                                      least_chars=14)
+        self.measured_box = choice_box("The mount that holds the orientation the part was measured to have. "
+                                       "Choosing it shows it in the Scene, with the nominal as the ghost.",
+                                       least_chars=14)
+        self.show_button = button("Show the measured mount", "Select the measured mount, so the editors and the "
+                                                             "Scene show it with the nominal as the ghost.")
+        self.mode_box = choice_box("Total deviation: the angle of the one turn from the nominal to the measured "
+                                   "orientation (D = Nᵀ M), against one tolerance. Pointing error and roll: how "
+                                   "far the chosen body axis points off, and the turn left about that axis, each "
+                                   "against its own tolerance.", [(label, key) for key, label in MODES])
         self.axis_box = QComboBox()
         self.axis_box.addItem("none", NO_AXIS)
         for name in axes.SIGNED_AXES:
@@ -89,10 +62,8 @@ class CheckPanel(QWidget):
         self.axis_box.addItem("typed (x, y, z)", TYPED)
         self.axis_box.setToolTip("The body axis whose pointing is judged (e.g. the boresight), in body "
                                  "coordinates. 'none' reports the total deviation only.")
-        self.axis_field = QLineEdit()
-        self.axis_field.setPlaceholderText("x, y, z")
-        self.axis_field.setToolTip("A body-frame direction as three numbers x, y, z (any length; '.' is the "
-                                   "decimal point); Enter to use it.")
+        self.axis_field = line_field("A body-frame direction as three numbers x, y, z (any length; '.' is the "
+                                     "decimal point); Enter to use it.", placeholder="x, y, z")
         self.total_field = self._tolerance_field(
             "Total deviation tolerance in degrees: the largest angle of the turn from nominal to measured that "
             "passes. A value equal to the tolerance passes.")
@@ -109,8 +80,6 @@ class CheckPanel(QWidget):
         self.position_field.set_range(0.0, POSITION_TOLERANCE_LIMIT_MM,
                                       f"0 to {POSITION_TOLERANCE_LIMIT_MM:g} mm")
         self.position_field.fit_digits(4)
-        self.message = plain_text.plain_label()   # quotes typed text
-        self.message.setWordWrap(True)
 
         choose = QGroupBox("Compare")
         form = QFormLayout(choose)
@@ -137,10 +106,7 @@ class CheckPanel(QWidget):
         position_row.addStretch(1)
         t_form.addRow("Position", position_row)
         # What is wrong with a typed tolerance is said here, under the tolerances, not under the axis.
-        self.tolerance_note = QLabel("")
-        self.tolerance_note.setWordWrap(True)
-        self.tolerance_note.setTextFormat(Qt.TextFormat.PlainText)  # it quotes what was typed
-        self.tolerance_note.setStyleSheet(plain_text.ERROR_STYLE)
+        self.tolerance_note = MessageLine()
         t_form.addRow(self.tolerance_note)
 
         result = QGroupBox("Result")
@@ -158,12 +124,9 @@ class CheckPanel(QWidget):
         self.margin_label.setFont(margin_font)
         self.margin_label.setToolTip("Margin = tolerance − value of the figure closest to failing; negative when "
                                      "it fails.")
-        self.details = plain_text.plain_label()   # names the mounts
-        self.details.setWordWrap(True)
-        self.details.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
-        self.details.setToolTip("Deviation D = Nᵀ M, written in the nominal body frame; its axis is in nominal "
-                                "body axes. Pointing error: angle between N·a and M·a. Roll: the turn about a "
-                                "left after the pointing correction (right-hand rule about a).")
+        self.details = reading_label("Deviation D = Nᵀ M, written in the nominal body frame; its axis is in nominal "
+                                     "body axes. Pointing error: angle between N·a and M·a. Roll: the turn about a "
+                                     "left after the pointing correction (right-hand rule about a).")
         self.margin_label.setWordWrap(True)
         verdict_row = QHBoxLayout()
         verdict_row.addWidget(self.verdict)
@@ -173,11 +136,8 @@ class CheckPanel(QWidget):
         result_layout.addWidget(self.margin_label)
         result_layout.addWidget(self.details)
         # After the orientation's figures: the position offset, when both mounts have a position.
-        self.position_result = plain_text.plain_label()
-        self.position_result.setWordWrap(True)
-        self.position_result.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
-        self.position_result.setToolTip("Offset of the measured origin from the nominal one: the distance, and "
-                                        "its parts along the nominal body axes, Nᵀ (t_measured − t_nominal).")
+        self.position_result = reading_label("Offset of the measured origin from the nominal one: the distance, and "
+                                             "its parts along the nominal body axes, Nᵀ (t_measured − t_nominal).")
         result_layout.addWidget(self.position_result)
 
         layout = QVBoxLayout(self)
@@ -200,7 +160,6 @@ class CheckPanel(QWidget):
                 f"{k}", min(TOLERANCE_MAX_DEG, max(0.0, round(v, 9)))))
         self.position_field.committed.connect(self._position_tolerance_typed)
         self.position_field.editingFinished.connect(self._position_tolerance_typed)
-        model.changed.connect(self._on_model_changed)
         self.render()
 
     def _position_tolerance_typed(self) -> None:
@@ -209,9 +168,9 @@ class CheckPanel(QWidget):
             value = None if not text else self.position_field.value()
         except ValueError as exc:
             self.position_field.set_problem(str(exc))
-            self.tolerance_note.setText(f"{exc} (kept the last good position tolerance)")
+            self.tolerance_note.problem(f"{exc} (kept the last good position tolerance)")
             return
-        self.tolerance_note.setText("")
+        self.tolerance_note.clear()
         self.position_field.set_problem(None)
         if value != self.model.check.settings.position_tolerance_mm:
             self.position_field.set_problem(self._set_settings("position_tolerance_mm", value))
@@ -243,9 +202,9 @@ class CheckPanel(QWidget):
         try:
             settings = replace(check_state.settings, **{key: value})
         except FramewrightError as exc:
-            plain_text.say(self.message, f"{exc} (kept the last good setting)", problem=True)
+            self.say(f"{exc} (kept the last good setting)", problem=True)
             return str(exc)
-        plain_text.say(self.message, "")
+        self.say("")
         self.model.apply(operations.set_check, replace(check_state, settings=settings), origin=self,
                          text=f"Check: {key.replace('_deg', '').replace('_', ' ')}")
         return None
@@ -260,7 +219,7 @@ class CheckPanel(QWidget):
             new = replace(settings, mode=mode, body_axis=axis)
             self.model.apply(operations.set_check, replace(self.model.check, settings=new), origin=self,
                              text="Check: pointing error and roll")
-            plain_text.say(self.message, f"Pointing needs a body axis: took the boresight, {axes.display(axis)}.")
+            self.say(f"Pointing needs a body axis: took the boresight, {axes.display(axis)}.")
             self.render()
             return
         self._set_settings("mode", mode)
@@ -273,8 +232,8 @@ class CheckPanel(QWidget):
             self.render_axis_field_only()
             return
         if choice == NO_AXIS and self.model.check.settings.mode == "pointing_and_roll":
-            plain_text.say(self.message, "Pointing error and roll need a body axis; choose one, or check by "
-                           "total deviation (kept the last axis).", problem=True)
+            self.say("Pointing error and roll need a body axis; choose one, or check by "
+                     "total deviation (kept the last axis).", problem=True)
             self.render()
             return
         self._set_settings("body_axis", None if choice == NO_AXIS else choice)
@@ -291,7 +250,7 @@ class CheckPanel(QWidget):
                 raise ValueError(f"type three numbers x, y, z for the body axis; got “{text.strip()}”")
             values = tuple(parse_number(p) for p in parts)
         except ValueError as exc:
-            plain_text.say(self.message, f"{exc} (kept the last good axis)", problem=True)
+            self.say(f"{exc} (kept the last good axis)", problem=True)
             return
         self._set_settings("body_axis", values)
 
@@ -300,23 +259,27 @@ class CheckPanel(QWidget):
             value = field.value()
         except ValueError as exc:
             field.set_problem(str(exc))
-            self.tolerance_note.setText(f"{exc} (kept the last good tolerance)")
+            self.tolerance_note.problem(f"{exc} (kept the last good tolerance)")
             return
-        self.tolerance_note.setText("")
+        self.tolerance_note.clear()
         if value == getattr(self.model.check.settings, key):
             field.set_problem(None)
             return
         field.set_problem(self._set_settings(key, value))
 
     # ---- model -> view -----------------------------------------------------------------------------
-    def _on_model_changed(self, change: Change) -> None:
+    def render_change(self, change: Change) -> None:
         if change.touches(CHECK, MOUNTS):
             self.render()
-        elif change.touches(ORIENTATION, SELECTION, POSITION):
+        else:                          # the orientations or positions compared: the result only
             self._render_result()
 
     def render(self) -> None:
-        self._rendering = True
+        with self.rendering():
+            self._render_choices()
+        self._render_result()
+
+    def _render_choices(self) -> None:
         state = self.model.check
         settings = state.settings
         for box, name in ((self.nominal_box, state.nominal), (self.measured_box, state.measured)):
@@ -350,8 +313,6 @@ class CheckPanel(QWidget):
         if not self.position_field.hasFocus() or self.position_field.problem is None:
             tolerance = settings.position_tolerance_mm
             self.position_field.set_text("" if tolerance is None else f"{tolerance:g}")
-        self._rendering = False
-        self._render_result()
 
     def _render_result(self) -> None:
         nominal, measured = self.model.check_mount_indices()
@@ -370,26 +331,27 @@ class CheckPanel(QWidget):
         self.position_result.setText(self._position_words(offset, mounts[nominal], mounts[measured], settings))
         deciding = min(result.criteria, key=lambda c: c.margin_deg)
         self.margin_label.setText(
-            f"Margin {_signed_deg(result.margin_deg)}: {deciding.name} {_deg(deciding.value_deg)} "
-            f"{'within' if deciding.passed else 'exceeds'} {_deg(deciding.tolerance_deg)}")
+            f"Margin {degrees(result.margin_deg, signed=True)}: {deciding.name} {degrees(deciding.value_deg)} "
+            f"{'within' if deciding.passed else 'exceeds'} {degrees(deciding.tolerance_deg)}")
         lines = []
         if nominal == measured:
             lines.append("The nominal and the measured are the same mount.")
         if result.total_deg == 0:
             lines.append("Total deviation: 0.000° (the orientations are the same)")
         else:
-            lines.append(f"Total deviation: {_deg(result.total_deg)}, about {_vector(result.axis)} "
+            lines.append(f"Total deviation: {degrees(result.total_deg)}, about {vector(result.axis)} "
                          "in the nominal body axes")
         if result.body_axis is not None:
             name = axes.axis_name(settings.body_axis) if isinstance(settings.body_axis, str) else None
-            axis = axes.display(name) if name else _vector(result.body_axis)
-            lines.append(f"Pointing error of body {axis}: {_deg(result.pointing_deg)}")
-            roll = _signed_deg(result.roll_deg) if result.roll_defined else "undefined (the axis points backwards)"
+            axis = axes.display(name) if name else vector(result.body_axis)
+            lines.append(f"Pointing error of body {axis}: {degrees(result.pointing_deg)}")
+            roll = (degrees(result.roll_deg, signed=True) if result.roll_defined
+                    else "undefined (the axis points backwards)")
             lines.append(f"Roll about body {axis}: {roll}")
         for c in result.criteria:
             verdict = "within" if c.passed else "exceeds"
-            lines.append(f"• {c.name}: {_deg(c.value_deg)} {verdict} its tolerance {_deg(c.tolerance_deg)}, "
-                         f"margin {_signed_deg(c.margin_deg)}")
+            lines.append(f"• {c.name}: {degrees(c.value_deg)} {verdict} its tolerance {degrees(c.tolerance_deg)}, "
+                         f"margin {degrees(c.margin_deg, signed=True)}")
         lines.extend(result.notes)
         self.details.setText("\n".join(lines))
 
@@ -401,12 +363,12 @@ class CheckPanel(QWidget):
             missing = " and ".join(m for m, mount in (("nominal", nominal), ("measured", measured))
                                    if mount.position is None)
             return f"Position not judged: the {missing} mount has no position."
-        x, y, z = (f"{v + 0.0:+.3f}".replace("-", "−") for v in offset.along_nominal_mm)
+        x, y, z = (fixed(v, 3, signed=True) for v in offset.along_nominal_mm)
         along = f"along the nominal body axes x {x}, y {y}, z {z} mm"
         if offset.tolerance_mm is None:
             return f"Position offset {offset.distance_mm:.3f} mm, {along} (not judged: no position tolerance)."
         word = "within" if offset.passed else "exceeds"
-        margin = f"{offset.margin_mm + 0.0:+.3f}".replace("-", "−")
+        margin = fixed(offset.margin_mm, 3, signed=True)
         return (f"Position {'PASS' if offset.passed else 'FAIL'}: offset {offset.distance_mm:.3f} mm {word} "
                 f"{offset.tolerance_mm:.3f} mm (margin {margin} mm), {along}.")
 

@@ -4,12 +4,14 @@ from __future__ import annotations
 
 from PySide6.QtCore import QObject, QRunnable, Qt, QThreadPool, QTimer, Signal
 from PySide6.QtGui import QGuiApplication, QPalette
-from PySide6.QtWidgets import (QComboBox, QHBoxLayout, QLabel, QListWidget, QListWidgetItem, QPlainTextEdit,
-                               QPushButton, QVBoxLayout, QWidget)
+from PySide6.QtWidgets import QComboBox, QHBoxLayout, QListWidget, QListWidgetItem, QPlainTextEdit, QVBoxLayout, QWidget
 
 from app import plain_text
 from app.model import PREFERENCES, SessionModel
+from app.panels.base import Panel
 from app.panels import reading_rows
+from app.text import numbers
+from app.widgets.with_tips import button
 from core.errors import FramewrightError
 from core.position import LENGTH_UNITS, Position
 
@@ -52,10 +54,11 @@ def _decode_or_error(text: str):
         return exc
 
 
-class DecodePanel(QWidget):
+class DecodePanel(Panel):
+    watches = frozenset({PREFERENCES})   # new digits, angle unit or sequence: the readings are spelled again
+
     def __init__(self, model: SessionModel, parent=None):
-        super().__init__(parent)
-        self.model = model
+        super().__init__(model, parent)
         self.readings: list = []
         self._shared_notes: list[str] = []     # notes every reading carries: said once, in the message
         self.paste_box = QPlainTextEdit()
@@ -64,20 +67,16 @@ class DecodePanel(QWidget):
         self.paste_box.setToolTip("Text to decode. '.' is the decimal point; the Unicode minus, en dash and "
                                   "non-breaking spaces are accepted.")
         self.paste_box.setMaximumHeight(120)
-        self.read_button = QPushButton("Read")
-        self.read_button.setToolTip("List every plausible reading of the text, most likely first.")
-        self.paste_button = QPushButton("Paste")
-        self.paste_button.setToolTip("Replace the text with the clipboard and read it.")
-        self.message = plain_text.plain_label()
-        self.message.setWordWrap(True)
+        self.read_button = button("Read", "List every plausible reading of the text, most likely first.")
+        self.paste_button = button("Paste", "Replace the text with the clipboard and read it.")
         self.list = QListWidget()
         self.list.setWordWrap(True)
         self.list.setSpacing(2)
         self.list.setAlternatingRowColors(True)
         self.list.setToolTip("Readings of the text, most plausible first. Double-click or Apply to use one "
                              "(undo takes it back).")
-        self.apply_button = QPushButton("Apply reading")
-        self.apply_button.setToolTip("Set the selected mount's orientation to the chosen reading (undoable).")
+        self.apply_button = button("Apply reading", "Set the selected mount's orientation to the chosen reading "
+                                                    "(undoable).")
         self.apply_button.setEnabled(False)
         # A translation without a unit in the text: the person says which unit it is before Apply.
         self.unit_label = plain_text.plain_label()
@@ -122,7 +121,6 @@ class DecodePanel(QWidget):
         self.list.itemDoubleClicked.connect(lambda *_: self.apply_selected())
         self.list.currentItemChanged.connect(lambda *_: self._reading_chosen())
         self.unit_box.activated.connect(lambda *_: self._reading_chosen())
-        model.changed.connect(self._on_model_changed)
 
     def paste_from_clipboard(self) -> None:
         self.set_text(QGuiApplication.clipboard().text())
@@ -140,27 +138,27 @@ class DecodePanel(QWidget):
         self.apply_button.setEnabled(False)
         self._generation += 1
         if not text.strip():
-            plain_text.say(self.message, "")
+            self.say("")
             return
         if len(text) <= _READ_AT_ONCE_CHARS:
             self._show(self._generation, _decode_or_error(text))
             return
-        plain_text.say(self.message, "Reading…")
+        self.say("Reading…")
         QThreadPool.globalInstance().start(_DecodeJob(text, self._generation, self._relay))
 
     def _show(self, generation: int, result) -> None:
         if generation != self._generation:
             return                      # the text changed while this was read
         if isinstance(result, FramewrightError):
-            plain_text.say(self.message, f"Cannot read this: {result}", problem=True)
+            self.say(f"Cannot read this: {result}", problem=True)
             return
         if isinstance(result, Exception):
-            plain_text.say(self.message, f"Cannot read this: an internal error ({type(result).__name__})",
-                           problem=True)
+            self.say(f"Cannot read this: an internal error ({type(result).__name__})",
+                     problem=True)
             return
         self.readings = result
         if not self.readings:
-            plain_text.say(self.message, "No reading of this text is a valid orientation.")
+            self.say("No reading of this text is a valid orientation.")
             return
         plural = "s" if len(self.readings) != 1 else ""
         names = len({r.name for r in self.readings if r.name is not None})
@@ -168,7 +166,7 @@ class DecodePanel(QWidget):
         self._shared_notes = reading_rows.shared_notes(self.readings)
         # the message wraps: a note about the whole text may take two lines there before it is cut
         about = "".join(f"\n{reading_rows.elided(note, 2 * reading_rows.NOTE_CHARS)}" for note in self._shared_notes)
-        plain_text.say(self.message, f"{len(self.readings)} reading{plural}{found}, most plausible first.{about}")
+        self.say(f"{len(self.readings)} reading{plural}{found}, most plausible first.{about}")
         self.message.setToolTip(plain_text.plain_tip("\n".join(self._shared_notes)) if self._shared_notes else "")
         self._render_list()
         self._select_reading(0)
@@ -214,9 +212,8 @@ class DecodePanel(QWidget):
                 self.list.setCurrentRow(row)
                 return
 
-    def _on_model_changed(self, change) -> None:
-        """New digits, angle unit or sequence: the readings' results are spelled again."""
-        if change.touches(PREFERENCES) and self.readings:
+    def render(self) -> None:
+        if self.readings:
             reading = self._current_reading()
             self._render_list()
             self._select_reading(self.readings.index(reading) if reading is not None else 0)
@@ -234,8 +231,8 @@ class DecodePanel(QWidget):
         reading = self._current_reading()
         needs_unit = reading is not None and self._needs_unit(reading)
         if needs_unit:
-            numbers = reading_rows.translation_words(reading, self.model.preferences.significant_digits)
-            plain_text.say(self.unit_label, f"Translation {numbers}: the text gives no unit.")
+            spelled = reading_rows.translation_words(reading, self.model.preferences.significant_digits)
+            plain_text.say(self.unit_label, f"Translation {spelled}: the text gives no unit.")
         else:
             self.unit_box.setCurrentIndex(0)
         self.unit_row.setVisible(needs_unit)
@@ -267,12 +264,12 @@ class DecodePanel(QWidget):
         try:
             position, how = self._position_of(reading)
         except FramewrightError as exc:
-            plain_text.say(self.message, f"Not applied: {exc}. The mount is unchanged.", problem=True)
+            self.say(f"Not applied: {exc}. The mount is unchanged.", problem=True)
             return
         if position is None:
             self.model.set_orientation(reading.orientation, origin=self, text=text)
-            plain_text.say(self.message, f"Applied: {reading.label}.")
+            self.say(f"Applied: {reading.label}.")
             return
         self.model.apply_pose(reading.orientation, position, text=text, origin=self)
-        numbers = reading_rows.numbers_words(reading.translation, self.model.preferences.significant_digits)
-        plain_text.say(self.message, f"Applied: {reading.label}; translation {numbers} {how}.")
+        spelled = numbers(reading.translation, self.model.preferences.significant_digits)
+        self.say(f"Applied: {reading.label}; translation {spelled} {how}.")

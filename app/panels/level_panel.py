@@ -9,14 +9,15 @@ from __future__ import annotations
 
 import numpy as np
 from PySide6.QtCore import Qt
-from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QHBoxLayout, QHeaderView, QLabel, QLineEdit,
-                               QTableWidget, QTableWidgetItem, QVBoxLayout, QWidget)
+from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QHBoxLayout, QHeaderView, QLabel,
+                               QTableWidget, QTableWidgetItem, QVBoxLayout)
 
-from app import plain_text
-from app.editors.number_field import parse_number
 from app.model import MOUNTS, ORIENTATION, SELECTION, WORDS, Change, SessionModel
+from app.panels.base import Panel
 from app.panels.level_words import WordsBox
-from app.panels.render_when_seen import RendersWhenSeen
+from app.text import degrees, vector
+from app.widgets.number_field import parse_number
+from app.widgets.with_tips import line_field
 from core import axes, describe
 from core.errors import FramewrightError
 from core.level import DEFAULT_IN_FACE, FACES, inclinometer_reading, level_readings
@@ -38,17 +39,11 @@ FACE_TIPS = (
 )
 
 
-def _deg(value: float, decimals: int = 3) -> str:
-    text = f"{value:.{decimals}f}"
-    if float(text) == 0:
-        text = text.lstrip("-")
-    return text.replace("-", describe.MINUS) + "\u00b0"
+class LevelPanel(Panel):
+    watches = frozenset({ORIENTATION, SELECTION, MOUNTS, WORDS})
 
-
-class LevelPanel(RendersWhenSeen, QWidget):
     def __init__(self, model: SessionModel, parent=None):
-        super().__init__(parent)
-        self.model = model
+        super().__init__(model, parent)
         self._down = np.array(describe.gravity_direction(model.reference_frame))
 
         self.words = WordsBox(model)
@@ -61,13 +56,9 @@ class LevelPanel(RendersWhenSeen, QWidget):
         self.gravity_box.addItem("typed (x, y, z)", TYPED)
         self.gravity_box.setToolTip("The reference direction gravity points along (straight down). −Z when the "
                                     "reference Z is up (a bench, ENU); +Z in NED.")
-        self.gravity_field = QLineEdit()
-        self.gravity_field.setPlaceholderText("x, y, z")
-        self.gravity_field.setToolTip("Gravity as a reference-frame direction x, y, z (any length; '.' is the "
-                                      "decimal point); Enter to use it.")
+        self.gravity_field = line_field("Gravity as a reference-frame direction x, y, z (any length; '.' is the "
+                                        "decimal point); Enter to use it.", placeholder="x, y, z")
         self.gravity_field.setEnabled(False)
-        self.message = plain_text.plain_label()
-        self.message.setWordWrap(True)
 
         self.faces = QTableWidget(len(FACES), len(FACE_COLUMNS))
         self.faces.setHorizontalHeaderLabels(FACE_COLUMNS)
@@ -130,7 +121,6 @@ class LevelPanel(RendersWhenSeen, QWidget):
         self.gravity_field.returnPressed.connect(self._gravity_typed)
         self.face_box.activated.connect(self._face_picked)
         self.direction_box.activated.connect(lambda *_: self.render())
-        model.changed.connect(self._on_model_changed)
         self.face_box.setCurrentIndex(self.face_box.findData("+Z"))
         self._fill_directions()
         self._size_table()
@@ -143,10 +133,14 @@ class LevelPanel(RendersWhenSeen, QWidget):
         return self._down.copy()
 
     def set_down(self, down) -> None:
-        vector = np.asarray(down, dtype=float)
-        if vector.shape != (3,) or not np.all(np.isfinite(vector)) or np.linalg.norm(vector) == 0:
+        self._take_down(down)
+        self.render_when_seen()
+
+    def _take_down(self, down) -> None:
+        direction = np.asarray(down, dtype=float)
+        if direction.shape != (3,) or not np.all(np.isfinite(direction)) or np.linalg.norm(direction) == 0:
             raise ValueError("gravity needs three finite numbers, not all zero")
-        self._down = vector / np.linalg.norm(vector)
+        self._down = direction / np.linalg.norm(direction)
         for i in range(self.gravity_box.count()):
             data = self.gravity_box.itemData(i)
             if data != TYPED and np.allclose(data, self._down, atol=0, rtol=0):
@@ -156,7 +150,6 @@ class LevelPanel(RendersWhenSeen, QWidget):
             self.gravity_box.setCurrentIndex(self.gravity_box.findData(TYPED))
             self.gravity_field.setText(", ".join(f"{c:g}" for c in self._down))
         self.gravity_field.setEnabled(self.gravity_box.currentData() == TYPED)
-        self.render()
 
     def _gravity_chosen(self, index: int) -> None:
         data = self.gravity_box.itemData(index)
@@ -164,7 +157,7 @@ class LevelPanel(RendersWhenSeen, QWidget):
         if data == TYPED:
             self.gravity_field.setFocus()
             return
-        plain_text.say(self.message, "")
+        self.say("")
         self.set_down(data)
 
     def _gravity_typed(self) -> None:
@@ -175,9 +168,9 @@ class LevelPanel(RendersWhenSeen, QWidget):
                 raise ValueError(f"type three numbers x, y, z for gravity; got “{text.strip()}”")
             self.set_down([parse_number(p) for p in parts])
         except ValueError as exc:
-            plain_text.say(self.message, f"{exc} (kept the last good direction)", problem=True)
+            self.say(f"{exc} (kept the last good direction)", problem=True)
             return
-        plain_text.say(self.message, "")
+        self.say("")
 
     def _face_picked(self, *_) -> None:
         self._face_chosen = True
@@ -201,23 +194,21 @@ class LevelPanel(RendersWhenSeen, QWidget):
         self.faces.setFixedHeight(height + 2 * self.faces.frameWidth() + 2)
 
     # ---- model -> view -----------------------------------------------------------------------------
-    def _on_model_changed(self, change: Change) -> None:
+    def follow(self, change: Change) -> None:
         if change.touches(WORDS):   # the reference frame was named anew: gravity is its "down"
-            self.set_down(describe.gravity_direction(self.model.reference_frame))
-        elif change.touches(ORIENTATION, SELECTION, MOUNTS):
-            self.render_when_seen()
+            self._take_down(describe.gravity_direction(self.model.reference_frame))
 
     def render(self) -> None:
         mount = self.model.current_mount()
         try:
             report = level_readings(mount.orientation, self._down)
         except FramewrightError as exc:  # cannot happen with a checked direction; never a blank panel
-            plain_text.say(self.message, f"{exc}", problem=True)
+            self.say(f"{exc}", problem=True)
             return
         names = mount.part.face_names
         for row, reading in enumerate(report.faces):
-            cells = (axes.display(reading.face), names.get(reading.face, ""), _deg(reading.tilt_deg),
-                     _deg(reading.off_plumb_deg), reading.facing)
+            cells = (axes.display(reading.face), names.get(reading.face, ""), degrees(reading.tilt_deg),
+                     degrees(reading.off_plumb_deg), reading.facing)
             for column, text in enumerate(cells):
                 item = self.faces.item(row, column)
                 if item is None:
@@ -228,10 +219,10 @@ class LevelPanel(RendersWhenSeen, QWidget):
                 item.setText(text)
                 tip = FACE_TIPS[column]
                 if column == 2:
-                    tip += f"\nNormal {_deg(reading.from_up_deg)} from straight up."
+                    tip += f"\nNormal {degrees(reading.from_up_deg)} from straight up."
                 item.setToolTip(tip)
         self.up_label.setText(f"Up: face {axes.display(report.up_face)}; down: face {axes.display(report.down_face)}.")
-        self.elevations.setText("    ".join(f"{axes.display(a.axis)}  {_deg(a.elevation_deg)}" for a in report.axes))
+        self.elevations.setText("    ".join(f"{axes.display(a.axis)}  {degrees(a.elevation_deg)}" for a in report.axes))
         if not self._face_chosen and self.face_box.currentData() != report.up_face:
             self.face_box.setCurrentIndex(self.face_box.findData(report.up_face))
             self._fill_directions()
@@ -239,9 +230,9 @@ class LevelPanel(RendersWhenSeen, QWidget):
                                        self.direction_box.currentData(), self._down)
         x, y = reading.direction, reading.cross_direction
         self.incline_label.setText(
-            f"x along body {_vec(x)}: {_deg(reading.along_deg)}\n"
-            f"y along body {_vec(y)}: {_deg(reading.across_deg)}\n"
-            f"face {axes.display(reading.face)}: normal {_deg(reading.tilt_deg)} from straight up"
+            f"x along body {_vec(x)}: {degrees(reading.along_deg)}\n"
+            f"y along body {_vec(y)}: {degrees(reading.across_deg)}\n"
+            f"face {axes.display(reading.face)}: normal {degrees(reading.tilt_deg)} from straight up"
             + "".join(f"\n{n}" for n in reading.notes))
 
 
@@ -250,4 +241,4 @@ def _vec(v) -> str:
     name = axes.name_of_vector(v, atol=1e-12, rtol=1e-5)   # near enough: v comes out of a projection
     if name:
         return axes.display(name)
-    return "(" + ", ".join(f"{c:.3f}" for c in v) + ")"
+    return vector(v, 3)

@@ -6,8 +6,8 @@ from __future__ import annotations
 from PySide6.QtCore import Qt
 from PySide6.QtWidgets import QComboBox, QGroupBox, QHBoxLayout, QLabel, QPushButton, QVBoxLayout
 
-from app.model import ORIENTATION, SELECTION, WORDS, Change, SessionModel
-from app.panels.render_when_seen import RendersWhenSeen
+from app.model import ORIENTATION, SELECTION, WORDS, SessionModel
+from app.panels.base import FollowsModel
 from core import describe
 
 
@@ -20,10 +20,12 @@ def residual_text(residual_deg: float) -> str:
     return f"{residual_deg:.3f}\u00b0"
 
 
-class WordsBox(RendersWhenSeen, QGroupBox):
+class WordsBox(FollowsModel, QGroupBox):
+    watches = frozenset({ORIENTATION, SELECTION, WORDS})
+
     def __init__(self, model: SessionModel, parent=None):
         super().__init__("Where the axes point", parent)
-        self.model = model
+        self.follow_model(model)
         self.preset_box = QComboBox()
         for key, preset in describe.FRAME_PRESETS.items():
             self.preset_box.addItem(preset.title, key)
@@ -57,12 +59,7 @@ class WordsBox(RendersWhenSeen, QGroupBox):
         self.preset_box.activated.connect(
             lambda i: self.model.set_reference_frame(self.preset_box.itemData(i), origin=self))
         self.snap_button.clicked.connect(lambda: self.model.snap_to_right_angle(origin=self))
-        model.changed.connect(self._on_model_changed)
         self.render()
-
-    def _on_model_changed(self, change: Change) -> None:
-        if change.touches(ORIENTATION, SELECTION, WORDS):
-            self.render_when_seen()
 
     def render(self) -> None:
         orientation = self.model.current_orientation()

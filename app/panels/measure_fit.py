@@ -7,7 +7,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from app.editors.number_field import format_number
+from app.text import numbers, significant
 from core.direction_fit import fit_directions, triad
 from core.fit import FitRefusedError, fit_points, frame_from_three_points
 from core.kernels import unit_vectors
@@ -89,11 +89,11 @@ def fit_direction_rows(values: np.ndarray, weights: np.ndarray | None, rows: lis
 
 def _short(value) -> str:
     """Four significant digits; round-off (below 1e-7) shows as 0."""
-    return format_number(float(value), 4)
+    return significant(value, 4)
 
 
 def _vector(values, digits) -> str:
-    return "[" + ", ".join(format_number(float(v), digits) for v in values) + "]"
+    return "[" + numbers(values, digits) + "]"
 
 
 def orientation_lines(orientation: Orientation, digits: int = 9, sequence: str = "ZYX",
@@ -103,8 +103,8 @@ def orientation_lines(orientation: Orientation, digits: int = 9, sequence: str =
     w, x, y, z = orientation.as_quaternion()
     angles = orientation.as_angles(sequence, intrinsic)
     kind = "intrinsic" if intrinsic else "extrinsic"
-    lines = [f"Axis & angle: {format_number(angle, digits)}° about {_vector(axis, digits)}"
-             if format_number(angle, digits) != "0" else "Axis & angle: 0° (no rotation from the reference)",
+    lines = [f"Axis & angle: {significant(angle, digits)}° about {_vector(axis, digits)}"
+             if significant(angle, digits) != "0" else "Axis & angle: 0° (no rotation from the reference)",
              f"Quaternion (w, x, y, z): {_vector((w, x, y, z), digits)}",
              f"Angles {angles.sequence} {kind} (°): {_vector(angles.angles, digits)}"
              + (" — gimbal lock: only the first and third together are known" if angles.locked else ""),

@@ -12,15 +12,16 @@ from pathlib import Path
 import numpy as np
 from PySide6.QtCore import Signal
 from PySide6.QtGui import QFontDatabase, QGuiApplication
-from PySide6.QtWidgets import (QComboBox, QHBoxLayout, QLabel, QLineEdit, QPlainTextEdit,
-                               QPushButton, QStackedWidget, QVBoxLayout, QWidget)
+from PySide6.QtWidgets import QHBoxLayout, QLabel, QPlainTextEdit, QStackedWidget, QVBoxLayout
 
-from app import dialog_folder, plain_text
+from app import dialog_folder
 from app.model import MOUNTS, PREFERENCES, SELECTION, SESSION, Change, SessionModel
+from app.panels.base import Panel
 from app.panels.measure_fit import (DIRECTIONS, POINTS, THREE_POINTS, MeasuredFit, fit_direction_rows,
                                     fit_point_rows, fit_three_points, result_lines, row_outputs)
 from app.panels.measure_rows import RowsError, rows_from_csv
 from app.panels.measure_table import MeasureTable, TableInputError
+from app.widgets.with_tips import button, choice_box, line_field
 from core import operations
 from core.errors import FramewrightError
 from core.point_rows import DIRECTION_COLUMNS, POINT_COLUMNS, THREE_POINT_COLUMNS, THREE_POINT_ROWS
@@ -38,23 +39,20 @@ METHODS = [
 ]
 
 
-class MeasurePanel(QWidget):
+class MeasurePanel(Panel):
     fit_changed = Signal(object)  # a MeasuredFit, or None when there is no valid fit
+    watches = frozenset({MOUNTS, PREFERENCES})
 
     def __init__(self, model: SessionModel, parent=None):
-        super().__init__(parent)
-        self.model = model
+        super().__init__(model, parent)
         self.last_fit: MeasuredFit | None = None
         self._fit_mount = None   # the name of the mount selected when the fit was made: the Scene shows it on that one only
 
-        self.method = QComboBox()
-        for key, label, help_text in METHODS:
-            self.method.addItem(label, key)
-        self.method.setToolTip("How the orientation is found from the measurements.")
-        self.unit = QComboBox()
-        self.unit.addItems(["mm", "in", "m"])
-        self.unit.setToolTip("The length unit of every point (nominal and measured alike). It only labels "
-                             "the residuals: the orientation does not depend on it.")
+        self.method = choice_box("How the orientation is found from the measurements.",
+                                 [(label, key) for key, label, _ in METHODS])
+        self.unit = choice_box("The length unit of every point (nominal and measured alike). It only labels "
+                               "the residuals: the orientation does not depend on it.",
+                               [(unit, None) for unit in ("mm", "in", "m")])
         self.help = QLabel()
         self.help.setWordWrap(True)
 
@@ -65,40 +63,32 @@ class MeasurePanel(QWidget):
         for table in self.tables.values():
             self.stack.addWidget(table)
             table.inputs_edited.connect(self._inputs_edited)
-            table.problem.connect(self._show_problem)
+            table.problem.connect(self.problem)
 
-        self.add_button = QPushButton("Add row")
-        self.add_button.setToolTip("Add an empty row at the end of the table.")
-        self.remove_button = QPushButton("Remove rows")
-        self.remove_button.setToolTip("Remove the selected rows.")
-        self.paste_button = QPushButton("Paste rows")
-        self.paste_button.setToolTip("Paste rows copied from a spreadsheet (tab-, comma- or space-separated, "
-                                     "one row per line) at the current cell; Ctrl+V in the table does the same.")
-        self.import_button = QPushButton("Import CSV…")
-        self.import_button.setToolTip("Replace the table with the rows of a CSV file whose first row names "
-                                      "the columns (hover the column titles for the names accepted).")
-        self.clear_button = QPushButton("Clear")
-        self.clear_button.setToolTip("Empty every cell of this table.")
-        self.fit_button = QPushButton("Fit")
-        self.fit_button.setToolTip("Find the orientation from the rows of this table.")
+        self.add_button = button("Add row", "Add an empty row at the end of the table.")
+        self.remove_button = button("Remove rows", "Remove the selected rows.")
+        self.paste_button = button("Paste rows", "Paste rows copied from a spreadsheet (tab-, comma- or "
+                                                 "space-separated, one row per line) at the current cell; Ctrl+V in "
+                                                 "the table does the same.")
+        self.import_button = button("Import CSV…", "Replace the table with the rows of a CSV file whose first row "
+                                                   "names the columns (hover the column titles for the names "
+                                                   "accepted).")
+        self.clear_button = button("Clear", "Empty every cell of this table.")
+        self.fit_button = button("Fit", "Find the orientation from the rows of this table.")
         self.fit_button.setDefault(True)
 
-        self.message = plain_text.plain_label()
-        self.message.setWordWrap(True)
         self.result_text = QPlainTextEdit()
         self.result_text.setReadOnly(True)
         self.result_text.setFont(QFontDatabase.systemFont(QFontDatabase.SystemFont.FixedFont))
         self.result_text.setToolTip("The fitted orientation (body → reference), its quality figures and "
                                     "notes. Angles in degrees.")
         self.result_text.setMinimumHeight(self.fontMetrics().height() * 15)
-        self.mount_name = QLineEdit()
-        self.mount_name.setToolTip("Name of the new mount (blank: the suggested name).")
-        self.make_mount_button = QPushButton("Make mount")
-        self.make_mount_button.setToolTip("Add the fitted orientation to the session as a new mount "
-                                          "(undoable). The Check panel can use it as the measured side.")
+        self.mount_name = line_field("Name of the new mount (blank: the suggested name).")
+        self.make_mount_button = button("Make mount", "Add the fitted orientation to the session as a new mount "
+                                                      "(undoable). The Check panel can use it as the measured side.")
         self.make_mount_button.setEnabled(False)
-        self.use_uncertainty_button = QPushButton("Use its uncertainty in the check")
-        self.use_uncertainty_button.setToolTip(
+        self.use_uncertainty_button = button(
+            "Use its uncertainty in the check",
             "Set the check's standard uncertainty (Adjust tab, ISO 14253-1 decision) to the fit's largest "
             "standard uncertainty: no figure of the check spreads more than that (one undo step).")
         self.use_uncertainty_button.setEnabled(False)
@@ -114,12 +104,12 @@ class MeasurePanel(QWidget):
         layout.addWidget(self.stack, 1)
         # Two short rows of buttons, Fit on the first, so it is in reach in a narrow side area.
         buttons, more = QHBoxLayout(), QHBoxLayout()
-        for button in (self.add_button, self.remove_button, self.paste_button):
-            buttons.addWidget(button)
+        for control in (self.add_button, self.remove_button, self.paste_button):
+            buttons.addWidget(control)
         buttons.addStretch(1)
         buttons.addWidget(self.fit_button)
-        for button in (self.import_button, self.clear_button):
-            more.addWidget(button)
+        for control in (self.import_button, self.clear_button):
+            more.addWidget(control)
         more.addStretch(1)
         layout.addLayout(buttons)
         layout.addLayout(more)
@@ -142,9 +132,8 @@ class MeasurePanel(QWidget):
         self.fit_button.clicked.connect(self.fit)
         self.make_mount_button.clicked.connect(self.make_mount)
         self.use_uncertainty_button.clicked.connect(self.use_uncertainty)
-        self.model.changed.connect(self._model_changed)
         self._method_changed()
-        self._suggest_name()
+        self.render()
 
     # ---- reading the panel ------------------------------------------------------------------------
     def current_method(self) -> str:
@@ -162,9 +151,9 @@ class MeasurePanel(QWidget):
         try:
             rows = table.paste_text(QGuiApplication.clipboard().text())
         except RowsError as exc:
-            self._show_problem(f"Paste refused, the table is unchanged: {exc}")
+            self.problem(f"Paste refused, the table is unchanged: {exc}")
             return
-        self._show_info(f"Pasted {len(rows.values)} row(s)." + "".join(f" {n}." for n in rows.notes[:3]))
+        self.say(f"Pasted {len(rows.values)} row(s)." + "".join(f" {n}." for n in rows.notes[:3]))
 
     def import_csv(self, path: str | None = None) -> None:
         if path is None:
@@ -177,13 +166,13 @@ class MeasurePanel(QWidget):
             rows = rows_from_csv(text, [table.columns[c] for c in table.inputs])
             table.replace_all(rows)
         except (OSError, UnicodeDecodeError) as exc:
-            self._show_problem(f"Cannot read {Path(path).name}: {exc}")
+            self.problem(f"Cannot read {Path(path).name}: {exc}")
             return
         except RowsError as exc:
-            self._show_problem(f"{Path(path).name} refused, the table is unchanged: {exc}")
+            self.problem(f"{Path(path).name} refused, the table is unchanged: {exc}")
             return
-        self._show_info(f"Imported {len(rows.values)} row(s) from {Path(path).name}."
-                        + "".join(f" {n}." for n in rows.notes))
+        self.say(f"Imported {len(rows.values)} row(s) from {Path(path).name}."
+                 + "".join(f" {n}." for n in rows.notes))
 
     def fit(self) -> None:
         """Fit the current table; a refusal says why and leaves every typed cell as it was."""
@@ -211,7 +200,7 @@ class MeasurePanel(QWidget):
         table.show_outputs(list(result.rows), texts, marked)
         self._render_result()
         flagged = len(result.flagged)
-        self._show_info("Fitted." + (f" {flagged} row(s) flagged: look at them again." if flagged else ""))
+        self.say("Fitted." + (f" {flagged} row(s) flagged: look at them again." if flagged else ""))
         self.make_mount_button.setEnabled(True)
         self.use_uncertainty_button.setEnabled(result.uncertainty_deg is not None)
         self._fit_mount = self.model.current_mount().name
@@ -226,25 +215,25 @@ class MeasurePanel(QWidget):
         check = self.model.check
         _, measured = self.model.check_mount_indices()
         if measured is None:
-            self._show_problem("Choose the check's measured mount in the Check panel first; the uncertainty "
-                               "belongs to it.")
+            self.problem("Choose the check's measured mount in the Check panel first; the uncertainty "
+                         "belongs to it.")
             return
         try:
             adjustment = replace(check.adjustment, uncertainty_deg=float(fit.uncertainty_deg))
         except FramewrightError as error:
-            self._show_problem(f"{error} (the check is unchanged)")
+            self.problem(f"{error} (the check is unchanged)")
             return
         self.model.apply(operations.set_check, replace(check, adjustment=adjustment), origin=self,
                          text="Measure: the check's uncertainty from the fit")
-        self._show_info(f"The check's standard uncertainty is now {fit.uncertainty_deg:.4g}°, the fit's largest; "
-                        f"it applies to the measured mount “{self.model.mounts[measured].name}” (Undo takes it back).")
+        self.say(f"The check's standard uncertainty is now {fit.uncertainty_deg:.4g}°, the fit's largest; "
+                 f"it applies to the measured mount “{self.model.mounts[measured].name}” (Undo takes it back).")
 
     def make_mount(self) -> None:
         if self.last_fit is None:
             return
         name = self.mount_name.text().strip() or self.mount_name.placeholderText()
         self.model.add_mount(self.model.unused_name(name), self.last_fit.orientation, origin=self)
-        self._show_info(f"Mount “{self.model.mounts[-1].name}” made from the fit (Undo takes it back).")
+        self.say(f"Mount “{self.model.mounts[-1].name}” made from the fit (Undo takes it back).")
         self.mount_name.clear()
 
     # ---- rendering --------------------------------------------------------------------------------
@@ -258,7 +247,7 @@ class MeasurePanel(QWidget):
 
     def _refuse(self, text: str) -> None:
         self._forget_fit()
-        self._show_problem(text)
+        self.problem(text)
 
     def _forget_fit(self) -> None:
         had_fit = self.last_fit is not None
@@ -269,17 +258,11 @@ class MeasurePanel(QWidget):
         if had_fit:
             self.fit_changed.emit(None)
 
-    def _show_problem(self, text: str) -> None:
-        plain_text.say(self.message, text, problem=True)
-
-    def _show_info(self, text: str) -> None:
-        plain_text.say(self.message, text)
-
     def _inputs_edited(self, *_):
         if self.last_fit is not None:
             self.current_table().clear_outputs()
             self._forget_fit()
-            self._show_info("The rows changed since the last fit: press Fit again.")
+            self.say("The rows changed since the last fit: press Fit again.")
 
     def _method_changed(self, *_):
         key = self.current_method()
@@ -292,18 +275,18 @@ class MeasurePanel(QWidget):
         for table in self.tables.values():
             table.clear_outputs()
         self._forget_fit()
-        plain_text.say(self.message, "")
+        self.say("")
 
     def _suggest_name(self) -> None:
         self.mount_name.setPlaceholderText(self.model.unused_name("Measured"))
 
-    def _model_changed(self, change: Change) -> None:
+    def render(self) -> None:
+        self._suggest_name()
+        self._render_result()
+
+    def follow(self, change: Change) -> None:
         if change.touches(SESSION):
             self._forget_fit()      # the points were measured on a mount of the last session, not this one
-        if change.touches(MOUNTS):
-            self._suggest_name()
-        if change.touches(PREFERENCES):
-            self._render_result()
         if change.touches(SELECTION) and self.last_fit is not None:
             # the measured points belong to the mount they were fitted on: hidden on any other, back on it
             on_its_mount = self.model.current_mount().name == self._fit_mount

@@ -8,7 +8,7 @@ from PySide6.QtCore import Qt, Signal
 from PySide6.QtGui import QBrush, QColor, QGuiApplication, QKeySequence
 from PySide6.QtWidgets import QAbstractItemView, QHeaderView, QTableWidget, QTableWidgetItem
 
-from app.editors.number_field import parse_number
+from app.widgets.number_field import parse_number
 from app.panels.measure_rows import Column, Rows, RowsError, rows_from_paste
 
 BAD_CELL = QColor("#ffcdd2")

@@ -3,10 +3,10 @@
 from __future__ import annotations
 
 from PySide6.QtCore import Qt, QTimer
-from PySide6.QtWidgets import (QGroupBox, QHBoxLayout, QLabel, QListWidget, QListWidgetItem, QPushButton,
-                               QVBoxLayout)
+from PySide6.QtWidgets import QGroupBox, QHBoxLayout, QListWidget, QListWidgetItem, QPushButton, QVBoxLayout
 
 from app import plain_text
+from app.widgets.message_line import MessageLine
 from app.model import MOUNTS, SELECTION, Change, SessionModel
 
 
@@ -26,9 +26,7 @@ class MountsList(QGroupBox):
         self.delete_button = QPushButton("Delete")
         self.delete_button.setToolTip("Delete the selected mount (undo brings it back).")
 
-        self.message = plain_text.plain_label()   # why a rename or delete was not done; empty otherwise
-        self.message.setWordWrap(True)
-        self.message.setStyleSheet("color: #b00020;")
+        self.message = MessageLine()   # why a rename or delete was not done; empty otherwise
 
         layout = QVBoxLayout(self)
         layout.addWidget(self.list, 1)
@@ -78,9 +76,9 @@ class MountsList(QGroupBox):
     def _delete(self) -> None:
         if len(self.model.mounts) > 1:
             self.model.delete_mount(origin=self)
-            self.message.setText("")
+            self.message.clear()
         else:
-            self.message.setText("The session needs at least one mount; the last one cannot be deleted.")
+            self.message.problem("The session needs at least one mount; the last one cannot be deleted.")
 
     def _on_row_changed(self, row: int) -> None:
         if 0 <= row < len(self.model.mounts):
@@ -94,7 +92,7 @@ class MountsList(QGroupBox):
     def _rename(self, row: int, text: str) -> None:
         try:
             self.model.rename_mount(row, text, origin=self)
-            self.message.setText("")
+            self.message.clear()
         except ValueError as exc:
-            self.message.setText(str(exc))   # e.g. "a mount needs a name; the old one is kept"
+            self.message.problem(str(exc))   # e.g. "a mount needs a name; the old one is kept"
         self.render()  # shows the kept name when the new one was empty

@@ -6,7 +6,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-from app.editors.number_field import format_number
+from app.text import numbers, significant
 from core.sequences import preset_names, spelled_sequence
 
 # More readings than this and the list is grouped by kind: at a laptop size the list shows about four
@@ -61,17 +61,17 @@ def conventions_words(reading) -> str:
 
 
 def _angle(value: float, degrees: bool, digits: int) -> str:
-    return f"{format_number(float(value), digits)}{'°' if degrees else ' rad'}"
+    return f"{significant(float(value), digits)}{'°' if degrees else ' rad'}"
 
 
 def rotation_words(orientation, preferences) -> list[str]:
     """Axis and angle, then the angles in the preferred sequence, in the preferred angle unit."""
     digits, degrees = preferences.significant_digits, preferences.angle_units != "rad"
     axis, angle = orientation.as_axis_angle(degrees=degrees)
-    if format_number(float(angle), digits) == "0":
+    if significant(float(angle), digits) == "0":
         lines = ["rotation: none (angle 0)"]
     else:
-        lines = [f"rotation {_angle(angle, degrees, digits)} about ({numbers_words(axis, digits)})"]
+        lines = [f"rotation {_angle(angle, degrees, digits)} about ({numbers(axis, digits)})"]
     angles = orientation.as_angles(preferences.sequence, preferences.intrinsic, degrees=degrees)
     names = preset_names(preferences.sequence, preferences.intrinsic)
     spelled = spelled_sequence(preferences.sequence, preferences.intrinsic)
@@ -82,14 +82,10 @@ def rotation_words(orientation, preferences) -> list[str]:
     return lines
 
 
-def numbers_words(values, digits: int) -> str:
-    return ", ".join(format_number(float(v), digits) for v in values)
-
-
 def translation_words(reading, digits: int) -> str:
     """'0.1, 0, 0.2 m', or the numbers and '(unit not stated)' when the text gives no unit."""
-    numbers = numbers_words(reading.translation, digits)
-    return f"{numbers} {reading.translation_unit}" if reading.translation_unit else f"{numbers} (unit not stated)"
+    spelled = numbers(reading.translation, digits)
+    return f"{spelled} {reading.translation_unit}" if reading.translation_unit else f"{spelled} (unit not stated)"
 
 
 def elided(text: str, limit: int = NOTE_CHARS) -> str:
@@ -107,7 +103,7 @@ def reading_lines(reading, rank: int, best, best_rank: int, preferences, show_na
     digits = preferences.significant_digits
     lines = [f"{rank}. {reading.label}"]
     if best is not None and best is not reading:
-        distance = format_number(float(best.orientation.angle_to(reading.orientation)), digits)
+        distance = significant(float(best.orientation.angle_to(reading.orientation)), digits)
         lines.append(f"   differs from reading {best_rank} by {distance}°")
     if show_name and reading.name is not None:
         lines.append(f"   transform {elided(reading.name)}")

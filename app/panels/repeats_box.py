@@ -10,12 +10,12 @@ from __future__ import annotations
 import math
 from dataclasses import replace
 
-from PySide6.QtWidgets import (QComboBox, QGridLayout, QGroupBox, QListWidget, QPushButton, QSizePolicy,
-                               QVBoxLayout)
+from PySide6.QtWidgets import QComboBox, QGridLayout, QGroupBox, QListWidget, QPushButton, QSizePolicy, QVBoxLayout
 
-from app.editors.number_field import format_number
+from app.plain_text import plain_label
+from app.widgets.message_line import MessageLine
+from app.text import numbers, significant
 from app.model import SessionModel
-from app.plain_text import plain_label, say
 from core import operations
 from core.average import OUTLIER_SCATTERS
 from core.errors import FramewrightError
@@ -53,8 +53,7 @@ class RepeatedMeasurementsBox(QGroupBox):
             "Fill the standard uncertainty u below from the scatter: the uncertainty of the mean while the "
             "mount is at the average, of one measurement otherwise. The check's measured mount must be the "
             "selected one.")
-        self.message = plain_label()
-        self.message.setWordWrap(True)
+        self.message = MessageLine()
 
         buttons = QGridLayout()
         buttons.addWidget(plain_label("From"), 0, 0)
@@ -80,16 +79,16 @@ class RepeatedMeasurementsBox(QGroupBox):
         self.render()
 
     def forget_message(self) -> None:
-        say(self.message, "")
+        self.message.say("")
 
     # ---- edits -------------------------------------------------------------------------------------
     def _run(self, edit) -> None:
         try:
             edit()
         except (ValueError, IndexError) as error:      # FramewrightError is a ValueError
-            say(self.message, f"{error}", problem=True)
+            self.message.say(f"{error}", problem=True)
             return
-        say(self.message, "")
+        self.message.say("")
 
     def _add(self) -> None:
         self._run(lambda: self.model.add_measurement(self.source_box.currentText(), origin=self))
@@ -102,15 +101,15 @@ class RepeatedMeasurementsBox(QGroupBox):
     def _use_scatter(self) -> None:
         result = self.model.current_average()
         if result is None or result.standard_uncertainty_deg is None:
-            say(self.message, "Keep two or more measurements to have a scatter.", problem=True)
+            self.message.say("Keep two or more measurements to have a scatter.", problem=True)
             return
         _, measured = self.model.check_mount_indices()
         mount = self.model.current_mount()
         if measured is None:
-            say(self.message, "Choose a measured mount in the Check panel first.", problem=True)
+            self.message.say("Choose a measured mount in the Check panel first.", problem=True)
             return
         if measured != self.model.selected_index:
-            say(self.message, f"The check's measured mount is “{self.model.mounts[measured].name}”, not "
+            self.message.say(f"The check's measured mount is “{self.model.mounts[measured].name}”, not "
                               f"“{mount.name}”: select it to use its scatter.", problem=True)
             return
         at_mean = mount.orientation.angle_to(result.mean) <= AT_THE_MEAN_DEG
@@ -120,31 +119,30 @@ class RepeatedMeasurementsBox(QGroupBox):
         try:
             adjustment = replace(check.adjustment, uncertainty_deg=u)
         except FramewrightError as error:
-            say(self.message, f"{error} (kept the last good value)", problem=True)
+            self.message.say(f"{error} (kept the last good value)", problem=True)
             return
         what = "of the mean (the mount is at the average)" if at_mean else \
             "of one measurement (the mount is not at the average)"
         self.model.apply(operations.set_check, replace(check, adjustment=adjustment), origin=self,
                          text=f"Use the scatter of {result.count} measurements as the uncertainty")
-        say(self.message, f"u = {self._fmt(u)}°, the standard uncertainty {what}.")
+        digits = self.model.preferences.significant_digits
+        self.message.say(f"u = {significant(u, digits)}°, the standard uncertainty {what}.")
 
     # ---- model -> view -----------------------------------------------------------------------------
-    def _fmt(self, value: float) -> str:
-        return format_number(float(value), self.model.preferences.significant_digits)
-
     def render(self) -> None:
         mount = self.model.current_mount()
         measured = mount.measurements
         result = self.model.current_average()
         row = self.list.currentRow()
+        digits = self.model.preferences.significant_digits
         self.list.clear()
         flagged = set(result.flagged) if result is not None else set()
         for i, measurement in enumerate(measured):
             facts = []
             if measurement.weight != 1:
-                facts.append(f"weight {self._fmt(measurement.weight)}")
+                facts.append(f"weight {significant(measurement.weight, digits)}")
             if result is not None:
-                facts.append(f"{self._fmt(result.angles_deg[i])}° from the mean")
+                facts.append(f"{significant(result.angles_deg[i], digits)}° from the mean")
             if i in flagged:
                 facts.append(f"FAR: over {OUTLIER_SCATTERS:g} scatters from the others")
             head = f"{i + 1}. {measurement.source or 'no source'}"
@@ -171,14 +169,15 @@ class RepeatedMeasurementsBox(QGroupBox):
         order = "(x, y, z, w)" if prefs.quaternion_order == "xyzw" else "(w, x, y, z)"
         angles = result.mean.as_angles(prefs.sequence, intrinsic=prefs.intrinsic).angles
         kind = "intrinsic" if prefs.intrinsic else "extrinsic"
-        lines = [f"Mean quaternion {order}: (" + ", ".join(self._fmt(v) for v in q) + ")",
-                 f"Mean, {kind} {prefs.sequence}: (" + ", ".join(self._fmt(v) for v in angles) + ")°",
-                 f"RMS scatter: {self._fmt(result.rms_deg)}°",
-                 f"Largest angle to the mean: {self._fmt(result.max_deg)}°"]
+        digits = prefs.significant_digits
+        lines = [f"Mean quaternion {order}: ({numbers(q, digits)})",
+                 f"Mean, {kind} {prefs.sequence}: ({numbers(angles, digits)})°",
+                 f"RMS scatter: {significant(result.rms_deg, digits)}°",
+                 f"Largest angle to the mean: {significant(result.max_deg, digits)}°"]
         if result.standard_uncertainty_deg is None:
             lines.append("Standard uncertainty of the mean: needs two or more measurements")
         else:
-            lines.append(f"Standard uncertainty of the mean: {self._fmt(result.standard_uncertainty_deg)}° per axis")
+            lines.append(f"Standard uncertainty of the mean: {significant(result.standard_uncertainty_deg, digits)}° per axis")
         off = mount.orientation.angle_to(result.mean)
-        lines.append(f"The mount's orientation is {self._fmt(off)}° from the mean.")
+        lines.append(f"The mount's orientation is {significant(off, digits)}° from the mean.")
         return "\n".join(lines)

@@ -5,6 +5,7 @@ from __future__ import annotations
 
 import numpy as np
 
+from app import text
 from core import describe
 from core.sequences import preset_names, spelled_sequence
 
@@ -18,15 +19,6 @@ REPRESENTATION_TITLES = {
 }
 
 
-def _num(value, digits=4, width=0) -> str:
-    value = 0.0 if abs(value) < 0.5 * 10.0 ** -digits else float(value)  # never print "-0.0000"
-    return f"{value:{width}.{digits}f}".replace("-", describe.MINUS)
-
-
-def _vector(values, digits=4) -> str:
-    return "(" + ", ".join(_num(v, digits) for v in values) + ")"
-
-
 def _sequence_words(sequence, intrinsic) -> str:
     spelled = spelled_sequence(sequence, intrinsic)
     return f"intrinsic {spelled}" if intrinsic else f"extrinsic {spelled} (fixed axes)"
@@ -37,19 +29,19 @@ def representation_lines(orientation, kind="axis-angle", sequence="ZYX", intrins
         axis, angle = orientation.as_axis_angle()
         if angle == 0:
             return ["angle \u03c6 0\u00b0: at the reference (axis undefined)"]
-        return [f"axis n {_vector(axis)}", f"angle \u03c6 {_num(angle, 3)}\u00b0"]
+        return [f"axis n {text.vector(axis)}", f"angle \u03c6 {text.fixed(angle, 3)}\u00b0"]
     if kind == "quaternion":
-        return [f"q (w, x, y, z) {_vector(orientation.as_quaternion(), 6)}"]
+        return [f"q (w, x, y, z) {text.vector(orientation.as_quaternion(), 6)}"]
     if kind == "matrix":
         m = orientation.as_matrix()
-        rows = ["[" + " ".join(_num(v, 4, 7) for v in row) + " ]" for row in m]
+        rows = ["[" + " ".join(text.fixed(v, 4, width=7) for v in row) + " ]" for row in m]
         return ["R (body \u2192 reference; columns = body axes)", *rows]
     if kind == "rotation vector":
-        return [f"\u03c1 = \u03c6 n {_vector(orientation.as_rotation_vector(), 3)} deg"]
+        return [f"\u03c1 = \u03c6 n {text.vector(orientation.as_rotation_vector(), 3)} deg"]
     if kind == "angles":
         angles = orientation.as_angles(sequence, intrinsic=intrinsic)
         names = _angle_names(sequence, intrinsic)
-        values = "  ".join(f"{name} {_num(v, 3)}\u00b0" for name, v in zip(names, angles.angles))
+        values = "  ".join(f"{name} {text.fixed(v, 3)}\u00b0" for name, v in zip(names, angles.angles))
         lines = [_sequence_words(sequence, intrinsic), values]
         if angles.locked:
             lines.append("gimbal lock: only the sum/difference of the first and third angle is determined")
@@ -80,4 +72,4 @@ def sweep_line(t, angle_deg) -> str:
 def tracked_words(name, vector) -> str:
     if name:
         return name
-    return "typed " + _vector(np.asarray(vector) / np.linalg.norm(vector), 3)
+    return "typed " + text.vector(np.asarray(vector) / np.linalg.norm(vector), 3)

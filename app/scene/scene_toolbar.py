@@ -6,6 +6,7 @@ from __future__ import annotations
 from PySide6 import QtCore, QtWidgets
 
 from app.scene.overlay_text import REPRESENTATION_TITLES
+from app.widgets.message_line import MessageLine
 from core import axes
 from core.describe import FRAME_PRESETS
 
@@ -109,9 +110,7 @@ class SceneToolbar(QtWidgets.QWidget):
         bottom.addWidget(self.preset)
         bottom.addStretch(1)
 
-        self.message = QtWidgets.QLabel("")
-        self.message.setStyleSheet("color: #c0392b;")
-        self.message.setWordWrap(True)
+        self.message = MessageLine()
         rows.addWidget(self.message)
         self.message.hide()
 
@@ -122,7 +121,7 @@ class SceneToolbar(QtWidgets.QWidget):
             self.tracked_chosen.emit(choice, self.typed.text())
 
     def show_message(self, text):
-        self.message.setText(text)
+        self.message.problem(text)
         self.message.setVisible(bool(text))
 
     def show_sweep(self, t):

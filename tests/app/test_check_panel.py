@@ -12,7 +12,7 @@ from scipy.spatial.transform import Rotation
 
 from app.panels.check_panel import CheckPanel
 from core.orientation import Orientation
-from tests.app.window_driver import canonical_wxyz, scipy_rotation, type_into
+from tests.app.window_driver import canonical_wxyz, click_side_tab, scipy_rotation, type_into
 
 SHIM_DEG = 0.5
 
@@ -146,6 +146,7 @@ def test_a_tolerance_of_exactly_180_degrees_is_accepted(qtbot, panel, model, shi
 
 def test_the_scene_ghost_is_the_nominal_while_the_measured_mount_is_shown(qtbot, window):
     model = window.model
+    click_side_tab(qtbot, window, "Check")   # the person works in the Check tab
     panel = window.check_panel
     nominal = model.mounts[3]
     model.select(3)

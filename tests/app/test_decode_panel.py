@@ -9,7 +9,7 @@ from PySide6.QtCore import QPoint, Qt
 from PySide6.QtGui import QGuiApplication
 from scipy.spatial.transform import Rotation
 
-from app.editors.number_field import format_number
+from app.text import significant
 from tests.app.window_driver import assert_editors_agree, focus
 
 # Four decimals as on a drawing; rows of a reference -> body matrix. The numbers are cos/sin of 12°
@@ -156,18 +156,18 @@ def test_a_4x4_transform_shows_both_readings_with_their_result_and_the_distance_
     as_written, transposed = Rotation.from_matrix(m), Rotation.from_matrix(m.T)       # SciPy's readings
     # SciPy: the angle of the rotation taking one reading to the other (180° for these numbers)
     apart = np.degrees((as_written.inv() * transposed).magnitude())
-    assert f"differs from reading 1 by {format_number(apart, digits)}°" in rows[1] and "by 180°" in rows[1]
+    assert f"differs from reading 1 by {significant(apart, digits)}°" in rows[1] and "by 180°" in rows[1]
     assert "differs" not in rows[0]                                    # the best reading is the yardstick
     for row, rotation in zip(rows, (as_written, transposed)):
         rotvec = np.degrees(rotation.as_rotvec())                      # SciPy's axis times angle
         angle = _number_after("rotation", row)
         assert angle == pytest.approx(np.linalg.norm(rotvec), abs=1e-6)
-        np.testing.assert_allclose(_vector_after(f"{format_number(angle, digits)}° about", row),
+        np.testing.assert_allclose(_vector_after(f"{significant(angle, digits)}° about", row),
                                    rotvec / np.linalg.norm(rotvec), atol=1e-8)
         # the session's sequence (intrinsic ZYX, the demo's preference), as SciPy spells it: 'ZYX' upper case
         yaw, pitch, roll = rotation.as_euler("ZYX", degrees=True)
-        assert (f"Z-Y′-X″ intrinsic (yaw, pitch, roll): {format_number(yaw, digits)}°, "
-                f"{format_number(pitch, digits)}°, {format_number(roll, digits)}°") in row
+        assert (f"Z-Y′-X″ intrinsic (yaw, pitch, roll): {significant(yaw, digits)}°, "
+                f"{significant(pitch, digits)}°, {significant(roll, digits)}°") in row
         assert "translation x, y, z: 0.1, 0.2, 0.3 (unit not stated)" in row
     assert panel.list.item(0).isSelected()
 
@@ -185,8 +185,8 @@ def test_the_rows_follow_the_digits_and_the_sequence_the_session_prefers(qtbot, 
     # SciPy: lower case 'xyz' is extrinsic X, then Y, then Z (roll, pitch, yaw about fixed axes)
     roll, pitch, yaw = Rotation.from_rotvec(np.radians(33.3333333) * np.array([0.6, 0, 0.8])).as_euler("xyz", degrees=True)
     row = panel.list.item(0).text()
-    assert (f"X-Y-Z extrinsic (roll, pitch, yaw): {format_number(roll, 4)}°, {format_number(pitch, 4)}°, "
-            f"{format_number(yaw, 4)}°") in row
+    assert (f"X-Y-Z extrinsic (roll, pitch, yaw): {significant(roll, 4)}°, {significant(pitch, 4)}°, "
+            f"{significant(yaw, 4)}°") in row
     assert panel.list.currentRow() == 0
 
 
@@ -240,7 +240,7 @@ def test_a_description_file_origin_shows_its_translation_without_a_unit(qtbot, w
     assert "translation x, y, z: 0.1, 0, 0.2 (unit not stated)" in row
     # SciPy: rpy about fixed X, Y, Z is lower-case 'xyz'; 1.5708 rad is a little over 90°
     rotvec = np.degrees(Rotation.from_euler("xyz", (0, 0, 1.5708)).as_rotvec())
-    assert f"rotation {format_number(np.linalg.norm(rotvec), digits)}° about (0, 0, 1)" in row
+    assert f"rotation {significant(np.linalg.norm(rotvec), digits)}° about (0, 0, 1)" in row
     assert panel.unit_row.isVisible() and not panel.apply_button.isEnabled()   # the unit is asked, not guessed
     # the decoder's note about the whole text is said once, above the list, and in full in its tooltip
     note = panel.readings[0].notes[0]

@@ -9,7 +9,7 @@ from PySide6.QtGui import QGuiApplication, QWheelEvent
 from PySide6.QtWidgets import QApplication
 from scipy.spatial.transform import Rotation
 
-from app.editors.number_field import NumberField
+from app.widgets.number_field import NumberField
 from core.orientation import Orientation
 from tests.app.window_driver import assert_editors_agree, focus, leave_editor, scipy_rotation, type_into
 

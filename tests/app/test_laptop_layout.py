@@ -9,7 +9,7 @@ import pytest
 from PySide6.QtCore import QPoint, QRect, Qt
 from PySide6.QtWidgets import QScrollArea
 
-from app.editors.number_field import NumberField
+from app.widgets.number_field import NumberField
 from core.orientation import Orientation
 
 LAPTOPS = [(1280, 800), (1366, 768)]

@@ -27,6 +27,15 @@ def leave_editor(qtbot, window):
     qtbot.wait(10)
 
 
+def click_side_tab(qtbot, window, title):
+    """Bring a side tab to the front by clicking its title in the tab bar, as a person does."""
+    tabs = window.side_tabs
+    bar = tabs.tabBar()
+    index = [tabs.tabText(i) for i in range(tabs.count())].index(title)
+    qtbot.mouseClick(bar, Qt.MouseButton.LeftButton, pos=bar.tabRect(index).center())
+    qtbot.waitUntil(lambda: tabs.currentIndex() == index and tabs.currentWidget().isVisible(), timeout=2000)
+
+
 def numbers(fields):
     return np.array([float(f.text()) for f in fields])
 

@@ -15,16 +15,6 @@ from PySide6.QtWidgets import QAbstractSpinBox
 from core.number_text import parse_number, quoted  # noqa: F401  (one reader for every cell; re-exported)
 
 
-def format_number(value: float, digits: int) -> str:
-    """Significant digits, no negative zero, no exponent noise for values that are zero in practice."""
-    if abs(value) < 10.0 ** -(digits + 3):
-        value = 0.0
-    text = f"{value:.{digits}g}"
-    if text in ("-0", "-0.0"):
-        text = "0"
-    return text
-
-
 INVALID_COLOUR = QColor("#c62828")
 # A number followed by a unit mark or word: '0.5 mrad', '30″', "1'30", '2gon'
 _MARKED = re.compile(r"\d[\d.]*\s*(?![eE][+\-\d])[A-Za-z°′″'\"]")

@@ -1,0 +1,1 @@
+"""Widgets shared by the editors and the panels alike."""
