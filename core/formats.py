@@ -24,7 +24,8 @@ from datetime import datetime
 from core.csv_cells import spreadsheet_safe
 from core.decode import DecodeHints, decode
 from core.errors import FramewrightError
-from core import sequences
+from core import representations, sequences
+from core.representations import ANGLE
 from core.sequences import gimbal_margin, parse_sequence
 
 FORMATS = (
@@ -37,12 +38,16 @@ FORMATS = (
     ("report", "Report for a person (every representation, conventions, date and time)"),
 )
 FORMAT_NAMES = tuple(name for name, _ in FORMATS)
-REPRESENTATIONS = ("matrix", "quaternion", "axis-angle", "rotation-vector", "angles")
+# The representations every orientation has, in menu order (core/representations.py lists them); the
+# Gibbs vector is accepted as well (KINDS) but refused at a half turn, where it is infinite.
+REPRESENTATIONS = tuple(r.kind for r in representations.ALL if not r.half_turn_words)
+KINDS = representations.KINDS
 REPORT_DECIMALS = 10          # the report's numbers for a person (its quaternion line is always exact)
 SAFETY_CAUTION = ("verify against the governing drawing and procedure; this tool does not replace inspection "
                   "by qualified personnel; local codes and licensed practice govern")
-JSON_KEYS = ("format", "matrix", "quaternion_wxyz", "axis", "angle_deg", "rotation_vector_deg", "sequence",
-             "intrinsic", "angles_deg", "gimbal_margin_deg", "gimbal_lock")
+JSON_KEYS = ("format", "matrix", "quaternion_wxyz", "axis", "angle_deg",
+             *(r.json_key for r in representations.VECTORS), "sequence", "intrinsic", "angles_deg",
+             "gimbal_margin_deg", "gimbal_lock")
 
 
 @dataclass(frozen=True)
@@ -74,12 +79,13 @@ class FormatOptions:
     gravity_down: tuple | None = None
 
     def checked(self) -> "FormatOptions":
-        if self.representation not in REPRESENTATIONS:
+        found = representations.lookup(self.representation)
+        if found is None:
             raise FramewrightError(f"unknown representation {self.representation!r}; expected one of "
-                                   f"{', '.join(REPRESENTATIONS)}")
+                                   f"{', '.join(KINDS)}")
         if self.decimals is not None and not (isinstance(self.decimals, int) and 0 <= self.decimals <= 17):
             raise FramewrightError(f"decimals must be a whole number from 0 to 17, got {self.decimals!r}")
-        return replace(self, sequence=parse_sequence(self.sequence))
+        return replace(self, representation=found.kind, sequence=parse_sequence(self.sequence))
 
 
 _PREFERENCE_NAMES = {
@@ -155,8 +161,20 @@ def _unit(o: FormatOptions) -> str:
     return "deg" if o.degrees else "rad"
 
 
+def _representation(o: FormatOptions):
+    return representations.by_kind(o.representation)
+
+
+def _unit_of(o: FormatOptions) -> str:
+    """'deg'/'rad' for a representation of angles, '' for pure numbers (Gibbs, MRP)."""
+    return representations.unit_text(_representation(o), o.degrees)
+
+
 def _values(orientation, o: FormatOptions) -> list[float]:
     """The numbers of the chosen representation, in the order they are written."""
+    chosen = _representation(o)
+    if chosen.vector:
+        return list(chosen.values(orientation, degrees=o.degrees))
     if o.representation == "matrix":
         return list(orientation.as_matrix(transposed=o.transposed).ravel())
     if o.representation == "quaternion":
@@ -164,8 +182,6 @@ def _values(orientation, o: FormatOptions) -> list[float]:
     if o.representation == "axis-angle":
         axis, angle = orientation.as_axis_angle(degrees=o.degrees)
         return list(axis) + [angle]
-    if o.representation == "rotation-vector":
-        return list(orientation.as_rotation_vector(degrees=o.degrees))
     return list(orientation.as_angles(o.sequence, intrinsic=o.intrinsic, degrees=o.degrees).angles)
 
 
@@ -180,8 +196,9 @@ def _caption(o: FormatOptions) -> str:
             "Quaternion (w, x, y, z), Hamilton, scalar first"
     if o.representation == "axis-angle":
         return f"Axis (x, y, z) and angle ({_unit(o)})"
-    if o.representation == "rotation-vector":
-        return f"Rotation vector ({_unit(o)})"
+    chosen = _representation(o)
+    if chosen.vector:
+        return chosen.caption.format(u=_unit(o))
     kind = "intrinsic" if o.intrinsic else "extrinsic"
     return f"Angles {spelled_sequence(o.sequence, o.intrinsic)} {kind}{_angle_names(o.sequence, o.intrinsic)} ({_unit(o)})"
 
@@ -191,8 +208,11 @@ def _identifier(o: FormatOptions) -> str:
         name = re.sub(r"\W+", "_", o.name).strip("_")
         if name and not name[0].isdigit():
             return name
+    chosen = _representation(o)
+    if chosen.vector:
+        return chosen.identifier.format(u=_unit(o))
     return {"matrix": "R", "quaternion": "q_xyzw" if o.scalar_last else "q_wxyz", "axis-angle": "axis_angle",
-            "rotation-vector": f"rotation_vector_{_unit(o)}", "angles": f"angles_{_unit(o)}"}[o.representation]
+            "angles": f"angles_{_unit(o)}"}[o.representation]
 
 
 # ---------------------------------------------------------------------------------------------------
@@ -218,13 +238,36 @@ def summary(orientation, sequence: str = "ZYX", intrinsic: bool = True) -> dict:
         "quaternion_wxyz": [float(v) for v in orientation.as_quaternion()],
         "axis": None if angle == 0 else [float(v) for v in axis],
         "angle_deg": float(angle),
-        "rotation_vector_deg": [float(v) for v in orientation.as_rotation_vector()],
+        **{r.json_key: _vector_or_none(r, orientation) for r in representations.VECTORS},
         "sequence": sequence,
         "intrinsic": bool(intrinsic),
         "angles_deg": [float(v) for v in angles.angles],
         "gimbal_margin_deg": float(margin.margin_deg),
         "gimbal_lock": bool(angles.locked or margin.locked),
     }
+
+
+def _vector_or_none(representation, orientation):
+    """The numbers of a vector representation (degrees for angles), or None where it does not exist (the
+    Gibbs vector at a half turn)."""
+    if representation.half_turn_words and orientation.quaternion[0] == 0:
+        return None
+    return [float(v) for v in representation.values(orientation)]
+
+
+def _vector_line(representation, values, number) -> str:
+    """'rotation vector (deg): 1, 2, 3', or what is said where the representation does not exist."""
+    unit = representations.unit_text(representation, True)
+    label = representation.name + (f" ({unit})" if unit else "")
+    if values is None:
+        return f"{label}: {representation.half_turn_words}"
+    return f"{label}: {', '.join(number(v) for v in values)}"
+
+
+def vector_lines(data: dict, number) -> list[str]:
+    """One line per vector representation of a `summary` dict, in words ('rotation vector (deg): …'),
+    the numbers written by `number`."""
+    return [_vector_line(r, data[r.json_key], number) for r in representations.VECTORS]
 
 
 def _render_json(orientation, o: FormatOptions) -> str:
@@ -262,9 +305,10 @@ def csv_header(options=None) -> str:
         # dcm11…: the direction cosine matrix, reference -> body; r11…: body -> reference
         "matrix": [f"{'dcm' if o.transposed else 'r'}{r}{c}" for r in (1, 2, 3) for c in (1, 2, 3)],
         "quaternion": ["qx", "qy", "qz", "qw"] if o.scalar_last else ["qw", "qx", "qy", "qz"],
-        "axis-angle": ["axis_x", "axis_y", "axis_z", f"angle_{u}"],
-        "rotation-vector": [f"rotvec_x_{u}", f"rotvec_y_{u}", f"rotvec_z_{u}"],
     }.get(o.representation)
+    chosen = _representation(o)
+    if chosen.csv_columns:
+        names = [c.format(u=u) for c in chosen.csv_columns]
     if names is None:
         if (o.sequence, o.intrinsic) == ("ZYX", True):
             names = [f"yaw_{u}", f"pitch_{u}", f"roll_{u}"]
@@ -351,7 +395,7 @@ def _render_report(orientation, o: FormatOptions) -> str:
         lines.append("Axis and angle: no rotation (angle 0; the axis is undefined)")
     else:
         lines.append(f"Axis and angle: axis ({', '.join(n(v) for v in s['axis'])}), angle {n(s['angle_deg'])} deg")
-    lines.append(f"Rotation vector (deg): {', '.join(n(v) for v in s['rotation_vector_deg'])}")
+    lines.extend(line[:1].upper() + line[1:] for line in vector_lines(s, n))
     lines.append(f"Angles {spelled_sequence(o.sequence, o.intrinsic)} {kind}"
                  f"{_angle_names(o.sequence, o.intrinsic)}, deg: {', '.join(n(v) for v in s['angles_deg'])}")
     lines.append(f"The same spelled {spelled_sequence(other_sequence, not o.intrinsic)} {other_kind}"
@@ -426,7 +470,7 @@ def round_trip_hints(fmt: str, options=None) -> DecodeHints:
         return DecodeHints(kind="quaternion", order="xyzw" if o.scalar_last else "wxyz")
     if o.representation == "angles":
         return DecodeHints(kind="angles", sequence=o.sequence, intrinsic=o.intrinsic, units=_unit(o))
-    return DecodeHints(kind=o.representation, units=_unit(o))
+    return DecodeHints(kind=o.representation, units=_unit_of(o) or None)
 
 
 def round_trip_error(orientation, text: str, fmt: str, options=None) -> float:
@@ -453,7 +497,7 @@ def printed_precision_deg(fmt: str, options=None) -> float:
     step = 0.5 * 10.0 ** -decimals
     if fmt in ("json", "report"):
         return math.degrees(8 * step)
-    if o.representation in ("angles", "rotation-vector", "axis-angle") and o.degrees:
+    if _representation(o).units == ANGLE and o.degrees:
         return 4 * step + math.degrees(4 * step)
     return math.degrees(8 * step)
 
@@ -464,6 +508,6 @@ def check_every_format(orientation, options=None) -> dict:
             for fmt in FORMAT_NAMES}
 
 
-__all__ = ["FORMATS", "FORMAT_NAMES", "JSON_KEYS", "REPRESENTATIONS", "SAFETY_CAUTION", "FormatOptions",
+__all__ = ["FORMATS", "FORMAT_NAMES", "JSON_KEYS", "KINDS", "REPRESENTATIONS", "SAFETY_CAUTION", "FormatOptions",
            "check_every_format", "csv_header", "format_number", "json_object_text", "printed_precision_deg", "render",
-           "round_trip_error", "round_trip_hints", "spelled_sequence", "summary"]
+           "round_trip_error", "round_trip_hints", "spelled_sequence", "summary", "vector_lines"]

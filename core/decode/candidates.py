@@ -7,6 +7,7 @@ from dataclasses import dataclass, field
 
 import numpy as np
 
+from core import representations
 from core.errors import DecodeError
 from core.decode.clues import _Clues
 from core.decode.hints import DecodeHints
@@ -23,6 +24,9 @@ POINTS = {
     "angle beyond one": 2.5, "four numbers of unit norm": -1.0, "angle written first": 3.5,
     "proper Euler middle outside 0..180": -0.7, "Tait-Bryan middle beyond 90": -1.0,
     "rotation vector prior": 0.9,
+    # a parameter set read only when named (Gibbs, MRP: core/representations.py, caption_only): named, it
+    # outranks what bare numbers suggest; unnamed, it is never offered
+    "caption names a parameter set": 3.0,
 }
 # The text names the kind ('quaternion', 'axis-angle', 'yaw', 'rvec'), and numbers named as that kind
 TEXT_NAMES_KIND = {"quaternion": 1.5, "axis-angle": 1.5, "angles": 1.0, "rotation-vector": 3.0}
@@ -276,6 +280,32 @@ def _three_candidates(values, parsed, hints, clues, keyed):
             if "rotation-vector" in clues.kinds:
                 c.plus(TEXT_NAMES_KIND["rotation-vector"], "the text says rotation vector")
             out.append(c)
-    if keyed and keyed.kind == "rotation-vector":
-        out = [c for c in out if c.kind == "rotation-vector"]
+    out += _named_vector_candidates(v, hints, clues, keyed)
+    if keyed and keyed.kind in _VECTOR_KINDS:
+        out = [c for c in out if c.kind == keyed.kind]
+    return out
+
+
+_VECTOR_KINDS = {r.kind for r in representations.VECTORS}
+
+
+def _named_vector_candidates(v, hints, clues, keyed):
+    """Three numbers as a parameter set that is read only when the text, the names or a hint say so (the
+    Gibbs vector, the modified Rodrigues parameters): bare numbers are never read as one."""
+    out = []
+    for chosen in representations.VECTORS:
+        if not chosen.caption_only:
+            continue
+        by_keys = keyed is not None and keyed.kind == chosen.kind
+        in_text = chosen.kind in clues.kinds
+        if not (by_keys or in_text or hints.kind == chosen.kind) or (keyed is not None and not by_keys):
+            continue
+        c = _Candidate(chosen.kind, {}, lambda r=chosen: r.orientation(v), chosen.name)
+        if by_keys:
+            c.plus(POINTS["caption names a parameter set"], keyed.note)
+        elif in_text:
+            c.plus(POINTS["caption names a parameter set"], f"the text says {chosen.name}")
+        else:
+            c.plus(0.0, "kind given")
+        out.append(c)
     return out
