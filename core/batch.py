@@ -14,8 +14,12 @@ The first column is ``name``. The other columns are two sets, each named with it
     r11 r12 r13 r21 ... r33          matrix, r<row><column> as printed
     axis_x axis_y axis_z angle       axis and angle
     rv_x rv_y rv_z                   rotation vector (angle × unit axis)
+    gibbs_x gibbs_y gibbs_z          Gibbs vector (classical Rodrigues parameters, n tan(angle/2))
+    mrp_x mrp_y mrp_z                modified Rodrigues parameters (n tan(angle/4), either set)
     yaw pitch roll                   yaw–pitch–roll: intrinsic ZYX (= roll–pitch–yaw about fixed axes)
     angle1 angle2 angle3             three angles of a sequence that must be stated
+
+(the field groups of core/representations.py, its batch_columns, plus yaw pitch roll)
 
 Conventions are written in square brackets after a column name, as words separated by spaces, on any
 one column of the set (or spread over several; they must not contradict each other)::
@@ -67,7 +71,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from core import kernels
+from core import kernels, representations
 from core.check import ROUNDING_ALLOWANCE_DEG, CheckSettings, deviation_angles, deviation_axes, deviation_quaternions, swing_twist_angles
 from core.csv_cells import spreadsheet_safe
 from core.decision import CANNOT_DECIDE, CONFORMS, DEFAULT_COVERAGE, DOES_NOT_CONFORM
@@ -79,17 +83,16 @@ CHUNK_ROWS = 50_000
 UNCERTAINTY_COLUMN = "uncertainty_deg"
 MAX_UNCERTAINTY_DEG = 180.0
 
+# {representation: its field group}: the registry's batch columns, and yaw-pitch-roll (angles of one
+# sequence, named by their own words)
 REPRESENTATIONS = {
-    "quaternion": ("qw", "qx", "qy", "qz"),
-    "matrix": tuple(f"r{i}{j}" for i in (1, 2, 3) for j in (1, 2, 3)),
-    "axis_angle": ("axis_x", "axis_y", "axis_z", "angle"),
-    "rotation_vector": ("rv_x", "rv_y", "rv_z"),
+    **{r.key: r.batch_columns for r in representations.ALL if r is not representations.ANGLES},
     "yaw_pitch_roll": ("yaw", "pitch", "roll"),
-    "angles": ("angle1", "angle2", "angle3"),
+    "angles": representations.ANGLES.batch_columns,
 }
 _USES = {  # which conventions each representation takes
-    "quaternion": (), "matrix": ("matrix_meaning",), "axis_angle": ("degrees",),
-    "rotation_vector": ("degrees",), "yaw_pitch_roll": ("degrees",),
+    **{r.key: ("degrees",) if r.units == representations.ANGLE else () for r in representations.ALL},
+    "matrix": ("matrix_meaning",), "yaw_pitch_roll": ("degrees",),
     "angles": ("degrees", "sequence", "intrinsic"),
 }
 ROLES = ("nominal", "measured")
@@ -144,8 +147,8 @@ class ColumnSet:
 
     def describe(self):
         words = {"quaternion": "quaternion (Hamilton)", "matrix": f"matrix, {self.matrix_meaning}",
-                 "axis_angle": "axis and angle", "rotation_vector": "rotation vector",
-                 "yaw_pitch_roll": "yaw-pitch-roll (intrinsic ZYX)"}
+                 "yaw_pitch_roll": "yaw-pitch-roll (intrinsic ZYX)", "angles": None,
+                 **{r.key: r.name for r in representations.VECTORS + (representations.AXIS_ANGLE,)}}
         text = words.get(self.representation) or \
             f"angles {self.sequence} {'intrinsic' if self.intrinsic else 'extrinsic'}"
         if "degrees" in _USES[self.representation]:
@@ -573,12 +576,17 @@ def _to_quaternions(column_set, values, usable, notes):
         if ok.any():
             out[ok] = kernels.axis_angles_to_quaternions(axis[ok], angle[ok] * scale)
         return out, problems, ok
-    if rep == "rotation_vector":
-        lengths = scaled_lengths(safe)
-        ok = refuse(lengths > limit, lambda r: f"columns {columns}: rotation vector of length "
-                    f"{lengths[r]:.6g} {unit}; expected at most {limit:g} {unit}")
+    vector = representations.BY_KEY.get(rep)
+    if vector is not None and vector.vector:
+        ok = usable
+        if vector.units == representations.ANGLE:
+            lengths = scaled_lengths(safe)
+            ok = refuse(lengths > limit, lambda r: f"columns {columns}: {vector.name} of length "
+                        f"{lengths[r]:.6g} {unit}; expected at most {limit:g} {unit}")
+        else:
+            scale = 1.0                 # pure numbers: any finite vector is an orientation
         if ok.any():
-            out[ok] = kernels.rotation_vectors_to_quaternions(safe[ok] * scale)
+            out[ok] = vector.to_quaternions(safe[ok] * scale)
         return out, problems, ok
     big = np.abs(safe).max(axis=1) > limit
     ok = refuse(big, lambda r: f"columns {columns}: an angle of {np.abs(safe[r]).max():.6g} {unit}; "

@@ -57,6 +57,12 @@ class Representation:
     to_quaternions: object = None
     half_turn_words: str = ""
     keys: tuple = ()
+    short_title: str = ""
+
+    @property
+    def menu_title(self) -> str:
+        """The title where room is short (a combo box): 'MRP'."""
+        return self.short_title or self.title
 
     @property
     def key_names(self) -> frozenset:
@@ -133,7 +139,7 @@ MRP = Representation(
     caption_only=True, vector=True, caption="Modified Rodrigues parameters (MRP)",
     batch_columns=("mrp_x", "mrp_y", "mrp_z"), csv_columns=("mrp_x", "mrp_y", "mrp_z"),
     json_key="mrp", units=PURE, constructor="from_mrp", reader="as_mrp",
-    symbol="p", formula="n tan(\u03c6/4)", to_quaternions=rodrigues.mrps_to_quaternions)
+    symbol="p", formula="n tan(\u03c6/4)", to_quaternions=rodrigues.mrps_to_quaternions, short_title="MRP")
 ANGLES = Representation(
     "angles", "angles", 3, aliases=("euler", "euler_angles", "tait_bryan"),
     caption_words=r"euler|tait|(?<![a-z])(?:yaw|pitch|roll|heading)(?![a-z])|(?<![a-z])angles(?![a-z])",
