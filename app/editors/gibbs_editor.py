@@ -32,11 +32,11 @@ class GibbsEditor(ParametersEditor):
         return None
 
     def typed_problem(self, values):
-        length = float(np.linalg.norm(values))
+        length = math.hypot(*values)                  # no overflow for huge components
         if length > LONGEST:
             return (f"a Gibbs vector of length {length:.4g} is within {NEAREST_HALF_TURN_DEG:.2f}° of a half "
                     f"turn, where it grows without bound; expected at most {LONGEST:g} (use another editor)")
         return None
 
     def note_words(self, orientation, values):
-        return f"Length tan(\u03c6/2) = {self.fmt(np.linalg.norm(values))}; infinite at 180\u00b0."
+        return f"Length tan(\u03c6/2) = {self.fmt(math.hypot(*values))}; infinite at 180\u00b0."

@@ -4,7 +4,7 @@ its short twin."""
 
 from __future__ import annotations
 
-import numpy as np
+import math
 
 from app.editors.parameters_editor import ParametersEditor
 from core.representations import MRP
@@ -14,7 +14,7 @@ class MrpEditor(ParametersEditor):
     representation = MRP
 
     def note_words(self, orientation, values):
-        length = float(np.linalg.norm(values))
+        length = math.hypot(*values)                  # no overflow for huge components
         if length > 1:
             return f"|p| = {self.fmt(length)} > 1: the shadow set, shown as |p| \u2264 1 on commit."
         return f"|p| = tan(\u03c6/4) = {self.fmt(length)} (\u2264 1; 1 at a half turn)."
