@@ -23,18 +23,20 @@ class ParametersEditor(EditorBase):
         super().__init__(model, rep.title, parent)
         self.fields = [NumberField(self.component_tip.format(name=rep.title, c=c, formula=rep.formula), step=0.01)
                        for c in "xyz"]
-        self.labels = [QLabel(f"{rep.symbol} {c}") for c in "xyz"]
+        self.labels = [QLabel(c) for c in "xyz"]
         self.formula_label = QLabel(f"{rep.symbol} = {rep.formula}")
-        self.note = self.note_label(3)
+        self.note = self.note_label(2)
 
+        # One row of fields under the title, the note below: the box is short, so shown beside the others it
+        # takes little of the Scene's height.
         grid = QGridLayout(self)
-        grid.addWidget(self.formula_label, 0, 0, 1, 2)
-        for row, (label, field) in enumerate(zip(self.labels, self.fields), start=1):
-            grid.addWidget(label, row, 0)
-            grid.addWidget(field, row, 1)
-        grid.addWidget(self.note, 4, 0, 1, 2)
-        grid.setColumnStretch(1, 1)
-        grid.setRowStretch(5, 1)
+        grid.addWidget(self.formula_label, 0, 0)
+        for i, (label, field) in enumerate(zip(self.labels, self.fields)):
+            grid.addWidget(label, 0, 1 + 2 * i)
+            grid.addWidget(field, 0, 2 + 2 * i)
+            grid.setColumnStretch(2 + 2 * i, 1)
+        grid.addWidget(self.note, 1, 0, 1, 7)
+        grid.setRowStretch(2, 1)
         self.connect_fields(self.fields)
         self.render()
 
