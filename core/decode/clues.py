@@ -8,6 +8,7 @@ from dataclasses import dataclass, field
 from core.errors import DecodeError, FramewrightError
 from core.representations import caption_patterns
 from core.decode.numbers import ParsedNumbers
+from core.representations import AXIS_ANGLE, ROTATION_VECTOR
 
 @dataclass
 class _Clues:
@@ -107,7 +108,7 @@ def _read_clues(parsed: ParsedNumbers) -> _Clues:
     axis_first = _AXIS_FIRST.search(caption)
     if angle_first and not (axis_first and axis_first.start() < angle_first.start()):
         clues.angle_first = True
-        clues.kinds.add("axis-angle")
+        clues.kinds.add(AXIS_ANGLE.kind)
     if clues.units is None and _RADIAN_VECTOR.search(words):
         clues.units, clues.units_reason = "rad", "rvec and om rotation vectors are in radians (common practice)"
     _library_clues(parsed, clues)
@@ -136,7 +137,7 @@ def _library_clues(parsed: ParsedNumbers, clues: _Clues) -> None:
         clues.notes.append("a library call: from_quat is scalar last unless scalar_first=True (SciPy's documented"
                            " meaning)")
     else:
-        clues.kinds.add("rotation-vector")
+        clues.kinds.add(ROTATION_VECTOR.kind)
         clues.notes.append(f"a library call: a rotation vector in {marked}")
     if not any(n.unit for n in parsed.numbers) and kind != "quat":
         clues.units = "deg" if degrees else "rad"

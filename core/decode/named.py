@@ -92,7 +92,7 @@ def _keyed(parsed: ParsedNumbers) -> _Keyed | None:
             axis = [parts.get("axis_x", parts.get("ax")), parts.get("axis_y", parts.get("ay")),
                     parts.get("axis_z", parts.get("az"))]
         if len(axis) == 3 and len(angle) == 1:
-            return _Keyed(axis + [angle[0][0]], "axis-angle", units=angle[0][1] or unit,
+            return _Keyed(axis + [angle[0][0]], representations.AXIS_ANGLE.kind, units=angle[0][1] or unit,
                           note="read by their names as an axis and an angle")
     if n == 3:
         names = {"yaw": "yaw", "heading": "yaw", "psi": None, "pitch": "pitch", "elevation": "pitch",

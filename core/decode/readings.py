@@ -158,7 +158,8 @@ def _implausible_angle(c: _Candidate, values) -> str | None:
     if units is None:
         return None
     angle_part = values[:1] if c.conventions.get("order") == "angle, axis" else values[3:]
-    angles = {"axis-angle": angle_part, "rotation-vector": [float(np.linalg.norm(values))]}.get(c.kind, values)
+    angles = {representations.AXIS_ANGLE.kind: angle_part,
+              representations.ROTATION_VECTOR.kind: [float(np.linalg.norm(values))]}.get(c.kind, values)
     worst = max(abs(float(a)) for a in angles)
     worst_deg = worst if units == "deg" else math.degrees(worst)
     if worst_deg > _MAX_TURNS_DEG:
