@@ -10,7 +10,8 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from core import kernels, rodrigues
+from core import kernels
+from core.kernels import rodrigues
 from core.errors import InvalidInputError, MatrixRefusedError
 from core.kernels import check_flag
 from core.nearest import orthogonality_report

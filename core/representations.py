@@ -15,7 +15,8 @@ from __future__ import annotations
 import re
 from dataclasses import dataclass
 
-from core import kernels, rodrigues
+from core import kernels
+from core.kernels import rodrigues
 from core.errors import FramewrightError
 
 ANGLE = "angle"        # the numbers are (or contain) angles: degrees or radians as chosen

@@ -1,4 +1,4 @@
-"""The Gibbs vector and the modified Rodrigues parameters (core/rodrigues.py, Orientation.from_gibbs /
+"""The Gibbs vector and the modified Rodrigues parameters (core/kernels/rodrigues.py, Orientation.from_gibbs /
 as_gibbs / from_mrp / as_mrp): against SciPy's Rotation.as_mrp / from_mrp, against the Gibbs formula
 g = n·tan(φ/2) of Shuster, "A Survey of Attitude Representations", J. Astronautical Sciences 41(4), 1993
 (section on the Gibbs vector), round trips, batches, and hostile input."""
@@ -7,7 +7,7 @@ import numpy as np
 import pytest
 from scipy.spatial.transform import Rotation
 
-from core import rodrigues
+from core.kernels import rodrigues
 from core.errors import InvalidInputError
 from core.orientation import Orientation
 

@@ -13,7 +13,8 @@ function says otherwise; users' input is checked by Orientation and the batch re
 
 import numpy as np
 
-from core.kernels import _in_slices, canonical_quaternions
+from core.kernels.quaternions import canonical_quaternions
+from core.kernels.slices import _in_slices
 
 
 def _scaled(v):
