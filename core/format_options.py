@@ -88,5 +88,5 @@ def _representation(o: FormatOptions):
 
 
 def _unit_of(o: FormatOptions) -> str:
-    """'deg'/'rad' for a representation of angles, '' for pure numbers (Gibbs, MRP)."""
+    """'deg'/'rad' for a representation of angles, '' for pure numbers (the Rodrigues parameter sets)."""
     return representations.unit_text(_representation(o), o.degrees)

@@ -1,6 +1,6 @@
-"""A thin editor for three pure numbers of a parameter set in core/representations.py (the Gibbs vector,
-the modified Rodrigues parameters): its three fields, the set's formula and a note. Each set's own
-editor (gibbs_editor.py, mrp_editor.py) names its representation and what its note says."""
+"""A thin editor for three pure numbers of a parameter set in core/representations.py (the Rodrigues
+parameter sets): its three fields, the set's formula and a note. Each set's own editor names its
+representation and what its note says."""
 
 from __future__ import annotations
 

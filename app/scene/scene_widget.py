@@ -201,9 +201,9 @@ class SceneWidget(QtWidgets.QWidget):
         self._refresh()
 
     def set_overlay_representation(self, kind, sequence=None, intrinsic=None):
-        """What the overlay writes: one of overlay_text.REPRESENTATIONS ('axis-angle', 'quaternion',
-        'matrix', 'rotation-vector', 'angles', 'gibbs', 'mrp'; any spelling core/representations.py
-        accepts) (in `sequence`, intrinsic or not; None keeps the current sequence)."""
+        """What the overlay writes: one of overlay_text.REPRESENTATIONS ('axis-angle', 'quaternion', ...; any
+        spelling core/representations.py accepts) (in `sequence`, intrinsic or not; None keeps the current
+        sequence)."""
         kind = overlay_text.overlay_kind(kind)
         self._representation = kind
         if sequence is not None:

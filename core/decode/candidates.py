@@ -25,7 +25,7 @@ POINTS = {
     "angle beyond one": 2.5, "four numbers of unit norm": -1.0, "angle written first": 3.5,
     "proper Euler middle outside 0..180": -0.7, "Tait-Bryan middle beyond 90": -1.0,
     "rotation vector prior": 0.9,
-    # a parameter set read only when named (Gibbs, MRP: core/representations.py, caption_only): named, it
+    # a parameter set read only when named (core/representations.py, caption_only): named, it
     # outranks what bare numbers suggest; unnamed, it is never offered
     "caption names a parameter set": 3.0,
 }
@@ -292,7 +292,7 @@ _VECTOR_KINDS = {r.kind for r in representations.VECTORS}
 
 def _named_vector_candidates(v, hints, clues, keyed):
     """Three numbers as a parameter set that is read only when the text, the names or a hint say so (the
-    Gibbs vector, the modified Rodrigues parameters): bare numbers are never read as one."""
+    registry's caption_only entries): bare numbers are never read as one."""
     out = []
     for chosen in representations.VECTORS:
         if not chosen.caption_only:

@@ -18,8 +18,8 @@ _UNIT_ALIASES = {"deg": "deg", "degree": "deg", "degrees": "deg", "rad": "rad", 
 class DecodeHints:
     """What the person already knows; each given hint removes the readings that disagree with it.
 
-    kind: one of KINDS ('matrix', 'quaternion', 'axis-angle', 'rotation-vector', 'angles', 'gibbs', 'mrp'),
-    or any spelling core/representations.py accepts ('rotation_vector', 'rotvec', 'euler', ...)
+    kind: one of KINDS ('matrix', 'quaternion', 'axis-angle', 'rotation-vector', 'angles', ...), or any
+    spelling core/representations.py accepts ('rotation_vector', 'rotvec', 'euler', ...)
     sequence: 'ZYX', "Z-Y'-X''", ...; intrinsic: True / False
     order: quaternion order 'wxyz', 'xyzw' (both Hamilton) or 'jpl' (scalar last, JPL convention)
     units: 'deg' or 'rad'; transposed: False = matrix is body -> reference, True = reference -> body
