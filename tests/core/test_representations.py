@@ -102,3 +102,22 @@ def test_batch_refuses_a_unit_on_pure_numbers_and_flags_non_finite_rows():
     assert [p.row for p in table.problems] == [0]
     # a Gibbs vector of 1e300 is a half turn about x (g = n tan(φ/2), Shuster 1993)
     assert Orientation(table.nominal[1]).angle_to(Orientation.from_axis_angle((1, 0, 0), 180)) < 1e-9
+
+
+@pytest.mark.parametrize("fmt", ["text", "json", "csv", "python", "c", "matlab", "report"])
+def test_every_format_writes_and_reads_back_the_gibbs_vector_and_refuses_it_at_a_half_turn(fmt):
+    from core import formats
+    for rotation in Rotation.random(8, random_state=13):
+        o = Orientation.from_quaternion(rotation.as_quat(scalar_first=True))
+        options = {"representation": "gibbs"}
+        text = formats.render(o, fmt, options)
+        if fmt == "csv":
+            text = formats.csv_header(options) + text
+        assert formats.round_trip_error(o, text, fmt, options) <= 1e-12
+        assert decode(text)[0].orientation.angle_to(o) < 1e-12      # read first as what was copied
+    half = Orientation.from_axis_angle((0, 1, 0), 180)
+    if fmt in ("json", "report"):     # every representation: the Gibbs vector is said to be infinite
+        assert "infinite" in formats.render(half, "report") and '"gibbs": null' in formats.render(half, "json")
+    else:
+        with pytest.raises(Exception, match="infinite at a half turn"):
+            formats.render(half, fmt, {"representation": "gibbs"})
