@@ -41,7 +41,12 @@ fuzz: system-packages $(TEST_STAMP)
 MODULE ?= core/ app/model.py app/commands.py app/copy_as.py
 JOBS ?= 2
 MUTANT_PATTERNS = $(foreach m,$(MODULE),$(if $(filter %.py,$(m)),$(subst /,.,$(basename $(m))).*,$(subst /,.,$(patsubst %/,%,$(m))).*))
-mutate: system-packages $(TEST_STAMP)
+MUTATE_STAMP := $(VENV)/.installed-mutate
+$(MUTATE_STAMP): pyproject.toml $(TEST_STAMP)
+	$(PY) -m pip install -q -e '.[test,mutate]'
+	touch $@
+
+mutate: system-packages $(MUTATE_STAMP)
 	rm -rf mutants
 	$(VENV)/bin/mutmut run --max-children $(JOBS) $(MUTANT_PATTERNS) > mutants-run.log 2>&1 || true
 	$(PY) scripts/mutation_score.py $(MUTANT_PATTERNS)

@@ -1,6 +1,6 @@
 """The command line over the core: `framewright decode`, `compare`, `fit`, `batch`, `correct`, `average`,
-`report`, `verify-report` and `open`. Imports no Qt at start: `open` hands over to the window through
-app/main.py, and `report` loads Qt to lay out its pages, each only once its input has been read.
+`report`, `verify-report` and `open`. Never imports Qt: the two verbs that need it, `open` (the window)
+and `report` (laying out pages), are given it by app/main.py and call it only once their input has read.
 
 Each verb is one pair of functions, `add_<verb>_arguments(parser)` and `run_<verb>(args) -> exit status`,
 listed once in VERBS.
@@ -18,8 +18,9 @@ import os
 import re
 import sys
 
+from app.cli_units import add_units_option, angle_argument, as_given, degrees_of, in_unit, shown
 from app.display_check import open_display_problem
-from core import formats, representations
+from core import formats, representations, units
 from core.check import CheckSettings, check
 from core.decode import KINDS, DecodeHints, decode
 from core.errors import FramewrightError
@@ -220,10 +221,13 @@ def add_compare_arguments(parser: argparse.ArgumentParser) -> None:
     parser.add_argument("nominal", metavar="NOMINAL", help="the nominal orientation as text ('-': standard input)")
     parser.add_argument("measured", metavar="MEASURED", help="the measured orientation as text ('-': standard input)")
     add_reading_options(parser)
-    parser.add_argument("--tolerance", type=float, metavar="DEG", help="allowed total deviation in degrees")
-    parser.add_argument("--uncertainty", type=float, metavar="DEG",
-                        help="standard uncertainty of the measured orientation, degrees: the verdict then follows "
-                             "ISO 14253-1 (conforms / does not conform / cannot decide)")
+    parser.add_argument("--tolerance", type=angle_argument, metavar="ANGLE",
+                        help="allowed total deviation: degrees, or a number with its unit (0.5mrad, 30″, 1′30″, "
+                             "2gon)")
+    parser.add_argument("--uncertainty", type=angle_argument, metavar="ANGLE",
+                        help="standard uncertainty of the measured orientation (degrees, or with its unit): the "
+                             "verdict then follows ISO 14253-1 (conforms / does not conform / cannot decide)")
+    add_units_option(parser)
     parser.add_argument("--coverage", type=float, default=2.0, metavar="K",
                         help="coverage factor k of the expanded uncertainty U = k u (default 2)")
     parser.add_argument("--json", action="store_true", help="print one JSON object")
@@ -232,9 +236,10 @@ def add_compare_arguments(parser: argparse.ArgumentParser) -> None:
 def run_compare(args, stdin, stdout) -> int:
     if args.nominal == "-" and args.measured == "-":
         raise _Refused("only one of NOMINAL and MEASURED can be read from standard input")
+    tolerance, uncertainty, unit = degrees_of(args.tolerance), degrees_of(args.uncertainty), args.show_units
     try:
         settings = CheckSettings(mode="total",
-                                 total_tolerance_deg=180.0 if args.tolerance is None else args.tolerance)
+                                 total_tolerance_deg=180.0 if tolerance is None else tolerance)
     except FramewrightError as error:
         raise _Refused(f"--tolerance: {error}") from None
     hints = hints_from(args)
@@ -244,14 +249,14 @@ def run_compare(args, stdin, stdout) -> int:
     # D = Nᵀ M in the nominal body frame, judged by the same rule as the Check panel and batch files
     result = check(nominal.orientation, measured.orientation, settings)
     angle, axis = result.total_deg, result.axis
-    within = None if args.tolerance is None else result.passed
+    within = None if tolerance is None else result.passed
     decision = None
-    if args.uncertainty is not None:
-        if args.tolerance is None:
+    if uncertainty is not None:
+        if tolerance is None:
             raise _Refused("--uncertainty needs --tolerance: the decision compares the deviation with a tolerance")
         from core.decision import decide
         try:
-            decision = decide(angle, args.tolerance, args.uncertainty, args.coverage)
+            decision = decide(angle, tolerance, uncertainty, args.coverage)
         except FramewrightError as error:
             raise _Refused(str(error)) from None
     warnings = []
@@ -261,20 +266,25 @@ def run_compare(args, stdin, stdout) -> int:
                             "readings; options such as --kind make it unique)")
     if args.json:
         data = {"deviation_deg": angle, "axis": None if angle == 0 else [float(v) for v in axis],
-                "axis_frame": "nominal body", "within_tolerance": within, "tolerance_deg": args.tolerance,
-                "margin_deg": None if args.tolerance is None else args.tolerance - angle,
-                "uncertainty_deg": args.uncertainty, "coverage": args.coverage if decision else None,
+                "axis_frame": "nominal body", "within_tolerance": within, "tolerance_deg": tolerance,
+                "margin_deg": None if tolerance is None else tolerance - angle,
+                "uncertainty_deg": uncertainty, "coverage": args.coverage if decision else None,
                 "decision": decision.outcome if decision else None,
                 "warnings": warnings, "nominal": reading_object(nominal, args),
-                "measured": reading_object(measured, args)}
+                "measured": reading_object(measured, args),
+                # the same angles in the unit chosen with --units, and the options as they were typed
+                "units": unit, "in_units": {"deviation": in_unit(angle, unit), "tolerance": in_unit(tolerance, unit),
+                                            "margin": in_unit(None if tolerance is None else tolerance - angle, unit),
+                                            "uncertainty": in_unit(uncertainty, unit)},
+                "tolerance_given": as_given(args.tolerance), "uncertainty_given": as_given(args.uncertainty)}
         stdout.write(formats.json_object_text(data))
     else:
         where = "no rotation" if angle == 0 else f"about ({', '.join(_n(v) for v in axis)}) in nominal body axes"
-        lines = [f"deviation: {_n(angle)} deg {where}"]
-        if args.tolerance is not None:
-            margin = args.tolerance - angle
-            lines.append(f"within tolerance {_n(args.tolerance)} deg (margin {_n(margin)} deg)" if within else
-                         f"OUTSIDE tolerance {_n(args.tolerance)} deg (by {_n(-margin)} deg)")
+        lines = [f"deviation: {shown(angle, unit, _n)} {where}"]
+        if tolerance is not None:
+            margin = tolerance - angle
+            lines.append(f"within tolerance {shown(tolerance, unit, _n)} (margin {shown(margin, unit, _n)})" if within
+                         else f"OUTSIDE tolerance {shown(tolerance, unit, _n)} (by {shown(-margin, unit, _n)})")
         if decision is not None:
             lines.append(f"decision (ISO 14253-1): {decision.words()}")
         lines += [f"nominal: {nominal.label}", f"measured: {measured.label}"]
@@ -395,8 +405,10 @@ def add_batch_arguments(parser: argparse.ArgumentParser) -> None:
     parser.add_argument("file", metavar="FILE.csv",
                         help="CSV of mounts: name, then nominal_... and measured_... column sets "
                              "(e.g. nominal_qw..qz, measured_yaw/pitch/roll[deg]; see the README)")
-    parser.add_argument("--tolerance", type=float, required=True, metavar="DEG",
-                        help="allowed total deviation of each mount, in degrees")
+    parser.add_argument("--tolerance", type=angle_argument, required=True, metavar="ANGLE",
+                        help="allowed total deviation of each mount: degrees, or a number with its unit (0.5mrad, "
+                             "30″, 1′30″, 2gon)")
+    add_units_option(parser)
     parser.add_argument("--out", metavar="RESULT.csv", help="also write the table of deviations as CSV")
     parser.add_argument("--skip-errors", action="store_true",
                         help="list rows that cannot be checked as errors and judge the others (exit 0 or 1 by "
@@ -420,8 +432,9 @@ def run_batch(args, stdin, stdout) -> int:
     from core.check import CheckSettings
     from core.printable import printable
 
+    tolerance, unit = args.tolerance.degrees, args.show_units
     try:
-        settings = CheckSettings(total_tolerance_deg=args.tolerance)
+        settings = CheckSettings(total_tolerance_deg=tolerance)
     except FramewrightError as error:
         raise _Refused(f"--tolerance: {error}") from None
     if args.out and _same_file(args.out, args.file):
@@ -452,19 +465,22 @@ def run_batch(args, stdin, stdout) -> int:
     width = max(len("mount"), *(len(name) for name in names))
     problems = result.problem_texts()
     decided = result.decision is not None
-    lines = [f"{'mount'.ljust(width)}  deviation (deg)  result   margin (deg)"
-             + ("  u (deg)  decision (ISO 14253-1)" if decided else "")]
+    symbol = "deg" if unit in ("deg", "dms") else units.ANGLE_UNITS[unit].symbol
+    per = units.ANGLE_UNITS[unit].per_base if unit != "dms" else 1.0     # the table's numbers in that unit
+    column = f"deviation ({symbol})"
+    lines = [f"{'mount'.ljust(width)}  {column:>15}  result   {f'margin ({symbol})':>13}"
+             + (f"  {f'u ({symbol})':>7}  decision (ISO 14253-1)" if decided else "")]
     for row, (name, total, passed, margin) in enumerate(zip(names, result.total_deg, result.passed,
                                                              result.margin_deg)):
         if row in problems:
             lines.append(f"{name.ljust(width)}  {'-':>15}  {'ERROR':<6} {'-':>13}  {printable(problems[row])}")
         else:
-            line = f"{name.ljust(width)}  {total:15.4f}  {'pass' if passed else 'FAIL':<6} {margin + 0.0:13.4f}"
+            line = f"{name.ljust(width)}  {total * per:15.4f}  {'pass' if passed else 'FAIL':<6} {margin * per + 0.0:13.4f}"
             if decided:
-                line += f"  {result.uncertainty_deg[row]:7.4f}  {result.decision[row]}"
+                line += f"  {result.uncertainty_deg[row] * per:7.4f}  {result.decision[row]}"
             lines.append(line)
     failed = result.failed_count
-    lines.append(f"{len(names)} mounts, {failed} outside the tolerance of {_n(args.tolerance)} deg, "
+    lines.append(f"{len(names)} mounts, {failed} outside the tolerance of {shown(tolerance, unit, _n)}, "
                  f"{result.passed_count} within, {errors} in error (not checked)"
                  + (f"; results written to {printable(args.out)}" if args.out else ""))
     counts = result.decision_counts()
@@ -681,8 +697,8 @@ def add_open_arguments(parser: argparse.ArgumentParser) -> None:
 
 def run_open(args, stdin, stdout) -> int:
     """Read the file here first, so a damaged one is one line on stderr and no window; then check that
-    there is a display (Qt would abort the process without one); then hand over to the window (the only
-    verb that loads Qt, and only at this point)."""
+    there is a display (Qt would abort the process without one); then hand over to the window through
+    the opener app/main.py gives (the command line never imports the window, so it never loads Qt)."""
     from core.session import load_session
 
     try:
@@ -692,8 +708,9 @@ def run_open(args, stdin, stdout) -> int:
     problem = open_display_problem()
     if problem is not None:
         raise _Refused(problem)
-    from app.main import open_window
-    return open_window(args.session)
+    if args.open_window is None:
+        raise _Refused("opening a window needs the program's entry point (framewright open FILE)")
+    return args.open_window(args.session)
 
 
 # ---------------------------------------------------------------------------------------------------
@@ -709,6 +726,14 @@ def add_report_arguments(parser: argparse.ArgumentParser) -> None:
     for flag, field in (("--operator", "Operator"), ("--instrument", "Instrument"),
                         ("--calibration-due", "Instrument calibration due")):
         parser.add_argument(flag, metavar="TEXT", help=f"fills the report's '{field}' line (blank to fill by hand)")
+    parser.add_argument("--units", dest="show_units", default="deg", metavar="UNIT",
+                        choices=tuple(k for k in units.ANGLE_UNITS if k != "dms"),
+                        help="print the report's angles in this unit: " + ", ".join(
+                            f"{u.key} ({u.name})" for u in units.ANGLE_UNITS.values() if u.key != "dms"))
+    parser.add_argument("--slope-units", dest="slope_units", default="deg", metavar="UNIT",
+                        choices=tuple(units.SLOPE_UNITS),
+                        help="also print the level readings as slopes in this unit: " + ", ".join(
+                            f"{u.key} ({u.name})" for u in units.SLOPE_UNITS.values() if u.key != "deg"))
 
 
 def _report_target(out: str, session_path: str) -> str:
@@ -727,8 +752,8 @@ def _report_target(out: str, session_path: str) -> str:
 
 
 def run_report(args, stdin, stdout) -> int:
-    """Read the session and build the record first (a refusal loads no Qt); then draw the pictures, with
-    a display when there is one and without one (offscreen, no pictures) otherwise, and write the file."""
+    """Read the session and build the record first (a refusal loads no Qt); then hand it to the writer
+    (app/report_with_qt.py), which draws the pictures and writes the file."""
     from pathlib import Path
 
     from core import inspection_record as records
@@ -749,11 +774,17 @@ def run_report(args, stdin, stdout) -> int:
             free[field] = value
     name, digest = Path(args.session).name, records.sha256_of_bytes(raw)
     try:
-        record = (records.check_record(session, args.check, name, digest) if args.check is not None
-                  else records.session_record(session, name, digest))
+        shown = records.ReportUnits(args.show_units, args.slope_units)
+        record = (records.check_record(session, args.check, name, digest, shown=shown) if args.check is not None
+                  else records.session_record(session, name, digest, shown))
     except FramewrightError as error:
         raise _Refused(str(error)) from None
-    written = _write_report_with_qt(out, record, free)
+    if args.write_report is None:
+        raise _Refused("writing a report needs the program's entry point (framewright report ...)")
+    try:
+        written = args.write_report(out, record, free)
+    except OSError as error:
+        raise _Refused(f"{printable(out)}: cannot be written ({error.strerror or error})") from None
     lines = [f"wrote {printable(written.path)}" + (f" ({written.pages} pages)" if written.pages else ""),
              f"record SHA-256 {record.sha256()}; session file SHA-256 {digest}"]
     if record.verdict:
@@ -762,25 +793,6 @@ def run_report(args, stdin, stdout) -> int:
         lines.append(f"note: the Scene picture is left out: {written.picture_problem}")
     stdout.write("\n".join(lines) + "\n")
     return EXIT_OK
-
-
-def _write_report_with_qt(out: str, record, free: dict):
-    """Qt is loaded here only. Without a display Qt's offscreen platform lays out the pages (it has no
-    OpenGL, so the report says the picture is left out); Qt's own messages are kept off stderr."""
-    if open_display_problem() is not None:
-        os.environ["QT_QPA_PLATFORM"] = "offscreen"
-    import app.scene  # noqa: F401 - sets the GL context sharing the Scene needs, before the QApplication
-    from PySide6.QtCore import qInstallMessageHandler
-    from PySide6.QtWidgets import QApplication
-
-    from app.report_writer import write_report
-
-    qInstallMessageHandler(lambda *_: None)
-    application = QApplication.instance() or QApplication(["framewright"])  # noqa: F841 - kept alive
-    try:
-        return write_report(out, record, free)
-    except OSError as error:
-        raise _Refused(f"{printable(out)}: cannot be written ({error.strerror or error})") from None
 
 
 def add_verify_report_arguments(parser: argparse.ArgumentParser) -> None:
@@ -804,7 +816,7 @@ def run_verify_report(args, stdin, stdout) -> int:
         raise _Refused(str(error)) from None
     try:
         record = records.record_for(session, data.get("scope"), data.get("check"), Path(args.session).name,
-                                    records.sha256_of_bytes(raw))
+                                    records.sha256_of_bytes(raw), records.ReportUnits.from_numbers(data))
     except FramewrightError as error:     # e.g. the check the report names is not in this session
         stdout.write(f"NOT the record of this session: {printable(error)}\n")
         return EXIT_OUTSIDE
@@ -935,9 +947,11 @@ def _quiet_stdout() -> None:
         pass
 
 
-def main(argv=None, stdin=None, stdout=None, stderr=None) -> int:
+def main(argv=None, stdin=None, stdout=None, stderr=None, open_window=None, write_report=None) -> int:
     """Run one verb. Every outcome is an exit status and at most one line on stderr: 0 / 1 as the verb
-    says, 2 for refused input and usage errors, 3 for an internal error (the traceback goes to a log)."""
+    says, 2 for refused input and usage errors, 3 for an internal error (the traceback goes to a log).
+    The two verbs that need Qt get it from app/main.py, so this module never imports Qt: `open_window(path)
+    -> status` starts the window, `write_report(out, record, free) -> written` lays out and writes a report."""
     import warnings
 
     stdin, stdout, stderr = stdin or sys.stdin, _ReaderMayLeave(stdout or sys.stdout), stderr or sys.stderr
@@ -949,6 +963,7 @@ def main(argv=None, stdin=None, stdout=None, stderr=None) -> int:
     prefix = f"framewright {verb}" if verb else "framewright"
     try:
         args = build_parser().parse_args(argv)
+        args.open_window, args.write_report = open_window, write_report
         with warnings.catch_warnings():
             # A floating-point warning means a number that cannot be trusted: an error, never a line
             # of noise on stderr beside an exit status of 0.

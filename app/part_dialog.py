@@ -7,9 +7,10 @@ from PySide6.QtWidgets import (QComboBox, QDialog, QDialogButtonBox, QFormLayout
                                QLabel, QLineEdit, QVBoxLayout)
 
 from app import plain_text
+from core import axes
 from core.errors import FramewrightError
 from core.number_text import parse_number
-from core.session import FACE_KEYS, PartProperties
+from core.session import PartProperties
 
 ERROR_STYLE = "color: #b00020;"
 # The sizes a box part can have, in mm: a micrometre to a kilometre. Smaller or larger is a typo or a unit
@@ -39,16 +40,16 @@ class PartDialog(QDialog):
         size_row.addWidget(QLabel("mm"))
         self.name_fields = {}
         names = QFormLayout()
-        for key in FACE_KEYS:
+        for key in axes.SIGNED_AXES:
             field = QLineEdit(part.face_names.get(key, ""))
             field.setPlaceholderText("(no name)")
             field.setToolTip(f"Your name for the face whose outward normal is body {key}, e.g. “lens”.")
-            names.addRow(f"Face {key.replace('-', '−')}", field)
+            names.addRow(f"Face {axes.display(key)}", field)
             self.name_fields[key] = field
         self.boresight_box = QComboBox()
-        for key in FACE_KEYS:
-            self.boresight_box.addItem(key.replace("-", "−"), key)
-        self.boresight_box.setCurrentIndex(FACE_KEYS.index(part.boresight))
+        for key in axes.SIGNED_AXES:
+            self.boresight_box.addItem(axes.display(key), key)
+        self.boresight_box.setCurrentIndex(axes.SIGNED_AXES.index(part.boresight))
         self.boresight_box.setToolTip("The face the part points with: its normal is the boresight axis.")
         names.addRow("Boresight face", self.boresight_box)
         self.message = plain_text.plain_label()

@@ -730,7 +730,7 @@ def run_window(path: str | None = None) -> int:
     """Show the window on the session file `path` (or else the session open when it last closed; the demo
     on the first launch) and run until it closes. A recovery file left by a run that crashed is offered
     first."""
-    from app.main import seconds_since_start   # the clock starts with the process, not after the imports
+    from app.start_clock import seconds_since_start   # the clock starts with the process, not the imports
     app = QApplication.instance() or QApplication(sys.argv)
     app.setOrganizationName(settings.ORGANISATION)
     app.setApplicationName(settings.APPLICATION)

@@ -23,7 +23,8 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from core import kernels
+from core import axes, kernels
+from core.axes import axis_name
 from core.errors import FramewrightError, InvalidInputError
 from core.orientation import Orientation
 from core.position import LIMIT_M, Position
@@ -34,31 +35,10 @@ MODES = ("total", "pointing_and_roll")
 # would be rounding noise.
 ROLL_UNDEFINED_RAD = 2e-9
 
-_NAMED_AXES = {
-    "+X": (1.0, 0.0, 0.0), "-X": (-1.0, 0.0, 0.0),
-    "+Y": (0.0, 1.0, 0.0), "-Y": (0.0, -1.0, 0.0),
-    "+Z": (0.0, 0.0, 1.0), "-Z": (0.0, 0.0, -1.0),
-}
-
-
-def axis_name(spec):
-    """'+X' for 'x', '+x', 'X', ' +X '; None when `spec` is not a named axis."""
-    if not isinstance(spec, str):
-        return None
-    text = spec.strip().upper().replace("−", "-")
-    if len(text) == 1:
-        text = "+" + text
-    return text if text in _NAMED_AXES else None
-
-
 def axis_vector(spec, what="body axis"):
     """A unit 3-vector from a named axis ('+Z', '-x', 'Y') or three numbers (normalised)."""
     if isinstance(spec, str):
-        name = axis_name(spec)
-        if name is None:
-            raise InvalidInputError(
-                f"{what}: cannot read {spec!r}; expected one of {', '.join(_NAMED_AXES)} or three numbers")
-        return np.array(_NAMED_AXES[name])
+        return axes.unit_vector(spec, what, or_else="three numbers")
     v = kernels.check_array(spec, (3,), what)
     if v.shape != (3,):
         raise InvalidInputError(f"{what}: expected three numbers, got shape {v.shape}")

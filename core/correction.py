@@ -75,7 +75,7 @@ class AdjustmentAngles:
 def read_axes(text: str) -> np.ndarray:
     """'+X; 0 1 1; -Z' -> the unit axes, each a named axis (+X, -y, Z) or three numbers; ';' between axes.
     Two or three axes, none of zero length and no two in a row parallel, or InvalidInputError."""
-    from core.check import axis_name, axis_vector
+    from core.axes import axis_name, unit_vector
     from core.number_text import parse_number
     if not isinstance(text, str) or len(text) > 1000:
         raise InvalidInputError("adjustment axes: expected text such as '+X; 0 1 1' (at most 1000 characters)")
@@ -83,7 +83,7 @@ def read_axes(text: str) -> np.ndarray:
     for i, part in enumerate(text.split(";"), start=1):
         name = axis_name(part)
         if name is not None:
-            axes.append(axis_vector(name))
+            axes.append(unit_vector(name))
             continue
         numbers = part.replace(",", " ").split()
         if len(numbers) != 3:

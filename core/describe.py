@@ -12,9 +12,10 @@ from dataclasses import dataclass
 
 import numpy as np
 
-MINUS = "\u2212"  # the typographic minus sign, as in every printed direction ("−Z")
+from core import axes
+from core.axes import MINUS  # many callers still name it describe.MINUS
+
 ARROW = "\u2192"
-AXIS_NAMES = ("X", "Y", "Z")
 
 
 @dataclass(frozen=True)
@@ -53,9 +54,7 @@ def gravity_direction(name=None):
     """The reference direction a preset calls "down" (where gravity points), e.g. (0, 0, 1) for NED."""
     for (axis, sign), word in frame_preset(name).words.items():
         if word == "down":
-            down = [0.0, 0.0, 0.0]
-            down[axis] = float(sign)
-            return tuple(down)
+            return tuple(axes.unit_vector(axes.signed_axis(axis, sign)).tolist())
     raise ValueError(f"frame preset {name!r} names no direction 'down'")
 
 
@@ -71,7 +70,7 @@ def frame_preset(name: str | FramePreset | None) -> FramePreset:
 
 def signed_axis_name(axis_index: int, sign: int) -> str:
     """'+X', '−Z' (Unicode minus)."""
-    return ("+" if sign > 0 else MINUS) + AXIS_NAMES[axis_index]
+    return axes.display(axes.signed_axis(axis_index, sign))
 
 
 def matrix_of(orientation) -> np.ndarray:
@@ -215,7 +214,7 @@ def _mapping_words(m: np.ndarray) -> str:
     out = []
     for body_axis in range(3):
         ref_axis = int(np.argmax(np.abs(m[:, body_axis])))
-        out.append(f"{AXIS_NAMES[body_axis]}{ARROW}{signed_axis_name(ref_axis, int(np.sign(m[ref_axis, body_axis])))}")
+        out.append(f"{axes.LETTERS[body_axis]}{ARROW}{signed_axis_name(ref_axis, int(np.sign(m[ref_axis, body_axis])))}")
     return ", ".join(out)
 
 

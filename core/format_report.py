@@ -79,15 +79,13 @@ def _report_words(orientation, o: FormatOptions) -> list[str]:
 
 def _report_level(orientation, o: FormatOptions) -> list[str]:
     """What a level would read on each face and each body axis's elevation (core/level.py)."""
-    from core import describe, level
+    from core import axes, describe, level
 
     down = level.DOWN_Z_UP if o.gravity_down is None else o.gravity_down
     report = level.level_readings(orientation, down)
-    axes = {tuple(v): name for name, v in (("-Z (Z up)", (0.0, 0.0, -1.0)), ("+Z (Z down)", (0.0, 0.0, 1.0)),
-                                            ("+X", (1.0, 0.0, 0.0)), ("-X", (-1.0, 0.0, 0.0)),
-                                            ("+Y", (0.0, 1.0, 0.0)), ("-Y", (0.0, -1.0, 0.0)))}
-    name = axes.get(tuple(float(c) + 0.0 for c in report.down))
-    where = f"reference {name}" if name else f"reference ({', '.join(f'{c:.6g}' for c in report.down)})"
+    name = axes.name_of_vector(report.down)
+    vertical = {"-Z": " (Z up)", "+Z": " (Z down)"}.get(name, "")
+    where = f"reference {name}{vertical}" if name else f"reference ({', '.join(f'{c:.6g}' for c in report.down)})"
     m = lambda text: text.replace("-", describe.MINUS)          # noqa: E731 - signs as printed elsewhere
     lines = [f"Level readings, gravity along {m(where)}; degrees to three decimals:"]
     for r in report.faces:

@@ -17,163 +17,30 @@ is '.', the minus sign the plain '-', so a number copied off the page reads back
 
 from __future__ import annotations
 
-import hashlib
-import json
-import math
-from dataclasses import dataclass
-from typing import Iterable
-
 import numpy as np
 
-from core import describe, level, sequences
+from core import describe, level, sequences, units
 from core.check import check, check_position
 from core.correction import adjustment_angles, correction, read_axes
 from core.decision import decide_check
 from core.errors import FramewrightError
-from core.formats import SAFETY_CAUTION, format_number
 from core.orientation import Orientation
 from core.session import SavedCheck, Session, read_checks
 from core.shims import outward_normal, shims
-
-RECORD_FORMAT = "framewright inspection record"
-RECORD_VERSION = 1
-DEGREES, MILLIMETRES, DIMENSIONLESS, UNIT_VECTOR, WORDS = "deg", "mm", "dimensionless", "unit vector", ""
-CAUTION = ("A wrong orientation can point a safety-relevant sensor the wrong way. "
-           f"{SAFETY_CAUTION[0].upper()}{SAFETY_CAUTION[1:].rstrip('.')}.")
-# Filled in by hand on the printed page (or typed in before export); never part of the canonical numbers.
-FREE_FIELDS = ("Operator", "Instrument", "Instrument calibration due", "Signature")
-DECISION_RULE = ("ISO 14253-1: with the expanded uncertainty U = k·u, a figure conforms when it is at most "
-                 "T − U, does not conform when it exceeds T + U, and otherwise the measurement cannot decide")
-
-
-class RecordError(FramewrightError):
-    """A record that cannot be made: an unknown check, a check without both mounts, a bad setup."""
-
-
-# ---------------------------------------------------------------------------------------------------
-# Numbers as printed
-# ---------------------------------------------------------------------------------------------------
-def printed_numbers(values: Iterable[float], digits: int) -> tuple[str, ...]:
-    """The values of one group printed with `digits` significant digits counted from the group's largest,
-    trailing zeros dropped, never '-0' (core/formats.format_number does the rounding)."""
-    numbers = [float(v) for v in values]
-    if not all(math.isfinite(v) for v in numbers):
-        raise RecordError("a figure is not a finite number; the record is not made")
-    largest = max((abs(v) for v in numbers), default=0.0)
-    if largest == 0:
-        return tuple("0" for _ in numbers)
-    decimals = min(17, max(0, digits - 1 - math.floor(math.log10(largest))))
-    out = []
-    for v in numbers:
-        text = format_number(v, decimals)
-        if "." in text:
-            text = text.rstrip("0").rstrip(".")
-        out.append("0" if float(text) == 0 else text)
-    return tuple(out)
-
-
-# ---------------------------------------------------------------------------------------------------
-# The record's parts
-# ---------------------------------------------------------------------------------------------------
-@dataclass(frozen=True)
-class Figure:
-    """One printed figure: key (its place, stable for the same session), label, values as printed, unit
-    (DEGREES, MILLIMETRES, DIMENSIONLESS, UNIT_VECTOR, or WORDS for names and verdicts)."""
-    key: str
-    label: str
-    values: tuple
-    unit: str
-    shape: tuple = ()          # (3, 3) for a matrix: printed as rows
-
-
-@dataclass(frozen=True)
-class Table:
-    """Figures printed as the rows of a table: each row a Figure whose values fill the columns."""
-    title: str
-    columns: tuple
-    rows: tuple
-
-
-@dataclass(frozen=True)
-class Picture:
-    """What the Scene picture of a part shows: the part at `orientation`, `ghost` as the faint outline."""
-    orientation: Orientation
-    ghost: Orientation
-    ghost_label: str
-    part: object
-    preset: str
-
-
-@dataclass(frozen=True)
-class Section:
-    title: str
-    items: tuple               # Figure, Table or str (a line of words), in print order
-    picture: Picture | None = None
-
-
-@dataclass(frozen=True)
-class Record:
-    title: str
-    scope: str                 # "check" or "all"
-    check_name: str | None
-    session_name: str
-    session_sha256: str
-    reference_frame: str       # the preset's title
-    digits: int
-    conventions: tuple
-    sections: tuple
-    verdict: str | None        # the check's verdict line (a check record), else None
-    caution: str = CAUTION
-    free_fields: tuple = FREE_FIELDS
-    fit_source: str | None = None   # the points file of a fit's residuals, when the record holds one
-
-    def figures(self) -> list[Figure]:
-        out = []
-        for section in self.sections:
-            for item in section.items:
-                if isinstance(item, Figure):
-                    out.append(item)
-                elif isinstance(item, Table):
-                    out.extend(item.rows)
-        return out
-
-    def numbers(self) -> dict:
-        """The record's numbers as plain JSON-ready data (what the canonical JSON and its hash hold)."""
-        return {"format": RECORD_FORMAT, "version": RECORD_VERSION, "scope": self.scope,
-                "check": self.check_name, "session_sha256": self.session_sha256, "digits": self.digits,
-                "figures": [{"key": f.key, "label": f.label, "values": list(f.values), "unit": f.unit}
-                            for f in self.figures()]}
-
-    def canonical_json(self) -> str:
-        return canonical_json(self.numbers())
-
-    def sha256(self) -> str:
-        return hashlib.sha256(self.canonical_json().encode("utf-8")).hexdigest()
-
-    def embedded(self) -> dict:
-        """The numbers with the record's own hash beside them: what a report file embeds."""
-        return {**self.numbers(), "record_sha256": self.sha256()}
-
-
-def canonical_json(numbers: dict) -> str:
-    """One spelling of the numbers: keys sorted, no spaces, UTF-8 text as it is."""
-    return json.dumps(numbers, sort_keys=True, separators=(",", ":"), ensure_ascii=False, allow_nan=False)
-
-
-def numbers_sha256(numbers: dict) -> str:
-    return hashlib.sha256(canonical_json(numbers).encode("utf-8")).hexdigest()
-
-
-def sha256_of_bytes(raw: bytes) -> str:
-    return hashlib.sha256(raw).hexdigest()
+# The record's values and comparison live in core/record_values.py; callers reach them through this module.
+from core.record_values import (CAUTION, DECISION_RULE, DEGREES, DIMENSIONLESS, FREE_FIELDS,  # noqa: F401
+                                MILLIMETRES, UNIT_VECTOR, WORDS, Figure, ReportUnits,
+                                Picture, Record, RecordError, Section, Table, canonical_json, first_difference,
+                                numbers_sha256, printed_numbers, sha256_of_bytes)
 
 
 # ---------------------------------------------------------------------------------------------------
 # Building it
 # ---------------------------------------------------------------------------------------------------
 class _Builder:
-    def __init__(self, session: Session):
+    def __init__(self, session: Session, shown: ReportUnits = ReportUnits()):
         self.session = session
+        self.units = shown
         self.prefs = session.preferences
         self.digits = self.prefs.significant_digits
         self.preset = describe.frame_preset(session.reference_frame)
@@ -193,7 +60,20 @@ class _Builder:
         flat, width = self.n([v for r in rows for v in r]), len(rows[0])
         return [tuple(flat[i * width:(i + 1) * width]) for i in range(len(rows))]
 
+    def angles(self, degrees):
+        """Angles in the record's unit (a number or a list, as given)."""
+        if self.units.angle == "deg":
+            return degrees
+        shown = units.degrees_to(np.asarray(degrees, dtype=float), self.units.angle)
+        return shown.tolist() if np.ndim(shown) else float(shown)
+
+    @property
+    def angle_unit(self) -> str:
+        return DEGREES if self.units.angle == "deg" else self.units.angle
+
     def fig(self, key, label, values, unit, shape=()) -> Figure:
+        if unit == DEGREES:
+            values, unit = self.angles(list(values)), self.angle_unit
         return Figure(key, label, self.n(values), unit, shape)
 
     def words(self, key, label, text) -> Figure:
@@ -234,6 +114,8 @@ class _Builder:
             items.append(Figure(f"{key}.position", "Position of the body origin (x, y, z), in reference axes",
                                 self.n(shown), unit))
         items.append(self.level_table(key, o))
+        if self.units.slope != "deg":
+            items.append(self.slope_table(key, o))
         items.append(f"Where the body axes point (directions named as {self.preset.title}):")
         items += ["    " + line for line in describe.describe_orientation(o, self.preset)]
         if mount.notes.strip():
@@ -243,14 +125,27 @@ class _Builder:
     def level_table(self, key: str, o: Orientation) -> Table:
         down = describe.gravity_direction(self.session.reference_frame)
         report = level.level_readings(o, down)
-        printed = self.table([r.tilt_deg, r.off_plumb_deg, r.from_up_deg] for r in report.faces)
-        rows = tuple(Figure(f"{key}.level[{r.face}]", f"face {r.face}, facing {r.facing}", values, DEGREES)
+        printed = self.table(self.angles([r.tilt_deg, r.off_plumb_deg, r.from_up_deg]) for r in report.faces)
+        rows = tuple(Figure(f"{key}.level[{r.face}]", f"face {r.face}, facing {r.facing}", values, self.angle_unit)
                      for r, values in zip(report.faces, printed))
         axis = int(np.argmax(np.abs(down)))
         down_name = describe.signed_axis_name(axis, int(np.sign(down[axis])))
         return Table(f"Level readings: what a level shows on each face (gravity along reference {down_name}, "
                      f"'down' in {self.preset.key.upper()})",
                      ("face", "tilt from level", "off plumb", "normal from straight up"), rows)
+
+    def slope_table(self, key: str, o: Orientation) -> Table:
+        """What a level shows on each face as a slope: the tilt of an up or down face from level, the lean
+        of a side face from plumb (each at most 45°, so every slope is finite)."""
+        report = level.level_readings(o, describe.gravity_direction(self.session.reference_frame))
+        unit = units.SLOPE_UNITS[self.units.slope]
+        shown = [float(units.tilt_to_slope(r.off_plumb_deg if r.facing == "side" else r.tilt_deg, unit.key))
+                 for r in report.faces]
+        rows = tuple(Figure(f"{key}.level_slope[{r.face}]", f"face {r.face}, "
+                            + ("from plumb" if r.facing == "side" else "from level"), values, unit.symbol)
+                     for r, values in zip(report.faces, self.table([v] for v in shown)))
+        return Table(f"Level readings as slopes, {unit.name} (an up or down face from level, a side face from "
+                     "plumb)", ("face", "slope"), rows)
 
     # -- one check ------------------------------------------------------------------------------------
     def check_items(self, index: int, saved: SavedCheck) -> tuple[list, str, Picture]:
@@ -288,8 +183,9 @@ class _Builder:
             items.append(self.fig(f"{key}.roll", "Roll about the body axis (signed, right-hand rule)"
                                   + ("" if result.roll_defined else "; undefined: the axis points backwards"),
                                   [result.roll_deg], DEGREES))
-        printed = self.table([c.value_deg, c.tolerance_deg, c.margin_deg] for c in result.criteria)
-        rows = [Figure(f"{key}.criterion[{i}]", f"{c.name}: {'PASS' if c.passed else 'FAIL'}", values, DEGREES)
+        printed = self.table(self.angles([c.value_deg, c.tolerance_deg, c.margin_deg]) for c in result.criteria)
+        rows = [Figure(f"{key}.criterion[{i}]", f"{c.name}: {'PASS' if c.passed else 'FAIL'}", values,
+                       self.angle_unit)
                 for i, (c, values) in enumerate(zip(result.criteria, printed))]
         items.append(Table("Figures against their tolerances (a figure equal to its tolerance passes)",
                            ("figure", "value", "tolerance", "margin"), tuple(rows)))
@@ -306,7 +202,8 @@ class _Builder:
                       self.fig(f"{key}.coverage", "Coverage factor k", [k], DIMENSIONLESS),
                       self.fig(f"{key}.expanded_uncertainty", "Expanded uncertainty U = k·u", [k * u], DEGREES)]
             items.append(self.words(f"{key}.decision", "Decision (ISO 14253-1)", outcome))
-            verdict_line += f"; ISO 14253-1 decision: {outcome} (U = {self.n([k * u])[0]} deg, k = {self.n([k])[0]})"
+            verdict_line += (f"; ISO 14253-1 decision: {outcome} (U = {self.n([self.angles(k * u)])[0]} "
+                             f"{self.angle_unit}, k = {self.n([k])[0]})")
         else:
             items.append("No measurement uncertainty was given: the verdict is the plain comparison, with no "
                          "guard band (an ISO 14253-1 decision needs U).")
@@ -346,9 +243,9 @@ class _Builder:
             if setup.axes:
                 target = fix.body if setup.axes_frame == "body" else fix.reference
                 adjust = adjustment_angles(target, read_axes(setup.axes))
-                printed = self.table([a] for a in adjust.angles_deg)
+                printed = self.table([self.angles(a)] for a in adjust.angles_deg)
                 rows = tuple(Figure(f"{key}.adjustment[{i}]", f"{i + 1}. about ({', '.join(self.n(axis))})",
-                                    values, DEGREES)
+                                    values, self.angle_unit)
                              for i, (axis, values) in enumerate(zip(adjust.axes, printed)))
                 items.append(Table(f"Adjustment angles about the mount's {setup.axes_frame} axes, in the order "
                                    "they are turned", ("axis", "angle"), rows))
@@ -390,12 +287,13 @@ class _Builder:
                       ("point", "x", "y", "z", "distance"), tuple(table_rows))]
 
 
-def _conventions(session: Session, digits: int) -> tuple:
+def _conventions(session: Session, digits: int, shown: ReportUnits) -> tuple:
+    angles = units.ANGLE_UNITS[shown.angle].name
     return ("An orientation R maps body to reference: v_ref = R · v_body, so the columns of R are the body "
             "axes in reference coordinates.",
             "Quaternions are Hamilton (i j = k), written w first, with w not negative; q and −q are the same "
             "orientation.",
-            "Angles are in degrees. Intrinsic angles turn about the moving body axes, extrinsic about the fixed "
+            f"Angles are in {angles}. Intrinsic angles turn about the moving body axes, extrinsic about the fixed "
             "reference axes.",
             f"Numbers are printed to {digits} significant digits counted from the largest of each group, "
             "trailing zeros dropped; '.' is the decimal point.",
@@ -413,10 +311,12 @@ def find_check(session: Session, name: str) -> tuple[int, SavedCheck]:
 
 
 def check_record(session: Session, check_name: str, session_name: str, session_sha256: str,
-                 fit=None, fit_rows=None, fit_unit: str = "mm", fit_source: str | None = None) -> Record:
+                 fit=None, fit_rows=None, fit_unit: str = "mm", fit_source: str | None = None,
+                 shown: ReportUnits = ReportUnits()) -> Record:
     """The record of one check: its nominal and measured mounts and everything the check works out.
-    `fit`: the point fit the measured orientation came from (core/fit.PointFit), when there is one."""
-    b = _Builder(session)
+    `fit`: the point fit the measured orientation came from (core/fit.PointFit), when there is one.
+    `shown`: the units angles and level slopes are printed in."""
+    b = _Builder(session, shown)
     index, saved = find_check(session, check_name)
     items, verdict, picture = b.check_items(index, saved)
     names = [m.name for m in session.mounts]
@@ -428,14 +328,15 @@ def check_record(session: Session, check_name: str, session_name: str, session_s
         sections.append(Section("The measured orientation's point fit", tuple(b.fit_items(f"check[{index}]",
                                                                                             fit, fit_rows, fit_unit))))
     return Record(f"Inspection record: {session.mounts[measured_i].name}", "check", saved.name, session_name,
-                  session_sha256, b.preset.title, b.digits, _conventions(session, b.digits), tuple(sections),
-                  verdict, fit_source=fit_source)
+                  session_sha256, b.preset.title, b.digits, _conventions(session, b.digits, shown), tuple(sections),
+                  verdict, fit_source=fit_source, units=shown)
 
 
-def session_record(session: Session, session_name: str, session_sha256: str) -> Record:
+def session_record(session: Session, session_name: str, session_sha256: str,
+                   shown: ReportUnits = ReportUnits()) -> Record:
     """The record of a whole session: every mount, then every check that names both its mounts (a check
     that does not is listed as not judged)."""
-    b = _Builder(session)
+    b = _Builder(session, shown)
     sections = []
     for i, mount in enumerate(session.mounts):
         picture = Picture(mount.orientation, Orientation.identity(), "reference", mount.part, session.reference_frame)
@@ -448,7 +349,7 @@ def session_record(session: Session, session_name: str, session_sha256: str) -> 
             continue
         sections.append(Section(f"Check “{saved.name}”: {verdict.split(':')[0]}", tuple(items), picture))
     return Record(f"Inspection record: {session_name}", "all", None, session_name, session_sha256, b.preset.title,
-                  b.digits, _conventions(session, b.digits), tuple(sections), None)
+                  b.digits, _conventions(session, b.digits, shown), tuple(sections), None, units=shown)
 
 
 def _clean(items) -> list:
@@ -456,49 +357,18 @@ def _clean(items) -> list:
 
 
 def record_for(session: Session, scope: str, check_name: str | None, session_name: str,
-               session_sha256: str) -> Record:
-    """The record a report file names (its scope and check): what verify-report rebuilds."""
+               session_sha256: str, shown: ReportUnits = ReportUnits()) -> Record:
+    """The record a report file names (its scope, check and units): what verify-report rebuilds."""
     if scope == "check":
         if not isinstance(check_name, str):
             raise RecordError("the report names no check")
-        return check_record(session, check_name, session_name, session_sha256)
+        return check_record(session, check_name, session_name, session_sha256, shown=shown)
     if scope == "all":
-        return session_record(session, session_name, session_sha256)
+        return session_record(session, session_name, session_sha256, shown)
     raise RecordError(f"unknown report scope {scope!r}; expected check or all")
 
 
-# ---------------------------------------------------------------------------------------------------
-# Comparing
-# ---------------------------------------------------------------------------------------------------
-def first_difference(reported: list, expected: list) -> str | None:
-    """The first figure that differs between two figure lists (as in `Record.numbers()['figures']`), in
-    words; None when they are the same. Figures from a point fit are compared only when both hold them."""
-    by_key = {f["key"]: f for f in expected}
-    for figure in reported:
-        key = figure.get("key") if isinstance(figure, dict) else None
-        if key is None:
-            return "a figure without a key"
-        other = by_key.pop(key, None)
-        if other is None:
-            if ".fit_" in key:
-                continue
-            return f"{key} ({figure.get('label')}) is not a figure of this session"
-        for what in ("values", "unit"):
-            if figure.get(what) != other[what]:
-                return (f"{key} ({other['label']}): the report says {_shown(figure.get(what))}, the session gives "
-                        f"{_shown(other[what])}")
-    if by_key:
-        key, figure = next(iter(by_key.items()))
-        return f"{key} ({figure['label']}) is missing from the report"
-    return None
-
-
-def _shown(values) -> str:
-    if isinstance(values, list):
-        return ", ".join(str(v) for v in values)
-    return str(values)
-
-
-__all__ = ["CAUTION", "DECISION_RULE", "FREE_FIELDS", "Figure", "Picture", "Record", "RecordError", "Section",
+__all__ = ["CAUTION", "DECISION_RULE", "FREE_FIELDS", "Figure", "Picture", "Record", "RecordError", "ReportUnits",
+           "Section",
            "Table", "canonical_json", "check_record", "find_check", "first_difference", "numbers_sha256",
            "printed_numbers", "record_for", "session_record", "sha256_of_bytes"]

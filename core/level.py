@@ -29,17 +29,18 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from core.check import axis_name, axis_vector
+from core.axes import POSITIVE_AXES, SIGNED_AXES, axis_name
+from core.check import axis_vector
 from core.errors import InvalidInputError
 from core.orientation import Orientation
 
 DOWN_Z_UP = (0.0, 0.0, -1.0)
 DOWN_NED = (0.0, 0.0, 1.0)
-FACES = ("+X", "-X", "+Y", "-Y", "+Z", "-Z")
-AXES = ("+X", "+Y", "+Z")
+FACES = SIGNED_AXES   # each face named by its outward normal
+AXES = POSITIVE_AXES
 
 # The in-face direction used when none is chosen: the next body axis round the cycle X -> Y -> Z -> X.
-DEFAULT_IN_FACE = {"X": "+Y", "Y": "+Z", "Z": "+X"}
+DEFAULT_IN_FACE = {axis[1]: POSITIVE_AXES[(i + 1) % 3] for i, axis in enumerate(POSITIVE_AXES)}
 
 _UP_LIMIT_DEG = 45.0
 

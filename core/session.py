@@ -51,6 +51,7 @@ from typing import Any, Mapping
 
 from core import atomic_file, bounded_json
 from core.adjustment_setup import AdjustmentSetup
+from core.axes import SIGNED_AXES
 from core.chain import Chain
 from core.check import CheckSettings
 from core.errors import FramewrightError
@@ -68,7 +69,7 @@ FILE_SUFFIX = ".fwsession.json"
 # Keys reserved for settings other parts of the program will add; listed so readers know where they go.
 RESERVED_KEYS = ("chains", "checks")
 
-FACE_KEYS = ("+X", "-X", "+Y", "-Y", "+Z", "-Z")
+FACE_KEYS = SIGNED_AXES
 ANGLE_UNITS = ("deg", "rad")
 QUATERNION_ORDERS = ("wxyz", "xyzw")
 MATRIX_MEANINGS = ("body_to_reference", "reference_to_body")

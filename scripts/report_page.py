@@ -2,7 +2,9 @@
 drawn by the same page painting as the PDF (app/report_pdf.page_image), with the Scene picture rendered
 on software OpenGL under Xvfb (a virtual display is started when none is set).
 
-    .venv/bin/python scripts/report_page.py [output.png]
+    .venv/bin/python scripts/report_page.py [output.png] [PAGE] [ANGLE_UNIT SLOPE_UNIT]
+
+e.g. `scripts/report_page.py /tmp/p2.png 2 arcsec mm/m` for page 2 of the record in arcseconds and mm/m.
 """
 
 from __future__ import annotations
@@ -21,6 +23,8 @@ from screenshots import _virtual_display  # noqa: E402 - after the path is set
 
 def main(argv: list[str]) -> int:
     out = Path(argv[1]) if len(argv) > 1 else ROOT / "docs" / "screenshots" / "report-page1.png"
+    page = int(argv[2]) if len(argv) > 2 else 1
+    chosen = argv[3:5] if len(argv) > 4 else ["deg", "deg"]
     display = _virtual_display()
     try:
         os.environ.setdefault("QT_QPA_PLATFORM", "xcb")
@@ -36,11 +40,11 @@ def main(argv: list[str]) -> int:
         path = ROOT / "resources" / "demo_check.fwsession.json"
         session, raw = load_session_and_bytes(path)
         record = records.check_record(session, "Radar antenna after remount", path.name,
-                                      records.sha256_of_bytes(raw))
+                                      records.sha256_of_bytes(raw), shown=records.ReportUnits(*chosen))
         pngs, missing, problem = pictures_for(record)
         if problem:
             print(f"note: the Scene picture is left out: {problem}", file=sys.stderr)
-        image = page_image(record, now_text(), pngs, missing, 1, width=1240,
+        image = page_image(record, now_text(), pngs, missing, page, width=1240,
                            free_values={"Operator": "A. Technician (invented)"})
         if not image.save(str(out)):
             print(f"could not write {out}", file=sys.stderr)

@@ -20,15 +20,14 @@ from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QHBoxLayout, Q
 from app import plain_text
 from app.editors.number_field import NumberField, parse_number
 from app.model import CHECK, MOUNTS, ORIENTATION, POSITION, SELECTION, Change, SessionModel
-from core import describe
-from core.check import POSITION_TOLERANCE_LIMIT_MM, CheckSettings, axis_name, check, check_position
+from core import axes, describe
+from core.check import POSITION_TOLERANCE_LIMIT_MM, CheckSettings, check, check_position
 from core.errors import FramewrightError
 
 PASS_STYLE = "background:#2e7d32; color:white; padding:6px 18px; border-radius:4px"
 FAIL_STYLE = "background:#c62828; color:white; padding:6px 18px; border-radius:4px"
 IDLE_STYLE = "background:#5f6368; color:white; padding:6px 18px; border-radius:4px"
 NOT_CHOSEN = "(none chosen)"
-AXES = ("+X", "-X", "+Y", "-Y", "+Z", "-Z")
 MODES = (("total", "Total deviation"), ("pointing_and_roll", "Pointing error and roll"))
 TYPED = "typed"
 NO_AXIS = "none"
@@ -58,10 +57,6 @@ def _vector(v) -> str:
     return "(" + ", ".join(parts) + ")"
 
 
-def _axis_text(name: str) -> str:
-    return name.replace("-", describe.MINUS)
-
-
 class CheckPanel(QWidget):
     def __init__(self, model: SessionModel, parent=None):
         super().__init__(parent)
@@ -89,8 +84,8 @@ class CheckPanel(QWidget):
                                  "against its own tolerance.")
         self.axis_box = QComboBox()
         self.axis_box.addItem("none", NO_AXIS)
-        for name in AXES:
-            self.axis_box.addItem(_axis_text(name), name)
+        for name in axes.SIGNED_AXES:
+            self.axis_box.addItem(axes.display(name), name)
         self.axis_box.addItem("typed (x, y, z)", TYPED)
         self.axis_box.setToolTip("The body axis whose pointing is judged (e.g. the boresight), in body "
                                  "coordinates. 'none' reports the total deviation only.")
@@ -265,7 +260,7 @@ class CheckPanel(QWidget):
             new = replace(settings, mode=mode, body_axis=axis)
             self.model.set_check(replace(self.model.check, settings=new), origin=self,
                                  text="Check: pointing error and roll")
-            plain_text.say(self.message, f"Pointing needs a body axis: took the boresight, {_axis_text(axis)}.")
+            plain_text.say(self.message, f"Pointing needs a body axis: took the boresight, {axes.display(axis)}.")
             self.render()
             return
         self._set_settings("mode", mode)
@@ -386,8 +381,8 @@ class CheckPanel(QWidget):
             lines.append(f"Total deviation: {_deg(result.total_deg)}, about {_vector(result.axis)} "
                          "in the nominal body axes")
         if result.body_axis is not None:
-            name = axis_name(settings.body_axis) if isinstance(settings.body_axis, str) else None
-            axis = _axis_text(name) if name else _vector(result.body_axis)
+            name = axes.axis_name(settings.body_axis) if isinstance(settings.body_axis, str) else None
+            axis = axes.display(name) if name else _vector(result.body_axis)
             lines.append(f"Pointing error of body {axis}: {_deg(result.pointing_deg)}")
             roll = _signed_deg(result.roll_deg) if result.roll_defined else "undefined (the axis points backwards)"
             lines.append(f"Roll about body {axis}: {roll}")

@@ -17,19 +17,15 @@ from app.editors.number_field import parse_number
 from app.model import MOUNTS, ORIENTATION, SELECTION, WORDS, Change, SessionModel
 from app.panels.level_words import WordsBox
 from app.panels.render_when_seen import RendersWhenSeen
-from core import describe
+from core import axes, describe
 from core.errors import FramewrightError
-from core.level import DEFAULT_IN_FACE, DOWN_NED, DOWN_Z_UP, FACES, inclinometer_reading, level_readings
+from core.level import DEFAULT_IN_FACE, FACES, inclinometer_reading, level_readings
 
 TYPED = "typed"
-GRAVITY_CHOICES = (
-    ("\u2212Z (Z up, as ENU)", DOWN_Z_UP),
-    ("+Z (Z down, as NED)", DOWN_NED),
-    ("+Y (Y down, camera optical)", (0.0, 1.0, 0.0)),
-    ("\u2212Y", (0.0, -1.0, 0.0)),
-    ("+X", (1.0, 0.0, 0.0)),
-    ("\u2212X", (-1.0, 0.0, 0.0)),
-)
+# The gravity directions offered: first the ones the frame presets call down, with a note, then the rest.
+_GRAVITY_NOTES = {"-Z": " (Z up, as ENU)", "+Z": " (Z down, as NED)", "+Y": " (Y down, camera optical)"}
+GRAVITY_CHOICES = tuple((axes.display(name) + _GRAVITY_NOTES.get(name, ""), tuple(axes.unit_vector(name).tolist()))
+                        for name in (*_GRAVITY_NOTES, "-Y", "+X", "-X"))
 FACE_COLUMNS = ("Face", "Name", "Tilt from\nlevel", "Off\nplumb", "Faces")
 FACE_TIPS = (
     "The face, named by its outward normal in body axes.",
@@ -47,10 +43,6 @@ def _deg(value: float, decimals: int = 3) -> str:
     if float(text) == 0:
         text = text.lstrip("-")
     return text.replace("-", describe.MINUS) + "\u00b0"
-
-
-def _face(name: str) -> str:
-    return name.replace("-", describe.MINUS)
 
 
 class LevelPanel(RendersWhenSeen, QWidget):
@@ -96,7 +88,7 @@ class LevelPanel(RendersWhenSeen, QWidget):
 
         self.face_box = QComboBox()
         for name in FACES:
-            self.face_box.addItem(_face(name), name)
+            self.face_box.addItem(axes.display(name), name)
         self.face_box.setToolTip("The face the inclinometer's base sits on (its z along the face's outward "
                                  "normal). Until you choose one it follows the face that is up.")
         self._face_chosen = False
@@ -197,9 +189,9 @@ class LevelPanel(RendersWhenSeen, QWidget):
         current = self.direction_box.currentData()
         self.direction_box.clear()
         default = DEFAULT_IN_FACE[face[1]]
-        for name in ("+X", "-X", "+Y", "-Y", "+Z", "-Z"):
+        for name in axes.SIGNED_AXES:
             if name[1] != face[1]:
-                self.direction_box.addItem(_face(name), name)
+                self.direction_box.addItem(axes.display(name), name)
         index = self.direction_box.findData(current if current and current[1] != face[1] else default)
         self.direction_box.setCurrentIndex(index)
 
@@ -224,7 +216,7 @@ class LevelPanel(RendersWhenSeen, QWidget):
             return
         names = mount.part.face_names
         for row, reading in enumerate(report.faces):
-            cells = (_face(reading.face), names.get(reading.face, ""), _deg(reading.tilt_deg),
+            cells = (axes.display(reading.face), names.get(reading.face, ""), _deg(reading.tilt_deg),
                      _deg(reading.off_plumb_deg), reading.facing)
             for column, text in enumerate(cells):
                 item = self.faces.item(row, column)
@@ -238,8 +230,8 @@ class LevelPanel(RendersWhenSeen, QWidget):
                 if column == 2:
                     tip += f"\nNormal {_deg(reading.from_up_deg)} from straight up."
                 item.setToolTip(tip)
-        self.up_label.setText(f"Up: face {_face(report.up_face)}; down: face {_face(report.down_face)}.")
-        self.elevations.setText("    ".join(f"{_face(a.axis)}  {_deg(a.elevation_deg)}" for a in report.axes))
+        self.up_label.setText(f"Up: face {axes.display(report.up_face)}; down: face {axes.display(report.down_face)}.")
+        self.elevations.setText("    ".join(f"{axes.display(a.axis)}  {_deg(a.elevation_deg)}" for a in report.axes))
         if not self._face_chosen and self.face_box.currentData() != report.up_face:
             self.face_box.setCurrentIndex(self.face_box.findData(report.up_face))
             self._fill_directions()
@@ -249,14 +241,13 @@ class LevelPanel(RendersWhenSeen, QWidget):
         self.incline_label.setText(
             f"x along body {_vec(x)}: {_deg(reading.along_deg)}\n"
             f"y along body {_vec(y)}: {_deg(reading.across_deg)}\n"
-            f"face {_face(reading.face)}: normal {_deg(reading.tilt_deg)} from straight up"
+            f"face {axes.display(reading.face)}: normal {_deg(reading.tilt_deg)} from straight up"
             + "".join(f"\n{n}" for n in reading.notes))
 
 
 def _vec(v) -> str:
     """A body axis name when the vector is one, else its numbers."""
-    for k, name in enumerate("XYZ"):
-        for sign in (1, -1):
-            if np.allclose(v, sign * np.eye(3)[k], atol=1e-12):
-                return ("+" if sign > 0 else describe.MINUS) + name
+    name = axes.name_of_vector(v, atol=1e-12, rtol=1e-5)   # near enough: v comes out of a projection
+    if name:
+        return axes.display(name)
     return "(" + ", ".join(f"{c:.3f}" for c in v) + ")"

@@ -8,7 +8,8 @@ from dataclasses import dataclass
 import numpy as np
 
 from app.editors.number_field import format_number
-from core.fit import FitRefusedError, fit_directions, fit_points, frame_from_three_points, triad
+from core.direction_fit import fit_directions, triad
+from core.fit import FitRefusedError, fit_points, frame_from_three_points
 from core.kernels import unit_vectors
 from core.errors import FramewrightError
 from core.orientation import Orientation

@@ -7,12 +7,6 @@ import math
 
 import numpy as np
 
-# Reference directions a technician looks along; the camera stands behind and looks the given way.
-LOOK_DIRECTIONS = {
-    "+X": (1.0, 0.0, 0.0), "-X": (-1.0, 0.0, 0.0),
-    "+Y": (0.0, 1.0, 0.0), "-Y": (0.0, -1.0, 0.0),
-    "+Z": (0.0, 0.0, 1.0), "-Z": (0.0, 0.0, -1.0),
-}
 ISOMETRIC = (-1.0, -1.0, -1.0)  # from the (+, +, +) octant towards the origin, Z up
 SCENE_RADIUS = 1.6  # everything the scene draws lies within this distance of the origin
 FIELD_OF_VIEW = 40.0  # horizontal, degrees

@@ -7,12 +7,10 @@ from dataclasses import dataclass
 
 import numpy as np
 
-FACE_NAMES = ("+X", "-X", "+Y", "-Y", "+Z", "-Z")
-FACE_NORMALS = {
-    "+X": np.array([1.0, 0.0, 0.0]), "-X": np.array([-1.0, 0.0, 0.0]),
-    "+Y": np.array([0.0, 1.0, 0.0]), "-Y": np.array([0.0, -1.0, 0.0]),
-    "+Z": np.array([0.0, 0.0, 1.0]), "-Z": np.array([0.0, 0.0, -1.0]),
-}
+from core import axes
+
+FACE_NAMES = axes.SIGNED_AXES    # each face of the box is named by its outward normal
+FACE_NORMALS = axes.VECTORS      # read-only: copy one before changing it
 
 
 def unit(v) -> np.ndarray:

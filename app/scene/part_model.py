@@ -9,6 +9,7 @@ from OpenGL import GL
 from app.scene import gl_helpers, palette
 from app.scene.geometry import FACE_NAMES, FACE_NORMALS, box_edges, box_mesh, boresight_mark, face_centres
 from app.scene.stl_reader import StlError, read_stl
+from core import axes
 
 DRAWN_HALF_EXTENT = 0.45  # the part is scaled so its farthest extent from the origin is this (axes are 1.0)
 DEFAULT_SIZE = (120.0, 80.0, 50.0)
@@ -20,8 +21,8 @@ _FRONT_FACES_ONLY = {**gl_helpers.SEE_THROUGH, GL.GL_CULL_FACE: True}
 
 
 def normalise_face_name(name: str) -> str:
-    key = name.strip().upper().replace("\u2212", "-")
-    if key not in FACE_NAMES:
+    key = axes.axis_name(name)
+    if key is None:
         raise ValueError(f"unknown face {name!r}; expected one of {', '.join(FACE_NAMES)}")
     return key
 

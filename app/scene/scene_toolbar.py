@@ -6,15 +6,15 @@ from __future__ import annotations
 from PySide6 import QtCore, QtWidgets
 
 from app.scene.overlay_text import REPRESENTATION_TITLES
+from core import axes
 from core.describe import FRAME_PRESETS
 
-VIEW_BUTTONS = (("+X", "Look along +X of the reference"), ("\u2212X", "Look along \u2212X of the reference"),
-                ("+Y", "Look along +Y of the reference"), ("\u2212Y", "Look along \u2212Y of the reference"),
-                ("+Z", "Look along +Z of the reference"), ("\u2212Z", "Look along \u2212Z of the reference"),
+VIEW_BUTTONS = (*((axes.display(name), f"Look along {axes.display(name)} of the reference")
+                  for name in axes.SIGNED_AXES),
                 ("Boresight", "Look along the body's boresight axis"),
                 ("Isometric", "Isometric view from above, on the +X +Y side (above: the frame's up)"),
                 ("Reset", "Back to the isometric view at the standard distance"))
-TRACKED_CHOICES = ("boresight", "+X", "+Y", "+Z", "-X", "-Y", "-Z", "typed")
+TRACKED_CHOICES = ("boresight", *axes.POSITIVE_AXES, *axes.NEGATIVE_AXES, "typed")
 SLIDER_STEPS = 1000
 
 
@@ -48,8 +48,7 @@ class SceneToolbar(QtWidgets.QWidget):
         top.addWidget(QtWidgets.QLabel("Look along:"))
         for text, tip in VIEW_BUTTONS:
             button = QtWidgets.QToolButton(text=text, toolTip=tip)
-            button.clicked.connect(lambda _=False, t=text: self.view_requested.emit(
-                t.replace("\u2212", "-") if t[0] in "+\u2212" else t.lower()))
+            button.clicked.connect(lambda _=False, t=text: self.view_requested.emit(axes.axis_name(t) or t.lower()))
             top.addWidget(button)
         top.addSpacing(12)
         self.grid = QtWidgets.QCheckBox("Grid", checked=True, toolTip="Grid in the reference XY plane")
@@ -85,7 +84,7 @@ class SceneToolbar(QtWidgets.QWidget):
         bottom.addWidget(QtWidgets.QLabel("Track r:"))
         self.tracked = QtWidgets.QComboBox(toolTip="The vector whose swept cone is drawn")
         for choice in TRACKED_CHOICES:
-            self.tracked.addItem(choice.replace("-", "\u2212") if choice[0] == "-" else choice, choice)
+            self.tracked.addItem(axes.display(choice), choice)
         self.typed = QtWidgets.QLineEdit(placeholderText="x, y, z", toolTip="A body-frame vector, e.g. 1, 1, 0")
         self.typed.setMaximumWidth(110)
         self.typed.setEnabled(False)

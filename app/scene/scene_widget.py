@@ -25,7 +25,7 @@ from app.scene.rotation_construction import RotationConstruction
 from app.scene.scene_toolbar import SceneToolbar
 from app.scene.scene_view import SceneView
 from app.scene.stl_reader import StlError
-from core import describe
+from core import axes, describe
 from core.orientation import Orientation
 from core.sequences import parse_sequence
 
@@ -252,8 +252,8 @@ class SceneWidget(QtWidgets.QWidget):
         """'+X', '-X', '+Y', '-Y', '+Z', '-Z' (look along that reference axis), 'boresight', 'iso' or
         'reset'."""
         key = preset.replace("\u2212", "-")
-        if key in camera.LOOK_DIRECTIONS:
-            direction = camera.LOOK_DIRECTIONS[key]
+        if key in axes.VECTORS:  # the camera stands behind and looks along that reference axis
+            direction = axes.VECTORS[key]
         elif key == "boresight":
             direction = self._swept_matrix() @ FACE_NORMALS[self.part.boresight_face]
         elif key in ("iso", "isometric", "reset"):
@@ -398,9 +398,9 @@ class SceneWidget(QtWidgets.QWidget):
 
     def _tracked_label(self):
         if self._tracked_name == "boresight":
-            return f"boresight {self.part.boresight_face.replace('-', describe.MINUS)}"
+            return f"boresight {axes.display(self.part.boresight_face)}"
         if self._tracked_name:
-            return self._tracked_name.replace("-", describe.MINUS)
+            return axes.display(self._tracked_name)
         return None
 
     def _update_panels(self, angle, ghost_shown):

@@ -281,7 +281,7 @@ def _three_candidates(values, parsed, hints, clues, keyed):
             if ROTATION_VECTOR.kind in clues.kinds:
                 c.plus(TEXT_NAMES_KIND[ROTATION_VECTOR.kind], "the text says rotation vector")
             out.append(c)
-    out += _named_vector_candidates(v, hints, clues, keyed)
+    out += _named_vector_candidates(v, parsed, hints, clues, keyed)
     if keyed and keyed.kind in _VECTOR_KINDS:
         out = [c for c in out if c.kind == keyed.kind]
     return out
@@ -290,7 +290,7 @@ def _three_candidates(values, parsed, hints, clues, keyed):
 _VECTOR_KINDS = {r.kind for r in representations.VECTORS}
 
 
-def _named_vector_candidates(v, hints, clues, keyed):
+def _named_vector_candidates(v, parsed, hints, clues, keyed):
     """Three numbers as a parameter set that is read only when the text, the names or a hint say so (the
     registry's caption_only entries): bare numbers are never read as one."""
     out = []
@@ -301,6 +301,12 @@ def _named_vector_candidates(v, hints, clues, keyed):
         in_text = chosen.kind in clues.kinds
         if not (by_keys or in_text or hints.kind == chosen.kind) or (keyed is not None and not by_keys):
             continue
+        marked = [n for n in parsed.numbers if n.unit]
+        if marked and chosen.units == representations.PURE:
+            if by_keys or hints.kind == chosen.kind:
+                raise DecodeError(f"line {marked[0].line}: '{marked[0].text}' carries an angle unit, but the "
+                                  f"{chosen.name} are pure numbers; drop the unit mark")
+            continue            # a number with an angle mark is an angle (core/decode/unit_marks.py)
         c = _Candidate(chosen.kind, {}, lambda r=chosen: r.orientation(v), chosen.name)
         if by_keys:
             c.plus(POINTS["caption names a parameter set"], keyed.note)

@@ -29,6 +29,14 @@ _NUMBER = re.compile(r"""
     (?P<suffix>[fFlL](?!\w))?                      # C float suffix 1.0f
     """, re.VERBOSE)
 _UNIT = re.compile(r"[ ]?(?:(?P<deg>°|deg(?:rees?|s)?(?![A-Za-z]))|(?P<rad>rad(?:ians?|s)?(?![A-Za-z])))")
+# Angle units besides degrees and radians, marked on the number: converted to degrees as they are read.
+# Seconds before minutes ('' before '); a quote that closes a quoted string ('0.5') is not a mark.
+_OTHER_UNIT = re.compile(r"""[ ]?(?:(?P<mrad>mrads?(?![A-Za-z])|milliradians?(?![A-Za-z]))
+    |(?P<arcsec>arcsec(?:onds?|s)?(?![A-Za-z])|''|")
+    |(?P<arcmin>arcmin(?:utes?|s)?(?![A-Za-z])|')
+    |(?P<gon>(?:gons?|grads?|gradians?)(?![A-Za-z]))
+    |(?P<mil>mils?(?![A-Za-z])))""", re.VERBOSE)
+_SECONDS_AFTER_MINUTES = re.compile(r"[ ]?(?P<s>\d+(?:\.\d*)?)[ ]?(?:''|\")")
 _MINUTES = re.compile(r"[ ]?(?P<m>\d+(?:\.\d*)?)[ ]?'(?:[ ]?(?P<s>\d+(?:\.\d*)?)[ ]?(?:\"|''))?")
 
 
@@ -50,7 +58,8 @@ class FoundNumber:
     text: str                 # as written, after character clean-up
     line: int                 # 1-based line number
     column: int               # 1-based column in that line
-    unit: str | None = None   # 'deg' or 'rad' when marked (°, deg, rad)
+    unit: str | None = None   # 'deg' or 'rad' when marked (°, deg, rad; other angle marks become 'deg')
+    converted_from: str | None = None   # the angle unit it was marked in and converted from ('mrad', …)
     label: str | None = None  # key or row label written before it on its line, lower case
     row: int = 0              # row index as written (lines, ';', '\\', closing brackets)
     has_decimals: bool = False
@@ -201,6 +210,9 @@ def parse_numbers(text: str, max_numbers: int | None = None, first_line: int = 1
                                           (-1.0 if m.group("sign") == "-" else 1.0))
                     end = dms.end()
                     notes.add(f"line {line_no}: degrees, minutes and seconds read as {value:.10g}°")
+            converted = None
+            if unit is None:
+                value, unit, converted, end = _other_unit(line, m, end, value, line_no, notes)
             if end < len(line) and (line[end].isalnum() or line[end] in "_."):
                 pos = m.start() + 1 + len(m.group("sign"))      # glued to letters: '2D', '3rd', '1.2.3'
                 while pos < len(line) and (line[pos].isalnum() or line[pos] in "_."):
@@ -220,7 +232,7 @@ def parse_numbers(text: str, max_numbers: int | None = None, first_line: int = 1
                                   f" Framewright reads {UNDERSTOOD_COUNTS}: paste only the orientation")
             found_here.append(FoundNumber(
                 value=value, text=line[m.start():end].strip(), line=line_no, column=m.start() + 1, unit=unit,
-                label=label, row=row,
+                label=label, row=row, converted_from=converted,
                 has_decimals="." in m.group("mantissa") or bool(m.group("exp") or m.group("exp10"))))
             covered.append((m.start(), end))
             last_end = end
@@ -253,6 +265,58 @@ def parse_numbers(text: str, max_numbers: int | None = None, first_line: int = 1
         notes.add(f"{skipped_titles - 3} more lines without numbers were ignored")
     return ParsedNumbers(tuple(numbers), tuple(notes), " ".join(words), tuple(captions), tuple(headers),
                          bool(re.search(r"\d,\d", clean)), tuple(line_words), tuple(strays), _library_call(clean))
+
+
+def _inside_quotes(line: str, position: int, quote: str) -> bool:
+    """Whether `position` is inside a string opened by `quote` earlier on the line. A quote right after a
+    digit (or after such a mark, as in 30'') is a minutes or seconds mark when no string is open."""
+    inside, mark_end = False, -1
+    for i in range(position):
+        if line[i] != quote:
+            continue
+        if inside:
+            inside = False
+        elif i > 0 and (line[i - 1].isdigit() or i - 1 == mark_end):
+            mark_end = i
+        else:
+            inside = True
+    return inside
+
+
+def _other_unit(line: str, m, end: int, value: float, line_no: int, notes) -> tuple:
+    """(value, unit, converted_from, end): a number marked in milliradians, arcminutes (′), arcseconds (″)
+    or gon, converted to degrees (core/units.py's definitions); unchanged when it carries no such mark.
+    1′30″ is one angle. A bare 'mil' is refused: a NATO mil or a thousandth of an inch, it cannot be told."""
+    from core.units import ANGLE_UNITS
+
+    mark = _OTHER_UNIT.match(line, end)
+    if mark is None:
+        return value, None, None, end
+    key = mark.lastgroup
+    quote = mark.group().strip()
+    if quote in ("'", '"', "''") and _inside_quotes(line, m.start(), quote[0]):
+        # '0.5', rpy="0 0 1.57": the quote closes a quoted string; it is not minutes or seconds
+        return value, None, None, end
+    if key == "mil":
+        raise DecodeError(f"line {line_no}: '{_shorten(line[m.start():mark.end()].strip())}': 'mil' is either a NATO "
+                          "mil (1/6400 of a turn) or a thousandth of an inch; Framewright will not guess: convert it "
+                          "to degrees or milliradians")
+    degrees = abs(value) / ANGLE_UNITS[key].per_base
+    end = mark.end()
+    if key == "arcmin":
+        seconds = _SECONDS_AFTER_MINUTES.match(line, end)
+        if seconds:
+            if not float(value).is_integer() or float(seconds.group("s")) >= 60:
+                raise DecodeError(f"line {line_no}: '{_shorten(line[m.start():seconds.end()].strip())}': minutes and "
+                                  "seconds must be whole minutes and seconds below 60")
+            degrees += float(seconds.group("s")) / 3600.0
+            key, end = "dms", seconds.end()
+    negative = value < 0 or (value == 0 and m.group("sign") == "-")
+    degrees = -degrees if negative else degrees
+    written = line[m.start():end].strip()
+    notes.add(f"line {line_no}: '{_shorten(written)}' ({ANGLE_UNITS[key].name if key != 'dms' else 'minutes and seconds'})"
+              f" read as {degrees:.10g}°")
+    return degrees, "deg", key, end
 
 
 # SciPy's Rotation spells its conventions in its calls: from_euler('xyz', …) is extrinsic, 'XYZ' intrinsic,

@@ -9,6 +9,7 @@ import numpy as np
 
 from core import representations
 from core.errors import DecodeError, FramewrightError
+from core.decode.unit_marks import respect_unit_marks
 from core.decode.candidates import (_MAX_MAGNITUDE, _NEAR_LOCK_DEG, _Candidate, _four_candidates,
                                     _matrix_candidates, _three_candidates)
 from core.decode.characters import _shorten
@@ -117,6 +118,9 @@ def _readings(parsed: ParsedNumbers, hints: DecodeHints, direction=None) -> list
                           f" ({parsed.lines_summary() or 'none'})")
     builder = {9: _matrix_candidates, 4: _four_candidates, 3: _three_candidates}[count]
     candidates = builder(values, parsed, hints, clues, keyed)
+    candidates, unit_refusal = respect_unit_marks(candidates, parsed, count, keyed)
+    if not candidates and unit_refusal:
+        raise DecodeError(f"cannot read the {count} numbers: {unit_refusal}")
     if hints.kind is not None:
         candidates = [c for c in candidates if c.kind == hints.kind]
     if hints.transposed is not None:

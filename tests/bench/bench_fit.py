@@ -14,7 +14,8 @@ from scipy.spatial.transform import Rotation
 
 sys.path.insert(0, str(Path(__file__).resolve().parents[2]))
 
-from core.fit import fit_directions, fit_points  # noqa: E402
+from core.direction_fit import fit_directions  # noqa: E402
+from core.fit import fit_points  # noqa: E402
 
 POINTS = 10_000
 CALLS = 50

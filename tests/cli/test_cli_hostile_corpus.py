@@ -65,10 +65,9 @@ def _check_outcome(case, status, out, err, elapsed, stdin_text=""):
 
 
 @pytest.fixture
-def no_window(monkeypatch):
-    """`open` on a file that happens to load would start the window: count it as opened instead."""
-    import app.main
-    monkeypatch.setattr(app.main, "open_window", lambda path=None: 0)
+def no_window():
+    """`open` on a file that happens to load would start the window: the opener counts it as opened."""
+    return lambda path=None: 0
 
 
 @pytest.mark.parametrize("chunk", range(0, len(CASES), 300), ids=lambda c: f"cases-{c}")
@@ -81,7 +80,7 @@ def test_hostile_invocations_keep_the_contract(chunk, tmp_path, no_window, monke
         stdin = _Stdin(io.BytesIO(case.stdin), encoding="utf-8", errors="strict")
         out, err = io.StringIO(), io.StringIO()
         start = time.monotonic()
-        status = cli.main(argv, stdin=stdin, stdout=out, stderr=err)
+        status = cli.main(argv, stdin=stdin, stdout=out, stderr=err, open_window=no_window)
         _check_outcome(case, status, out.getvalue(), err.getvalue(), time.monotonic() - start,
                        case.stdin.decode("utf-8", "replace"))
 

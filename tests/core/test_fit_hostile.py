@@ -17,7 +17,8 @@ import pytest
 from scipy.spatial.transform import Rotation
 
 from core import FramewrightError, InvalidInputError, Orientation
-from core.fit import FitRefusedError, fit_directions, fit_points, frame_from_three_points, triad
+from core.direction_fit import fit_directions, triad
+from core.fit import FitRefusedError, fit_points, frame_from_three_points
 
 ROOT = Path(__file__).resolve().parents[2]
 

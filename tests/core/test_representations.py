@@ -121,3 +121,16 @@ def test_every_format_writes_and_reads_back_the_gibbs_vector_and_refuses_it_at_a
     else:
         with pytest.raises(Exception, match="infinite at a half turn"):
             formats.render(half, fmt, {"representation": "gibbs"})
+
+
+@pytest.mark.parametrize("text", ["MRP: 10° 0 0", "mrp = [0.1, 0.2 rad, 0.3]", "Gibbs vector: 30′ 0 0"])
+def test_a_parameter_set_with_an_angle_mark_is_refused_or_read_as_angles(text):
+    # the parameter sets are pure numbers: a number marked as an angle is never one of theirs
+    try:
+        readings = decode(text)
+    except Exception as error:
+        assert "unit" in str(error)
+    else:
+        assert not {r.kind for r in readings} & {"gibbs", "mrp"}
+    with pytest.raises(Exception, match="pure numbers|unit"):
+        decode("10° 0 0", {"kind": "mrp"})

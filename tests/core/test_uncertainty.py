@@ -10,7 +10,8 @@ from scipy.spatial.transform import Rotation
 
 from core.check import CheckSettings, check
 from core.errors import InvalidInputError
-from core.fit import fit_directions, fit_points
+from core.direction_fit import fit_directions
+from core.fit import fit_points
 from core.orientation import Orientation
 from core.uncertainty import direction_fit_covariance, figure_uncertainties, isotropic, point_fit_covariance
 
