@@ -21,7 +21,7 @@ import sys
 from app.cli_units import add_units_option, angle_argument, as_given, degrees_of, in_unit, shown
 from app.display_check import open_display_problem
 from app.text import significant
-from core import formats, units
+from core import formats, representations, units
 from core.check import CheckSettings, check
 from core.decode import KINDS, DecodeHints, decode
 from core.errors import FramewrightError
@@ -40,9 +40,17 @@ class _Refused(Exception):
 # ---------------------------------------------------------------------------------------------------
 # Options shared by every verb that reads an orientation from text
 # ---------------------------------------------------------------------------------------------------
+def _kind(text: str) -> str:
+    """The kind a spelling names ('rotation_vector' -> 'rotation-vector'); an unknown one is left for
+    argparse to refuse with the list of choices."""
+    found = representations.lookup(text)
+    return found.kind if found is not None else text
+
+
 def add_reading_options(parser: argparse.ArgumentParser) -> None:
     group = parser.add_argument_group("how to read the numbers (each one narrows the readings)")
-    group.add_argument("--kind", choices=KINDS, help="what the numbers are")
+    group.add_argument("--kind", choices=KINDS, type=_kind, help="what the numbers are (any spelling of "
+                       "core/representations.py: rotation-vector, rotation_vector, rotvec, ...)")
     group.add_argument("--sequence", metavar="ZYX", help="angle sequence, e.g. ZYX or \"Z-Y'-X''\"")
     turn = group.add_mutually_exclusive_group()
     turn.add_argument("--intrinsic", dest="intrinsic", action="store_const", const=True,
@@ -136,7 +144,7 @@ def orientation_lines(data: dict) -> list[str]:
         lines.append("  axis and angle: no rotation (the axis is undefined at angle 0)")
     else:
         lines.append(f"  axis ({', '.join(_n(v) for v in data['axis'])}), angle {_n(data['angle_deg'])} deg")
-    lines.append(f"  rotation vector (deg): {', '.join(_n(v) for v in data['rotation_vector_deg'])}")
+    lines += ["  " + line for line in formats.vector_lines(data, _n)]
     lines.append(f"  angles {formats.spelled_sequence(data['sequence'], data['intrinsic'])} {kind} (deg): "
                  f"{', '.join(_n(v) for v in data['angles_deg'])}; gimbal margin {_n(data['gimbal_margin_deg'])} deg")
     return lines

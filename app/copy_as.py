@@ -70,10 +70,9 @@ def _options(model, editor) -> dict:
 
 
 def _editor_representation(editor) -> str:
-    name = type(editor).__name__ if editor is not None else ""
-    if name == "AxisAngleEditor":
-        return "rotation-vector" if getattr(editor, "showing_rotation_vector", False) else "axis-angle"
-    return {"QuaternionEditor": "quaternion", "MatrixEditor": "matrix", "AnglesEditor": "angles"}.get(name, "quaternion")
+    """What the editor in use shows (its core/representations.py entry); the quaternion without one."""
+    shown = getattr(editor, "representation", None)
+    return shown.kind if shown is not None else "quaternion"
 
 
 def offered(model, fmt: str) -> bool:

@@ -19,7 +19,9 @@ from core import atomic_file, units
 from app.editors.angles_editor import AnglesEditor
 from app.editors.axis_angle_editor import AxisAngleEditor
 from app.editors.base import EditorBase
+from app.editors.gibbs_editor import GibbsEditor
 from app.editors.matrix_editor import MatrixEditor
+from app.editors.mrp_editor import MrpEditor
 from app.editors.position_editor import PositionEditor
 from app.editors.quaternion_editor import QuaternionEditor
 from app.model import PREFERENCES, Change, SessionModel
@@ -129,13 +131,19 @@ class MainWindow(QMainWindow):
         else:
             self.build_scene()
         self.editors: list[EditorBase] = [self.axis_angle, self.quaternion, self.matrix, self.angles]
+        # The parameter sets, one editor each (one line each); shown from View ▸ Rodrigues parameters, since
+        # the editors' row is full at a laptop's width and they would take the Scene's height.
+        self.parameter_editors: list[EditorBase] = [
+            GibbsEditor(model),
+            MrpEditor(model),
+        ]
         self.current_editor: EditorBase = self.axis_angle
 
         editors = QWidget()
         grid = EditorRows(editors)
         grid.setContentsMargins(0, 0, 0, 0)
         grid.setSpacing(4)
-        for box in self.editors + [self.meter, self.position]:
+        for box in self.editors + self.parameter_editors + [self.meter, self.position]:
             # Tighter than the default frame, so the row stays short and the Scene keeps its height.
             box.layout().setContentsMargins(6, 4, 6, 4)
             box.layout().setSpacing(4)
@@ -146,6 +154,9 @@ class MainWindow(QMainWindow):
         grid.addWidget(self.angles)
         grid.addWidget(self.matrix)
         grid.addWidget(self.meter)
+        for box in self.parameter_editors:
+            box.setVisible(False)
+            grid.addWidget(box)
         self._editors_box = editors
         editors.installEventFilter(self)  # a note that wraps to one more line gets its room (_fit_editors)
 
@@ -397,6 +408,11 @@ class MainWindow(QMainWindow):
         self.side_action.setChecked(True)
         self.splitter.splitterMoved.connect(lambda *_: self.side_action.setChecked(self.splitter.sizes()[2] > 0))
         view_menu.addAction(self.side_action)
+        self.parameters_action = self._action(
+            "&Gibbs vector and MRP editors", self.show_parameter_editors, None,
+            "Show or hide the editors of the Gibbs vector and the modified Rodrigues parameters")
+        self.parameters_action.setCheckable(True)
+        view_menu.addAction(self.parameters_action)
 
         help_menu = self.menuBar().addMenu("&Help")
         self.demo_action = self._action("Open the &demo", self.open_demo, None,
@@ -421,6 +437,13 @@ class MainWindow(QMainWindow):
         wanted = min(max(need, self._editors_dragged), room)
         if wanted != editors_h and top_h + editors_h > 0:
             self.centre.setSizes([top_h + editors_h - wanted, wanted])
+
+    def show_parameter_editors(self, shown: bool) -> None:
+        for box in self.parameter_editors:
+            box.setVisible(bool(shown))
+            if shown:
+                box.render()
+        self.parameters_action.setChecked(bool(shown))
 
     def show_side_panels(self, shown: bool) -> None:
         sizes = self.splitter.sizes()
@@ -468,7 +491,7 @@ class MainWindow(QMainWindow):
         self.setWindowTitle(f"Framewright — {name}{dirty}")
 
     def _track_editor(self, _old, new) -> None:
-        for editor in self.editors:
+        for editor in self.editors + self.parameter_editors:
             if new is not None and editor.isAncestorOf(new):
                 self.current_editor = editor
                 return

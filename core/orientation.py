@@ -11,6 +11,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from core import kernels
+from core.kernels import rodrigues
 from core.errors import InvalidInputError, MatrixRefusedError
 from core.kernels import check_flag
 from core.nearest import orthogonality_report
@@ -203,6 +204,44 @@ class Orientation:
     def as_rotation_vector(self, degrees=True):
         degrees = check_flag(degrees, "degrees")
         return _angle_out(kernels.quaternions_to_rotation_vectors(self._q, assume_canonical=True), degrees)
+
+    # --- Rodrigues parameters -----------------------------------------------------------------------
+
+    @classmethod
+    def from_gibbs(cls, gibbs):
+        """From a Gibbs vector (classical Rodrigues parameters) g = n·tan(φ/2). Any finite vector is an
+        orientation; a very long one is close to a half turn."""
+        g = kernels.check_array(gibbs, (3,), "Gibbs vector")
+        if g.shape != (3,):
+            raise InvalidInputError(f"Gibbs vector: expected 3 numbers, got shape {g.shape}")
+        return cls._from_kernel(rodrigues.gibbs_to_quaternions(g))
+
+    def as_gibbs(self):
+        """The Gibbs vector g = n·tan(φ/2). It does not exist at a half turn (180°): refused there."""
+        if self._q[0] == 0:
+            raise InvalidInputError("the Gibbs vector is infinite at a half turn (180°); use another "
+                                    "representation (the modified Rodrigues parameters are 1 long there)")
+        return rodrigues.quaternions_to_gibbs(self._q)
+
+    @classmethod
+    def from_mrp(cls, mrp):
+        """From modified Rodrigues parameters p = n·tan(φ/4), either set (|p| <= 1, or its shadow
+        −p / |p|² beyond, which spells the same orientation the long way round)."""
+        p = kernels.check_array(mrp, (3,), "modified Rodrigues parameters")
+        if p.shape != (3,):
+            raise InvalidInputError(f"modified Rodrigues parameters: expected 3 numbers, got shape {p.shape}")
+        return cls._from_kernel(rodrigues.mrps_to_quaternions(p))
+
+    def as_mrp(self, shadow=False):
+        """Modified Rodrigues parameters p = n·tan(φ/4) with |p| <= 1, or with shadow=True the shadow set
+        −p / |p|² (|p_s| >= 1), which does not exist for no rotation."""
+        p = rodrigues.quaternions_to_mrps(self._q)
+        if not check_flag(shadow, "shadow"):
+            return p
+        if not p.any():
+            raise InvalidInputError("the shadow set of no rotation is infinite; the modified Rodrigues "
+                                    "parameters of no rotation are (0, 0, 0)")
+        return rodrigues.mrp_shadows(p)
 
     # --- angle sequences ----------------------------------------------------------------------------
 

@@ -7,7 +7,8 @@ not depend on anyone's preferences) and writes docs/screenshots/: window.png, th
 mounts, decode-pose.png (Decode with a 4x4 transform at 1280x800), check.png (the Check panel),
 repeated-measurements.png (the Adjust tab with three measurements of one mount at 1280x800), fit.png (the
 Measure panel with a fit), adjust.png (the Adjust tab on the invented demo check), and the whole window at
-1280x800 (window.png, window-1280x800.png) and 1920x1080 (window-1920x1080.png).
+1280x800 (window.png, window-1280x800.png) and 1920x1080 (window-1920x1080.png), and at 1280x800 with the
+Gibbs vector and MRP editors shown (parameters-1280x800.png, parameters-half-turn-1280x800.png).
 """
 
 from __future__ import annotations
@@ -169,6 +170,24 @@ def _adjust_shot(app, window, out_dir) -> bool:
     return _grab(window, out_dir / "adjust.png")
 
 
+def _parameters_shot(app, window, out_dir) -> bool:
+    """The window at 1280x800 with View ▸ Gibbs vector and MRP editors on (their row wraps under the
+    others), once on a demo mount and once at a half turn, where the Gibbs editor says so in words."""
+    from core.orientation import Orientation
+
+    window.resize(1280, 800)
+    window.parameters_action.trigger()
+    _settle(app)
+    ok = _grab(window, out_dir / "parameters-1280x800.png")
+    window.model.set_orientation(Orientation.from_axis_angle((1, 0, 0), 180))
+    _settle(app)
+    ok = ok and _grab(window, out_dir / "parameters-half-turn-1280x800.png")
+    window.model.undo_stack.undo()
+    window.parameters_action.trigger()
+    _settle(app)
+    return ok
+
+
 def main(argv: list[str]) -> int:
     out_dir = Path(argv[1]) if len(argv) > 1 else ROOT / "docs" / "screenshots"
     out_dir.mkdir(parents=True, exist_ok=True)
@@ -211,6 +230,8 @@ def main(argv: list[str]) -> int:
             if not _grab(window, out_dir / f"window-{width}x{height}.png"):
                 return 1
         if not _grab(window, out_dir / "window.png"):
+            return 1
+        if not _parameters_shot(app, window, out_dir):
             return 1
         if not (_decode_pose_shot(app, window, out_dir) and _check_shot(app, window, out_dir)
                 and _repeats_shot(app, window, out_dir) and _fit_shot(app, window, out_dir)):

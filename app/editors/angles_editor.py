@@ -11,6 +11,7 @@ from app.widgets.number_field import NumberField
 from core.errors import FramewrightError
 from core.orientation import Orientation
 from core.sequences import ALL_SEQUENCES, is_proper_euler, other_convention, preset_names, spelled_sequence
+from core.representations import ANGLES
 
 PRIMES = ("", "′", "″")
 
@@ -29,6 +30,8 @@ def axis_labels(sequence: str, intrinsic: bool) -> list[str]:
 
 
 class AnglesEditor(EditorBase):
+    representation = ANGLES
+
     def __init__(self, model, parent=None):
         super().__init__(model, "Angles", parent)
         self.sequence_box = QComboBox()

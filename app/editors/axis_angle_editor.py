@@ -10,6 +10,7 @@ from app.editors.base import EditorBase
 from app.widgets.number_field import NumberField
 from core.errors import FramewrightError
 from core.orientation import Orientation
+from core.representations import AXIS_ANGLE, ROTATION_VECTOR
 
 _AXIS_TIP = ("Axis {c}: component of the rotation axis in the reference frame. The axis is normalised to "
              "unit length when you commit (Enter or leaving the editor). Right-hand rule: thumb along the "
@@ -53,6 +54,10 @@ class AxisAngleEditor(EditorBase):
         self.slider.sliderReleased.connect(self.model.end_continuous)
         self.rotvec_toggle.toggled.connect(lambda _: self.render())
         self.render()
+
+    @property
+    def representation(self):
+        return ROTATION_VECTOR if self.showing_rotation_vector else AXIS_ANGLE
 
     @property
     def showing_rotation_vector(self) -> bool:

@@ -23,6 +23,9 @@ def focus_left(widget: QWidget, old, new) -> bool:
 
 
 class EditorBase(QGroupBox):
+    # The core/representations.py entry this editor shows (what Copy as writes when it is the one in use).
+    representation = None
+
     def __init__(self, model: SessionModel, title: str, parent: QWidget | None = None):
         super().__init__(title, parent)
         self.model = model

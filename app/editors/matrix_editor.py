@@ -15,6 +15,7 @@ from app.editors.pasted_numbers import numbers_in_text
 from core.errors import FramewrightError, MatrixRefusedError
 from core.nearest import orthogonality_report
 from core.orientation import Orientation
+from core.representations import MATRIX
 
 MEANINGS = {
     "body_to_reference": "body → reference (columns are the body axes)",
@@ -64,6 +65,8 @@ class _PasteCatcher(QObject):
 
 
 class MatrixEditor(EditorBase):
+    representation = MATRIX
+
     def __init__(self, model, parent=None):
         super().__init__(model, "Matrix", parent)
         self.cells = [[NumberField("", steppable=False) for _ in range(3)] for _ in range(3)]

@@ -10,6 +10,7 @@ from app.editors.base import EditorBase
 from app.widgets.number_field import NumberField
 from core.errors import FramewrightError
 from core.orientation import Orientation
+from core.representations import QUATERNION
 
 _TIPS = {
     "w": "w: scalar part of the Hamilton unit quaternion q = w + xi + yj + zk (v_ref = q v_body q*). "
@@ -22,6 +23,8 @@ ORDERS = {"wxyz": "w, x, y, z (scalar first)", "xyzw": "x, y, z, w (scalar last)
 
 
 class QuaternionEditor(EditorBase):
+    representation = QUATERNION
+
     def __init__(self, model, parent=None):
         super().__init__(model, "Quaternion", parent)
         self.order_box = QComboBox()

@@ -7,6 +7,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from app.text import numbers, significant
+from core import representations
 from core.sequences import preset_names, spelled_sequence
 
 # More readings than this and the list is grouped by kind: at a laptop size the list shows about four
@@ -17,8 +18,8 @@ ONE_SCREEN = 4
 # reading's tooltip holds every note in full.
 NOTE_CHARS = 120
 
-_KIND_WORDS = {"matrix": "matrix", "quaternion": "quaternion", "axis-angle": "axis and angle",
-               "rotation-vector": "rotation vector", "angles": "three angles"}
+# a kind in words: the registry's names (core/representations.py), with the two the list says its own way
+_KIND_WORDS = {**{r.kind: r.name for r in representations.ALL}, "matrix": "matrix", "angles": "three angles"}
 _UNIT_WORDS = {"deg": "degrees", "rad": "radians"}
 _ORDER_WORDS = {"wxyz": "w, x, y, z", "xyzw": "x, y, z, w"}
 
@@ -135,7 +136,8 @@ def _transform_title(name, n: int) -> str:
 
 
 def _kind_title(kind, n: int) -> str:
-    return f"{_KIND_WORDS.get(kind, kind).capitalize()}: {_count(n)}"
+    words = _KIND_WORDS.get(kind, kind)
+    return f"{words[:1].upper()}{words[1:]}: {_count(n)}"
 
 
 def groups(readings) -> list[Group]:

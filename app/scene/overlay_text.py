@@ -6,17 +6,28 @@ from __future__ import annotations
 import numpy as np
 
 from app import text
-from core import describe
+from core import describe, representations
 from core.sequences import preset_names, spelled_sequence
 
-REPRESENTATIONS = ("axis-angle", "quaternion", "matrix", "rotation vector", "angles")
+# In the order the Show box lists them: the kinds of core/representations.py ('rotation vector', the
+# spelling of earlier versions, is read as 'rotation-vector': see overlay_kind).
 REPRESENTATION_TITLES = {
     "axis-angle": "Axis & angle",
     "quaternion": "Quaternion",
     "matrix": "Matrix",
-    "rotation vector": "Rotation vector",
+    **{r.kind: r.menu_title for r in representations.VECTORS if r is representations.ROTATION_VECTOR},
     "angles": "Angles",
+    **{r.kind: r.menu_title for r in representations.VECTORS if r is not representations.ROTATION_VECTOR},
 }
+REPRESENTATIONS = tuple(REPRESENTATION_TITLES)
+
+
+def overlay_kind(kind) -> str:
+    """The kind any accepted spelling names ('rotation vector' -> 'rotation-vector'); ValueError when none."""
+    found = representations.lookup(kind)
+    if found is None or found.kind not in REPRESENTATIONS:
+        raise ValueError(f"unknown representation {kind!r}; expected one of {', '.join(REPRESENTATIONS)}")
+    return found.kind
 
 
 def _sequence_words(sequence, intrinsic) -> str:
@@ -25,6 +36,7 @@ def _sequence_words(sequence, intrinsic) -> str:
 
 
 def representation_lines(orientation, kind="axis-angle", sequence="ZYX", intrinsic=True) -> list[str]:
+    kind = overlay_kind(kind)
     if kind == "axis-angle":
         axis, angle = orientation.as_axis_angle()
         if angle == 0:
@@ -36,8 +48,13 @@ def representation_lines(orientation, kind="axis-angle", sequence="ZYX", intrins
         m = orientation.as_matrix()
         rows = ["[" + " ".join(text.fixed(v, 4, width=7) for v in row) + " ]" for row in m]
         return ["R (body \u2192 reference; columns = body axes)", *rows]
-    if kind == "rotation vector":
-        return [f"\u03c1 = \u03c6 n {text.vector(orientation.as_rotation_vector(), 3)} deg"]
+    vector = representations.by_kind(kind)
+    if vector.vector:
+        if vector.half_turn_words and orientation.quaternion[0] == 0:
+            return [f"{vector.symbol} = {vector.formula}: {vector.half_turn_words}"]
+        unit = " deg" if vector.units == representations.ANGLE else ""
+        digits = 3 if unit else 4
+        return [f"{vector.symbol} = {vector.formula} {text.vector(vector.values(orientation), digits)}{unit}"]
     if kind == "angles":
         angles = orientation.as_angles(sequence, intrinsic=intrinsic)
         names = _angle_names(sequence, intrinsic)
@@ -55,7 +72,7 @@ def _angle_names(sequence, intrinsic):
 
 def orientation_panel(orientation, kind, sequence, intrinsic, preset) -> list[str]:
     """The top-left overlay panel, line by line."""
-    title = REPRESENTATION_TITLES[kind]
+    title = REPRESENTATION_TITLES[overlay_kind(kind)]
     lines = [f"{title}:", *("  " + s for s in representation_lines(orientation, kind, sequence, intrinsic))]
     lines.append(f"Body axes ({describe.frame_preset(preset).title.split(' (')[0]}):")
     lines += ["  " + s for s in describe.describe_axes(orientation, preset)]

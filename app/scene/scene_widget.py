@@ -201,11 +201,10 @@ class SceneWidget(QtWidgets.QWidget):
         self._refresh()
 
     def set_overlay_representation(self, kind, sequence=None, intrinsic=None):
-        """What the overlay writes: 'axis-angle', 'quaternion', 'matrix', 'rotation vector' or 'angles'
-        (in `sequence`, intrinsic or not; None keeps the current sequence)."""
-        if kind not in overlay_text.REPRESENTATIONS:
-            raise ValueError(f"unknown representation {kind!r}; expected one of "
-                             f"{', '.join(overlay_text.REPRESENTATIONS)}")
+        """What the overlay writes: one of overlay_text.REPRESENTATIONS ('axis-angle', 'quaternion', ...; any
+        spelling core/representations.py accepts) (in `sequence`, intrinsic or not; None keeps the current
+        sequence)."""
+        kind = overlay_text.overlay_kind(kind)
         self._representation = kind
         if sequence is not None:
             self._sequence = parse_sequence(sequence)

@@ -7,6 +7,8 @@ from dataclasses import dataclass, field
 
 import numpy as np
 
+from core import representations
+from core.representations import ANGLES, AXIS_ANGLE, QUATERNION, ROTATION_VECTOR
 from core.errors import DecodeError
 from core.decode.clues import _Clues
 from core.decode.hints import DecodeHints
@@ -23,10 +25,13 @@ POINTS = {
     "angle beyond one": 2.5, "four numbers of unit norm": -1.0, "angle written first": 3.5,
     "proper Euler middle outside 0..180": -0.7, "Tait-Bryan middle beyond 90": -1.0,
     "rotation vector prior": 0.9,
+    # a parameter set read only when named (core/representations.py, caption_only): named, it
+    # outranks what bare numbers suggest; unnamed, it is never offered
+    "caption names a parameter set": 3.0,
 }
 # The text names the kind ('quaternion', 'axis-angle', 'yaw', 'rvec'), and numbers named as that kind
-TEXT_NAMES_KIND = {"quaternion": 1.5, "axis-angle": 1.5, "angles": 1.0, "rotation-vector": 3.0}
-NAMED_NUMBERS = {"quaternion": 1.0, "axis-angle": 3.0, "rotation-vector": 3.0}
+TEXT_NAMES_KIND = {QUATERNION.kind: 1.5, AXIS_ANGLE.kind: 1.5, ANGLES.kind: 1.0, ROTATION_VECTOR.kind: 3.0}
+NAMED_NUMBERS = {QUATERNION.kind: 1.0, AXIS_ANGLE.kind: 3.0, ROTATION_VECTOR.kind: 3.0}
 
 _TWO_PI = 2 * math.pi
 _MAX_MAGNITUDE = 1e9
@@ -175,14 +180,14 @@ def _four_candidates(values, parsed, hints, clues, keyed):
                    == hints.order]
     # axis and angle: axis first, angle last; and angle first when the text writes it so
     layouts = [("axis, angle", v[:3], float(v[3]))]
-    if clues.angle_first and not (keyed and keyed.kind == "axis-angle"):
+    if clues.angle_first and not (keyed and keyed.kind == AXIS_ANGLE.kind):
         layouts.append(("angle, axis", v[1:], float(v[0])))
     for order, axis, angle in layouts:
         out += _axis_angle_candidates(order, axis, angle, hints, clues, keyed, unit_like)
     if keyed and keyed.kind == "quaternion":
         out = [c for c in out if c.kind == "quaternion"]
-    if keyed and keyed.kind == "axis-angle":
-        out = [c for c in out if c.kind == "axis-angle"]
+    if keyed and keyed.kind == AXIS_ANGLE.kind:
+        out = [c for c in out if c.kind == AXIS_ANGLE.kind]
     return out
 
 
@@ -192,10 +197,10 @@ def _axis_angle_candidates(order, axis, angle, hints, clues, keyed, unit_like):
     axis_length = float(np.linalg.norm(axis))
     if not (axis_length > 0 or angle == 0) or (hints.order and not hints.kind):
         return out
-    fixed_units = keyed.units if keyed and keyed.kind == "axis-angle" else None
+    fixed_units = keyed.units if keyed and keyed.kind == AXIS_ANGLE.kind else None
     angle_first = order == "angle, axis"
     for units, points, unit_reason in _unit_choices([angle], hints, clues, fixed_units):
-        c = _Candidate("axis-angle", {"order": order, "units": units},
+        c = _Candidate(AXIS_ANGLE.kind, {"order": order, "units": units},
                        lambda u=units, n=axis, a=angle: Orientation.from_axis_angle(n, a, degrees=(u == "deg")),
                        f"angle in {_unit_word(units)}, then axis (x, y, z)" if angle_first
                        else f"axis (x, y, z) and angle in {_unit_word(units)}")
@@ -211,10 +216,10 @@ def _axis_angle_candidates(order, axis, angle, hints, clues, keyed, unit_like):
             c.plus(POINTS["angle beyond one"], f"the angle ({angle:g}) is beyond ±1: an angle, not a quaternion part")
         elif unit_like:
             c.plus(POINTS["four numbers of unit norm"], "the four numbers have unit norm, as a quaternion has")
-        if keyed and keyed.kind == "axis-angle":
-            c.plus(NAMED_NUMBERS["axis-angle"], keyed.note)
-        if "axis-angle" in clues.kinds:
-            c.plus(TEXT_NAMES_KIND["axis-angle"], "the text says axis and angle")
+        if keyed and keyed.kind == AXIS_ANGLE.kind:
+            c.plus(NAMED_NUMBERS[AXIS_ANGLE.kind], keyed.note)
+        if AXIS_ANGLE.kind in clues.kinds:
+            c.plus(TEXT_NAMES_KIND[AXIS_ANGLE.kind], "the text says axis and angle")
         if angle_first:
             c.plus(POINTS["angle written first"], "the text writes the angle before the axis")
         out.append(c)
@@ -265,17 +270,49 @@ def _three_candidates(values, parsed, hints, clues, keyed):
                 c.plus(TEXT_NAMES_KIND["angles"], "the text says angles")
             out.append(c)
     sequence_named = bool(hints.sequence or clues.sequence or (keyed and keyed.kind == "angles"))
-    if not sequence_named or (keyed and keyed.kind == "rotation-vector"):
+    if not sequence_named or (keyed and keyed.kind == ROTATION_VECTOR.kind):
         for units, points, unit_reason in unit_choices:
-            c = _Candidate("rotation-vector", {"units": units},
+            c = _Candidate(ROTATION_VECTOR.kind, {"units": units},
                            lambda u=units: Orientation.from_rotation_vector(v, degrees=(u == "deg")),
                            f"rotation vector in {_unit_word(units)} (axis times angle)")
             c.plus(POINTS["rotation vector prior"], "").plus(points, unit_reason)
-            if keyed and keyed.kind == "rotation-vector":
-                c.plus(NAMED_NUMBERS["rotation-vector"], keyed.note)
-            if "rotation-vector" in clues.kinds:
-                c.plus(TEXT_NAMES_KIND["rotation-vector"], "the text says rotation vector")
+            if keyed and keyed.kind == ROTATION_VECTOR.kind:
+                c.plus(NAMED_NUMBERS[ROTATION_VECTOR.kind], keyed.note)
+            if ROTATION_VECTOR.kind in clues.kinds:
+                c.plus(TEXT_NAMES_KIND[ROTATION_VECTOR.kind], "the text says rotation vector")
             out.append(c)
-    if keyed and keyed.kind == "rotation-vector":
-        out = [c for c in out if c.kind == "rotation-vector"]
+    out += _named_vector_candidates(v, parsed, hints, clues, keyed)
+    if keyed and keyed.kind in _VECTOR_KINDS:
+        out = [c for c in out if c.kind == keyed.kind]
+    return out
+
+
+_VECTOR_KINDS = {r.kind for r in representations.VECTORS}
+
+
+def _named_vector_candidates(v, parsed, hints, clues, keyed):
+    """Three numbers as a parameter set that is read only when the text, the names or a hint say so (the
+    registry's caption_only entries): bare numbers are never read as one."""
+    out = []
+    for chosen in representations.VECTORS:
+        if not chosen.caption_only:
+            continue
+        by_keys = keyed is not None and keyed.kind == chosen.kind
+        in_text = chosen.kind in clues.kinds
+        if not (by_keys or in_text or hints.kind == chosen.kind) or (keyed is not None and not by_keys):
+            continue
+        marked = [n for n in parsed.numbers if n.unit]
+        if marked and chosen.units == representations.PURE:
+            if by_keys or hints.kind == chosen.kind:
+                raise DecodeError(f"line {marked[0].line}: '{marked[0].text}' carries an angle unit, but the "
+                                  f"{chosen.name} are pure numbers; drop the unit mark")
+            continue            # a number with an angle mark is an angle (core/decode/unit_marks.py)
+        c = _Candidate(chosen.kind, {}, lambda r=chosen: r.orientation(v), chosen.name)
+        if by_keys:
+            c.plus(POINTS["caption names a parameter set"], keyed.note)
+        elif in_text:
+            c.plus(POINTS["caption names a parameter set"], f"the text says {chosen.name}")
+        else:
+            c.plus(0.0, "kind given")
+        out.append(c)
     return out

@@ -6,7 +6,9 @@ import re
 from dataclasses import dataclass, field
 
 from core.errors import DecodeError, FramewrightError
+from core.representations import caption_patterns
 from core.decode.numbers import ParsedNumbers
+from core.representations import AXIS_ANGLE, ROTATION_VECTOR
 
 @dataclass
 class _Clues:
@@ -37,12 +39,7 @@ _WXYZ = re.compile(r"(?<![a-z])q?_?wxyz(?![a-z])|(?<![a-z])q?w\W{1,3}q?x\W{1,3}q
                    r"|scalar[ _-]?(?:part[ _-]?)?first|(?<![a-z])w[ _-]first")
 _XYZW = re.compile(r"(?<![a-z])q?_?xyzw(?![a-z])|(?<![a-z])q?x\W{1,3}q?y\W{1,3}q?z\W{1,3}q?w(?![a-z])"
                    r"|scalar[ _-]?(?:part[ _-]?)?last|(?<![a-z])w[ _-]last")
-_KIND_WORDS = {
-    "quaternion": re.compile(r"quaternion|(?<![a-z])quat(?![a-z])|versor"),
-    "rotation-vector": re.compile(r"rotation[ _-]?vector|rotvec|(?<![a-z])rvecs?(?![a-z])|(?<![a-z])om(?![a-z])"),
-    "angles": re.compile(r"euler|tait|(?<![a-z])(?:yaw|pitch|roll|heading)(?![a-z])|(?<![a-z])angles(?![a-z])"),
-    "axis-angle": re.compile(r"axis[ _-]?(?:and[ _-]?)?angle|angle[ _-]?axis"),
-}
+_KIND_WORDS = caption_patterns()      # {kind: the words that name it}, from core/representations.py
 # The angle written before the axis: 'angle (rad), axis:', '(angle, axis) =', 'theta, n =', 'AngleAxisd aa(…)',
 # '[angle first]', '30° about [x, y, z]'
 _ANGLE_FIRST = re.compile(r"(?<![a-z])(?:angle|theta|phi)(?![a-z])[ _,/()a-z-]{0,16}?(?<![a-z])(?:axis|n)(?![a-z])"
@@ -111,7 +108,7 @@ def _read_clues(parsed: ParsedNumbers) -> _Clues:
     axis_first = _AXIS_FIRST.search(caption)
     if angle_first and not (axis_first and axis_first.start() < angle_first.start()):
         clues.angle_first = True
-        clues.kinds.add("axis-angle")
+        clues.kinds.add(AXIS_ANGLE.kind)
     if clues.units is None and _RADIAN_VECTOR.search(words):
         clues.units, clues.units_reason = "rad", "rvec and om rotation vectors are in radians (common practice)"
     _library_clues(parsed, clues)
@@ -140,7 +137,7 @@ def _library_clues(parsed: ParsedNumbers, clues: _Clues) -> None:
         clues.notes.append("a library call: from_quat is scalar last unless scalar_first=True (SciPy's documented"
                            " meaning)")
     else:
-        clues.kinds.add("rotation-vector")
+        clues.kinds.add(ROTATION_VECTOR.kind)
         clues.notes.append(f"a library call: a rotation vector in {marked}")
     if not any(n.unit for n in parsed.numbers) and kind != "quat":
         clues.units = "deg" if degrees else "rad"

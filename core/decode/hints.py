@@ -4,15 +4,10 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
+from core import representations
 from core.errors import DecodeError, FramewrightError
 
-KINDS = ("matrix", "quaternion", "axis-angle", "rotation-vector", "angles")
-
-
-_KIND_ALIASES = {"matrix": "matrix", "dcm": "matrix", "quaternion": "quaternion", "quat": "quaternion",
-                 "axis-angle": "axis-angle", "axis_angle": "axis-angle", "axisangle": "axis-angle",
-                 "rotation-vector": "rotation-vector", "rotation_vector": "rotation-vector",
-                 "rotvec": "rotation-vector", "angles": "angles", "euler": "angles"}
+KINDS = representations.KINDS
 _ORDER_ALIASES = {"wxyz": "wxyz", "w-first": "wxyz", "scalar-first": "wxyz", "xyzw": "xyzw",
                   "w-last": "xyzw", "scalar-last": "xyzw", "jpl": "jpl"}
 _UNIT_ALIASES = {"deg": "deg", "degree": "deg", "degrees": "deg", "rad": "rad", "radian": "rad",
@@ -23,7 +18,8 @@ _UNIT_ALIASES = {"deg": "deg", "degree": "deg", "degrees": "deg", "rad": "rad", 
 class DecodeHints:
     """What the person already knows; each given hint removes the readings that disagree with it.
 
-    kind: 'matrix', 'quaternion', 'axis-angle', 'rotation-vector' or 'angles'
+    kind: one of KINDS ('matrix', 'quaternion', 'axis-angle', 'rotation-vector', 'angles', ...), or any
+    spelling core/representations.py accepts ('rotation_vector', 'rotvec', 'euler', ...)
     sequence: 'ZYX', "Z-Y'-X''", ...; intrinsic: True / False
     order: quaternion order 'wxyz', 'xyzw' (both Hamilton) or 'jpl' (scalar last, JPL convention)
     units: 'deg' or 'rad'; transposed: False = matrix is body -> reference, True = reference -> body
@@ -54,7 +50,8 @@ class DecodeHints:
         from core.sequences import parse_sequence
         kind, order, units, sequence = self.kind, self.order, self.units, self.sequence
         if kind is not None:
-            kind = _KIND_ALIASES.get(str(kind).lower())
+            found = representations.lookup(kind)
+            kind = found.kind if found is not None else None
             if kind is None:
                 raise DecodeError(f"unknown kind hint {self.kind!r}; expected one of {', '.join(KINDS)}")
         if order is not None:

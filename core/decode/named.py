@@ -5,6 +5,7 @@ from __future__ import annotations
 import re
 from dataclasses import dataclass
 
+from core import representations
 from core.decode.numbers import ParsedNumbers
 
 _QUATERNION_KEYS = {
@@ -27,6 +28,13 @@ class _Keyed:
     intrinsic: bool | None = None
     units: str | None = None
     note: str = ""
+
+
+def _without_prefix(name: str, prefixes: tuple) -> str:
+    for prefix in prefixes:
+        if name.startswith(prefix):
+            return name[len(prefix):]
+    return name
 
 
 def _split_key(label: str | None) -> tuple[str | None, str | None]:
@@ -84,7 +92,7 @@ def _keyed(parsed: ParsedNumbers) -> _Keyed | None:
             axis = [parts.get("axis_x", parts.get("ax")), parts.get("axis_y", parts.get("ay")),
                     parts.get("axis_z", parts.get("az"))]
         if len(axis) == 3 and len(angle) == 1:
-            return _Keyed(axis + [angle[0][0]], "axis-angle", units=angle[0][1] or unit,
+            return _Keyed(axis + [angle[0][0]], representations.AXIS_ANGLE.kind, units=angle[0][1] or unit,
                           note="read by their names as an axis and an angle")
     if n == 3:
         names = {"yaw": "yaw", "heading": "yaw", "psi": None, "pitch": "pitch", "elevation": "pitch",
@@ -94,14 +102,17 @@ def _keyed(parsed: ParsedNumbers) -> _Keyed | None:
             by = dict(zip(named, values))
             return _Keyed([by["yaw"], by["pitch"], by["roll"]], "angles", sequence="ZYX", intrinsic=True,
                           units=unit, note="read by their names as yaw, pitch, roll (intrinsic Z-Y'-X'')")
-        if all(k in ("rotvec", "rotation vector", "rotation_vector", "rvec", "rvecs", "om") for k in keys):
-            return _Keyed(values, "rotation-vector", units=unit, note="named a rotation vector")
         comps = [k for k in keys if k]
-        if len(comps) == 3 and {c.removeprefix("rotvec_").removeprefix("rv_") for c in comps} == {"x", "y", "z"} \
-                and all(c.startswith(("rotvec_", "rv_")) for c in comps):
-            by = {c[-1]: v for c, v in zip(comps, values)}
-            return _Keyed([by["x"], by["y"], by["z"]], "rotation-vector", units=unit,
-                          note="read by their names as a rotation vector")
+        for vector in representations.VECTORS:
+            units = unit if vector.units == representations.ANGLE else None
+            if all(k in vector.key_names for k in keys):
+                return _Keyed(values, vector.kind, units=units, note=f"named as the {vector.name}")
+            prefixes = vector.component_prefixes
+            if len(comps) == 3 and all(c.startswith(prefixes) for c in comps) \
+                    and {_without_prefix(c, prefixes) for c in comps} == {"x", "y", "z"}:
+                by = {c[-1]: v for c, v in zip(comps, values)}
+                return _Keyed([by["x"], by["y"], by["z"]], vector.kind, units=units,
+                              note=f"read by their names as a {vector.name}")
     if n == 9:
         element = [re.fullmatch(r"(?:[rmc]|dcm)_?([0-3])([0-3])", k or "") for k in keys]
         if all(element):

@@ -6,6 +6,7 @@ import json
 
 import numpy as np
 
+from core import representations
 from core.errors import DecodeError
 from core.decode.characters import _normalise_characters
 from core.decode.hints import DecodeHints, Reading
@@ -38,8 +39,12 @@ def _decode_our_json(text: str, hints: DecodeHints):
             body, extra = numbers("matrix", 9), {"transposed": False}
         elif kind == "axis-angle":
             body, extra = numbers("axis", 3) + " " + numbers("angle_deg", 1), {"units": "deg"}
-        elif kind == "rotation-vector":
-            body, extra = numbers("rotation_vector_deg", 3), {"units": "deg"}
+        elif representations.by_kind(kind).vector:
+            chosen = representations.by_kind(kind)
+            if chosen.half_turn_words and chosen.json_key in data and data[chosen.json_key] is None:
+                raise DecodeError(f"JSON key '{chosen.json_key}' is null: the {chosen.name} is "
+                                  f"{chosen.half_turn_words}")
+            body, extra = numbers(chosen.json_key, 3), ({"units": "deg"} if chosen.units == "angle" else {})
         elif kind == "angles":
             body = numbers("angles_deg", 3)
             extra = {"units": "deg", "sequence": data.get("sequence", "ZYX"),

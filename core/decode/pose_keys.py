@@ -11,6 +11,7 @@ from core.decode.pose_fields import ORPHAN, Field, flag_fields, json_fields, wit
 from core.decode.pose_flags import flag_pose
 from core.decode.poses import PoseText, checked_translation, homogeneous, one_value, unit_said, values_in
 from core.errors import DecodeError
+from core.representations import ROTATION_VECTOR
 
 _TRANSLATION = {"translation", "position", "trans", "t", "xyz", "p", "pos", "tvec", "tvecs", "origin", "offset",
                 "translation_vector", "location"}
@@ -21,7 +22,7 @@ _WHOLE = re.compile(r"t|tr|rt|r_t|rt_\w+|\w+_rt|h|transform|transformation|pose|
                     r"transform_\w+|\w+_transform|\w+_pose|pose_\w+|extrinsics?_\w+")
 _ROTATION_ONLY = re.compile(r"r\d*_rect\w*|r_rect\w*|rectification\w*|r_\w+|rotation_\w+|\w+_rotation|rot_\w+")
 _UNIT_MARK = re.compile(r"(?:\[(mm|m|cm)\]|\((mm|m|cm)\)|_(mm|m|cm))$")
-_ROTATION_VECTOR = {"rvec", "rvecs", "om", "rotvec", "rotation_vector"}
+_ROTATION_VECTOR = ROTATION_VECTOR.key_names      # rvec, om, rotvec, rotation_vector, ... (core/representations.py)
 _COMPONENTS_Q = {"x", "y", "z", "w", "qx", "qy", "qz", "qw"}
 _COMPONENTS_T = ("x", "y", "z")
 _GENERIC_NAMES = {"transform", "pose", "data", "value", "extrinsics", "calibration"}
@@ -213,7 +214,7 @@ def _rotation_from_key(field: Field):
         if len(values) != 3:
             raise DecodeError(f"line {field.line}: '{field.key}' (a rotation vector) needs 3 numbers; found"
                               f" {len(values)}")
-        return values, {"kind": "rotation-vector", "units": "rad"}, (), [
+        return values, {"kind": ROTATION_VECTOR.kind, "units": "rad"}, (), [
             f"'{field.key}' is a rotation vector; its length is in radians (common practice)"]
     if key == "rpy":
         return values, {"kind": "angles", "sequence": "XYZ", "intrinsic": False, "units": "rad"}, (), [

@@ -7,6 +7,7 @@ import re
 
 import numpy as np
 
+from core import representations
 from core.errors import DecodeError, FramewrightError
 from core.decode.unit_marks import respect_unit_marks
 from core.decode.candidates import (_MAX_MAGNITUDE, _NEAR_LOCK_DEG, _Candidate, _four_candidates,
@@ -18,8 +19,8 @@ from core.decode.number_refusals import refuse_strays
 from core.decode.named import _COMPONENT, _keyed, _labels, _split_key
 from core.decode.numbers import ParsedNumbers, UNDERSTOOD_COUNTS
 
-_COUNT_KINDS = {9: ("matrix",), 4: ("quaternion", "axis-angle"), 3: ("angles", "rotation-vector")}
-_KIND_COUNT = {"matrix": 9, "quaternion": 4, "axis-angle": 4, "angles": 3, "rotation-vector": 3}
+_COUNT_KINDS = representations.COUNTS                           # {9: ('matrix',), 4: (...), 3: (...)}
+_KIND_COUNT = {r.kind: r.count for r in representations.ALL}
 
 
 def readings_from_numbers(parsed: ParsedNumbers, hints=None, direction=None) -> list[Reading]:
@@ -161,7 +162,8 @@ def _implausible_angle(c: _Candidate, values) -> str | None:
     if units is None:
         return None
     angle_part = values[:1] if c.conventions.get("order") == "angle, axis" else values[3:]
-    angles = {"axis-angle": angle_part, "rotation-vector": [float(np.linalg.norm(values))]}.get(c.kind, values)
+    angles = {representations.AXIS_ANGLE.kind: angle_part,
+              representations.ROTATION_VECTOR.kind: [float(np.linalg.norm(values))]}.get(c.kind, values)
     worst = max(abs(float(a)) for a in angles)
     worst_deg = worst if units == "deg" else math.degrees(worst)
     if worst_deg > _MAX_TURNS_DEG:

@@ -10,9 +10,14 @@ from __future__ import annotations
 
 import re
 
+from core import representations
 from core.errors import DecodeError
 
-_ANGLES_ONLY = ("angles", "rotation-vector")
+# Kinds whose numbers are all angles, and kinds of pure numbers (no number of theirs carries a unit), from
+# core/representations.py; axis and angle, one angle among pure numbers, has its own rule below.
+_ANGLES_ONLY = tuple(r.kind for r in representations.ALL
+                     if r.units == representations.ANGLE and r is not representations.AXIS_ANGLE)
+_PURE_NUMBERS = tuple(r.kind for r in representations.ALL if r.units == representations.PURE)
 _SEXAGESIMAL = ("deg", "arcmin", "arcsec", "dms")
 # Words naming an angle unit the numbers would have to be converted from (a caption, a column header)
 _OTHER_UNIT_WORD = re.compile(r"(?<![a-z])(?P<unit>mrads?|milliradians?|arcmin(?:utes?|s)?|arcsec(?:onds?|s)?"
@@ -42,10 +47,10 @@ def respect_unit_marks(candidates: list, parsed, count: int, keyed) -> tuple[lis
     unmarked_nonzero = [n for n in numbers if not n.unit and n.value != 0]
     kept, why = [], None
     for c in candidates:
-        if c.kind in ("quaternion", "matrix"):
+        if c.kind in _PURE_NUMBERS:
             why = why or (f"'{numbers[marked[0]].text}' carries an angle unit, so it is no {c.kind} entry")
             continue
-        if c.kind == "axis-angle":
+        if c.kind == representations.AXIS_ANGLE.kind:
             angle_at = 0 if c.conventions.get("order") == "angle, axis" else count - 1
             if marked != [angle_at]:
                 # the more telling reason: it names where an angle would have to stand
