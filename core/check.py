@@ -19,7 +19,7 @@ million alike; `check` wraps them for one pair of Orientations.
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 
 import numpy as np
 
@@ -128,6 +128,32 @@ def _length_tolerance(value):
     return number
 
 
+TOLERANCE_NAMES = ("total", "pointing", "roll")
+
+
+def _tolerance_units(value) -> tuple:
+    """(('pointing', 'mrad'), ...) checked: known tolerances, known angle units, each once; degrees left out."""
+    from core.units import ANGLE_UNITS
+
+    if isinstance(value, dict):
+        value = tuple(value.items())
+    try:
+        pairs = tuple((str(k), str(u)) for k, u in value)
+    except (TypeError, ValueError):
+        raise InvalidInputError(f"tolerance units: expected pairs of a tolerance and a unit, got {value!r}"[:200]) \
+            from None
+    names = [k for k, _ in pairs]
+    for name, unit in pairs:
+        if name not in TOLERANCE_NAMES:
+            raise InvalidInputError(f"tolerance units: {name!r} is no tolerance; expected {', '.join(TOLERANCE_NAMES)}")
+        if unit not in ANGLE_UNITS:
+            raise InvalidInputError(f"tolerance units: {unit!r} is no angle unit; expected one of "
+                                    f"{', '.join(ANGLE_UNITS)}")
+    if len(set(names)) != len(names):
+        raise InvalidInputError("tolerance units: a tolerance is named twice")
+    return tuple(sorted((k, u) for k, u in pairs if u != "deg"))
+
+
 @dataclass(frozen=True)
 class CheckSettings:
     """What a check compares against.
@@ -138,6 +164,8 @@ class CheckSettings:
     position_tolerance_mm: None (positions are not judged) or the largest distance (mm) the measured
     position may be from the nominal one; judged only when both mounts have a position
     (`check_position`), and reported after the orientation verdict.
+    tolerance_units: the unit each angle tolerance was stated in (('total', 'mrad'), ...), as the drawing
+    gives it; the tolerances themselves are always degrees. Absent: degrees.
     """
 
     mode: str = "total"
@@ -146,8 +174,10 @@ class CheckSettings:
     roll_tolerance_deg: float = 1.0
     body_axis: str | tuple | None = None
     position_tolerance_mm: float | None = None
+    tolerance_units: tuple = ()
 
     def __post_init__(self):
+        object.__setattr__(self, "tolerance_units", _tolerance_units(self.tolerance_units))
         if self.position_tolerance_mm is not None:
             object.__setattr__(self, "position_tolerance_mm", _length_tolerance(self.position_tolerance_mm))
         if self.mode not in MODES:
@@ -167,6 +197,16 @@ class CheckSettings:
             raise InvalidInputError(
                 "check mode 'pointing_and_roll' needs a body axis; expected body_axis such as '+Z'")
 
+    def unit_of(self, tolerance: str) -> str:
+        """The unit the 'total', 'pointing' or 'roll' tolerance was stated in ('deg' unless another)."""
+        return dict(self.tolerance_units).get(tolerance, "deg")
+
+    def with_unit(self, tolerance: str, unit: str) -> "CheckSettings":
+        kept = {k: v for k, v in self.tolerance_units if k != tolerance}
+        if unit != "deg":
+            kept[tolerance] = unit
+        return replace(self, tolerance_units=tuple(sorted(kept.items())))
+
     def axis_vector(self):
         """The unit body axis, or None."""
         return None if self.body_axis is None else axis_vector(self.body_axis)
@@ -180,6 +220,7 @@ class CheckSettings:
             "roll_tolerance_deg": self.roll_tolerance_deg,
             "body_axis": list(axis) if isinstance(axis, tuple) else axis,
             **({} if self.position_tolerance_mm is None else {"position_tolerance_mm": self.position_tolerance_mm}),
+            **({"tolerance_units": dict(self.tolerance_units)} if self.tolerance_units else {}),
         }
 
     @classmethod
@@ -188,12 +229,14 @@ class CheckSettings:
         if not isinstance(data, dict):
             raise FramewrightError(f"check settings: expected a JSON object, got {type(data).__name__}")
         known = {"mode", "total_tolerance_deg", "pointing_tolerance_deg", "roll_tolerance_deg", "body_axis",
-                 "position_tolerance_mm"}
+                 "position_tolerance_mm", "tolerance_units"}
         unknown = sorted(set(data) - known)
         if unknown:
             raise FramewrightError(
                 f"check settings: unknown key(s) {', '.join(unknown)}; expected some of {', '.join(sorted(known))}")
         values = dict(data)
+        if isinstance(values.get("tolerance_units"), dict):
+            values["tolerance_units"] = tuple(sorted(values["tolerance_units"].items()))
         if isinstance(values.get("body_axis"), list):
             values["body_axis"] = tuple(values["body_axis"])
         return cls(**values)

@@ -223,6 +223,14 @@ def _check_raw(value: Any, where: str, version: int = FORMAT_VERSION) -> None:
                  f"version {version}")
         _number(settings["position_tolerance_mm"], _at(here, "position_tolerance_mm"), 0, LIMIT_M * 1e3,
                 "a tolerance in mm")
+    if "tolerance_units" in settings:
+        from core.check import TOLERANCE_NAMES
+        from core.units import ANGLE_UNITS as UNIT_TABLE
+
+        stated = _object(settings["tolerance_units"], _at(here, "tolerance_units"))
+        for name, unit in stated.items():
+            _choice(name, _at(here, "tolerance_units"), TOLERANCE_NAMES)
+            _choice(unit, _at(_at(here, "tolerance_units"), name), tuple(UNIT_TABLE))
     axis = settings.get("body_axis")
     if axis is not None and not isinstance(axis, str):
         _numbers(axis, 3, _at(here, "body_axis"))

@@ -21,7 +21,7 @@ from app.text import degrees, fixed, vector
 from app.widgets.message_line import MessageLine
 from app.widgets.number_field import NumberField, parse_number
 from app.widgets.with_tips import button, choice_box, line_field, reading_label
-from core import axes, operations
+from core import axes, operations, units
 from core.check import POSITION_TOLERANCE_LIMIT_MM, check, check_position
 from core.errors import FramewrightError
 
@@ -92,14 +92,16 @@ class CheckPanel(Panel):
         axis_row.addWidget(self.axis_field, 1)
         form.addRow("Body axis", axis_row)
         form.addRow(self.message)
-        tolerances = QGroupBox("Tolerances (degrees)")
+        tolerances = QGroupBox("Tolerances")
         t_form = QFormLayout(tolerances)
-        for label, field in (("Total", self.total_field), ("Pointing", self.pointing_field),
-                             ("Roll", self.roll_field)):
+        self.tolerance_labels = {}
+        for name, field in (("total", self.total_field), ("pointing", self.pointing_field),
+                            ("roll", self.roll_field)):
             row = QHBoxLayout()
             row.addWidget(field)
             row.addStretch(1)
-            t_form.addRow(label, row)
+            self.tolerance_labels[name] = QLabel(name.capitalize())
+            t_form.addRow(self.tolerance_labels[name], row)
         position_row = QHBoxLayout()
         position_row.addWidget(self.position_field)
         position_row.addWidget(QLabel("mm (empty: not judged)"))
@@ -156,8 +158,7 @@ class CheckPanel(Panel):
                            (self.roll_field, "roll_tolerance_deg")):
             field.committed.connect(lambda f=field, k=key: self._tolerance_typed(f, k))
             field.editingFinished.connect(lambda f=field, k=key: self._tolerance_typed(f, k))
-            field.stepped.connect(lambda v, f=field, k=key: self._set_settings(
-                f"{k}", min(TOLERANCE_MAX_DEG, max(0.0, round(v, 9)))))
+            field.stepped.connect(lambda v, k=key: self._tolerance_stepped(k, v))
         self.position_field.committed.connect(self._position_tolerance_typed)
         self.position_field.editingFinished.connect(self._position_tolerance_typed)
         self.render()
@@ -178,10 +179,28 @@ class CheckPanel(Panel):
     @staticmethod
     def _tolerance_field(tip: str) -> NumberField:
         field = NumberField(tip + f" More than 0 and at most {TOLERANCE_MAX_DEG:g}° (no two orientations are "
-                                  "further apart). '.' is the decimal point; Enter to use it.", step=0.1)
-        field.set_range(0.0, TOLERANCE_MAX_DEG, f"0 < tolerance ≤ {TOLERANCE_MAX_DEG:g}°", low_excluded=True)
+                                  "further apart). '.' is the decimal point; a number may carry its unit as the "
+                                  "drawing states it (0.5 mrad, 30″, 1′30″, 2 gon), and the field keeps that "
+                                  "unit. Enter to use it.", step=0.1)
         field.fit_digits(4)
         return field
+
+    @staticmethod
+    def _unit_range(field: NumberField, unit: str) -> None:
+        """The field reads and shows `unit`; its range is 0 < tolerance ≤ 180° in that unit."""
+        field.set_angle_unit(unit)
+        high = float(units.degrees_to(TOLERANCE_MAX_DEG, unit))
+        field.set_range(0.0, high, f"0 < tolerance ≤ {units.format_angle(TOLERANCE_MAX_DEG, unit)}",
+                        low_excluded=True)
+
+    @staticmethod
+    def _tolerance_name(key: str) -> str:
+        return key.replace("_tolerance_deg", "")
+
+    def _tolerance_stepped(self, key: str, shown: float) -> None:
+        unit = self.model.check.settings.unit_of(self._tolerance_name(key))
+        degrees_value = float(units.to_degrees(shown, unit)) if unit != "dms" else shown
+        self._set_settings(key, min(TOLERANCE_MAX_DEG, max(0.0, round(degrees_value, 12))))
 
     # ---- edits -------------------------------------------------------------------------------------
     def _choose(self, which: str, name) -> None:
@@ -255,17 +274,33 @@ class CheckPanel(Panel):
         self._set_settings("body_axis", values)
 
     def _tolerance_typed(self, field: NumberField, key: str) -> None:
+        name = self._tolerance_name(key)
+        settings = self.model.check.settings
         try:
-            value = field.value()
-        except ValueError as exc:
+            field.value()                              # the range, in the field's unit
+            read = units.read_angle(field.text(), settings.unit_of(name))
+        except (ValueError, FramewrightError) as exc:
             field.set_problem(str(exc))
             self.tolerance_note.problem(f"{exc} (kept the last good tolerance)")
             return
-        self.tolerance_note.clear()
-        if value == getattr(self.model.check.settings, key):
-            field.set_problem(None)
+        if read.degrees == getattr(settings, key) and read.unit == settings.unit_of(name):
+            field.set_problem(None)      # nothing new (Enter, then focus leaving): a note of how it was
+            if self.tolerance_note.is_problem:     # read stays; a complaint about earlier text goes
+                self.tolerance_note.clear()
             return
-        field.set_problem(self._set_settings(key, value))
+        self.tolerance_note.clear()
+        try:   # the value and the unit it was stated in: one undo step
+            new = replace(settings, **{key: read.degrees}).with_unit(name, read.unit)
+        except FramewrightError as exc:
+            field.set_problem(str(exc))
+            self.tolerance_note.problem(f"{exc} (kept the last good tolerance)")
+            return
+        field.set_problem(None)
+        self.say("")
+        if read.unit != "deg" or field.understood:
+            self.tolerance_note.say(f"Read {read.said}.")
+        self.model.apply(operations.set_check, replace(self.model.check, settings=new), origin=self,
+                         text=f"Check: {name} tolerance")
 
     # ---- model -> view -----------------------------------------------------------------------------
     def render_change(self, change: Change) -> None:
@@ -307,8 +342,14 @@ class CheckPanel(Panel):
         for field, key, used in ((self.total_field, "total_tolerance_deg", not pointing),
                                  (self.pointing_field, "pointing_tolerance_deg", pointing),
                                  (self.roll_field, "roll_tolerance_deg", pointing)):
+            name = self._tolerance_name(key)
+            unit = settings.unit_of(name)
+            self._unit_range(field, unit)
+            self.tolerance_labels[name].setText(f"{name.capitalize()} ({units.ANGLE_UNITS[unit].symbol})")
             if not field.hasFocus() or field.problem is None:
-                field.set_text(f"{getattr(settings, key):g}")
+                value = getattr(settings, key)
+                field.set_text(units.format_dms(value) if unit == "dms" else
+                               f"{float(units.degrees_to(value, unit)):.10g}")
             field.setEnabled(used)
         if not self.position_field.hasFocus() or self.position_field.problem is None:
             tolerance = settings.position_tolerance_mm

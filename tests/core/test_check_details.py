@@ -136,7 +136,7 @@ def test_refusal_messages_word_for_word():
         CheckSettings.from_dict({"tolerance": 1, "axis": "+Z"})
     assert str(caught.value) == ("check settings: unknown key(s) axis, tolerance; expected some of body_axis, "
                                  "mode, pointing_tolerance_deg, position_tolerance_mm, roll_tolerance_deg, "
-                                 "total_tolerance_deg")
+                                 "tolerance_units, total_tolerance_deg")
     with pytest.raises(InvalidInputError) as caught:
         check(Orientation.identity(), None)
     assert str(caught.value) == "check: expected two Orientation values (nominal, measured)"
