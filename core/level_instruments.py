@@ -24,11 +24,12 @@ class Instrument:
 
 
 INSTRUMENTS: dict[str, Instrument] = {i.key: i for i in (
-    Instrument("machinist", "precision machinist's level, 0.02 mm/m a division", "mm/m", 0.02),
-    Instrument("engineer", "engineer's precision level, 0.05 mm/m a division", "mm/m", 0.05),
+    # name: short enough for a drop-down in the narrow side area; one division of each in the resolution
+    Instrument("machinist", "machinist's level, 0.02 mm/m", "mm/m", 0.02),
+    Instrument("engineer", "engineer's level, 0.05 mm/m", "mm/m", 0.05),
     Instrument("electronic", "electronic level, 1 µm/m", "um/m", 1.0),
     Instrument("inclinometer", "digital inclinometer, 0.01°", "deg", 0.01),
-    Instrument("builder", "builder's level, about 0.5 mm/m a division", "mm/m", 0.5),
+    Instrument("builder", "builder's level, 0.5 mm/m", "mm/m", 0.5),
 )}
 SOURCE_NOTE = ("typical resolution of the class of instrument (common practice); the instrument's own "
                "certificate governs")

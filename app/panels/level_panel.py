@@ -14,6 +14,7 @@ from PySide6.QtWidgets import (QComboBox, QFormLayout, QGroupBox, QHBoxLayout, Q
 
 from app.model import MOUNTS, ORIENTATION, SELECTION, WORDS, Change, SessionModel
 from app.panels.base import Panel
+from app.panels.level_slopes import SlopeChoices, level_angle
 from app.panels.level_words import WordsBox
 from app.text import degrees, vector
 from app.widgets.number_field import parse_number
@@ -27,7 +28,8 @@ TYPED = "typed"
 _GRAVITY_NOTES = {"-Z": " (Z up, as ENU)", "+Z": " (Z down, as NED)", "+Y": " (Y down, camera optical)"}
 GRAVITY_CHOICES = tuple((axes.display(name) + _GRAVITY_NOTES.get(name, ""), tuple(axes.unit_vector(name).tolist()))
                         for name in (*_GRAVITY_NOTES, "-Y", "+X", "-X"))
-FACE_COLUMNS = ("Face", "Name", "Tilt from\nlevel", "Off\nplumb", "Faces")
+FACE_COLUMNS = ("Face", "Name", "Tilt from\nlevel", "Off\nplumb", "Faces", "Level\nreads")
+READS_COLUMN = 5
 FACE_TIPS = (
     "The face, named by its outward normal in body axes.",
     "The part's own name for the face (from the mount's part).",
@@ -36,6 +38,9 @@ FACE_TIPS = (
     "Departure in degrees of the face from vertical (90 − tilt): what a level held against a side face shows.",
     "Whether the face looks up, down or to the side: up or down when its normal is within 45° of straight "
     "up or down (the angle of the normal from straight up is in the tooltip of its tilt).",
+    "What a level laid on the face shows, in the unit chosen below (or as the chosen instrument shows it): "
+    "the tilt from level of an up or down face, the lean from plumb of a side face; the rise over the shim "
+    "base is in each cell's tooltip.",
 )
 
 
@@ -71,8 +76,13 @@ class LevelPanel(Panel):
         self.faces.setTextElideMode(Qt.TextElideMode.ElideRight)
         self.faces.setHorizontalScrollBarPolicy(Qt.ScrollBarPolicy.ScrollBarAlwaysOff)
         self.faces.setToolTip("Readings per face of the part; hover the column titles for what each means.")
+        self.slopes = SlopeChoices()
         self.up_label = QLabel()
         self.up_label.setToolTip("The faces nearest straight up and straight down.")
+        self.rise_label = QLabel()
+        self.rise_label.setWordWrap(True)
+        self.rise_label.setToolTip("The rise of the up face over the shim base: the shim that levels it over "
+                                   "that length (each face's is in the tooltip of its level reading).")
         self.elevations = QLabel()
         self.elevations.setToolTip("Angle of each body axis above the horizontal plane, −90..90 degrees, "
                                    "positive upwards.")
@@ -100,7 +110,9 @@ class LevelPanel(Panel):
         faces = QGroupBox("Level on each face")
         f_layout = QVBoxLayout(faces)
         f_layout.addWidget(self.faces)
+        f_layout.addWidget(self.slopes)
         f_layout.addWidget(self.up_label)
+        f_layout.addWidget(self.rise_label)
         f_layout.addWidget(QLabel("Elevation of each body axis above the horizontal:"))
         f_layout.addWidget(self.elevations)
         incline = QGroupBox("Two-axis inclinometer")
@@ -121,6 +133,7 @@ class LevelPanel(Panel):
         self.gravity_field.returnPressed.connect(self._gravity_typed)
         self.face_box.activated.connect(self._face_picked)
         self.direction_box.activated.connect(lambda *_: self.render())
+        self.slopes.changed.connect(self.render)
         self.face_box.setCurrentIndex(self.face_box.findData("+Z"))
         self._fill_directions()
         self._size_table()
@@ -206,9 +219,14 @@ class LevelPanel(Panel):
             self.say(f"{exc}", problem=True)
             return
         names = mount.part.face_names
+        if self.slopes.problem:
+            self.say(self.slopes.problem, problem=True)
+        elif self.message.text().startswith("Base:"):
+            self.say("")
         for row, reading in enumerate(report.faces):
+            shown = level_angle(reading)
             cells = (axes.display(reading.face), names.get(reading.face, ""), degrees(reading.tilt_deg),
-                     degrees(reading.off_plumb_deg), reading.facing)
+                     degrees(reading.off_plumb_deg), reading.facing, self.slopes.reading_text(shown))
             for column, text in enumerate(cells):
                 item = self.faces.item(row, column)
                 if item is None:
@@ -220,8 +238,14 @@ class LevelPanel(Panel):
                 tip = FACE_TIPS[column]
                 if column == 2:
                     tip += f"\nNormal {degrees(reading.from_up_deg)} from straight up."
+                elif column == READS_COLUMN:
+                    where = "plumb" if reading.facing == "side" else "level"
+                    tip = (self.slopes.reading_tip(shown) + "\n"
+                           + self.slopes.rise_words(axes.display(reading.face), shown, where))
                 item.setToolTip(tip)
+        up = next(r for r in report.faces if r.face == report.up_face)
         self.up_label.setText(f"Up: face {axes.display(report.up_face)}; down: face {axes.display(report.down_face)}.")
+        self.rise_label.setText(self.slopes.rise_words(axes.display(up.face), level_angle(up), "level"))
         self.elevations.setText("    ".join(f"{axes.display(a.axis)}  {degrees(a.elevation_deg)}" for a in report.axes))
         if not self._face_chosen and self.face_box.currentData() != report.up_face:
             self.face_box.setCurrentIndex(self.face_box.findData(report.up_face))
