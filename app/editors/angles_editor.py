@@ -97,11 +97,12 @@ class AnglesEditor(EditorBase):
 
     def render(self) -> None:
         seq, intr = self.sequence, self.intrinsic
+        self.show_unit_in_title("Angles")
         self.limit_angles(self.fields)
         self.sequence_box.setCurrentIndex(self.sequence_box.findData(seq))
         self.kind_box.setCurrentIndex(0 if intr else 1)
         for i, (label, text) in enumerate(zip(self.labels, axis_labels(seq, intr))):
-            label.setText(f"{text} ({self.angle_unit})")
+            label.setText(self.unit_label(text))
             self.fields[i].set_convention_tooltip(self._tooltip(i))
             self.fields[i].set_step(self.angle_step)
         angle_set = self.model.current_orientation().as_angles(seq, intrinsic=intr, degrees=True)

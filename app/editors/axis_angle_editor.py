@@ -82,9 +82,10 @@ class AxisAngleEditor(EditorBase):
         if not rotvec:
             for field in self.axis_fields:
                 field.clear_range()
-        self.angle_label.setText(f"Angle ({unit})")
+        self.angle_label.setText(self.unit_label("Angle"))
+        self.show_unit_in_title("Axis && angle")
         for c, label, field in zip("xyz", self.axis_labels, self.axis_fields):
-            label.setText(f"Vector {c} ({unit})" if rotvec else f"Axis {c}")
+            label.setText(self.unit_label(f"Vector {c}") if rotvec else f"Axis {c}")
             field.set_convention_tooltip((_ROTVEC_TIP if rotvec else _AXIS_TIP).format(c=c, unit=unit))
             field.set_step(self.angle_step if rotvec else 0.01)
             if not rotvec:

@@ -121,6 +121,14 @@ class EditorBase(QGroupBox):
         """The unit's symbol for labels: '°', 'rad', 'mrad', '′', '″', 'gon', 'mil'."""
         return units.ANGLE_UNITS[self.angle_key].symbol
 
+    def unit_label(self, text: str) -> str:
+        """A field's label with its unit: 'Angle (°)'. A unit longer than a mark ('mrad', 'gon') goes in the
+        editor's title instead ('Angles, mrad'), so the editors keep to one row at a laptop's width."""
+        return f"{text} ({self.angle_unit})" if len(self.angle_unit) == 1 else text
+
+    def show_unit_in_title(self, title: str) -> None:
+        self.setTitle(title if len(self.angle_unit) == 1 else f"{title}, {self.angle_unit}")
+
     @property
     def angle_step(self) -> float:
         """One arrow step: a whole unit, or a hundredth of a radian."""
