@@ -10,25 +10,7 @@ import pytest
 from PySide6.QtCore import Qt
 from scipy.spatial.transform import Rotation
 
-from tests.app.window_driver import focus
-
-
-def type_into(qtbot, field, text):
-    """As window_driver.type_into, key by key, with the characters a keyboard layout or an input method
-    gives that QTest cannot synthesise (′ ″ °): sent as key events carrying the character."""
-    from PySide6.QtCore import QEvent
-    from PySide6.QtGui import QKeyEvent
-    from PySide6.QtWidgets import QApplication
-
-    line = field.lineEdit()
-    focus(qtbot, line)
-    line.selectAll()
-    for ch in text:
-        if ch.isascii():
-            qtbot.keyClicks(line, ch)
-        else:
-            for kind in (QEvent.Type.KeyPress, QEvent.Type.KeyRelease):
-                QApplication.sendEvent(line, QKeyEvent(kind, Qt.Key.Key_unknown, Qt.KeyboardModifier.NoModifier, ch))
+from tests.app.window_driver import type_into
 
 
 def _choose_units(qtbot, window, key):

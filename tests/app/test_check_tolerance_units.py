@@ -6,27 +6,16 @@ definitions (SI Brochure Table 4: 1 mrad = 1e-3 rad, 1° = 3600″)."""
 import math
 
 import pytest
-from PySide6.QtCore import QEvent, Qt
-from PySide6.QtGui import QKeyEvent
-from PySide6.QtWidgets import QApplication
+from PySide6.QtCore import Qt
 
 from core.session import load_session, save_session
 from tests.app.test_check_panel import SHIM_DEG, choose, panel, shimmed  # noqa: F401  (fixtures)
-from tests.app.window_driver import focus
+from tests.app.window_driver import type_into
 
 
 def commit(qtbot, field, text):
-    """Type key by key (′ and ″ as key events carrying the character) and press Enter."""
-    line = field.lineEdit()
-    focus(qtbot, line)
-    line.selectAll()
-    for ch in text:
-        if ch.isascii():
-            qtbot.keyClicks(line, ch)
-        else:
-            for kind in (QEvent.Type.KeyPress, QEvent.Type.KeyRelease):
-                QApplication.sendEvent(line, QKeyEvent(kind, Qt.Key.Key_unknown, Qt.KeyboardModifier.NoModifier, ch))
-    qtbot.keyClick(line, Qt.Key.Key_Return)
+    type_into(qtbot, field, text)
+    qtbot.keyClick(field.lineEdit(), Qt.Key.Key_Return)
 
 
 def _set_up(panel, shimmed):

@@ -14,11 +14,23 @@ def focus(qtbot, widget):
 
 
 def type_into(qtbot, field, text):
-    """Click into a number field, select what is there and type `text`, key by key."""
+    """Click into a number field, select what is there and type `text`, key by key. Characters a keyboard
+    layout or an input method gives that QTest cannot synthesise (′ ″ °) go as key events carrying them."""
+    from PySide6.QtCore import QEvent
+    from PySide6.QtGui import QKeyEvent
+
     line = field.lineEdit()
     focus(qtbot, line)
     line.selectAll()
-    qtbot.keyClicks(line, text)
+    if text.isascii():
+        qtbot.keyClicks(line, text)
+        return
+    for ch in text:
+        if ch.isascii():
+            qtbot.keyClicks(line, ch)
+        else:
+            for kind in (QEvent.Type.KeyPress, QEvent.Type.KeyRelease):
+                QApplication.sendEvent(line, QKeyEvent(kind, Qt.Key.Key_unknown, Qt.KeyboardModifier.NoModifier, ch))
 
 
 def leave_editor(qtbot, window):
