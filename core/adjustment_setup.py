@@ -11,16 +11,18 @@ from typing import Any
 import numpy as np
 
 from core.errors import FramewrightError
+from core.units import LENGTH_UNITS
 
 FRAMES = ("body", "reference")
-_KEYS = ("axes", "axes_frame", "footprint", "pivot", "pitch_mm", "uncertainty_deg", "coverage")
+_KEYS = ("axes", "axes_frame", "footprint", "pivot", "pitch_mm", "uncertainty_deg", "coverage", "length_unit")
 
 
 @dataclass(frozen=True)
 class AdjustmentSetup:
     """axes: the adjustment axes as typed ('+Z; 0.2 1 0'; '' for none); footprint: feet in body mm (empty:
     none); pivot: 0-based foot that stays put; pitch_mm: levelling-screw pitch or None; uncertainty_deg:
-    standard uncertainty of the measured orientation or None; coverage: k of U = k u."""
+    standard uncertainty of the measured orientation or None; coverage: k of U = k u; length_unit: the unit
+    the feet, the pitch and the shims are shown and typed in (they are kept in mm whatever it is)."""
     axes: str = ""
     axes_frame: str = "body"
     footprint: tuple = ()
@@ -28,8 +30,12 @@ class AdjustmentSetup:
     pitch_mm: float | None = None
     uncertainty_deg: float | None = None
     coverage: float = 2.0
+    length_unit: str = "mm"
 
     def __post_init__(self):
+        if self.length_unit not in LENGTH_UNITS:
+            raise FramewrightError(f"adjustment length unit: expected one of {', '.join(LENGTH_UNITS)}, "
+                                   f"got {self.length_unit!r}")
         if not isinstance(self.axes, str) or len(self.axes) > 1000:
             raise FramewrightError("adjustment axes: expected text of at most 1000 characters")
         if self.axes_frame not in FRAMES:
@@ -58,7 +64,9 @@ class AdjustmentSetup:
     def to_dict(self) -> dict[str, Any]:
         return {"axes": self.axes, "axes_frame": self.axes_frame, "footprint": [list(f) for f in self.footprint],
                 "pivot": self.pivot, "pitch_mm": self.pitch_mm, "uncertainty_deg": self.uncertainty_deg,
-                "coverage": self.coverage}
+                "coverage": self.coverage,
+                # only when not mm, so a file saved before lengths had a choice is written the same way
+                **({"length_unit": self.length_unit} if self.length_unit != "mm" else {})}
 
     @classmethod
     def from_dict(cls, data: Any) -> "AdjustmentSetup":

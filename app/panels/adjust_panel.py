@@ -13,7 +13,7 @@ from __future__ import annotations
 
 from dataclasses import replace
 
-from PySide6.QtCore import QRectF
+from PySide6.QtCore import QRectF, Qt
 from PySide6.QtGui import QColor, QPainter
 from PySide6.QtWidgets import (QFormLayout, QGroupBox, QLineEdit, QPlainTextEdit, QSizePolicy, QSpinBox, QVBoxLayout,
                                QWidget)
@@ -21,9 +21,9 @@ from PySide6.QtWidgets import (QFormLayout, QGroupBox, QLineEdit, QPlainTextEdit
 from app.model import CHECK, MEASUREMENTS, MOUNTS, ORIENTATION, PREFERENCES, SELECTION, SESSION, Change, SessionModel
 from app.panels.base import Panel
 from app.panels.repeats_box import RepeatedMeasurementsBox
-from app.text import degrees, vector
+from app.text import degrees, fixed, vector
 from app.widgets.with_tips import button, choice_box, line_field, reading_label
-from core import operations
+from core import operations, units
 from core.check import check
 from core.correction import adjustment_angles, correction, read_axes
 from core.decision import CANNOT_DECIDE, CONFORMS, DOES_NOT_CONFORM, decide_check
@@ -84,10 +84,16 @@ class AdjustPanel(Panel):
         self.angles_label = reading_label()
 
         self.footprint_field = QPlainTextEdit()
-        self.footprint_field.setPlaceholderText("one foot a line: x y z (body mm)")
-        self.footprint_field.setToolTip("The feet or bolt points in body coordinates, mm, one 'x y z' a line. "
-                                        "They must lie on one face; its outward normal is taken on the side away "
-                                        "from the body origin.")
+        self.footprint_field.setPlaceholderText("one foot a line: x y z (body axes)")
+        self.footprint_field.setToolTip("The feet or bolt points in body coordinates, in the length unit chosen "
+                                        "below, one 'x y z' a line. They must lie on one face; its outward normal "
+                                        "is taken on the side away from the body origin.")
+        self.length_box = choice_box("The unit the feet, the screw pitch and the shims are typed and shown in. "
+                                     "They are kept in mm; changing it shows the same lengths in the new unit. "
+                                     "thou: a thousandth of an inch (0.0254 mm), not an angular mil.",
+                                     [(units.length_unit(key).symbol, key) for key in ("mm", "in", "thou")])
+        self.length_box.setItemData(self.length_box.findData("thou"), units.length_unit("thou").note,
+                                    Qt.ItemDataRole.ToolTipRole)
         self.footprint_field.setMaximumHeight(90)
         self.corners_button = button("Corners of the face opposite the boresight",
                                      "Fill in the four corners of the part box's face opposite its boresight "
@@ -97,7 +103,8 @@ class AdjustPanel(Panel):
         self.pivot_box = QSpinBox()
         self.pivot_box.setMinimum(1)
         self.pivot_box.setToolTip("The foot that should stay put.")
-        self.pitch_field = line_field("Thread pitch of levelling screws under the feet, mm per turn (empty: none). "
+        self.pitch_field = line_field("Thread pitch of levelling screws under the feet, in the length unit per turn "
+                                      "(an inch thread of 20 per inch is 0.05 in; empty: none). "
                                       "Enter to use it.", placeholder="none")
         self.shims_label = reading_label()
 
@@ -118,11 +125,12 @@ class AdjustPanel(Panel):
         turn_form.addRow(self.angles_label)
         feet = QGroupBox("Shims under the footprint")
         feet_form = QFormLayout(feet)
+        feet_form.addRow("Lengths in", self.length_box)
         feet_form.addRow(self.footprint_field)
         feet_form.addRow(self.corners_button)
         feet_form.addRow(self.use_feet_button)
         feet_form.addRow("Pivot foot", self.pivot_box)
-        feet_form.addRow("Screw pitch (mm)", self.pitch_field)
+        feet_form.addRow("Screw pitch", self.pitch_field)
         feet_form.addRow(self.shims_label)
         sure = QGroupBox("Measurement uncertainty (ISO 14253-1)")
         sure_form = QFormLayout(sure)
@@ -141,7 +149,8 @@ class AdjustPanel(Panel):
         self.use_feet_button.clicked.connect(self._feet_typed)
         self.corners_button.clicked.connect(self._corners)
         self.pivot_box.valueChanged.connect(self._pivot_chosen)
-        self.pitch_field.returnPressed.connect(lambda: self._optional_number(self.pitch_field, "pitch_mm"))
+        self.pitch_field.returnPressed.connect(self._pitch_typed)
+        self.length_box.activated.connect(lambda i: self._set(length_unit=self.length_box.itemData(i)))
         self.uncertainty_field.returnPressed.connect(
             lambda: self._optional_number(self.uncertainty_field, "uncertainty_deg"))
         self.coverage_field.returnPressed.connect(self._coverage_typed)
@@ -174,7 +183,7 @@ class AdjustPanel(Panel):
     def _feet_typed(self) -> None:
         text = self.footprint_field.toPlainText()
         try:
-            feet = read_footprint(text) if text.strip() else ()
+            feet = units.to_millimetres(read_footprint(text), self._length()) if text.strip() else ()
             if len(feet):
                 outward_normal(feet)
         except FramewrightError as error:
@@ -214,6 +223,18 @@ class AdjustPanel(Panel):
             return
         self._set(**{key: value})
 
+    def _length(self) -> str:
+        return self.model.check.adjustment.length_unit
+
+    def _pitch_typed(self) -> None:
+        text = self.pitch_field.text().strip()
+        try:
+            value = None if text in ("", "none") else float(units.to_millimetres(parse_number(text), self._length()))
+        except ValueError as error:
+            self.message.problem(f"{error} (kept the last good value)")
+            return
+        self._set(pitch_mm=value)
+
     def _coverage_typed(self) -> None:
         try:
             value = parse_number(self.coverage_field.text())
@@ -238,14 +259,18 @@ class AdjustPanel(Panel):
         if not self.axes_field.hasFocus():
             self.axes_field.setText(setup.axes)
         self.frame_box.setCurrentIndex(self.frame_box.findData(setup.axes_frame))
+        unit = setup.length_unit
+        self.length_box.setCurrentIndex(max(0, self.length_box.findData(unit)))
         if not self.footprint_field.hasFocus():
-            self.footprint_field.setPlainText("\n".join(" ".join(f"{v:g}" for v in foot) for foot in setup.footprint))
+            self.footprint_field.setPlainText("\n".join(" ".join(_length_text(v, unit) for v in foot)
+                                                        for foot in setup.footprint))
         self.pivot_box.setMaximum(max(1, len(setup.footprint)))
         self.pivot_box.setValue(setup.pivot + 1)
         self.pivot_box.setEnabled(bool(setup.footprint))
-        for field, value in ((self.pitch_field, setup.pitch_mm), (self.uncertainty_field, setup.uncertainty_deg)):
-            if not field.hasFocus():
-                field.setText("" if value is None else f"{value:g}")
+        if not self.pitch_field.hasFocus():
+            self.pitch_field.setText("" if setup.pitch_mm is None else _length_text(setup.pitch_mm, unit))
+        if not self.uncertainty_field.hasFocus():
+            self.uncertainty_field.setText("" if setup.uncertainty_deg is None else f"{setup.uncertainty_deg:g}")
         if not self.coverage_field.hasFocus():
             self.coverage_field.setText(f"{setup.coverage:g}")
 
@@ -297,14 +322,16 @@ class AdjustPanel(Panel):
             result = shims(fix.body, setup.footprint, normal, pivot=setup.pivot, pitch_mm=setup.pitch_mm)
         except FramewrightError as error:
             return str(error)
-        lines = []
+        lines, unit = [], setup.length_unit
         for i, (foot, thickness) in enumerate(zip(setup.footprint, result.shims_mm), start=1):
             turns = "" if result.turns is None else f", {result.turns[i - 1]:.3f} turns"
-            lines.append(f"Foot {i} at {vector(foot, 1)}: {thickness:.3f} mm{turns}")
+            at = vector(units.millimetres_to(foot, unit), _FOOT_DECIMALS[unit])
+            lines.append(f"Foot {i} at {at}: {_shim_text(thickness, unit)}{turns}")
         lines.append(f"Tilt made by the shims: {degrees(result.tilt_deg, 4)}; turn about the face normal "
                      f"{vector(normal, 3)} left for the slotted holes: {degrees(result.twist_deg, 4)}")
         if result.pivot_lifted_mm > 0:
-            lines.append(f"The pivot foot needs {result.pivot_lifted_mm:.3f} mm too: no shim can be negative.")
+            lines.append(f"The pivot foot needs {_shim_text(result.pivot_lifted_mm, unit)} too: no shim "
+                         "can be negative.")
         return "\n".join(lines)
 
     def _render_decision(self, nominal, measured, setup) -> None:
@@ -322,3 +349,18 @@ class AdjustPanel(Panel):
         self.decision_label.setText("\n".join(lines))
         closest = max(decisions, key=lambda cd: cd[0].value_deg - cd[0].tolerance_deg)
         self.decision_bar.show_decision(closest[1])
+
+
+# Feet are read to a tenth of a millimetre (or its like); shims to the unit's usual reading (0.001 mm,
+# 0.0001 in, 0.01 thou: core/units.py).
+_FOOT_DECIMALS = {"mm": 1, "in": 3, "thou": 1}
+
+
+def _shim_text(millimetres: float, unit: str) -> str:
+    return f"{fixed(float(units.millimetres_to(millimetres, unit)), units.length_unit(unit).decimals)} " \
+           f"{units.length_unit(unit).symbol}"
+
+
+def _length_text(millimetres: float, unit: str) -> str:
+    """A stored length in the shown unit, as short as reads back to it (no 3.9999999999999996)."""
+    return f"{float(units.millimetres_to(millimetres, unit)):.12g}"
