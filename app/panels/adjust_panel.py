@@ -15,13 +15,13 @@ from dataclasses import replace
 
 from PySide6.QtCore import QRectF, Qt
 from PySide6.QtGui import QColor, QPainter
-from PySide6.QtWidgets import (QFormLayout, QGroupBox, QLineEdit, QPlainTextEdit, QSizePolicy, QSpinBox, QVBoxLayout,
+from PySide6.QtWidgets import (QFormLayout, QGroupBox, QPlainTextEdit, QSizePolicy, QSpinBox, QVBoxLayout,
                                QWidget)
 
 from app.model import CHECK, MEASUREMENTS, MOUNTS, ORIENTATION, PREFERENCES, SELECTION, SESSION, Change, SessionModel
 from app.panels.base import Panel
 from app.panels.repeats_box import RepeatedMeasurementsBox
-from app.text import degrees, fixed, vector
+from app.text import angle, fixed, vector
 from app.widgets.with_tips import button, choice_box, line_field, reading_label
 from core import operations, units
 from core.check import check
@@ -108,8 +108,9 @@ class AdjustPanel(Panel):
                                       "Enter to use it.", placeholder="none")
         self.shims_label = reading_label()
 
-        self.uncertainty_field = line_field("Standard uncertainty u of the measured orientation, degrees, the same "
-                                            "about every axis (empty: none). With it the check decides by ISO "
+        self.uncertainty_field = line_field("Standard uncertainty u of the measured orientation, degrees or a number "
+                                            "with its unit mark (0.1 mrad, 20″), the same about every axis (empty: "
+                                            "none). With it the check decides by ISO "
                                             "14253-1. Enter to use it.", placeholder="none")
         self.coverage_field = line_field("Coverage factor k of the expanded uncertainty U = k·u (usually 2).")
         self.decision_label = reading_label()
@@ -151,8 +152,7 @@ class AdjustPanel(Panel):
         self.pivot_box.valueChanged.connect(self._pivot_chosen)
         self.pitch_field.returnPressed.connect(self._pitch_typed)
         self.length_box.activated.connect(lambda i: self._set(length_unit=self.length_box.itemData(i)))
-        self.uncertainty_field.returnPressed.connect(
-            lambda: self._optional_number(self.uncertainty_field, "uncertainty_deg"))
+        self.uncertainty_field.returnPressed.connect(self._uncertainty_typed)
         self.coverage_field.returnPressed.connect(self._coverage_typed)
         self.render()
 
@@ -214,15 +214,6 @@ class AdjustPanel(Panel):
         if not self._rendering and self.model.check.adjustment.footprint:
             self._set(pivot=value - 1)
 
-    def _optional_number(self, field: QLineEdit, key: str) -> None:
-        text = field.text().strip()
-        try:
-            value = None if text in ("", "none") else parse_number(text)
-        except ValueError as error:
-            self.message.problem(f"{error} (kept the last good value)")
-            return
-        self._set(**{key: value})
-
     def _length(self) -> str:
         return self.model.check.adjustment.length_unit
 
@@ -234,6 +225,16 @@ class AdjustPanel(Panel):
             self.message.problem(f"{error} (kept the last good value)")
             return
         self._set(pitch_mm=value)
+
+    def _uncertainty_typed(self) -> None:
+        """Degrees, or a number with its unit mark as the instrument's certificate states it (0.1 mrad, 20″)."""
+        text = self.uncertainty_field.text().strip()
+        try:
+            value = None if text in ("", "none") else units.read_angle(text, "deg").degrees
+        except ValueError as error:
+            self.message.problem(f"{error} (kept the last good value)")
+            return
+        self._set(uncertainty_deg=value)
 
     def _coverage_typed(self) -> None:
         try:
@@ -285,20 +286,21 @@ class AdjustPanel(Panel):
         mounts = self.model.mounts
         nominal, measured = mounts[nominal_index].orientation, mounts[measured_index].orientation
         setup = self.model.check.adjustment
+        unit = self.model.preferences.angle_units
         fix = correction(nominal, measured)
         if fix.axis_body is None:
             self.correction_label.setText("No correction needed: the measured orientation is the nominal.")
         else:
             self.correction_label.setText(
-                f"{degrees(fix.angle_deg, 4)} about {vector(fix.axis_body)} in body axes\n"
-                f"{degrees(fix.angle_deg, 4)} about {vector(fix.axis_reference)} in reference axes\n"
-                f"Small turns about body X, Y, Z: {vector(fix.small_angles_body_deg)}°")
-        self.angles_label.setText(self._angles_text(fix, setup))
-        self.shims_label.setText(self._shims_text(fix, setup))
-        self._render_decision(nominal, measured, setup)
+                f"{_angle(fix.angle_deg, unit)} about {vector(fix.axis_body)} in body axes\n"
+                f"{_angle(fix.angle_deg, unit)} about {vector(fix.axis_reference)} in reference axes\n"
+                f"Small turns about body X, Y, Z: {_small_turns(fix.small_angles_body_deg, unit)}")
+        self.angles_label.setText(self._angles_text(fix, setup, unit))
+        self.shims_label.setText(self._shims_text(fix, setup, unit))
+        self._render_decision(nominal, measured, setup, unit)
 
     @staticmethod
-    def _angles_text(fix, setup) -> str:
+    def _angles_text(fix, setup, unit: str) -> str:
         if not setup.axes:
             return "Type the axes the mount turns about to get the angles for each."
         try:
@@ -306,15 +308,15 @@ class AdjustPanel(Panel):
                                        read_axes(setup.axes))
         except FramewrightError as error:
             return str(error)
-        lines = [f"{i}. about {vector(axis, 3)}: {degrees(angle, 4)}"
+        lines = [f"{i}. about {vector(axis, 3)}: {_angle(angle, unit)}"
                  for i, (axis, angle) in enumerate(zip(result.axes, result.angles_deg), start=1)]
         lines.append("These reach the correction exactly." if result.exact else
-                     f"These axes cannot reach the correction: {degrees(result.residual_deg, 4)} remains "
+                     f"These axes cannot reach the correction: {_angle(result.residual_deg, unit)} remains "
                      "(the closest they can do).")
         return "\n".join(lines)
 
     @staticmethod
-    def _shims_text(fix, setup) -> str:
+    def _shims_text(fix, setup, unit: str) -> str:
         if not setup.footprint:
             return "Type the feet, or take the corners of the part's face, to get the shims."
         try:
@@ -322,19 +324,19 @@ class AdjustPanel(Panel):
             result = shims(fix.body, setup.footprint, normal, pivot=setup.pivot, pitch_mm=setup.pitch_mm)
         except FramewrightError as error:
             return str(error)
-        lines, unit = [], setup.length_unit
+        lines, length = [], setup.length_unit
         for i, (foot, thickness) in enumerate(zip(setup.footprint, result.shims_mm), start=1):
             turns = "" if result.turns is None else f", {result.turns[i - 1]:.3f} turns"
-            at = vector(units.millimetres_to(foot, unit), _FOOT_DECIMALS[unit])
-            lines.append(f"Foot {i} at {at}: {_shim_text(thickness, unit)}{turns}")
-        lines.append(f"Tilt made by the shims: {degrees(result.tilt_deg, 4)}; turn about the face normal "
-                     f"{vector(normal, 3)} left for the slotted holes: {degrees(result.twist_deg, 4)}")
+            at = vector(units.millimetres_to(foot, length), _FOOT_DECIMALS[length])
+            lines.append(f"Foot {i} at {at}: {_shim_text(thickness, length)}{turns}")
+        lines.append(f"Tilt made by the shims: {_angle(result.tilt_deg, unit)}; turn about the face normal "
+                     f"{vector(normal, 3)} left for the slotted holes: {_angle(result.twist_deg, unit)}")
         if result.pivot_lifted_mm > 0:
-            lines.append(f"The pivot foot needs {_shim_text(result.pivot_lifted_mm, unit)} too: no shim "
+            lines.append(f"The pivot foot needs {_shim_text(result.pivot_lifted_mm, length)} too: no shim "
                          "can be negative.")
         return "\n".join(lines)
 
-    def _render_decision(self, nominal, measured, setup) -> None:
+    def _render_decision(self, nominal, measured, setup, unit: str) -> None:
         result = check(nominal, measured, self.model.check.settings)
         try:
             decisions, overall = decide_check(result, setup.uncertainty_deg, setup.coverage)
@@ -344,11 +346,25 @@ class AdjustPanel(Panel):
             return
         words = {CONFORMS: "Conforms", CANNOT_DECIDE: "Cannot decide", DOES_NOT_CONFORM: "Does not conform"}
         lines = [f"{words[overall]}"]
-        lines += [f"• {c.name} {degrees(c.value_deg, 4)} against {degrees(c.tolerance_deg, 4)}: {d.words()}"
+        lines += [f"• {c.name} {_angle(c.value_deg, unit)} against {_angle(c.tolerance_deg, unit)}: {d.words()}"
                   for c, d in decisions]
         self.decision_label.setText("\n".join(lines))
         closest = max(decisions, key=lambda cd: cd[0].value_deg - cd[0].tolerance_deg)
         self.decision_bar.show_decision(closest[1])
+
+
+def _angle(value_deg: float, unit: str) -> str:
+    """An angle in the display unit; degrees to 0.0001° here, finer than a check's figures, since a turn
+    of a screw or a shim is set from it."""
+    return angle(value_deg, unit, 4 if unit == "deg" else None)
+
+
+def _small_turns(values_deg, unit: str) -> str:
+    if unit in ("deg", "dms"):
+        return vector(values_deg) + "°"
+    found = units.angle_unit(unit)
+    return vector(units.degrees_to(values_deg, unit), found.decimals) + ("" if found.symbol in "′″" else " ") \
+        + found.symbol
 
 
 # Feet are read to a tenth of a millimetre (or its like); shims to the unit's usual reading (0.001 mm,

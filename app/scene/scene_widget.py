@@ -69,6 +69,7 @@ class SceneWidget(QtWidgets.QWidget):
         self._tracked_body = FACE_NORMALS["+Z"].copy()
         self._sweep_t = 1.0
         self._representation = "axis-angle"
+        self._angle_unit = "deg"          # the display unit the overlay writes angles in
         self._sequence, self._intrinsic = "ZYX", True
         self._preset = describe.DEFAULT_PRESET
 
@@ -212,6 +213,15 @@ class SceneWidget(QtWidgets.QWidget):
             self._intrinsic = bool(intrinsic)
         self.toolbar.select(self.toolbar.representation, kind)
         self._refresh()
+
+    def set_angle_unit(self, unit: str) -> None:
+        """The display unit of the overlay's angles (a key of core/units.ANGLE_UNITS)."""
+        if unit != self._angle_unit:
+            self._angle_unit = unit
+            self._refresh()
+
+    def angle_unit(self) -> str:
+        return self._angle_unit
 
     def overlay_representation(self) -> tuple[str, str, bool]:
         """(kind, sequence, intrinsic) the overlay writes the orientation in."""
@@ -406,7 +416,7 @@ class SceneWidget(QtWidgets.QWidget):
     def _update_panels(self, angle, ghost_shown):
         text = palette.LABEL_TEXT_RGB
         lines = overlay_text.orientation_panel(self._orientation, self._representation, self._sequence,
-                                               self._intrinsic, self._preset)
+                                               self._intrinsic, self._preset, self._angle_unit)
         self.labels.set_panel("orientation", "top-left", [(s, text) for s in lines])
         state = []
         if self._sweep_t < 1.0 and angle > 0:
