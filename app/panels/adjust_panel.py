@@ -74,6 +74,7 @@ class AdjustPanel(Panel):
 
     def __init__(self, model: SessionModel, parent=None):
         super().__init__(model, parent)
+        self._shown: dict[str, str] = {}        # the feet and pitch text as last rendered
 
         self.correction_label = reading_label()
         self.axes_field = line_field("The mount's adjustment axes in the order they are turned, separated by ';': a "
@@ -182,6 +183,8 @@ class AdjustPanel(Panel):
 
     def _feet_typed(self) -> None:
         text = self.footprint_field.toPlainText()
+        if text == self._shown.get("feet"):
+            return          # the feet as shown, untouched: the stored ones stay exactly as they are
         try:
             feet = units.to_millimetres(read_footprint(text), self._length()) if text.strip() else ()
             if len(feet):
@@ -219,6 +222,8 @@ class AdjustPanel(Panel):
 
     def _pitch_typed(self) -> None:
         text = self.pitch_field.text().strip()
+        if text == self._shown.get("pitch"):
+            return
         try:
             value = None if text in ("", "none") else float(units.to_millimetres(parse_number(text), self._length()))
         except ValueError as error:
@@ -263,13 +268,14 @@ class AdjustPanel(Panel):
         unit = setup.length_unit
         self.length_box.setCurrentIndex(max(0, self.length_box.findData(unit)))
         if not self.footprint_field.hasFocus():
-            self.footprint_field.setPlainText("\n".join(" ".join(_length_text(v, unit) for v in foot)
-                                                        for foot in setup.footprint))
+            self._shown["feet"] = "\n".join(" ".join(_length_text(v, unit) for v in foot) for foot in setup.footprint)
+            self.footprint_field.setPlainText(self._shown["feet"])
         self.pivot_box.setMaximum(max(1, len(setup.footprint)))
         self.pivot_box.setValue(setup.pivot + 1)
         self.pivot_box.setEnabled(bool(setup.footprint))
         if not self.pitch_field.hasFocus():
-            self.pitch_field.setText("" if setup.pitch_mm is None else _length_text(setup.pitch_mm, unit))
+            self._shown["pitch"] = "" if setup.pitch_mm is None else _length_text(setup.pitch_mm, unit)
+            self.pitch_field.setText(self._shown["pitch"])
         if not self.uncertainty_field.hasFocus():
             self.uncertainty_field.setText("" if setup.uncertainty_deg is None else f"{setup.uncertainty_deg:g}")
         if not self.coverage_field.hasFocus():
@@ -378,5 +384,6 @@ def _shim_text(millimetres: float, unit: str) -> str:
 
 
 def _length_text(millimetres: float, unit: str) -> str:
-    """A stored length in the shown unit, as short as reads back to it (no 3.9999999999999996)."""
-    return f"{float(units.millimetres_to(millimetres, unit)):.12g}"
+    """A stored length in the shown unit to six significant digits (9.84252 in for 250 mm): what a person
+    reads and types. Text left as shown is not read back, so the stored mm are never rounded through it."""
+    return f"{float(units.millimetres_to(millimetres, unit)):.6g}"

@@ -103,6 +103,7 @@ class GimbalMeter(QGroupBox):
         font.setPointSizeF(font.pointSizeF() * 1.4)
         font.setBold(True)
         self.margin_label.setFont(font)
+        self.margin_label.setWordWrap(True)    # '1527 mrad from lock' breaks before it widens the editors' row
         self.band_label = QLabel()
         self.band_label.setWordWrap(True)  # so the meter can be narrow on a laptop
         self.bar = MarginBar()
@@ -169,7 +170,7 @@ class GimbalMeter(QGroupBox):
             self.switch_button.setEnabled(False)
         else:
             self.best_label.setText(f"Best-conditioned here: {spelled_sequence(best.sequence, intr)} "
-                                    f"({best.margin_deg:.3g}° from lock).")
+                                    f"({_margin_words(best.margin_deg, prefs.angle_units)} from lock).")
             self.switch_button.setText(f"Show the angles in {'-'.join(best.sequence)}")
             self.switch_button.setEnabled(True)
 
@@ -182,5 +183,7 @@ def _margin_words(margin_deg: float, unit: str) -> str:
     """The distance from lock in the display unit, to three significant digits (an exponent when tiny)."""
     found = units.angle_unit(unit)
     value = float(units.degrees_to(margin_deg, unit)) if unit != "deg" else margin_deg
-    shown = f"{value:.3g}" if margin_deg >= 0.01 or margin_deg == 0 else f"{value:.2e}"
+    # three significant digits, whole numbers past a thousand (1483 mrad, not 1.48e+03), an exponent when tiny
+    shown = f"{value:.0f}" if value >= 1000 else f"{value:.3g}" if margin_deg >= 0.01 or margin_deg == 0 \
+        else f"{value:.2e}"
     return shown + "°" if unit == "deg" else shown + ("" if found.symbol in "′″" else " ") + found.symbol

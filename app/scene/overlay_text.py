@@ -90,6 +90,16 @@ def orientation_panel(orientation, kind, sequence, intrinsic, preset, angle_unit
     return lines
 
 
+def short_angle(value_deg: float, unit: str = "deg") -> str:
+    """A label's angle, short: '30.6°' to a tenth of a degree, or four digits in another unit ('534.3 mrad')."""
+    if unit == "deg":
+        return f"{value_deg:.1f}\u00b0"
+    found = units.angle_unit(unit)
+    value = float(units.degrees_to(value_deg, unit))
+    shown = f"{value:.0f}" if abs(value) >= 1000 else f"{value:.4g}"
+    return shown + found.symbol if found.symbol in "\u2032\u2033" else f"{shown} {found.symbol}"
+
+
 def sweep_line(t, angle_deg) -> str:
     return f"sweep t = {t:.2f}: {t * angle_deg:.1f}\u00b0 of {angle_deg:.1f}\u00b0 about n"
 

@@ -390,10 +390,11 @@ class SceneWidget(QtWidgets.QWidget):
         lab.set_label("n", pos=a.get("n", np.zeros(3)), text="n", rgb=palette.ROTATION_AXIS_RGB, bold=True,
                       visible=has_axis)
         swept = self._sweep_t * angle
-        phi_text = f"\u03c6 {swept:.1f}\u00b0" if self._sweep_t == 1.0 else f"\u03c6 {swept:.1f}\u00b0 of {angle:.1f}\u00b0"
+        short = lambda deg: overlay_text.short_angle(deg, self._angle_unit)      # noqa: E731
+        phi_text = f"\u03c6 {short(swept)}" if self._sweep_t == 1.0 else f"\u03c6 {short(swept)} of {short(angle)}"
         lab.set_label("phi", pos=a.get("phi", np.zeros(3)), text=phi_text, rgb=palette.ROTATION_AXIS_RGB,
                       bold=True, visible=has_axis and self.rotation.cone_visible and swept > 0)
-        lab.set_label("alpha", pos=a.get("alpha", np.zeros(3)), text=f"\u03b1 {self.rotation.alpha_deg:.1f}\u00b0",
+        lab.set_label("alpha", pos=a.get("alpha", np.zeros(3)), text=f"\u03b1 {short(self.rotation.alpha_deg)}",
                       rgb=palette.ALPHA_RGB, visible=has_axis)
         lab.set_label("r", pos=a["r"], text=f"r ({overlay_text.tracked_words(self._tracked_label(), self._tracked_body)})",
                       rgb=palette.TRACKED_RGB, bold=True, visible=True)

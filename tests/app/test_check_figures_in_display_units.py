@@ -68,3 +68,29 @@ def test_the_meter_and_the_overlay_write_angles_in_the_display_unit(window):
     shown = "\n".join(overlay_text.orientation_panel(orientation, "axis-angle", "ZYX", True,
                                                      window.scene.frame_preset(), "mrad"))
     assert f"{angle_mrad:.3f} mrad" in shown
+
+
+def test_the_scenes_angle_labels_follow_the_display_unit(window):
+    from core.orientation import Orientation
+    window.model.set_orientation(Orientation.from_axis_angle((0, 0, 1), 30.0))
+    assert window.scene.labels.labels["phi"].text == "\u03c6 30.0\u00b0"
+    window.model.set_preferences(angle_units="mrad")
+    assert window.scene.labels.labels["phi"].text == f"\u03c6 {math.radians(30.0) * 1000:.4g} mrad"   # 523.6
+    window.model.set_preferences(angle_units="arcmin")
+    assert window.scene.labels.labels["phi"].text == "\u03c6 1800\u2032"                              # 30 · 60
+
+
+@pytest.mark.parametrize("unit", ["deg", "rad", "mrad", "arcmin", "arcsec", "gon", "mil"])
+def test_at_1280_the_editors_and_the_meter_keep_one_row_in_every_unit(qtbot, window, unit):
+    # the demo's first mount is 87.5° from lock in its best sequence: the meter's longest figure
+    # (1527 mrad, 5250′) must break inside the meter rather than push it onto a second row
+    from app.editor_rows import EditorRows
+    window.resize(1280, 800)
+    window.model.select(0)
+    window.model.set_preferences(angle_units=unit)
+    layout = window.meter.parentWidget().layout()
+    assert isinstance(layout, EditorRows)
+    qtbot.waitUntil(lambda: layout.geometry().width() > 1200, timeout=2000)
+    rows = layout.rows(layout.geometry().width())
+    assert len(rows) == 1, [[item.widget().__class__.__name__ for item in row] for row in rows]
+    assert window.meter.margin_label.text().endswith("from lock")

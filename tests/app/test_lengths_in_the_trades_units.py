@@ -104,3 +104,14 @@ def test_the_adjust_length_unit_is_saved_only_when_not_mm(qtbot, panel, model):
     assert model.check.adjustment.length_unit == "in"
     model.undo_stack.undo()
     assert model.check.adjustment.length_unit == "mm" and panel.length_box.currentData() == "mm"
+
+
+def test_feet_shown_in_inches_and_used_untouched_stay_exactly_the_stored_mm(qtbot, panel, model):
+    qtbot.mouseClick(panel.corners_button, Qt.MouseButton.LeftButton)       # the part's corners, in mm
+    feet = model.check.adjustment.footprint
+    _choose(qtbot, panel.length_box, "in")
+    # 300, 40 and 100 mm over 25.4 mm to the inch, to six significant digits
+    assert panel.footprint_field.toPlainText().splitlines()[0] == "-11.811 1.5748 3.93701"
+    steps = model.undo_stack.count()
+    qtbot.mouseClick(panel.use_feet_button, Qt.MouseButton.LeftButton)     # nothing typed: nothing changes
+    assert model.check.adjustment.footprint == feet and model.undo_stack.count() == steps
