@@ -335,8 +335,9 @@ class AdjustPanel(Panel):
             turns = "" if result.turns is None else f", {result.turns[i - 1]:.3f} turns"
             at = vector(units.millimetres_to(foot, length), _FOOT_DECIMALS[length])
             lines.append(f"Foot {i} at {at}: {_shim_text(thickness, length)}{turns}")
-        lines.append(f"Tilt made by the shims: {_angle(result.tilt_deg, unit)}; turn about the face normal "
-                     f"{vector(normal, 3)} left for the slotted holes: {_angle(result.twist_deg, unit)}")
+        slope = units.format_slope(result.tilt_deg, "mm/m" if length in ("mm", "m") else "in/ft")
+        lines.append(f"Tilt made by the shims: {_angle(result.tilt_deg, unit)} ({slope}); turn about the face "
+                     f"normal {vector(normal, 3)} left for the slotted holes: {_angle(result.twist_deg, unit)}")
         if result.pivot_lifted_mm > 0:
             lines.append(f"The pivot foot needs {_shim_text(result.pivot_lifted_mm, length)} too: no shim "
                          "can be negative.")

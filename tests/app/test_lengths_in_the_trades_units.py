@@ -86,6 +86,8 @@ def test_feet_typed_in_inches_get_their_shims_in_inches_and_are_kept_in_mm(qtbot
     lift_in = 200 * math.sin(math.radians(TURN_DEG)) / INCH_MM
     text = panel.shims_label.text()
     assert f"Foot 3 at (−11.811, −1.575, −3.937): {lift_in:.4f} in" in text
+    # the tilt as a slope in inches per foot: tan(0.5°) · 12 (the slope's definition)
+    assert f"Tilt made by the shims: 0.5000° ({math.tan(math.radians(TURN_DEG)) * 12:.4f} in/ft)" in text
     type_and_enter(qtbot, panel.pitch_field, "0.05")              # 20 threads per inch
     assert model.check.adjustment.pitch_mm == pytest.approx(1.27, rel=1e-15)
     assert f"{lift_in / 0.05:.3f} turns" in panel.shims_label.text()
