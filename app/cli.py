@@ -805,6 +805,7 @@ def run_verify_report(args, stdin, stdout) -> int:
 
     from core import inspection_record as records
     from core.record_files import first_printed_difference, read_report
+    from core.record_values import expected_figures
     from core.session import load_session_and_bytes
 
     try:
@@ -819,8 +820,12 @@ def run_verify_report(args, stdin, stdout) -> int:
         stdout.write(f"NOT the record of this session: {printable(error)}\n")
         return EXIT_OUTSIDE
     embedded = {k: v for k, v in data.items() if k != "record_sha256"}
+    try:
+        expected = expected_figures(record.numbers()["figures"], data.get("version"))
+    except FramewrightError as error:
+        raise _Refused(f"{printable(args.report)}: {error}") from None
     problems = []
-    difference = records.first_difference(data["figures"], record.numbers()["figures"])
+    difference = records.first_difference(data["figures"], expected)
     if difference:
         problems.append(f"a figure differs from the session: {difference}")
     if printed is not None:

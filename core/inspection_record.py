@@ -19,11 +19,11 @@ from __future__ import annotations
 
 import numpy as np
 
-from core import describe, level, sequences, units
+from core import describe, level, representations, sequences, units
 from core.check import check, check_position
 from core.correction import adjustment_angles, correction, read_axes
 from core.decision import decide_check
-from core.errors import FramewrightError
+from core.errors import FramewrightError, InvalidInputError
 from core.orientation import Orientation
 from core.session import SavedCheck, Session
 from core.shims import outward_normal, shims
@@ -103,6 +103,7 @@ class _Builder:
         items += [self.fig(f"{key}.angle", "Rotation angle about that axis (right-hand rule)", [angle], DEGREES),
                   self.fig(f"{key}.rotation_vector", "Rotation vector (x, y, z) = angle × axis",
                            o.as_rotation_vector(), DEGREES),
+                  *self.parameter_items(key, o),
                   self.fig(f"{key}.angles", f"Angles {sequences.spelled_sequence(seq, intrinsic)} {kind}{named}",
                            angles.angles, DEGREES),
                   self.fig(f"{key}.gimbal_margin", f"Gimbal margin of {seq} {kind}"
@@ -121,6 +122,17 @@ class _Builder:
         if mount.notes.strip():
             items.append(f"Notes: {' '.join(mount.notes.split())}")
         return items
+
+    def parameter_items(self, key: str, o: Orientation) -> list:
+        """The Gibbs vector and the modified Rodrigues parameters (pure numbers; a half turn has no Gibbs
+        vector, so a line says so in its place)."""
+        try:
+            gibbs = self.fig(f"{key}.gibbs", "Gibbs vector (x, y, z) = axis × tan(angle/2), the classical "
+                             "Rodrigues parameters", o.as_gibbs(), DIMENSIONLESS)
+        except InvalidInputError:
+            gibbs = f"{representations.GIBBS.title}: {representations.GIBBS.half_turn_words}."
+        return [gibbs, self.fig(f"{key}.mrp", "Modified Rodrigues parameters (x, y, z) = axis × tan(angle/4), "
+                                "the set of length at most 1", o.as_mrp(), DIMENSIONLESS)]
 
     def level_table(self, key: str, o: Orientation) -> Table:
         down = describe.gravity_direction(self.session.reference_frame)

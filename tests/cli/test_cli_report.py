@@ -210,3 +210,39 @@ def test_the_time_to_write_a_session_report_of_every_demo_mount(tmp_path, capsys
         load_session_and_bytes(DEMO)[0].mounts, start=1))
     with capsys.disabled():
         print(f"\n[report] session report of the demo's 5 mounts (no display): {seconds:.2f} s, {pages} pages")
+
+
+def _as_version(text, version, drop_ends=()):
+    """The HTML report as a report of record `version` would be: the figures ending in `drop_ends` taken
+    out of its JSON block and its page, the block's own hash made again."""
+    start = text.index('id="framewright-record">') + len('id="framewright-record">')
+    end = text.index("</script>", start)
+    data = json.loads(text[start:end])
+    data["figures"] = [f for f in data["figures"] if not f["key"].endswith(drop_ends)]
+    data["version"] = version
+    data.pop("record_sha256")
+    data["record_sha256"] = records.numbers_sha256(data)
+    page = re.sub(r'<span data-figure="[^"]*\.(?:gibbs|mrp)" data-index="\d">[^<]*</span>', "",
+                  text[:start]) if drop_ends else text[:start]
+    return page + json.dumps(data) + text[end:]
+
+
+def test_a_report_written_before_the_gibbs_and_mrp_figures_still_verifies(written, tmp_path):
+    text = written["html"][0].read_text()
+    assert '.gibbs" data-index="0"' in text and '.mrp" data-index="0"' in text
+    old = tmp_path / "old.html"
+    old.write_text(_as_version(text, 1, (".gibbs", ".mrp")))
+    result = framewright("verify-report", str(old), str(DEMO_CHECK))
+    assert result.returncode == 0 and "figures are this session's numbers" in result.stdout, result.stdout
+    # the same page claiming the present version is missing figures
+    claimed = tmp_path / "claimed.html"
+    claimed.write_text(_as_version(text, 2, (".gibbs", ".mrp")))
+    result = framewright("verify-report", str(claimed), str(DEMO_CHECK))
+    assert result.returncode == 1 and "gibbs" in result.stdout and "missing from the report" in result.stdout
+
+
+def test_a_report_of_a_newer_record_version_is_refused_by_name(written, tmp_path):
+    newer = tmp_path / "newer.html"
+    newer.write_text(_as_version(written["html"][0].read_text(), 3))
+    line = _refused(framewright("verify-report", str(newer), str(DEMO_CHECK)), "framewright verify-report: ")
+    assert "record version 3" in line and "newer Framewright" in line
