@@ -285,18 +285,31 @@ class _Builder:
         return items
 
     # -- fit residuals --------------------------------------------------------------------------------
-    def fit_items(self, key: str, fit, rows=None, unit: str = "mm") -> list:
+    def fit_items(self, key: str, fit, rows=None, unit: str = "mm", source: str | None = None) -> list:
         """The residual table of a point fit (core/fit.PointFit); `rows` are the 1-based row numbers."""
         numbers = rows if rows is not None else list(range(1, len(fit.distances) + 1))
+        head = [f"The measured orientation is the best fit of {len(fit.distances)} point pairs "
+                "(measured = R · nominal + t, nominal in body axes, measured in reference axes); a residual is "
+                "measured − fitted."]
+        if source is not None:
+            head.insert(0, self.words(f"{key}.fit_points", "Points file", source))
+        if fit.flag_threshold is not None:
+            head.append(self.fig(f"{key}.fit_flag_threshold", f"A point is flagged above ({fit.flag_rule})",
+                                 [fit.flag_threshold], unit))
         flagged = set(fit.flagged)
         table_rows = []
         printed = self.table([*residual, distance] for residual, distance in zip(fit.residuals, fit.distances))
         for i, values in enumerate(printed):
             mark = " (flagged)" if i in flagged else " (worst)" if i == fit.worst_index else ""
             table_rows.append(Figure(f"{key}.fit_residual[{i}]", f"row {numbers[i]}{mark}", values, unit))
-        return [self.fig(f"{key}.fit_rms", "RMS residual of the point fit", [fit.rms], unit),
+        return [*head, self.fig(f"{key}.fit_rms", "RMS residual of the point fit", [fit.rms], unit),
                 Table(f"Residuals of the point fit (measured − fitted, reference axes), {unit}",
                       ("point", "x", "y", "z", "distance"), tuple(table_rows))]
+
+
+# A fit's residuals are printed only for the orientation they belong to: the measured mount must be the
+# fit itself (a session file keeps the quaternion to the last digit, so a saved fit is far closer).
+FIT_AGREEMENT_DEG = 1e-6
 
 
 def _conventions(session: Session, digits: int, shown: ReportUnits) -> tuple:
@@ -337,8 +350,14 @@ def check_record(session: Session, check_name: str, session_name: str, session_s
                 Section("Nominal", tuple(_clean(b.mount_items(nominal_i, "Nominal ")))),
                 Section("Measured", tuple(_clean(b.mount_items(measured_i, "Measured "))))]
     if fit is not None:
-        sections.append(Section("The measured orientation's point fit", tuple(b.fit_items(f"check[{index}]",
-                                                                                            fit, fit_rows, fit_unit))))
+        apart = fit.orientation.angle_to(session.mounts[measured_i].orientation)
+        if apart > FIT_AGREEMENT_DEG:
+            raise RecordError(f"the measured mount {saved.measured!r} is not the fit of "
+                              f"{fit_source or 'the points'}: they are {apart:.6g}° apart (at most "
+                              f"{FIT_AGREEMENT_DEG:g}° expected), so the residuals would describe another "
+                              "orientation")
+        sections.append(Section("The measured orientation's point fit", tuple(b.fit_items(
+            f"check[{index}]", fit, fit_rows, fit_unit, fit_source))))
     return Record(f"Inspection record: {session.mounts[measured_i].name}", "check", saved.name, session_name,
                   session_sha256, b.preset.title, b.digits, _conventions(session, b.digits, shown), tuple(sections),
                   verdict, fit_source=fit_source, units=shown)
