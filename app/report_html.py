@@ -44,7 +44,9 @@ def _figure_rows(figures: list, header: bool = True) -> str:
 
 
 def _table(table: Table) -> str:
-    head = "".join(f'<th align="left">{_e(c)}</th>' for c in table.columns) + '<th align="left">unit</th>'
+    # the numbers are right-aligned, so their headings are too: each heading stands over its own column
+    head = "".join(f'<th align="{"left" if i == 0 else "right"}">{_e(c)}</th>' for i, c in enumerate(table.columns))
+    head += '<th align="left">unit</th>'
     body = ""
     for row in table.rows:
         cells = "".join(f'<td align="right"><span data-figure="{_e(row.key)}" data-index="{i}">{_e(v)}</span></td>'

@@ -246,3 +246,13 @@ def test_a_report_of_a_newer_record_version_is_refused_by_name(written, tmp_path
     newer.write_text(_as_version(written["html"][0].read_text(), 3))
     line = _refused(framewright("verify-report", str(newer), str(DEMO_CHECK)), "framewright verify-report: ")
     assert "record version 3" in line and "newer Framewright" in line
+
+
+def test_a_table_heads_its_right_aligned_numbers_with_right_aligned_headings(written):
+    # A margin of -2 printed flush right under a left-aligned "margin" heading reads as the unit's column.
+    text = written["html"][0].read_text()
+    head = text[text.index('<tr><th align="left">figure</th><th align="right">value</th>'):]
+    head = head[:head.index("</tr>")]
+    assert '<th align="right">tolerance</th><th align="right">margin</th><th align="left">unit</th>' in head
+    level = text[text.index('<th align="left">face</th>'):]
+    assert level.startswith('<th align="left">face</th><th align="right">tilt from level</th>')
