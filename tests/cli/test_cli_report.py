@@ -74,6 +74,7 @@ def test_the_pdf_text_holds_every_field_every_figure_and_the_caution_and_every_p
     for number, page in enumerate(pages, start=1):
         assert f"page {number} of {len(pages)}" in page
         assert record.session_sha256 in page
+        assert f"Record SHA-256 {record.sha256()}" in page
     # the numbers, in the document's XMP metadata, are the record's own
     assert read_pdf_report(written["pdf"][0].read_bytes(), "pdf") == record.embedded()
     assert reader.metadata.title == record.title
