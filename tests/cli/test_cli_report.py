@@ -257,3 +257,12 @@ def test_a_table_heads_its_right_aligned_numbers_with_right_aligned_headings(wri
     assert '<th align="right">tolerance</th><th align="right">margin</th><th align="left">unit</th>' in head
     level = text[text.index('<th align="left">face</th>'):]
     assert level.startswith('<th align="left">face</th><th align="right">tilt from level</th>')
+
+
+def test_the_html_printed_from_a_browser_numbers_its_pages_and_carries_both_hashes(written):
+    text = written["html"][0].read_text()
+    style = text[text.index("<style>"):text.index("</style>")]
+    record = _record()
+    page = style[style.index("@page"):]
+    assert 'content: "page " counter(page) " of " counter(pages)' in page
+    assert f"Session file SHA-256 {record.session_sha256}" in page and f"Record SHA-256 {record.sha256()}" in page
