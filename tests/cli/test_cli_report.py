@@ -266,3 +266,15 @@ def test_the_html_printed_from_a_browser_numbers_its_pages_and_carries_both_hash
     page = style[style.index("@page"):]
     assert 'content: "page " counter(page) " of " counter(pages)' in page
     assert f"Session file SHA-256 {record.session_sha256}" in page and f"Record SHA-256 {record.sha256()}" in page
+
+
+def test_the_date_and_time_carry_the_time_zone(tmp_path, monkeypatch):
+    # India Standard Time is UTC+05:30 with no daylight saving (a handbook fact): a half-hour offset that a
+    # report printing only whole hours or only UTC would get wrong.
+    monkeypatch.setenv("TZ", "Asia/Kolkata")
+    out = tmp_path / "zoned.html"
+    result = framewright("report", str(DEMO_CHECK), "--check", CHECK, "-o", str(out))
+    assert result.returncode == 0, result.stderr
+    row = re.search(r"<b>Date and time</b></td><td>([^<]*)</td>", out.read_text())
+    assert row is not None
+    assert re.fullmatch(r"\d{4}-\d\d-\d\d \d\d:\d\d:\d\d \+05:30 \(IST\)", row.group(1)), row.group(1)
