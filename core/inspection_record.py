@@ -124,15 +124,21 @@ class _Builder:
         return items
 
     def parameter_items(self, key: str, o: Orientation) -> list:
-        """The Gibbs vector and the modified Rodrigues parameters (pure numbers; a half turn has no Gibbs
-        vector, so a line says so in its place)."""
-        try:
-            gibbs = self.fig(f"{key}.gibbs", "Gibbs vector (x, y, z) = axis × tan(angle/2), the classical "
-                             "Rodrigues parameters", o.as_gibbs(), DIMENSIONLESS)
-        except InvalidInputError:
-            gibbs = f"{representations.GIBBS.title}: {representations.GIBBS.half_turn_words}."
-        return [gibbs, self.fig(f"{key}.mrp", "Modified Rodrigues parameters (x, y, z) = axis × tan(angle/4), "
-                                "the set of length at most 1", o.as_mrp(), DIMENSIONLESS)]
+        """Every pure-number vector of the registry (the Gibbs vector, the modified Rodrigues parameters,
+        and any added later), with its formula; where one does not exist (the Gibbs vector at a half turn)
+        a line says so in its place."""
+        items = []
+        for r in representations.VECTORS:
+            if r.units != representations.PURE:
+                continue                     # the rotation vector is printed in angle units above
+            label = f"{r.caption or r.title} (x, y, z) = {r.formula}, n the axis and φ the angle"
+            if r is representations.MRP:
+                label += ", the set of length at most 1"
+            try:
+                items.append(self.fig(f"{key}.{r.key}", label, r.values(o), DIMENSIONLESS))
+            except InvalidInputError:
+                items.append(f"{r.caption or r.title}: {r.half_turn_words or 'does not exist here'}.")
+        return items
 
     def level_table(self, key: str, o: Orientation) -> Table:
         down = describe.gravity_direction(self.session.reference_frame)

@@ -47,9 +47,25 @@ def test_every_mount_prints_its_gibbs_vector_and_mrp_as_scipy_gives_them():
         checked.append(i)
     assert len(checked) == len(SESSION.mounts) - 1
     label = figures["mount[0].gibbs"].label
-    assert "tan(angle/2)" in label and "Gibbs" in label
+    assert "tan(φ/2)" in label and "Gibbs" in label and "n the axis and φ the angle" in label
     label = figures["mount[0].mrp"].label
-    assert "tan(angle/4)" in label and "at most 1" in label
+    assert "tan(φ/4)" in label and "at most 1" in label
+
+
+# Where each representation of the registry is printed in a mount's part of the record.
+SPECIAL_KEYS = {"matrix": ("matrix",), "quaternion": ("quaternion_wxyz",), "axis_angle": ("axis", "angle"),
+                "angles": ("angles",)}
+
+
+def test_every_representation_of_the_registry_is_in_the_record():
+    # A representation added to core/representations.py without a line in the record fails here.
+    from core import representations
+
+    record = records.session_record(SESSION, "a", "0" * 64)
+    keys = {f.key for f in record.figures()}
+    for r in representations.ALL:
+        for name in SPECIAL_KEYS.get(r.key, (r.key,)):
+            assert f"mount[0].{name}" in keys, r.key
 
 
 def test_a_check_record_prints_them_for_the_nominal_and_the_measured():
@@ -69,7 +85,7 @@ def test_a_half_turn_has_no_gibbs_vector_and_the_record_says_so():
     assert "mount[0].gibbs" not in figures
     assert figures["mount[0].mrp"].values == ("0", "0", "1")      # n tan(45 deg) = n (from the formula)
     lines = [item for item in record.sections[0].items if isinstance(item, str)]
-    assert any(line.startswith("Gibbs vector") and "infinite at a half turn" in line for line in lines), lines
+    assert any(line.startswith("Gibbs vector (classical Rodrigues parameters): ") and "infinite at a half turn" in line for line in lines), lines
 
 
 def test_a_version_1_report_is_compared_without_the_figures_added_since():
