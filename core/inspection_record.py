@@ -300,8 +300,9 @@ class _Builder:
         if source is not None:
             head.insert(0, self.words(f"{key}.fit_points", "Points file", source))
         if fit.flag_threshold is not None:
-            head.append(self.fig(f"{key}.fit_flag_threshold", f"A point is flagged above ({fit.flag_rule})",
-                                 [fit.flag_threshold], unit))
+            head.append(self.fig(f"{key}.fit_flag_threshold",
+                                 f"Flag threshold of the residual distance ({fit.flag_rule})", [fit.flag_threshold],
+                                 unit))
         flagged = set(fit.flagged)
         table_rows = []
         printed = self.table([*residual, distance] for residual, distance in zip(fit.residuals, fit.distances))

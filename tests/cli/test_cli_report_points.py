@@ -111,3 +111,25 @@ def test_a_record_refuses_a_fit_of_another_orientation_in_core():
     fit = fit_points(nominal, nominal + 5.0)          # no rotation: not the radar antenna as measured
     with pytest.raises(records.RecordError, match="is not the fit of p.csv"):
         records.check_record(session, CHECK, "a", "0" * 64, fit=fit, fit_source="p.csv")
+
+
+def test_the_flag_threshold_is_the_fits_and_says_its_rule():
+    # One point misread by 0.5 mm among twelve surveyed to 0.02 mm (invented): flagged by the fit's rule.
+    from core.fit import fit_points
+    from core.session import load_session
+
+    rng = np.random.default_rng(3)
+    nominal = rng.uniform(-60, 60, (12, 3))
+    measured = nominal + [10.0, 0, 0] + rng.normal(0, 0.02, nominal.shape)
+    measured[4] += [0.5, 0, 0]
+    fit = fit_points(nominal, measured)
+    session = load_session(DEMO_CHECK)
+    from dataclasses import replace
+    mounts = tuple(replace(m, orientation=fit.orientation) if m.name == MEASURED else m for m in session.mounts)
+    record = records.check_record(replace(session, mounts=mounts), CHECK, "a", "0" * 64, fit=fit)
+    figures = {f.key: f for f in record.figures()}
+    threshold = figures["check[0].fit_flag_threshold"]
+    assert threshold.label.startswith("Flag threshold of the residual distance (flagged when")
+    assert float(threshold.values[0]) == pytest.approx(fit.flag_threshold, rel=1e-8)
+    assert figures["check[0].fit_residual[4]"].label == "row 5 (flagged)"
+    assert 4 in fit.flagged and float(figures["check[0].fit_residual[4]"].values[3]) > fit.flag_threshold
