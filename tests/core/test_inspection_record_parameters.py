@@ -85,7 +85,8 @@ def test_a_half_turn_has_no_gibbs_vector_and_the_record_says_so():
     assert "mount[0].gibbs" not in figures
     assert figures["mount[0].mrp"].values == ("0", "0", "1")      # n tan(45 deg) = n (from the formula)
     lines = [item for item in record.sections[0].items if isinstance(item, str)]
-    assert any(line.startswith("Gibbs vector (classical Rodrigues parameters): ") and "infinite at a half turn" in line for line in lines), lines
+    assert any(line.startswith("Gibbs vector (classical Rodrigues parameters): ")
+               and "infinite at a half turn" in line for line in lines), lines
 
 
 def test_a_version_1_report_is_compared_without_the_figures_added_since():
