@@ -724,6 +724,11 @@ def add_report_arguments(parser: argparse.ArgumentParser) -> None:
     for flag, field in (("--operator", "Operator"), ("--instrument", "Instrument"),
                         ("--calibration-due", "Instrument calibration due")):
         parser.add_argument(flag, metavar="TEXT", help=f"fills the report's '{field}' line (blank to fill by hand)")
+    parser.add_argument("--points", metavar="POINTS.csv",
+                        help="with --check: the point pairs the check's measured orientation was fitted from (the "
+                             "columns 'framewright fit' reads); the record adds the fit's residual table")
+    parser.add_argument("--points-unit", default="mm", choices=POINT_UNITS,
+                        help="the length unit of the points (default mm)")
     parser.add_argument("--units", dest="show_units", default="deg", metavar="UNIT",
                         choices=tuple(k for k in units.ANGLE_UNITS if k != "dms"),
                         help="print the report's angles in this unit: " + ", ".join(
@@ -732,6 +737,28 @@ def add_report_arguments(parser: argparse.ArgumentParser) -> None:
                         choices=tuple(units.SLOPE_UNITS),
                         help="also print the level readings as slopes in this unit: " + ", ".join(
                             f"{u.key} ({u.name})" for u in units.SLOPE_UNITS.values() if u.key != "deg"))
+
+
+POINT_UNITS = ("mm", "cm", "m", "um", "in", "ft")
+
+
+def _report_fit(args):
+    """The point fit of --points (None without it), refused by name when it cannot be made."""
+    if args.points is None:
+        return None
+    if args.check is None:
+        raise _Refused("--points goes with --check NAME: the residuals belong to one check's measured mount")
+    from core.fit import fit_points
+    from core.point_rows import RowsError, read_point_pairs
+
+    text = read_file_text(args.points)
+    try:
+        pairs = read_point_pairs(text)
+        return fit_points(pairs.nominal, pairs.measured, pairs.weights)
+    except RowsError as error:
+        raise _Refused(f"{printable(args.points)}: {error}") from None
+    except FramewrightError as error:
+        raise _Refused(f"{printable(args.points)}: not fitted: {error}") from None
 
 
 def _report_target(out: str, session_path: str) -> str:
@@ -771,10 +798,12 @@ def run_report(args, stdin, stdout) -> int:
                 raise _Refused(f"{field.lower()}: {problem}")
             free[field] = value
     name, digest = Path(args.session).name, records.sha256_of_bytes(raw)
+    fit = _report_fit(args)
     try:
         shown = records.ReportUnits(args.show_units, args.slope_units)
-        record = (records.check_record(session, args.check, name, digest, shown=shown) if args.check is not None
-                  else records.session_record(session, name, digest, shown))
+        record = (records.check_record(session, args.check, name, digest, fit=fit, fit_unit=args.points_unit,
+                                       fit_source=None if fit is None else Path(args.points).name, shown=shown)
+                  if args.check is not None else records.session_record(session, name, digest, shown))
     except FramewrightError as error:
         raise _Refused(str(error)) from None
     if args.write_report is None:
@@ -805,6 +834,7 @@ def run_verify_report(args, stdin, stdout) -> int:
 
     from core import inspection_record as records
     from core.record_files import first_printed_difference, read_report
+    from core.record_values import expected_figures
     from core.session import load_session_and_bytes
 
     try:
@@ -819,8 +849,12 @@ def run_verify_report(args, stdin, stdout) -> int:
         stdout.write(f"NOT the record of this session: {printable(error)}\n")
         return EXIT_OUTSIDE
     embedded = {k: v for k, v in data.items() if k != "record_sha256"}
+    try:
+        expected = expected_figures(record.numbers()["figures"], data.get("version"))
+    except FramewrightError as error:
+        raise _Refused(f"{printable(args.report)}: {error}") from None
     problems = []
-    difference = records.first_difference(data["figures"], record.numbers()["figures"])
+    difference = records.first_difference(data["figures"], expected)
     if difference:
         problems.append(f"a figure differs from the session: {difference}")
     if printed is not None:
@@ -834,6 +868,12 @@ def run_verify_report(args, stdin, stdout) -> int:
         return EXIT_OUTSIDE
     lines = [f"the {kind.upper()} report's {len(data['figures'])} figures are this session's numbers "
              f"(record SHA-256 {data['record_sha256']})"]
+    fitted = sum(1 for f in data["figures"] if ".fit_" in str(f.get("key")))
+    if fitted:
+        lines[0] = (f"the {kind.upper()} report's {len(data['figures']) - fitted} figures of the session are "
+                    f"this session's numbers (record SHA-256 {data['record_sha256']})")
+        lines.append(f"note: its {fitted} figures of the point fit are as the report wrote them, not compared: "
+                     "the session file does not keep the points")
     if data.get("session_sha256") != records.sha256_of_bytes(raw):
         lines.append("note: the session file is not byte for byte the one the report names (its SHA-256 "
                      "differs), but every figure is the same")
