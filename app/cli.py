@@ -336,7 +336,9 @@ def add_fit_arguments(parser: argparse.ArgumentParser) -> None:
                         help="CSV with a header row: nominal_x, nominal_y, nominal_z (body frame, from the "
                              "drawing), measured_x, measured_y, measured_z (reference frame), optional weight; "
                              "the same headers the Measure panel imports")
-    parser.add_argument("--unit", default="mm", help="length unit of the points, for the printout (default mm)")
+    parser.add_argument("--unit", default="mm", choices=tuple(units.LENGTH_UNITS),
+                        help="length unit of the points, for the printout (default mm; thou: a thousandth of an "
+                             "inch)")
     add_orientation_options(parser)
     parser.add_argument("--json", action="store_true", help="print one JSON object")
 
@@ -505,12 +507,17 @@ def add_correct_arguments(parser: argparse.ArgumentParser) -> None:
     parser.add_argument("--frame", choices=("body", "reference"), default="body",
                         help="the frame the adjustment axes are written in (default body)")
     parser.add_argument("--footprint", metavar="FILE",
-                        help="the feet (or bolt points) in body coordinates, mm: one 'x y z' a line")
+                        help="the feet (or bolt points) in body coordinates, in --lengths (mm by default): one "
+                             "'x y z' a line")
     parser.add_argument("--face-normal", metavar="AXIS",
                         help="outward normal of the mounting face (+X/-Z or three numbers); default: the feet's "
                              "plane, on the side away from the body origin")
     parser.add_argument("--pivot", type=int, default=1, metavar="N", help="the foot that stays put (default 1)")
-    parser.add_argument("--pitch", type=float, metavar="MM", help="thread pitch of levelling screws, mm per turn")
+    parser.add_argument("--pitch", type=float, metavar="P", help="thread pitch of levelling screws per turn, in "
+                                                                 "--lengths (mm by default)")
+    parser.add_argument("--lengths", choices=("mm", "in", "thou"), default="mm",
+                        help="the unit of the feet, the pitch and the printed shims (thou: a thousandth of an "
+                             "inch, not an angular mil); the JSON keeps millimetres and names it")
     parser.add_argument("--json", action="store_true", help="print one JSON object")
 
 
@@ -543,18 +550,19 @@ def run_correct(args, stdin, stdout) -> int:
                                   "angles_deg": list(adjust.angles_deg), "residual_deg": adjust.residual_deg,
                                   "exact": adjust.exact}
         if args.footprint is not None:
-            feet = read_footprint(read_file_text(args.footprint))
+            feet = units.to_millimetres(read_footprint(read_file_text(args.footprint)), args.lengths)
+            pitch_mm = None if args.pitch is None else float(units.to_millimetres(args.pitch, args.lengths))
             if args.face_normal is None:
                 normal = outward_normal(feet)
             else:
                 from core.check import axis_vector
                 from core.correction import read_axes as read_directions
                 normal = axis_vector(tuple(read_directions(args.face_normal)[0]), "face normal")
-            result = shims(fix.body, feet, normal, pivot=args.pivot - 1, pitch_mm=args.pitch)
+            result = shims(fix.body, feet, normal, pivot=args.pivot - 1, pitch_mm=pitch_mm)
             data["shims"] = {"face_normal": _floats(normal), "pivot_foot": args.pivot,
                              "feet_mm": [_floats(f) for f in feet], "shims_mm": _floats(result.shims_mm),
                              "screw_turns": None if result.turns is None else _floats(result.turns),
-                             "pitch_mm": args.pitch, "tilt_deg": result.tilt_deg,
+                             "pitch_mm": pitch_mm, "length_unit": args.lengths, "tilt_deg": result.tilt_deg,
                              "twist_deg": result.twist_deg, "pivot_lifted_mm": result.pivot_lifted_mm}
     except FramewrightError as error:
         raise _Refused(str(error)) from None
@@ -585,16 +593,21 @@ def _correction_lines(fix, data) -> list[str]:
                      "(the least-squares answer)")
     shim = data["shims"]
     if shim:
+        length = shim["length_unit"]
+        in_length = lambda mm: units.millimetres_to(mm, length)      # noqa: E731  (mm kept, the unit shown)
         lines.append(f"shims under the footprint (face normal ({', '.join(_n(v) for v in shim['face_normal'])}), "
-                     f"foot {shim['pivot_foot']} the pivot), mm:")
+                     f"foot {shim['pivot_foot']} the pivot), {length}:")
         turns = shim["screw_turns"]
+        decimals = {"mm": 4, "in": 5, "thou": 2}[length]
         for i, (foot, thickness) in enumerate(zip(shim["feet_mm"], shim["shims_mm"]), start=1):
             extra = "" if turns is None else f"   {turns[i - 1]:.3f} turns"
-            lines.append(f"  foot {i} at ({', '.join(_n(v) for v in foot)}): {thickness:.4f}{extra}")
+            lines.append(f"  foot {i} at ({', '.join(_n(float(v)) for v in in_length(foot))}): "
+                         f"{float(in_length(thickness)):.{decimals}f}{extra}")
         lines.append(f"  tilt the shims make: {_n(shim['tilt_deg'])} deg; turn about the face normal left for the "
                      f"slotted holes: {_n(shim['twist_deg'])} deg")
         if shim["pivot_lifted_mm"] > 0:
-            lines.append(f"  the pivot foot needs a shim too ({shim['pivot_lifted_mm']:.4f} mm): no shim can be "
+            lines.append(f"  the pivot foot needs a shim too ({float(in_length(shim['pivot_lifted_mm'])):.{decimals}f} "
+                         f"{length}): no shim can be "
                          "negative, so the thinnest set lifts every foot by that much")
     return lines
 
