@@ -176,6 +176,10 @@ class MainWindow(QMainWindow):
                                    ("measure_panel", "Measure", self._build_measure_panel),
                                    ("batch_panel", "Batch", self._build_batch_panel)):
             self.side_pages.add(name, title, _scrollable(QWidget()), build)
+        # The chain's frames are drawn beside any mount only while its tab is in view (model.scene_frames)
+        self._chain_area = chain_area
+        self.side_tabs.currentChanged.connect(
+            lambda _: self.model.set_chain_in_view(self.side_tabs.currentWidget() is self._chain_area, origin=self))
 
         # Top: Mounts, the Scene and the side panels side by side; below them, across the whole width,
         # the editors. The Scene takes whatever height the editors leave.
