@@ -1,5 +1,5 @@
 """The window on a laptop screen: at 1280×800 and 1366×768 (100% scaling), and on a large 1920×1080 one,
-the Scene is at least 350 px tall, and every editor field, the Gimbal margin meter, Decode's Apply,
+the Scene is at least 350 px tall, and every editor field (the position's too), the Gimbal margin meter, Decode's Apply,
 Measure's Fit, Batch's Export and the status bar are shown whole, inside the window, with no sideways
 scrolling; the window can shrink to 1200×720; the side panels fold away."""
 
@@ -67,6 +67,10 @@ def test_every_key_control_is_whole_and_inside_the_window_beside_a_tall_scene(qt
     assert len(fields) == 3 + 1 + 4 + 9 + 3
     for field in fields:
         assert_whole_and_inside(window, field, f"field {field.toolTip()[:30]!r}")
+    # the selected mount's position, under the Mounts list: its x, y, z fields and their unit
+    for field, axis in zip(window.position.fields, "xyz"):
+        assert_whole_and_inside(window, field, f"position field {axis}")
+    assert_whole_and_inside(window, window.position.unit_box, "the position's unit")
     assert_whole_and_inside(window, window.meter, "the Gimbal margin meter")
     assert_whole_and_inside(window, window.statusBar(), "the status bar")
     assert_whole_and_inside(window, window.scene.view, "the Scene")
