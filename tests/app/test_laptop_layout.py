@@ -1,7 +1,7 @@
 """The window on a laptop screen: at 1280×800 and 1366×768 (100% scaling), and on a large 1920×1080 one,
-the Scene is at least 350 px tall, and every editor field (the position's too), the Gimbal margin meter, Decode's Apply,
-Measure's Fit, Batch's Export and the status bar are shown whole, inside the window, with no sideways
-scrolling; the window can shrink to 1200×720; the side panels fold away."""
+the Scene is at least 350 px tall, and every editor field (the position's too), the Gimbal margin meter,
+Decode's Apply, Measure's Fit, Batch's Export and the status bar are shown whole, inside the window, with
+no sideways scrolling; the window can shrink to 1200×720; the side panels fold away."""
 
 from pathlib import Path
 
