@@ -44,7 +44,7 @@ class AnglesEditor(EditorBase):
         self.kind_box = QComboBox()
         # Short words in the box: a closed combo box is cut, not elided, and at 1280 px it is ~23 characters
         # wide; the whole sense is in each entry's tooltip and the box's.
-        for words, whole, intrinsic in (("intrinsic (moving axes)", "about the moving body axes", True),
+        for words, whole, intrinsic in (("intrinsic (body axes)", "about the moving body axes", True),
                                         ("extrinsic (fixed axes)", "about the fixed reference axes", False)):
             self.kind_box.addItem(words, intrinsic)
             self.kind_box.setItemData(self.kind_box.count() - 1, f"{words.split()[0]}: {whole}",
