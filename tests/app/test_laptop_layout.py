@@ -161,3 +161,22 @@ def test_the_measure_tables_show_every_title_and_number_whole_on_a_laptop(qtbot,
         assert table.textElideMode() == Qt.TextElideMode.ElideNone   # a cut number is never shown shortened
     area = scroll_area_of(window.measure_panel)
     assert area.horizontalScrollBar().maximum() == 0
+
+
+@pytest.mark.parametrize("size", LAPTOPS)
+def test_the_batch_verdict_and_its_numbers_are_in_view_without_scrolling_the_table(qtbot, window, size):
+    # the result columns were hidden behind the table's sideways scroll bar at a laptop's width
+    settle(qtbot, window, size)
+    show_tab(window, window.batch_panel)
+    assert window.batch_panel.open_file(str(DEMO_BATCH))
+    qtbot.wait(50)
+    view = window.batch_panel.view
+    header = view.horizontalHeader()
+    model = view.model()
+    titles = [model.headerData(c, Qt.Orientation.Horizontal) for c in range(model.columnCount())]
+    assert view.horizontalScrollBar().value() == 0
+    for title in ("Name", "Result", "Deviation (°)"):      # the margin, pointing, roll and axis follow
+        column = titles.index(title)
+        left = header.sectionViewportPosition(column)
+        assert left >= 0 and left + header.sectionSize(column) <= view.viewport().width(), (
+            f"{title!r} is not in view: {left}+{header.sectionSize(column)} > {view.viewport().width()}")
