@@ -181,11 +181,14 @@ class SessionModel(QObject):
         # 1e-9°: the product as a mount made from it stores it, not a value near it
         return self.current_orientation().angle_to(product) <= 1e-9
 
-    def set_chain_in_view(self, in_view: bool, origin: object | None = None) -> None:
-        """Whether the chain is being worked on (the window says so while its panel is in view; not saved)."""
-        if bool(in_view) != self._chain_in_view:
-            self._chain_in_view = bool(in_view)
-            self._emit({CHAIN}, origin)
+    def set_chain_in_view(self, in_view: bool) -> bool:
+        """Whether the chain is being worked on (the window says so while its panel is in view; not saved).
+        Announces no change: nothing the editors and panels show depends on it, only scene_frames(), so
+        the caller refreshes the Scene. True when it changed."""
+        if bool(in_view) == self._chain_in_view:
+            return False
+        self._chain_in_view = bool(in_view)
+        return True
 
     def set_show_chain_frames(self, shown: bool, origin: object | None = None) -> None:
         """Whether the scene draws the chain's intermediate frames (a view choice, not saved)."""
