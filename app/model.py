@@ -55,6 +55,7 @@ class SessionModel(QObject):
         self._idle.timeout.connect(self.end_continuous)
         self._session = session if session is not None else Session.single()
         self._show_chain_frames = True
+        self._chain_in_view = False
         self.file_path: str | None = None
 
     # ---- reading --------------------------------------------------------------------------------
@@ -115,8 +116,10 @@ class SessionModel(QObject):
 
     def scene_frames(self) -> list[tuple[Orientation, str]]:
         """The chain's intermediate frames for the scene, as (orientation, label), reference side first;
-        the last one is the product. Empty when the frames are switched off."""
-        if not self._show_chain_frames:
+        the last one is the product. Empty when the frames are switched off, and on a mount the chain does
+        not describe: they are drawn while the chain is being worked on (its panel in view) and, otherwise,
+        only beside the mount whose orientation is the chain's product (one made from it, unchanged since)."""
+        if not self._show_chain_frames or not (self._chain_in_view or self._mount_is_chain_product()):
             return []
         frames = self.chain.frames()
         out = []
@@ -170,6 +173,22 @@ class SessionModel(QObject):
         """Name the reference directions after a frame preset. It never changes R; it is saved with the
         session, and it sets where gravity points for level readings."""
         self._put(operations.set_reference_frame(self._session, key), origin)
+
+    def _mount_is_chain_product(self) -> bool:
+        if len(self.chain) == 0:
+            return False
+        product, _ = self.chain.pose_product()
+        # 1e-9°: the product as a mount made from it stores it, not a value near it
+        return self.current_orientation().angle_to(product) <= 1e-9
+
+    def set_chain_in_view(self, in_view: bool) -> bool:
+        """Whether the chain is being worked on (the window says so while its panel is in view; not saved).
+        Announces no change: nothing the editors and panels show depends on it, only scene_frames(), so
+        the caller refreshes the Scene. True when it changed."""
+        if bool(in_view) == self._chain_in_view:
+            return False
+        self._chain_in_view = bool(in_view)
+        return True
 
     def set_show_chain_frames(self, shown: bool, origin: object | None = None) -> None:
         """Whether the scene draws the chain's intermediate frames (a view choice, not saved)."""

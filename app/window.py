@@ -176,6 +176,9 @@ class MainWindow(QMainWindow):
                                    ("measure_panel", "Measure", self._build_measure_panel),
                                    ("batch_panel", "Batch", self._build_batch_panel)):
             self.side_pages.add(name, title, _scrollable(QWidget()), build)
+        # The chain's frames are drawn beside any mount only while its tab is in view (model.scene_frames)
+        self._chain_area = chain_area
+        self.side_tabs.currentChanged.connect(self._chain_tab_shown_or_left)
 
         # Top: Mounts, the Scene and the side panels side by side; below them, across the whole width,
         # the editors. The Scene takes whatever height the editors leave.
@@ -250,6 +253,11 @@ class MainWindow(QMainWindow):
             self.splitter.setStretchFactor(1, 1)          # (the stretch lives in the widget's size policy)
             self._scene_slot.deleteLater()
             self._scene_slot = None
+
+    def _chain_tab_shown_or_left(self, _index: int) -> None:
+        if self.model.set_chain_in_view(self.side_tabs.currentWidget() is self._chain_area) and \
+                self.scene is not None:
+            self._scene_binding.refresh()
 
     def event(self, event) -> bool:
         handled = super().event(event)

@@ -4,6 +4,7 @@ same orientation spelled in the other convention."""
 from __future__ import annotations
 
 import numpy as np
+from PySide6.QtCore import Qt
 from PySide6.QtWidgets import QComboBox, QGridLayout, QLabel
 
 from app.editors.base import EditorBase
@@ -41,8 +42,13 @@ class AnglesEditor(EditorBase):
         self.sequence_box.setToolTip("Axis order of the three turns. Tait–Bryan use three different axes; "
                                      "proper Euler repeat the first axis last.")
         self.kind_box = QComboBox()
-        self.kind_box.addItem("intrinsic (about the moving body axes)", True)
-        self.kind_box.addItem("extrinsic (about the fixed reference axes)", False)
+        # Short words in the box: a closed combo box is cut, not elided, and at 1280 px it is ~23 characters
+        # wide; the whole sense is in each entry's tooltip and the box's.
+        for words, whole, intrinsic in (("intrinsic (body axes)", "about the moving body axes", True),
+                                        ("extrinsic (fixed axes)", "about the fixed reference axes", False)):
+            self.kind_box.addItem(words, intrinsic)
+            self.kind_box.setItemData(self.kind_box.count() - 1, f"{words.split()[0]}: {whole}",
+                                      Qt.ItemDataRole.ToolTipRole)
         self.kind_box.setToolTip("Intrinsic: R = R1(θ1)·R2(θ2)·R3(θ3), each turn about the axes already turned. "
                                  "Extrinsic: R = R3(θ3)·R2(θ2)·R1(θ1), each about the fixed reference axes, "
                                  "in the order written.")

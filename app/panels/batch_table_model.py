@@ -25,23 +25,25 @@ _CENTRE = int(Qt.AlignmentFlag.AlignCenter)
 
 
 def columns_for(result: BatchResult):
-    """(title, tooltip, key) per column; key names the array or 'name' / 'result'."""
+    """(title, tooltip, key) per column; key names the array or 'name' / 'result'. The verdict and the
+    numbers it rests on come first, the axis of the deviation last: in a laptop's side area the name, the
+    result and the deviation are in view without scrolling the table sideways."""
     columns = [("Name", "The mount's name, from the file's first column.", "name"),
+               ("Result", "pass: within the tolerance; fail: out of tolerance; error: the row's numbers "
+                "cannot be trusted and it was not checked (the tooltip says why).", "result"),
                ("Deviation (°)", "Total deviation: the angle of D = Nᵀ M, nominal N against measured M, "
                 "in degrees.", "total"),
-               ("Axis x", "Axis of the deviation D, in the nominal body frame (unit vector), x.", "axis_x"),
-               ("Axis y", "Axis of the deviation D, in the nominal body frame (unit vector), y.", "axis_y"),
-               ("Axis z", "Axis of the deviation D, in the nominal body frame (unit vector), z.", "axis_z")]
+               ("Margin (°)", "Tolerance minus the deviation, in degrees (the smallest of the criteria); "
+                "negative when out of tolerance.", "margin")]
     if result.pointing_deg is not None:
         axis = result.settings.body_axis
         columns += [("Pointing (°)", f"Pointing error of the body axis {axis}: the angle between N a and M a, "
                      "in degrees.", "pointing"),
                     ("Roll (°)", f"Roll about the body axis {axis} left after the pointing correction, in "
                      "degrees.", "roll")]
-    columns += [("Result", "pass: within the tolerance; fail: out of tolerance; error: the row's numbers "
-                 "cannot be trusted and it was not checked (the tooltip says why).", "result"),
-                ("Margin (°)", "Tolerance minus the deviation, in degrees (the smallest of the criteria); "
-                 "negative when out of tolerance.", "margin")]
+    columns += [("Axis x", "Axis of the deviation D, in the nominal body frame (unit vector), x.", "axis_x"),
+                ("Axis y", "Axis of the deviation D, in the nominal body frame (unit vector), y.", "axis_y"),
+                ("Axis z", "Axis of the deviation D, in the nominal body frame (unit vector), z.", "axis_z")]
     return columns
 
 

@@ -24,10 +24,12 @@ class Placed:
 
 
 def stack_panels(sizes, corners, optional, width, height, margin) -> list[QRectF | None]:
-    """Each panel (w, h) in its corner ('top-left', ...), in the order given; a panel that would meet one
-    already placed moves along its side (down from a top corner, up from a bottom one) past it. A panel
-    that then leaves the image or still meets another is left out (None); so is an optional panel when
-    the panels on its side would take more than 60 % of the height (it would leave the labels no room)."""
+    """Each panel (w, h) in its corner ('top-left', ...), in the order given. A panel that would meet one
+    already placed on the other side goes to the other corner of its own side when that one is free (so it
+    does not end up in the middle of the picture, over the part); else it moves along its side (down from a
+    top corner, up from a bottom one) past it. A panel that then leaves the image or still meets another is
+    left out (None); so is an optional panel when the panels on its side would take more than 60 % of the
+    height (it would leave the labels no room)."""
     placed: list[QRectF] = []
     sides: list[bool] = []   # on the left, for each placed panel
     out: list[QRectF | None] = []
@@ -35,6 +37,11 @@ def stack_panels(sizes, corners, optional, width, height, margin) -> list[QRectF
         left = margin if "left" in corner else width - w - margin
         top = margin if "top" in corner else height - h - margin
         rect = QRectF(left, top, w, h)
+        hit_sides = {on_left for p, on_left in zip(placed, sides) if p.intersects(rect)}
+        if hit_sides == {"left" not in corner}:    # met only by the other side's panels, across the middle
+            other = QRectF(left, height - h - margin if "top" in corner else margin, w, h)
+            if other.top() >= 0 and not any(p.intersects(other) for p in placed):
+                rect = other
         for _ in range(len(placed)):
             hits = [p for p in placed if p.intersects(rect)]
             if not hits:

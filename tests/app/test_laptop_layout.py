@@ -1,7 +1,7 @@
 """The window on a laptop screen: at 1280×800 and 1366×768 (100% scaling), and on a large 1920×1080 one,
-the Scene is at least 350 px tall, and every editor field, the Gimbal margin meter, Decode's Apply,
-Measure's Fit, Batch's Export and the status bar are shown whole, inside the window, with no sideways
-scrolling; the window can shrink to 1200×720; the side panels fold away."""
+the Scene is at least 350 px tall, and every editor field (the position's too), the Gimbal margin meter,
+Decode's Apply, Measure's Fit, Batch's Export and the status bar are shown whole, inside the window, with
+no sideways scrolling; the window can shrink to 1200×720; the side panels fold away."""
 
 from pathlib import Path
 
@@ -67,6 +67,10 @@ def test_every_key_control_is_whole_and_inside_the_window_beside_a_tall_scene(qt
     assert len(fields) == 3 + 1 + 4 + 9 + 3
     for field in fields:
         assert_whole_and_inside(window, field, f"field {field.toolTip()[:30]!r}")
+    # the selected mount's position, under the Mounts list: its x, y, z fields and their unit
+    for field, axis in zip(window.position.fields, "xyz"):
+        assert_whole_and_inside(window, field, f"position field {axis}")
+    assert_whole_and_inside(window, window.position.unit_box, "the position's unit")
     assert_whole_and_inside(window, window.meter, "the Gimbal margin meter")
     assert_whole_and_inside(window, window.statusBar(), "the status bar")
     assert_whole_and_inside(window, window.scene.view, "the Scene")
@@ -157,3 +161,22 @@ def test_the_measure_tables_show_every_title_and_number_whole_on_a_laptop(qtbot,
         assert table.textElideMode() == Qt.TextElideMode.ElideNone   # a cut number is never shown shortened
     area = scroll_area_of(window.measure_panel)
     assert area.horizontalScrollBar().maximum() == 0
+
+
+@pytest.mark.parametrize("size", LAPTOPS)
+def test_the_batch_verdict_and_its_numbers_are_in_view_without_scrolling_the_table(qtbot, window, size):
+    # the result columns were hidden behind the table's sideways scroll bar at a laptop's width
+    settle(qtbot, window, size)
+    show_tab(window, window.batch_panel)
+    assert window.batch_panel.open_file(str(DEMO_BATCH))
+    qtbot.wait(50)
+    view = window.batch_panel.view
+    header = view.horizontalHeader()
+    model = view.model()
+    titles = [model.headerData(c, Qt.Orientation.Horizontal) for c in range(model.columnCount())]
+    assert view.horizontalScrollBar().value() == 0
+    for title in ("Name", "Result", "Deviation (°)"):      # the margin, pointing, roll and axis follow
+        column = titles.index(title)
+        left = header.sectionViewportPosition(column)
+        assert left >= 0 and left + header.sectionSize(column) <= view.viewport().width(), (
+            f"{title!r} is not in view: {left}+{header.sectionSize(column)} > {view.viewport().width()}")

@@ -72,10 +72,16 @@ def test_a_label_too_big_for_the_view_is_left_out_rather_than_clipped():
 
 
 def test_panels_that_meet_are_stacked_and_an_optional_one_gives_way():
-    # a narrow view: the top-left and top-right panels would meet in the middle
+    # a narrow view: the top-left and top-right panels would meet in the middle; the second goes to the
+    # free bottom corner of its side, not down into the middle of the picture
     rects = stack_panels([(400, 120), (300, 40)], ["top-left", "top-right"], [False, False], 600, 500, 10)
     assert all(r is not None for r in rects) and disjoint(rects)
-    assert rects[1].top() >= rects[0].bottom()                      # moved down past the first
+    assert rects[1] == QRectF(600 - 300 - 10, 500 - 40 - 10, 300, 40)
+    # when that corner is taken too, it moves down past the first
+    rects = stack_panels([(400, 120), (300, 400), (300, 40)], ["top-left", "bottom-right", "top-right"],
+                         [False, False, False], 600, 600, 10)
+    assert all(r is not None for r in rects) and disjoint(rects)
+    assert rects[2].top() == rects[0].bottom() + 10 and rects[2].right() == 590
     # two panels in one corner sit one under the other
     rects = stack_panels([(200, 60), (150, 50)], ["top-right", "top-right"], [False, False], 800, 500, 10)
     assert disjoint(rects) and rects[1].top() == rects[0].bottom() + 10
