@@ -108,7 +108,8 @@ def render_copy(model, fmt: str, editor=None) -> tuple[str, str | None, float]:
     if fmt == "csv":
         # the header names each column with its unit and convention (qw…/qx… order, r11… body -> reference
         # or dcm11… reference -> body, the sequence and intrinsic/extrinsic), and is decoded back with the row
-        text = formats.csv_header(options) + text
+        # and its first column is the mount's name (the decoder reads it as text, with a note)
+        text = formats.csv_with_name(model.current_mount().name, formats.csv_header(options), text)
     error = float(formats.round_trip_error(orientation, text, fmt, options))
     json_text = formats.render(orientation, "json", options) if fmt in ("json", "report") else None
     return text, json_text, error

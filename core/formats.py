@@ -151,6 +151,12 @@ def csv_header(options=None) -> str:
     return _csv_line(names)
 
 
+def csv_with_name(name: str, header: str, row: str) -> str:
+    """The header and row of a CSV copy with the mount's name as a first column ('name,qw,qx,qy,qz' over
+    'Camera 2,0.7071,...'): the name is quoted as CSV needs and neutralised if a spreadsheet would run it."""
+    return "name," + header + _csv_line([name]).rstrip("\n") + "," + row
+
+
 def _csv_line(cells) -> str:
     """One CSV row; a text cell a spreadsheet would run as a formula is neutralised (core/csv_cells.py),
     numbers such as -0.5 stay numbers."""
@@ -217,5 +223,5 @@ def check_every_format(orientation, options=None) -> dict:
 
 __all__ = ["FORMATS", "FORMAT_NAMES", "JSON_KEYS", "KINDS", "NOISE_RELATIVE", "REPORT_DECIMALS", "REPRESENTATIONS",
            "SAFETY_CAUTION", "FormatOptions", "shortest_decimal",
-           "check_every_format", "csv_header", "format_number", "json_object_text", "printed_precision_deg", "render",
+           "check_every_format", "csv_header", "csv_with_name", "format_number", "json_object_text", "printed_precision_deg", "render",
            "round_trip_error", "round_trip_hints", "spelled_sequence", "summary", "vector_lines"]

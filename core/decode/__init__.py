@@ -23,6 +23,7 @@ from core.decode.hints import KINDS, DecodeHints, Reading
 from core.decode.numbers import (UNDERSTOOD_COUNTS, FoundNumber, ParsedNumbers, _MAX_NUMBERS, extract_numbers,
                                  parse_numbers)
 from core.decode.our_json import _decode_our_json
+from core.decode.name_column import split_name_column
 from core.decode.pose_keys import keyed_poses
 from core.decode.pose_lines import argument_poses, column_poses, origin_poses, quaternion_sum, sdf_poses
 from core.decode.pose_matrices import matrix_poses
@@ -52,6 +53,10 @@ def decode(text: str, hints=None) -> list[Reading]:
     no numbers or a count other than 9, 4 or 3, a refused matrix, conflicting unit marks, over 100 kB."""
     hints = DecodeHints.coerce(hints)
     _check_size(text)
+    named = split_name_column(text)
+    if named is not None:          # a copied CSV row: its first column is the mount's name
+        rest, note = named
+        return [replace(r, notes=(note,) + r.notes) for r in decode(rest, hints)]
     from_json = _decode_our_json(text, hints)
     if from_json is not None:
         return from_json

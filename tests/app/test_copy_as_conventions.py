@@ -5,6 +5,7 @@ renderer that writes a wrong value, or fails, is reported as such in the status 
 
 Check values: SciPy's scipy.spatial.transform.Rotation (a general-purpose reference library)."""
 
+import csv
 import json
 
 import numpy as np
@@ -56,9 +57,12 @@ def test_copies_follow_the_preferences_and_agree_with_scipy(qtbot, window, repre
         text = QGuiApplication.clipboard().text()
         message = window.statusBar().currentMessage()
         assert message.endswith("verified.") and "NOT" not in message, message
-        if fmt == "csv":   # a header row naming units and convention, then the row of numbers
+        if fmt == "csv":   # a header row naming the mount, units and convention, then the mount's row
             header, text = text.splitlines()
-            assert header == formats.csv_header(FormatOptions(representation=representation, **claimed)).strip()
+            assert header == "name," + formats.csv_header(FormatOptions(representation=representation,
+                                                                        **claimed)).strip()
+            name, text = next(csv.reader([text]))[0], ",".join(next(csv.reader([text]))[1:])
+            assert name == window.model.current_mount().name
         np.testing.assert_allclose(numbers_in(fmt, text), want, atol=1e-12, err_msg=f"{fmt}: {text}")
     window.copy_as_actions["json"].trigger()
     data = json.loads(QGuiApplication.clipboard().text())
@@ -89,8 +93,9 @@ def test_a_csv_copy_starts_with_a_header_naming_units_and_convention(qtbot, wind
     use_editor(qtbot, window, EDITORS[representation])
     window.copy_as_actions["csv"].trigger()
     lines = QGuiApplication.clipboard().text().splitlines()
-    assert len(lines) == 2 and lines[0] == header
-    assert len(lines[1].split(",")) == len(header.split(","))
+    assert len(lines) == 2 and lines[0] == "name," + header
+    row = next(csv.reader([lines[1]]))
+    assert row[0] == window.model.current_mount().name and len(row) == len(header.split(",")) + 1
     assert "verified." in window.statusBar().currentMessage()
 
 
