@@ -34,9 +34,9 @@ def keyed_poses(text: str) -> list[PoseText] | None:
     fields = json_fields(text)
     layout = "pose (JSON)"
     if fields is None:
-        flags = flag_fields(text)
-        if len(flags) >= 4:
-            return flag_pose(flags)
+        poses = flag_pose(flag_fields(text))
+        if poses:
+            return poses
         fields = yaml_like_fields(text)
         layout = "pose (keyed text)"
     if not fields:
