@@ -5,6 +5,7 @@ from __future__ import annotations
 import re
 from dataclasses import dataclass, field
 
+from core.decode.column_major import says_column_major
 from core.errors import DecodeError, FramewrightError
 from core.representations import caption_patterns
 from core.decode.numbers import ParsedNumbers
@@ -74,6 +75,13 @@ def _read_clues(parsed: ParsedNumbers) -> _Clues:
         clues.transposed_reason = "the text calls it a direction cosine matrix, usually reference -> body"
     elif body_to_ref and ref_to_body:
         clues.notes.append("the text names both directions (body to reference and reference to body)")
+    if says_column_major(words) and len(parsed.numbers) == 9 and len(parsed.rows) == 1:
+        # nine numbers on one line written column after column are the transpose of a row-major reading
+        said = "the text says column-major: the nine numbers are the columns one after another"
+        if clues.transposed is None:
+            clues.transposed, clues.transposed_reason = True, said
+        else:
+            clues.transposed, clues.transposed_reason = not clues.transposed, f"{clues.transposed_reason}; {said}"
     from core.sequences import parse_sequence
     found = set()
     primes = False

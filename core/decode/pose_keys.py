@@ -7,6 +7,7 @@ from __future__ import annotations
 
 import re
 from core.decode.clues import _WXYZ, _XYZW
+from core.decode.column_major import laid_out_in_lines, matrix_numbers, says_column_major, transform_grid
 from core.decode.pose_fields import ORPHAN, Field, flag_fields, json_fields, with_shaped_matrices, yaml_like_fields
 from core.decode.pose_flags import flag_pose
 from core.decode.poses import PoseText, checked_translation, homogeneous, one_value, unit_said, values_in
@@ -55,8 +56,9 @@ def keyed_poses(text: str) -> list[PoseText] | None:
         group[key] = f
     poses: list[PoseText] = []
     used: set[int] = set()
+    column_major = says_column_major(text)
     for path, group in groups.items():
-        poses += _group_poses(path, group, groups, used, layout)
+        poses += _group_poses(path, group, groups, used, layout, column_major)
     for first, second in twins:     # a key read into a pose is written twice: which one is meant?
         if id(second) in used:
             where = f" under '{'.'.join(second.path)[:60]}'" if second.path else ""
@@ -122,7 +124,7 @@ def _group_name(path: tuple, groups: dict, display: Field | None) -> str | None:
     return None
 
 
-def _group_poses(path, group, groups, used, layout) -> list[PoseText]:
+def _group_poses(path, group, groups, used, layout, column_major=False) -> list[PoseText]:
     out: list[PoseText] = []
     for key, f in group.items():                       # whole transforms under one key: 16 or 12 numbers
         if not (_WHOLE.fullmatch(key.lower()) or f.shape == (4, 4)):   # a 3x4 projection_matrix is no pose
@@ -132,22 +134,26 @@ def _group_poses(path, group, groups, used, layout) -> list[PoseText]:
             continue
         rows = [values[i:i + 4] for i in range(0, len(values), 4)]
         shape = "4x4" if len(values) == 16 else "3x4"
+        more = []
+        if column_major:
+            rows, more = transform_grid(values, laid_out_in_lines(f), f.line)
         rotation, t = homogeneous(rows, f.line, f"{shape} transform", f.line)
         used.add(id(f))
         note = (f"a {shape} matrix with its shape written beside it (rows, cols, data); the shape is not data"
-                if f.shape else f"read '{f.key}' as a {shape} transform, rows written one after another")
+                if f.shape else f"read '{f.key}' as a {shape} transform, "
+                + ("as the text orders it" if column_major else "rows written one after another"))
         name = _frames(path, groups) or (f.key if key not in _GENERIC_NAMES else _group_name(path, groups, f))
         out.append(PoseText(tuple(rotation), f"{shape} transform", f.line, {"kind": "matrix"}, t,
-                            _unit_of(f, group), name, [note]))
-    pose = _translation_and_rotation(path, group, groups, used, layout, whole=bool(out))
+                            _unit_of(f, group), name, [note] + more))
+    pose = _translation_and_rotation(path, group, groups, used, layout, whole=bool(out), column_major=column_major)
     if pose:
         out.append(pose)
-    out += _suffix_pairs(group, used)
-    out += _rotations_alone(group, used, bool(out) or len(groups) > 1)
+    out += _suffix_pairs(group, used, column_major)
+    out += _rotations_alone(group, used, bool(out) or len(groups) > 1, column_major)
     return out
 
 
-def _translation_and_rotation(path, group, groups, used, layout, whole: bool) -> PoseText | None:
+def _translation_and_rotation(path, group, groups, used, layout, whole: bool, column_major=False) -> PoseText | None:
     t_field = next((group[k] for k in group if k.lower() in _TRANSLATION and id(group[k]) not in used), None)
     r_field = next((group[k] for k in group if k.lower() in _ROTATION and id(group[k]) not in used), None)
     t_sub = next((k for k in _TRANSLATION if _components(groups.get(path + (k,), {}), _COMPONENTS_T)), None)
@@ -169,7 +175,7 @@ def _translation_and_rotation(path, group, groups, used, layout, whole: bool) ->
         unit, line = _unit_of(sub["x"], sub) or _unit_of(sub["x"], group), sub["x"].line
         used.update(id(sub[c]) for c in _COMPONENTS_T)
     if r_field is not None:
-        rotation, fixed, prefer, more = _rotation_from_key(r_field)
+        rotation, fixed, prefer, more = _rotation_from_key(r_field, column_major)
         used.add(id(r_field))
         notes += more
         line = min(line or r_field.line, r_field.line)
@@ -204,7 +210,7 @@ def _one(field: Field) -> float:
     return one_value(field.value, field.line, field.key)
 
 
-def _rotation_from_key(field: Field):
+def _rotation_from_key(field: Field, column_major=False):
     """(numbers, fixed hints, ranking bonuses, notes) of a rotation written under one key."""
     values = values_in(field.value, field.line)
     key = _bare(field.name)
@@ -235,7 +241,8 @@ def _rotation_from_key(field: Field):
                            "orientation lists are usually x, y, z, w (common practice)"),)
         return values, fixed, prefer, notes
     if len(values) == 9:
-        return values, {"kind": "matrix"}, (), notes
+        values, more = matrix_numbers(field, values, column_major)
+        return values, {"kind": "matrix"}, (), notes + more
     if len(values) == 3:
         return values, {}, (), notes
     raise DecodeError(f"line {field.line}: '{field.key}' holds {len(values)} numbers; a rotation is 9 (a matrix),"
@@ -255,7 +262,7 @@ def _flat_rotation(group, used):
         "roll, pitch and yaw read by name (yaw-pitch-roll, intrinsic Z-Y'-X'')"]
 
 
-def _suffix_pairs(group: dict, used: set) -> list[PoseText]:
+def _suffix_pairs(group: dict, used: set, column_major=False) -> list[PoseText]:
     """`R: …` with `T: …`, and `R_00`/`T_00` pairs: one transform per suffix (the suffix names it)."""
     out = []
     lowered = {k.lower(): f for k, f in group.items()}
@@ -270,14 +277,15 @@ def _suffix_pairs(group: dict, used: set) -> list[PoseText]:
         rotation = values_in(f.value, f.line)
         if len(rotation) != 9:
             continue
+        rotation, more = matrix_numbers(f, rotation, column_major)
         used.update((id(f), id(t)))
         out.append(PoseText(tuple(rotation), "rotation R with translation T", f.line, {"kind": "matrix"},
                             checked_translation(values_in(t.value, t.line), t.line), _unit_of(t, group),
-                            suffix.lstrip("_") or None, [f"read '{f.key}' (3x3) with '{t.key}' (translation)"]))
+                            suffix.lstrip("_") or None, [f"read '{f.key}' (3x3) with '{t.key}' (translation)"] + more))
     return out
 
 
-def _rotations_alone(group: dict, used: set, among_others: bool) -> list[PoseText]:
+def _rotations_alone(group: dict, used: set, among_others: bool, column_major=False) -> list[PoseText]:
     """A rectifying rotation (R0_rect, rectification_matrix, R_rect_00) among other transforms, or a
     rotation written with its shape: a transform without a translation, named by its key."""
     out = []
@@ -289,12 +297,13 @@ def _rotations_alone(group: dict, used: set, among_others: bool) -> list[PoseTex
         values = values_in(f.value, f.line)
         if len(values) != 9:
             continue
+        values, more = matrix_numbers(f, values, column_major)
         used.add(id(f))
         out.append(PoseText(tuple(values), "rotation", f.line, {"kind": "matrix"}, None, None, f.key,
-                            [f"read '{f.key}' as a 3x3 rotation (no translation is written with it)"]))
+                            [f"read '{f.key}' as a 3x3 rotation (no translation is written with it)"] + more))
     vectors = [f for k, f in group.items() if id(f) not in used and f.shape in ((3, 1), (1, 3)) and k in _ROTATION]
     for f in vectors:
-        rotation, fixed, prefer, notes = _rotation_from_key(f)
+        rotation, fixed, prefer, notes = _rotation_from_key(f, column_major)
         used.add(id(f))
         out.append(PoseText(tuple(rotation), "rotation", f.line, fixed, None, None, f.key, notes, prefer))
     return out
