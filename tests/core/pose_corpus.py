@@ -198,6 +198,11 @@ HOMOGENEOUS = [
              " text says otherwise)",
              "model matrix (column-major): 0 1 0 0  -1 0 0 0  0 0 1 0  0.5 0.25 2 1",
              mat([[0, -1, 0], [1, 0, 0], [0, 0, 1]]), (0.5, 0.25, 2.0), None, "matrix"),
+    PoseCase("column-major-keyed-comment", "homogeneous-4x4",
+             "invented values; a keyed 16-number list whose trailing comment says column-major (numpy"
+             " reshape order='F' builds the expected matrix)",
+             "T_world_cam: [0, 1, 0, 0, -1, 0, 0, 0, 0, 0, 1, 0, 0.5, 0.25, 2, 1]  # column-major",
+             mat([[0, -1, 0], [1, 0, 0], [0, 0, 1]]), (0.5, 0.25, 2.0), None, "matrix", name=None),
     # invented: a camera 52.3 deg about x at 4.031128874 from the origin, stored as float32 values
     PoseCase("transforms-json-frame", "homogeneous-4x4",
              "invented values in the layout of a transforms.json camera file (camera_angle_x, frames with"
@@ -624,6 +629,17 @@ PUBLISHER = [
              "ros2 run tf2_ros static_transform_publisher --x 1 --y 2 --z 3 --qx 0 --qy 0 --qz 0.3826834"
              " --qw 0.9238795 --frame-id world --child-frame-id cam",
              xyzw(0, 0, 0.3826834, 0.9238795), (1.0, 2.0, 3.0), None, "quaternion"),
+    PoseCase("publisher-named-flags-left-out", "publisher-args",
+             "invented values; named-flag form with --y, --z, --pitch and --roll left out (the form's default"
+             " for a left-out flag is 0, from memory); read bare, the four numbers were an axis and an angle",
+             "ros2 run tf2_ros static_transform_publisher --x 0.25 --yaw 1.5708 --frame-id base_link"
+             " --child-frame-id gps",
+             euler("ZYX", [1.5708, 0, 0]), (0.25, 0.0, 0.0), None, "angles"),
+    PoseCase("publisher-named-flags-quaternion-left-out", "publisher-args",
+             "invented values; named-flag form with only --qz and --qw (--qx, --qy 0 by default, from memory)",
+             "ros2 run tf2_ros static_transform_publisher --x 0.1 --y 0.2 --z 0.3 --qz 0.7071068 --qw 0.7071068"
+             " --frame-id map --child-frame-id odom",
+             xyzw(0, 0, 0.7071068, 0.7071068), (0.1, 0.2, 0.3), None, "quaternion"),
     PoseCase("publisher-named-flags-order-shuffled", "publisher-args",
              "invented values; named flags in another order: the flags name each number",
              "ros2 run tf2_ros static_transform_publisher --frame-id a --child-frame-id b --roll -0.2"
