@@ -10,8 +10,8 @@ import numpy as np
 from core import representations
 from core.errors import DecodeError, FramewrightError
 from core.decode.unit_marks import respect_unit_marks
-from core.decode.candidates import (_MAX_MAGNITUDE, _NEAR_LOCK_DEG, _Candidate, _four_candidates,
-                                    _matrix_candidates, _three_candidates)
+from core.decode.candidates import _MAX_MAGNITUDE, _NEAR_LOCK_DEG, _Candidate, _matrix_candidates, _three_candidates
+from core.decode.four_numbers import _four_candidates
 from core.decode.characters import _shorten
 from core.decode.clues import _WXYZ, _XYZW, _read_clues
 from core.decode.hints import DecodeHints, Reading
