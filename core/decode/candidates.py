@@ -24,6 +24,7 @@ POINTS = {
     "jpl offered last": -3.0, "order named": 2.0, "jpl named": 6.0,
     "unit axis": 1.0, "near unit axis": -1.5, "far from unit axis": -2.5,
     "angle beyond one": 2.5, "four numbers of unit norm": -1.0, "angle written first": 3.5,
+    "angle first by the values": 0.5,
     "proper Euler middle outside 0..180": -0.7, "Tait-Bryan middle beyond 90": -1.0,
     "rotation vector prior": 0.9,
     # a parameter set read only when named (core/representations.py, caption_only): named, it

@@ -6,7 +6,15 @@ from __future__ import annotations
 import numpy as np
 
 from core.decode.candidates import NAMED_NUMBERS, POINTS, TEXT_NAMES_KIND, _Candidate, _unit_choices, _unit_word
+from core.decode.hints import AXIS_ANGLE_ORDERS, QUATERNION_ORDERS
 from core.representations import AXIS_ANGLE
+
+
+def _angle_first_by_values(v, unit_like: bool) -> bool:
+    """'0.785398 0 0 1' (angle then axis, as some libraries print it): read axis first, the axis would be
+    (0.785, 0, 0) and the angle 1; the last three numbers are the unit axis."""
+    unit = lambda part: abs(float(np.linalg.norm(part)) - 1.0) < 1e-3
+    return not unit_like and unit(v[1:]) and not unit(v[:3])
 
 
 def _four_candidates(values, parsed, hints, clues, keyed):
@@ -60,18 +68,29 @@ def _four_candidates(values, parsed, hints, clues, keyed):
         if "quaternion" in clues.kinds:
             c.plus(TEXT_NAMES_KIND["quaternion"], "the text says quaternion")
         out.append(c)
-    if hints.order:
+    if hints.order in AXIS_ANGLE_ORDERS:      # the hint says an axis and an angle, in this order
+        out = []
+    elif hints.order:
         if fixed_order:   # names decide the order; the hint can still choose Hamilton or JPL
             out = [c for c in out if (c.conventions["convention"] == "JPL") == (hints.order == "jpl")]
         else:
             out = [c for c in out if ("jpl" if c.conventions["convention"] == "JPL" else c.conventions["order"])
                    == hints.order]
-    # axis and angle: axis first, angle last; and angle first when the text writes it so
+    # axis and angle: axis first, angle last; and angle first when the text writes it so, when the values
+    # say so (the last three are a unit axis and the first three are not), or when the hint asks for it
     layouts = [("axis, angle", v[:3], float(v[3]))]
-    if clues.angle_first and not (keyed and keyed.kind == AXIS_ANGLE.kind):
+    by_values = _angle_first_by_values(v, unit_like)
+    if (clues.angle_first or by_values or hints.order == "angle-first") and not (keyed and keyed.kind == AXIS_ANGLE.kind):
         layouts.append(("angle, axis", v[1:], float(v[0])))
+    if hints.order in AXIS_ANGLE_ORDERS:
+        layouts = [layout for layout in layouts if AXIS_ANGLE_ORDERS[hints.order] == layout[0]]
     for order, axis, angle in layouts:
         out += _axis_angle_candidates(order, axis, angle, hints, clues, keyed, unit_like)
+        if order == "angle, axis" and by_values and not clues.angle_first:
+            for c in out[-2:]:
+                if c.conventions.get("order") == order:
+                    c.plus(POINTS["angle first by the values"], "the last three numbers have unit length and the"
+                           " first three do not: likely the angle, then the axis")
     if keyed and keyed.kind == "quaternion":
         out = [c for c in out if c.kind == "quaternion"]
     if keyed and keyed.kind == AXIS_ANGLE.kind:
@@ -83,7 +102,7 @@ def _axis_angle_candidates(order, axis, angle, hints, clues, keyed, unit_like):
     from core.orientation import Orientation
     out = []
     axis_length = float(np.linalg.norm(axis))
-    if not (axis_length > 0 or angle == 0) or (hints.order and not hints.kind):
+    if not (axis_length > 0 or angle == 0) or (hints.order in QUATERNION_ORDERS and not hints.kind):
         return out
     fixed_units = keyed.units if keyed and keyed.kind == AXIS_ANGLE.kind else None
     angle_first = order == "angle, axis"
@@ -108,7 +127,7 @@ def _axis_angle_candidates(order, axis, angle, hints, clues, keyed, unit_like):
             c.plus(NAMED_NUMBERS[AXIS_ANGLE.kind], keyed.note)
         if AXIS_ANGLE.kind in clues.kinds:
             c.plus(TEXT_NAMES_KIND[AXIS_ANGLE.kind], "the text says axis and angle")
-        if angle_first:
+        if angle_first and clues.angle_first:
             c.plus(POINTS["angle written first"], "the text writes the angle before the axis")
         out.append(c)
     return out
