@@ -9,7 +9,7 @@ Two layers:
 
 Nothing here guesses silently: every assumption a reading makes is in its `conventions`, every repair
 in its `notes`, and the reason for its rank in `why`. The modules, in the order text passes through them:
-characters (clean-up, comments, size) -> numbers (+ number_refusals) -> clues and named (what the words
+characters (clean-up, comments, size) -> numbers (+ angle_marks, number_refusals) -> clues and named (what the words
 say) -> candidates and four_numbers (readings per count) -> readings (ranking); our_json reads our own
 export. The pose readers (pose_*, printouts, column_major) come first and hand their rotations to readings.
 """
