@@ -27,6 +27,12 @@ POINTS = {
     "angle first by the values": 0.5,
     "proper Euler middle outside 0..180": -0.7, "Tait-Bryan middle beyond 90": -1.0,
     "rotation vector prior": 0.9,
+    # units read from the values alone (whole numbers, decimals within ±2π, multiples of 15° in radians)
+    "decimals within 2 pi": 0.6, "multiple of pi/12": 1.0, "whole numbers": 0.6,
+    # a title line set aside ('Mount 7 rotation:' above the numbers) makes a reading a little less likely
+    "without the title line": -0.5,
+    # a pose's 'orientation' list of 4 numbers without an order named (pose_keys)
+    "orientation list scalar last": 1.0,
     # a parameter set read only when named (core/representations.py, caption_only): named, it
     # outranks what bare numbers suggest; unnamed, it is never offered
     "caption names a parameter set": 3.0,
@@ -81,12 +87,12 @@ def _unit_choices(values, hints: DecodeHints, clues: _Clues, fixed: str | None):
     if any(abs(v) > _TWO_PI + 1e-9 for v in values):
         return [("deg", 0.0, "a value beyond ±2π: degrees")]
     if any(v != round(v) for v in values):
-        points = 0.6
+        points = POINTS["decimals within 2 pi"]
         if any(v != 0 and abs(v / (math.pi / 12) - round(v / (math.pi / 12))) < 2e-4 for v in values):
-            points = 1.0
+            points = POINTS["multiple of pi/12"]
         return [("rad", points, "all within ±2π with decimals: may be radians"),
                 ("deg", 0.0, "degrees, the default")]
-    return [("deg", 0.6, "whole numbers: degrees more likely"), ("rad", 0.0, "radians")]
+    return [("deg", POINTS["whole numbers"], "whole numbers: degrees more likely"), ("rad", 0.0, "radians")]
 
 
 def _unit_word(units: str) -> str:

@@ -80,7 +80,8 @@ def _four_candidates(values, parsed, hints, clues, keyed):
     # say so (the last three are a unit axis and the first three are not), or when the hint asks for it
     layouts = [("axis, angle", v[:3], float(v[3]))]
     by_values = _angle_first_by_values(v, unit_like)
-    if (clues.angle_first or by_values or hints.order == "angle-first") and not (keyed and keyed.kind == AXIS_ANGLE.kind):
+    angle_first_offered = clues.angle_first or by_values or hints.order == "angle-first"
+    if angle_first_offered and not (keyed and keyed.kind == AXIS_ANGLE.kind):
         layouts.append(("angle, axis", v[1:], float(v[0])))
     if hints.order in AXIS_ANGLE_ORDERS:
         layouts = [layout for layout in layouts if AXIS_ANGLE_ORDERS[hints.order] == layout[0]]

@@ -6,6 +6,8 @@ named components, `rows`/`cols`/`data` matrices, 4x4 lists under a key), INI-lik
 from __future__ import annotations
 
 import re
+
+from core.decode.candidates import POINTS
 from core.decode.clues import _WXYZ, _XYZW
 from core.decode.column_major import laid_out_in_lines, matrix_numbers, says_column_major, transform_grid
 from core.decode.pose_fields import ORPHAN, Field, flag_fields, json_fields, with_shaped_matrices, yaml_like_fields
@@ -237,7 +239,7 @@ def _rotation_from_key(field: Field, column_major=False):
         if "order" not in fixed:
             notes.append(f"'{field.key}' holds 4 numbers and does not say which is w: both orders are offered")
             if key == "orientation":
-                prefer = (({"order": "xyzw", "convention": "Hamilton"}, 1.0,
+                prefer = (({"order": "xyzw", "convention": "Hamilton"}, POINTS["orientation list scalar last"],
                            "orientation lists are usually x, y, z, w (common practice)"),)
         return values, fixed, prefer, notes
     if len(values) == 9:
