@@ -160,7 +160,10 @@ def _translation_and_rotation(path, group, groups, used, layout, whole: bool, co
     r_field = next((group[k] for k in group if k.lower() in _ROTATION and id(group[k]) not in used), None)
     t_sub = next((k for k in _TRANSLATION if _components(groups.get(path + (k,), {}), _COMPONENTS_T)), None)
     r_sub = next((k for k in _ROTATION if _components(groups.get(path + (k,), {}), _COMPONENTS_Q)), None)
-    has_translation = t_field is not None or t_sub is not None
+    # x, y, z beside qx … qw or roll, pitch, yaw in one group: a flat pose block
+    t_flat = t_field is None and t_sub is None and r_field is None and r_sub is None and \
+        all(k in group and id(group[k]) not in used for k in _COMPONENTS_T) and _flat_names(group)
+    has_translation = t_field is not None or t_sub is not None or t_flat
     if not has_translation and (whole or not path or (r_field is None and r_sub is None)):
         return None                         # a lone rotation (not under a name): the ordinary decoder reads it
     if has_translation and r_field is None and r_sub is None and not _flat_names(group):
@@ -176,6 +179,11 @@ def _translation_and_rotation(path, group, groups, used, layout, whole: bool, co
         translation = checked_translation([_one(sub[c]) for c in _COMPONENTS_T], sub["x"].line)
         unit, line = _unit_of(sub["x"], sub) or _unit_of(sub["x"], group), sub["x"].line
         used.update(id(sub[c]) for c in _COMPONENTS_T)
+    elif t_flat:
+        translation = checked_translation([_one(group[c]) for c in _COMPONENTS_T], group["x"].line)
+        unit, line = _unit_of(group["x"], group), group["x"].line
+        used.update(id(group[c]) for c in _COMPONENTS_T)
+        notes.append("x, y, z read as the position beside the named rotation components")
     if r_field is not None:
         rotation, fixed, prefer, more = _rotation_from_key(r_field, column_major)
         used.add(id(r_field))

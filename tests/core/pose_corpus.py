@@ -477,6 +477,14 @@ POSITION_QUATERNION = [
 # Pose YAML / JSON blocks
 # ---------------------------------------------------------------------------------------------------
 POSE_BLOCKS = [
+    PoseCase("flat-keys-position-rpy", "pose-yaml-json",
+             "invented values; a flat YAML group with x, y, z and roll, pitch, yaw keys (radians by their decimals)",
+             "imu:\n  x: 0.12\n  y: -0.03\n  z: 0.4\n  roll: 0.0\n  pitch: 0.1745\n  yaw: 1.5708",
+             euler("ZYX", [1.5708, 0.1745, 0.0]), (0.12, -0.03, 0.4), None, "angles"),
+    PoseCase("flat-json-position-quaternion", "pose-yaml-json",
+             "invented values; one flat JSON object with x, y, z and qx, qy, qz, qw",
+             '{"x": 1.0, "y": 2.0, "z": 3.0, "qx": 0.0, "qy": 0.0, "qz": 0.3826834, "qw": 0.9238795}',
+             xyzw(0, 0, 0.3826834, 0.9238795), (1.0, 2.0, 3.0), None, "quaternion"),
     PoseCase("pose-stamped-yaml-echo", "pose-yaml-json",
              "invented values in the YAML echo layout of geometry_msgs/PoseStamped (header, pose.position,"
              " pose.orientation x y z w)",
