@@ -24,6 +24,7 @@ from core.decode.hints import KINDS, DecodeHints, Reading
 from core.decode.numbers import (UNDERSTOOD_COUNTS, FoundNumber, ParsedNumbers, _MAX_NUMBERS, extract_numbers,
                                  parse_numbers)
 from core.decode.our_json import _decode_our_json
+from core.decode.pose_expressions import read_poses
 from core.decode.pose_keys import keyed_poses
 from core.decode.pose_lines import argument_poses, column_poses, origin_poses, quaternion_sum, sdf_poses
 from core.decode.pose_matrices import matrix_poses
@@ -57,7 +58,7 @@ def decode(text: str, hints=None) -> list[Reading]:
     if from_json is not None:
         return from_json
     for reader in _POSE_READERS:
-        poses = reader(text)
+        poses = read_poses(reader, text)
         if poses:
             return pose_readings(poses, hints, [])
     parsed = parse_numbers(text, max_numbers=_MAX_NUMBERS)

@@ -77,6 +77,9 @@ class _Candidate:
 def _unit_choices(values, hints: DecodeHints, clues: _Clues, fixed: str | None):
     """[(units, points, reason)]: the rule of thumb is that whole numbers above 2π are degrees, and
     numbers all within ±2π with decimals may well be radians."""
+    if hints.units == "deg" and clues.pi_written:
+        raise DecodeError(f"'{clues.pi_written}' is an angle in radians (π is half a turn); the degrees hint"
+                          " contradicts it: drop the hint or write the value in degrees")
     if hints.units:
         return [(hints.units, 0.0, "units given")]
     if fixed:

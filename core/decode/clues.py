@@ -24,6 +24,7 @@ class _Clues:
     kinds: set = field(default_factory=set)
     notes: list = field(default_factory=list)
     angle_first: bool = False
+    pi_written: str | None = None       # an evaluated expression naming π ('PI/2'): its angles are radians
 
 
 _REF = r"(?:reference|ref|world|nav(?:igation)?|ned|enu|local|vehicle|platform|base|parent|earth|inertial|fixed)"
@@ -49,6 +50,7 @@ _AXIS_FIRST = re.compile(r"(?<![a-z])axis(?![a-z])[ _,/()a-z-]{0,16}?(?<![a-z])(
 _RADIAN_VECTOR = re.compile(r"(?<![a-z])(?:rvecs?|om)(?![a-z])")
 _DEG_WORD = re.compile(r"°|(?<![a-z])deg(?:s|rees?)?(?![a-z])")
 _RAD_WORD = re.compile(r"(?<![a-z])rad(?:s|ians?)?(?![a-z])")
+_PI_EVALUATED = re.compile(r"evaluated '(?P<written>[^']*(?:pi|π)[^']*)'", re.IGNORECASE)
 
 
 def _read_clues(parsed: ParsedNumbers) -> _Clues:
@@ -117,10 +119,25 @@ def _read_clues(parsed: ParsedNumbers) -> _Clues:
     if angle_first and not (axis_first and axis_first.start() < angle_first.start()):
         clues.angle_first = True
         clues.kinds.add(AXIS_ANGLE.kind)
+    _pi_clue(parsed, clues)
     if clues.units is None and _RADIAN_VECTOR.search(words):
         clues.units, clues.units_reason = "rad", "rvec and om rotation vectors are in radians (common practice)"
     _library_clues(parsed, clues)
     return clues
+
+
+def _pi_clue(parsed: ParsedNumbers, clues: _Clues) -> None:
+    """'PI/2', '${-M_PI/2}': π is half a turn in radians, so angles written with it are radians; a text that
+    also says degrees contradicts itself and is refused."""
+    found = next((m for m in map(_PI_EVALUATED.search, parsed.notes) if m), None)
+    if found is None:
+        return
+    clues.pi_written = found.group("written")
+    if clues.units == "deg":
+        raise DecodeError(f"'{clues.pi_written}' is an angle in radians (π is half a turn), but {clues.units_reason}"
+                          " too; Framewright will not guess which is meant")
+    if clues.units is None:
+        clues.units, clues.units_reason = "rad", f"'{clues.pi_written}' names π: radians"
 
 
 def _library_clues(parsed: ParsedNumbers, clues: _Clues) -> None:
