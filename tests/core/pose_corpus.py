@@ -424,6 +424,14 @@ SEVERAL_NAMED = [
 # Position + quaternion lines, orders named by captions or headers
 # ---------------------------------------------------------------------------------------------------
 POSITION_QUATERNION = [
+    PoseCase("caption-on-the-line-xyz-ypr", "position-quaternion",
+             "invented values; the columns named before the numbers on the same line (x y z yaw pitch roll:)",
+             "x y z yaw pitch roll: 0.25 0 1.1 30 0 -5", euler("ZYX", [30, 0, -5], degrees=True), (0.25, 0.0, 1.1),
+             None, "angles"),
+    PoseCase("caption-on-the-line-xyz-quaternion", "position-quaternion",
+             "invented values; comma-separated names, '=', then the numbers (x, y, z, qx, qy, qz, qw = …)",
+             "x, y, z, qx, qy, qz, qw = 1, 2, 3, 0, 0, 0.3826834, 0.9238795", xyzw(0, 0, 0.3826834, 0.9238795),
+             (1.0, 2.0, 3.0), None, "quaternion"),
     PoseCase("tum-groundtruth-line", "position-quaternion", TUM,
              "# ground truth trajectory\n# file: 'rgbd_dataset_freiburg1_xyz.bag'\n"
              "# timestamp tx ty tz qx qy qz qw\n1305031098.6659 1.3563 0.6305 1.6380 0.6132 0.5962 -0.3311 -0.3986",
