@@ -12,6 +12,7 @@ from core.decode.clues import _WXYZ, _XYZW
 from core.decode.column_major import laid_out_in_lines, matrix_numbers, says_column_major, transform_grid
 from core.decode.pose_fields import ORPHAN, Field, flag_fields, json_fields, with_shaped_matrices, yaml_like_fields
 from core.decode.pose_flags import flag_pose
+from core.decode.pose_names import _GENERIC_NAMES, _bare, _frames, _group_name, _unit_of
 from core.decode.poses import PoseText, checked_translation, homogeneous, one_value, unit_said, values_in
 from core.errors import DecodeError
 from core.representations import ROTATION_VECTOR
@@ -24,11 +25,9 @@ _ROTATION = {"rotation", "orientation", "quaternion", "quat", "q", "rot", "r", "
 _WHOLE = re.compile(r"t|tr|rt|r_t|rt_\w+|\w+_rt|h|transform|transformation|pose|extrinsics?|matrix|t_\w+|tr_\w+|\w+_to_\w+|"
                     r"transform_\w+|\w+_transform|\w+_pose|pose_\w+|extrinsics?_\w+")
 _ROTATION_ONLY = re.compile(r"r\d*_rect\w*|r_rect\w*|rectification\w*|r_\w+|rotation_\w+|\w+_rotation|rot_\w+")
-_UNIT_MARK = re.compile(r"(?:\[(mm|m|cm)\]|\((mm|m|cm)\)|_(mm|m|cm))$")
 _ROTATION_VECTOR = ROTATION_VECTOR.key_names      # rvec, om, rotvec, rotation_vector, ... (core/representations.py)
 _COMPONENTS_Q = {"x", "y", "z", "w", "qx", "qy", "qz", "qw"}
 _COMPONENTS_T = ("x", "y", "z")
-_GENERIC_NAMES = {"transform", "pose", "data", "value", "extrinsics", "calibration"}
 _SET_ASIDE_NOTE = 12
 
 
@@ -82,48 +81,6 @@ def keyed_poses(text: str) -> list[PoseText] | None:
             shown = ", ".join(dict.fromkeys(unused[:_SET_ASIDE_NOTE])) + (" …" if len(unused) > _SET_ASIDE_NOTE else "")
             p.notes.append(f"keys not read (no part of a pose): {shown}")
     return sorted(poses, key=lambda p: p.line)
-
-
-def _bare(name: str) -> str:
-    """'Translation (mm)' -> 'translation'; 'orientation.x' -> 'x'; 'Rotation matrix' -> 'rotation_matrix'."""
-    name = name.split(".")[-1]
-    name = re.sub(r"[ ]*[\[(].*$", "", name).strip()
-    return re.sub(r"[ ]+", "_", name)
-
-
-def _unit_of(field: Field, group: dict) -> str | None:
-    m = _UNIT_MARK.search(field.key.lower().strip())
-    if m:
-        return next(g for g in m.groups() if g)
-    said = unit_said(field.key)                          # 'T_base_cam (translation in mm)'
-    if said:
-        return said
-    for key in ("unit", "units", "length_unit"):
-        if key in group and group[key].value.strip().strip("'\"").lower() in ("m", "mm", "cm", "in"):
-            return group[key].value.strip().strip("'\"").lower()
-    return None
-
-
-def _frames(path: tuple, groups: dict) -> str | None:
-    """'parent -> child' from frame_id / child_frame_id beside the transform or in its header."""
-    for depth in range(len(path), -1, -1):
-        here = groups.get(path[:depth], {})
-        child = here.get("child_frame_id")
-        parent = here.get("frame_id") or groups.get(path[:depth] + ("header",), {}).get("frame_id")
-        if child is not None and parent is not None:
-            return f"{parent.value.strip(chr(34) + chr(39))} -> {child.value.strip(chr(34) + chr(39))}"
-    return None
-
-
-def _group_name(path: tuple, groups: dict, display: Field | None) -> str | None:
-    frames = _frames(path, groups)
-    if frames:
-        return frames
-    if display is not None and display.path:
-        for part in reversed(display.path):
-            if not part.startswith("#") and part.lower() not in _GENERIC_NAMES:
-                return part
-    return None
 
 
 def _group_poses(path, group, groups, used, layout, column_major=False) -> list[PoseText]:
