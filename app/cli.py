@@ -65,6 +65,10 @@ def add_reading_options(parser: argparse.ArgumentParser) -> None:
                        help="quaternion written (x, y, z, w)")
     order.add_argument("--scalar-first", dest="order", action="store_const", const="wxyz",
                        help="quaternion written (w, x, y, z)")
+    order.add_argument("--angle-first", dest="order", action="store_const", const="angle-first",
+                       help="an angle, then the axis (x, y, z)")
+    order.add_argument("--axis-first", dest="order", action="store_const", const="axis-first",
+                       help="the axis (x, y, z), then the angle")
     meaning = group.add_mutually_exclusive_group()
     meaning.add_argument("--transposed", dest="transposed", action="store_const", const=True,
                          help="the matrix is reference -> body (rows are the body axes)")

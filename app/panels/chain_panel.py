@@ -28,6 +28,9 @@ COLUMNS = ("#", "On", "Step", "Orientation", "Inverted")
 ON_COLUMN, NAME_COLUMN, INVERTED_COLUMN = 1, 2, 4
 
 
+_KEEP = object()        # set_step: leave the step's position as it is
+
+
 def _position_words(position) -> str:
     """'x 120, y −35.5, z 8.25 mm': a position in its own unit, for a person."""
     x, y, z = (compact(v) for v in position.shown())
@@ -70,9 +73,10 @@ class ChainPanel(Panel):
                                     placeholder="bracket")
         self.add_from_editors = button("Add from the editors", "Add a step at the body end holding the orientation "
                                                                "the editors show (the selected mount's), typed there "
-                                                               "in any representation.")
-        self.set_from_editors = button("Set from the editors", "Give the chosen step the orientation the editors "
-                                                               "show.")
+                                                               "in any representation, and its position when it has "
+                                                               "one.")
+        self.set_from_editors = button("Set from the editors", "Give the chosen step the orientation (and position) "
+                                                               "the editors show.")
         self.pasted = PastedOrientation()
         self.add_from_text = button("Add from the text", "Add a step at the body end holding the chosen reading of "
                                                          "the pasted text.")
@@ -128,8 +132,11 @@ class ChainPanel(Panel):
         self.invert_button.clicked.connect(self.invert_step)
         self.enable_button.clicked.connect(self.toggle_step)
         self.delete_button.clicked.connect(self.delete_step)
-        self.add_from_editors.clicked.connect(lambda: self.add_step(self.model.current_orientation(), "editors"))
-        self.set_from_editors.clicked.connect(lambda: self.set_step(self.model.current_orientation()))
+        # the editors show a pose when the mount has a position: a step from them keeps it (a rigid transform)
+        self.add_from_editors.clicked.connect(lambda: self.add_step(self.model.current_orientation(), "editors",
+                                                                    self.model.current_mount().position))
+        self.set_from_editors.clicked.connect(lambda: self.set_step(self.model.current_orientation(),
+                                                                    self.model.current_mount().position))
         self.add_from_text.clicked.connect(lambda: self.add_step(self.pasted.orientation(), "text"))
         self.set_from_text.clicked.connect(lambda: self.set_step(self.pasted.orientation()))
         self.pasted.reading_changed.connect(self._update_buttons)
@@ -147,23 +154,28 @@ class ChainPanel(Panel):
             self.table.selectRow(row)
 
     # ---- edits (each one undo step) ------------------------------------------------------------------
-    def add_step(self, orientation, source: str) -> None:
+    def add_step(self, orientation, source: str, position=None) -> None:
         if orientation is None:
             return
         chain = self.model.chain
         name = self.step_name.text().strip() or f"step {len(chain) + 1}"
-        self.model.apply(operations.set_chain, chain.with_step(ChainStep(name, orientation)), origin=self,
+        step = ChainStep(name, orientation, position=position)
+        self.model.apply(operations.set_chain, chain.with_step(step), origin=self,
                          text=f"Add chain step “{name}”")
         self.step_name.clear()
         self.select_row(len(self.model.chain) - 1)
 
-    def set_step(self, orientation) -> None:
+    def set_step(self, orientation, position=_KEEP) -> None:
+        """The chosen step's orientation; from the editors also their position (the mount's, or none), from
+        the text the step keeps its own."""
         row = self.selected_row()
         if orientation is None or row is None:
             return
         chain = self.model.chain
         step = chain.steps[row]
-        self.model.apply(operations.set_chain, chain.with_step_replaced(row, replace(step, orientation=orientation)),
+        changed = replace(step, orientation=orientation) if position is _KEEP else \
+            replace(step, orientation=orientation, position=position)
+        self.model.apply(operations.set_chain, chain.with_step_replaced(row, changed),
                          origin=self, text=f"Set chain step “{step.name}”")
         self.select_row(row)
 
@@ -259,11 +271,15 @@ class ChainPanel(Panel):
                 name = QTableWidgetItem(step.name)
                 name.setFlags(Qt.ItemFlag.ItemIsEnabled | Qt.ItemFlag.ItemIsSelectable | Qt.ItemFlag.ItemIsEditable)
                 summary = axis_angle_summary(step.orientation)
+                if step.position is not None:
+                    summary += f"; origin {_position_words(step.position)}"
                 if step.inverted:
                     summary += ", used inverted"
                 value = QTableWidgetItem(summary)
                 value.setFlags(Qt.ItemFlag.ItemIsEnabled | Qt.ItemFlag.ItemIsSelectable)
-                value.setToolTip("As entered (child in parent):\n" + full_tooltip(step.orientation))
+                where = "" if step.position is None else \
+                    f"\nOrigin of the child frame in the parent: {_position_words(step.position)}"
+                value.setToolTip("As entered (child in parent):\n" + full_tooltip(step.orientation) + where)
                 inverted = QTableWidgetItem("")
                 inverted.setFlags(Qt.ItemFlag.ItemIsEnabled | Qt.ItemFlag.ItemIsSelectable
                                   | Qt.ItemFlag.ItemIsUserCheckable)

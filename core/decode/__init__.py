@@ -9,8 +9,9 @@ Two layers:
 
 Nothing here guesses silently: every assumption a reading makes is in its `conventions`, every repair
 in its `notes`, and the reason for its rank in `why`. The modules, in the order text passes through them:
-characters (clean-up, comments, size) -> numbers (+ number_refusals) -> clues and named (what the words
-say) -> candidates (readings per count) -> readings (ranking); our_json reads our own export.
+characters (clean-up, comments, size) -> numbers (+ angle_marks, number_refusals) -> clues and named (what the words
+say) -> candidates and four_numbers (readings per count) -> readings (ranking); our_json reads our own
+export. The pose readers (pose_*, printouts, column_major) come first and hand their rotations to readings.
 """
 
 from __future__ import annotations
@@ -24,6 +25,7 @@ from core.decode.numbers import (UNDERSTOOD_COUNTS, FoundNumber, ParsedNumbers, 
                                  parse_numbers)
 from core.decode.our_json import _decode_our_json
 from core.decode.name_column import split_name_column
+from core.decode.pose_expressions import read_poses
 from core.decode.pose_keys import keyed_poses
 from core.decode.pose_lines import argument_poses, column_poses, origin_poses, quaternion_sum, sdf_poses
 from core.decode.pose_matrices import matrix_poses
@@ -61,7 +63,7 @@ def decode(text: str, hints=None) -> list[Reading]:
     if from_json is not None:
         return from_json
     for reader in _POSE_READERS:
-        poses = reader(text)
+        poses = read_poses(reader, text)
         if poses:
             return pose_readings(poses, hints, [])
     parsed = parse_numbers(text, max_numbers=_MAX_NUMBERS)

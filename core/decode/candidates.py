@@ -1,4 +1,5 @@
-"""Candidate readings for 9, 4 and 3 numbers, each with its score and the reasons for it."""
+"""Candidate readings for 9 and 3 numbers (four_numbers.py: 4), each with its score and the reasons for it,
+and the one table of ranking bonuses every candidate draws on."""
 
 from __future__ import annotations
 
@@ -23,8 +24,15 @@ POINTS = {
     "jpl offered last": -3.0, "order named": 2.0, "jpl named": 6.0,
     "unit axis": 1.0, "near unit axis": -1.5, "far from unit axis": -2.5,
     "angle beyond one": 2.5, "four numbers of unit norm": -1.0, "angle written first": 3.5,
+    "angle first by the values": 0.5,
     "proper Euler middle outside 0..180": -0.7, "Tait-Bryan middle beyond 90": -1.0,
     "rotation vector prior": 0.9,
+    # units read from the values alone (whole numbers, decimals within ±2π, multiples of 15° in radians)
+    "decimals within 2 pi": 0.6, "multiple of pi/12": 1.0, "whole numbers": 0.6,
+    # a title line set aside ('Mount 7 rotation:' above the numbers) makes a reading a little less likely
+    "without the title line": -0.5,
+    # a pose's 'orientation' list of 4 numbers without an order named (pose_keys)
+    "orientation list scalar last": 1.0,
     # a parameter set read only when named (core/representations.py, caption_only): named, it
     # outranks what bare numbers suggest; unnamed, it is never offered
     "caption names a parameter set": 3.0,
@@ -69,6 +77,9 @@ class _Candidate:
 def _unit_choices(values, hints: DecodeHints, clues: _Clues, fixed: str | None):
     """[(units, points, reason)]: the rule of thumb is that whole numbers above 2π are degrees, and
     numbers all within ±2π with decimals may well be radians."""
+    if hints.units == "deg" and clues.pi_written:
+        raise DecodeError(f"'{clues.pi_written}' is an angle in radians (π is half a turn); the degrees hint"
+                          " contradicts it: drop the hint or write the value in degrees")
     if hints.units:
         return [(hints.units, 0.0, "units given")]
     if fixed:
@@ -79,12 +90,12 @@ def _unit_choices(values, hints: DecodeHints, clues: _Clues, fixed: str | None):
     if any(abs(v) > _TWO_PI + 1e-9 for v in values):
         return [("deg", 0.0, "a value beyond ±2π: degrees")]
     if any(v != round(v) for v in values):
-        points = 0.6
+        points = POINTS["decimals within 2 pi"]
         if any(v != 0 and abs(v / (math.pi / 12) - round(v / (math.pi / 12))) < 2e-4 for v in values):
-            points = 1.0
+            points = POINTS["multiple of pi/12"]
         return [("rad", points, "all within ±2π with decimals: may be radians"),
                 ("deg", 0.0, "degrees, the default")]
-    return [("deg", 0.6, "whole numbers: degrees more likely"), ("rad", 0.0, "radians")]
+    return [("deg", POINTS["whole numbers"], "whole numbers: degrees more likely"), ("rad", 0.0, "radians")]
 
 
 def _unit_word(units: str) -> str:
@@ -117,111 +128,6 @@ def _matrix_candidates(values, parsed, hints, clues, keyed):
         if report.band != "exact":
             c.notes.append(report.message)
         c.orthogonality_error = report.error
-        out.append(c)
-    return out
-
-
-def _four_candidates(values, parsed, hints, clues, keyed):
-    from core.orientation import Orientation
-    v = np.array(values, dtype=float)
-    out = []
-    norm = float(np.linalg.norm(v))
-    unit_like = abs(norm - 1.0) < 1e-3
-    mags = np.abs(v)
-    first_largest = mags[0] > mags[1:].max()
-    last_largest = mags[3] > mags[:3].max()
-    fixed_order = keyed.order if keyed and keyed.kind == "quaternion" else None
-    orders = (("wxyz", "Hamilton"), ("xyzw", "Hamilton"), ("xyzw", "JPL"))
-    if fixed_order:   # the names said which is w; the values are already in w, x, y, z order
-        orders = (("wxyz", "Hamilton"), ("wxyz", "JPL"))
-    for order, convention in orders:
-        jpl = convention == "JPL"
-        if jpl:
-            # named components are already in w, x, y, z order; bare numbers are read scalar last
-            make = lambda: Orientation.from_quaternion(v, scalar_last=not fixed_order).inverse()
-            label = "quaternion (x, y, z, w), JPL convention: the inverse of the Hamilton reading"
-        else:
-            make = lambda s=(order == "xyzw"): Orientation.from_quaternion(v, scalar_last=s)
-            label = f"quaternion ({', '.join(order)}), Hamilton"
-        conventions = {"order": fixed_order or order, "convention": convention}
-        if fixed_order:
-            conventions["named"] = True
-            label = "quaternion by named components, " + (
-                "JPL convention: the inverse of the Hamilton reading" if jpl else "Hamilton")
-        c = _Candidate("quaternion", conventions, make, label)
-        if unit_like:
-            c.plus(POINTS["unit quaternion"], f"norm {norm:.6g}: a unit quaternion")
-        elif abs(norm - 1.0) < 0.05:
-            c.plus(POINTS["near unit quaternion"], f"norm {norm:.6g}: close to 1")
-        else:
-            c.plus(POINTS["far from unit"], f"norm {norm:.6g} is far from 1")
-        if fixed_order:
-            c.plus(0.0 if jpl else NAMED_NUMBERS["quaternion"], keyed.note)
-        elif not jpl:
-            if order == "wxyz" and first_largest:
-                c.plus(POINTS["largest first or last"], "the first number is the largest in magnitude: likely w first")
-            elif order == "xyzw" and last_largest:
-                c.plus(POINTS["largest first or last"], "the last number is the largest in magnitude: likely w last")
-            elif order == "wxyz" and not last_largest:
-                c.plus(POINTS["w first by default"], "w first is the default order")
-        if jpl:
-            c.plus(POINTS["jpl offered last"], "the JPL convention is offered last, never assumed")
-        tag = "jpl" if jpl else order
-        if clues.order == tag:
-            c.plus(POINTS["jpl named"] if jpl else POINTS["order named"], "the text names this order")
-        if "quaternion" in clues.kinds:
-            c.plus(TEXT_NAMES_KIND["quaternion"], "the text says quaternion")
-        out.append(c)
-    if hints.order:
-        if fixed_order:   # names decide the order; the hint can still choose Hamilton or JPL
-            out = [c for c in out if (c.conventions["convention"] == "JPL") == (hints.order == "jpl")]
-        else:
-            out = [c for c in out if ("jpl" if c.conventions["convention"] == "JPL" else c.conventions["order"])
-                   == hints.order]
-    # axis and angle: axis first, angle last; and angle first when the text writes it so
-    layouts = [("axis, angle", v[:3], float(v[3]))]
-    if clues.angle_first and not (keyed and keyed.kind == AXIS_ANGLE.kind):
-        layouts.append(("angle, axis", v[1:], float(v[0])))
-    for order, axis, angle in layouts:
-        out += _axis_angle_candidates(order, axis, angle, hints, clues, keyed, unit_like)
-    if keyed and keyed.kind == "quaternion":
-        out = [c for c in out if c.kind == "quaternion"]
-    if keyed and keyed.kind == AXIS_ANGLE.kind:
-        out = [c for c in out if c.kind == AXIS_ANGLE.kind]
-    return out
-
-
-def _axis_angle_candidates(order, axis, angle, hints, clues, keyed, unit_like):
-    from core.orientation import Orientation
-    out = []
-    axis_length = float(np.linalg.norm(axis))
-    if not (axis_length > 0 or angle == 0) or (hints.order and not hints.kind):
-        return out
-    fixed_units = keyed.units if keyed and keyed.kind == AXIS_ANGLE.kind else None
-    angle_first = order == "angle, axis"
-    for units, points, unit_reason in _unit_choices([angle], hints, clues, fixed_units):
-        c = _Candidate(AXIS_ANGLE.kind, {"order": order, "units": units},
-                       lambda u=units, n=axis, a=angle: Orientation.from_axis_angle(n, a, degrees=(u == "deg")),
-                       f"angle in {_unit_word(units)}, then axis (x, y, z)" if angle_first
-                       else f"axis (x, y, z) and angle in {_unit_word(units)}")
-        c.plus(points, unit_reason)
-        if abs(axis_length - 1.0) < 1e-3:
-            c.plus(POINTS["unit axis"], "the axis numbers have unit length, as an axis has")
-        else:
-            c.plus(POINTS["near unit axis"] if 0.5 < axis_length < 2 else POINTS["far from unit axis"],
-                   f"the axis has length {axis_length:.6g}, not 1")
-            if angle_first:
-                c.notes.append(f"the axis (length {axis_length:.6g}) was scaled to unit length")
-        if abs(angle) > 1.0 + 1e-9:
-            c.plus(POINTS["angle beyond one"], f"the angle ({angle:g}) is beyond ±1: an angle, not a quaternion part")
-        elif unit_like:
-            c.plus(POINTS["four numbers of unit norm"], "the four numbers have unit norm, as a quaternion has")
-        if keyed and keyed.kind == AXIS_ANGLE.kind:
-            c.plus(NAMED_NUMBERS[AXIS_ANGLE.kind], keyed.note)
-        if AXIS_ANGLE.kind in clues.kinds:
-            c.plus(TEXT_NAMES_KIND[AXIS_ANGLE.kind], "the text says axis and angle")
-        if angle_first:
-            c.plus(POINTS["angle written first"], "the text writes the angle before the axis")
         out.append(c)
     return out
 

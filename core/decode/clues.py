@@ -5,6 +5,7 @@ from __future__ import annotations
 import re
 from dataclasses import dataclass, field
 
+from core.decode.column_major import says_column_major
 from core.errors import DecodeError, FramewrightError
 from core.representations import caption_patterns
 from core.decode.numbers import ParsedNumbers
@@ -23,6 +24,7 @@ class _Clues:
     kinds: set = field(default_factory=set)
     notes: list = field(default_factory=list)
     angle_first: bool = False
+    pi_written: str | None = None       # an evaluated expression naming π ('PI/2'): its angles are radians
 
 
 _REF = r"(?:reference|ref|world|nav(?:igation)?|ned|enu|local|vehicle|platform|base|parent|earth|inertial|fixed)"
@@ -48,6 +50,7 @@ _AXIS_FIRST = re.compile(r"(?<![a-z])axis(?![a-z])[ _,/()a-z-]{0,16}?(?<![a-z])(
 _RADIAN_VECTOR = re.compile(r"(?<![a-z])(?:rvecs?|om)(?![a-z])")
 _DEG_WORD = re.compile(r"°|(?<![a-z])deg(?:s|rees?)?(?![a-z])")
 _RAD_WORD = re.compile(r"(?<![a-z])rad(?:s|ians?)?(?![a-z])")
+_PI_EVALUATED = re.compile(r"evaluated '(?P<written>[^']*(?:pi|π)[^']*)'", re.IGNORECASE)
 
 
 def _read_clues(parsed: ParsedNumbers) -> _Clues:
@@ -74,6 +77,13 @@ def _read_clues(parsed: ParsedNumbers) -> _Clues:
         clues.transposed_reason = "the text calls it a direction cosine matrix, usually reference -> body"
     elif body_to_ref and ref_to_body:
         clues.notes.append("the text names both directions (body to reference and reference to body)")
+    if says_column_major(words) and len(parsed.numbers) == 9 and len(parsed.rows) == 1:
+        # nine numbers on one line written column after column are the transpose of a row-major reading
+        said = "the text says column-major: the nine numbers are the columns one after another"
+        if clues.transposed is None:
+            clues.transposed, clues.transposed_reason = True, said
+        else:
+            clues.transposed, clues.transposed_reason = not clues.transposed, f"{clues.transposed_reason}; {said}"
     from core.sequences import parse_sequence
     found = set()
     primes = False
@@ -109,10 +119,25 @@ def _read_clues(parsed: ParsedNumbers) -> _Clues:
     if angle_first and not (axis_first and axis_first.start() < angle_first.start()):
         clues.angle_first = True
         clues.kinds.add(AXIS_ANGLE.kind)
+    _pi_clue(parsed, clues)
     if clues.units is None and _RADIAN_VECTOR.search(words):
         clues.units, clues.units_reason = "rad", "rvec and om rotation vectors are in radians (common practice)"
     _library_clues(parsed, clues)
     return clues
+
+
+def _pi_clue(parsed: ParsedNumbers, clues: _Clues) -> None:
+    """'PI/2', '${-M_PI/2}': π is half a turn in radians, so angles written with it are radians; a text that
+    also says degrees contradicts itself and is refused."""
+    found = next((m for m in map(_PI_EVALUATED.search, parsed.notes) if m), None)
+    if found is None:
+        return
+    clues.pi_written = found.group("written")
+    if clues.units == "deg":
+        raise DecodeError(f"'{clues.pi_written}' is an angle in radians (π is half a turn), but {clues.units_reason}"
+                          " too; Framewright will not guess which is meant")
+    if clues.units is None:
+        clues.units, clues.units_reason = "rad", f"'{clues.pi_written}' names π: radians"
 
 
 def _library_clues(parsed: ParsedNumbers, clues: _Clues) -> None:

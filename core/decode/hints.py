@@ -9,7 +9,11 @@ from core.errors import DecodeError, FramewrightError
 
 KINDS = representations.KINDS
 _ORDER_ALIASES = {"wxyz": "wxyz", "w-first": "wxyz", "scalar-first": "wxyz", "xyzw": "xyzw",
-                  "w-last": "xyzw", "scalar-last": "xyzw", "jpl": "jpl"}
+                  "w-last": "xyzw", "scalar-last": "xyzw", "jpl": "jpl",
+                  "angle-first": "angle-first", "axis-first": "axis-first"}
+QUATERNION_ORDERS = ("wxyz", "xyzw", "jpl")
+# the order of an axis and an angle, as the hint names it -> as a reading's conventions name it
+AXIS_ANGLE_ORDERS = {"angle-first": "angle, axis", "axis-first": "axis, angle"}
 _UNIT_ALIASES = {"deg": "deg", "degree": "deg", "degrees": "deg", "rad": "rad", "radian": "rad",
                  "radians": "rad"}
 
@@ -21,7 +25,8 @@ class DecodeHints:
     kind: one of KINDS ('matrix', 'quaternion', 'axis-angle', 'rotation-vector', 'angles', ...), or any
     spelling core/representations.py accepts ('rotation_vector', 'rotvec', 'euler', ...)
     sequence: 'ZYX', "Z-Y'-X''", ...; intrinsic: True / False
-    order: quaternion order 'wxyz', 'xyzw' (both Hamilton) or 'jpl' (scalar last, JPL convention)
+    order: quaternion order 'wxyz', 'xyzw' (both Hamilton) or 'jpl' (scalar last, JPL convention); or the
+        order of an axis and an angle: 'angle-first' or 'axis-first'
     units: 'deg' or 'rad'; transposed: False = matrix is body -> reference, True = reference -> body
     name: which transform to read when the text holds several named ones
     """
@@ -57,7 +62,8 @@ class DecodeHints:
         if order is not None:
             order = _ORDER_ALIASES.get(str(order).lower())
             if order is None:
-                raise DecodeError(f"unknown quaternion order hint {self.order!r}; expected wxyz, xyzw or jpl")
+                raise DecodeError(f"unknown order hint {self.order!r}; expected wxyz, xyzw or jpl (a quaternion),"
+                                  " or angle-first or axis-first (an axis and an angle)")
         if units is not None:
             units = _UNIT_ALIASES.get(str(units).lower())
             if units is None:

@@ -6,9 +6,13 @@ named components, `rows`/`cols`/`data` matrices, 4x4 lists under a key), INI-lik
 from __future__ import annotations
 
 import re
+
+from core.decode.candidates import POINTS
 from core.decode.clues import _WXYZ, _XYZW
+from core.decode.column_major import laid_out_in_lines, matrix_numbers, says_column_major, transform_grid
 from core.decode.pose_fields import ORPHAN, Field, flag_fields, json_fields, with_shaped_matrices, yaml_like_fields
 from core.decode.pose_flags import flag_pose
+from core.decode.pose_names import _GENERIC_NAMES, _bare, _frames, _group_name, _unit_of
 from core.decode.poses import PoseText, checked_translation, homogeneous, one_value, unit_said, values_in
 from core.errors import DecodeError
 from core.representations import ROTATION_VECTOR
@@ -21,11 +25,9 @@ _ROTATION = {"rotation", "orientation", "quaternion", "quat", "q", "rot", "r", "
 _WHOLE = re.compile(r"t|tr|rt|r_t|rt_\w+|\w+_rt|h|transform|transformation|pose|extrinsics?|matrix|t_\w+|tr_\w+|\w+_to_\w+|"
                     r"transform_\w+|\w+_transform|\w+_pose|pose_\w+|extrinsics?_\w+")
 _ROTATION_ONLY = re.compile(r"r\d*_rect\w*|r_rect\w*|rectification\w*|r_\w+|rotation_\w+|\w+_rotation|rot_\w+")
-_UNIT_MARK = re.compile(r"(?:\[(mm|m|cm)\]|\((mm|m|cm)\)|_(mm|m|cm))$")
 _ROTATION_VECTOR = ROTATION_VECTOR.key_names      # rvec, om, rotvec, rotation_vector, ... (core/representations.py)
 _COMPONENTS_Q = {"x", "y", "z", "w", "qx", "qy", "qz", "qw"}
 _COMPONENTS_T = ("x", "y", "z")
-_GENERIC_NAMES = {"transform", "pose", "data", "value", "extrinsics", "calibration"}
 _SET_ASIDE_NOTE = 12
 
 
@@ -34,9 +36,9 @@ def keyed_poses(text: str) -> list[PoseText] | None:
     fields = json_fields(text)
     layout = "pose (JSON)"
     if fields is None:
-        flags = flag_fields(text)
-        if len(flags) >= 4:
-            return flag_pose(flags)
+        poses = flag_pose(flag_fields(text))
+        if poses:
+            return poses
         fields = yaml_like_fields(text)
         layout = "pose (keyed text)"
     if not fields:
@@ -55,8 +57,9 @@ def keyed_poses(text: str) -> list[PoseText] | None:
         group[key] = f
     poses: list[PoseText] = []
     used: set[int] = set()
+    column_major = says_column_major(text)
     for path, group in groups.items():
-        poses += _group_poses(path, group, groups, used, layout)
+        poses += _group_poses(path, group, groups, used, layout, column_major)
     for first, second in twins:     # a key read into a pose is written twice: which one is meant?
         if id(second) in used:
             where = f" under '{'.'.join(second.path)[:60]}'" if second.path else ""
@@ -80,49 +83,7 @@ def keyed_poses(text: str) -> list[PoseText] | None:
     return sorted(poses, key=lambda p: p.line)
 
 
-def _bare(name: str) -> str:
-    """'Translation (mm)' -> 'translation'; 'orientation.x' -> 'x'; 'Rotation matrix' -> 'rotation_matrix'."""
-    name = name.split(".")[-1]
-    name = re.sub(r"[ ]*[\[(].*$", "", name).strip()
-    return re.sub(r"[ ]+", "_", name)
-
-
-def _unit_of(field: Field, group: dict) -> str | None:
-    m = _UNIT_MARK.search(field.key.lower().strip())
-    if m:
-        return next(g for g in m.groups() if g)
-    said = unit_said(field.key)                          # 'T_base_cam (translation in mm)'
-    if said:
-        return said
-    for key in ("unit", "units", "length_unit"):
-        if key in group and group[key].value.strip().strip("'\"").lower() in ("m", "mm", "cm", "in"):
-            return group[key].value.strip().strip("'\"").lower()
-    return None
-
-
-def _frames(path: tuple, groups: dict) -> str | None:
-    """'parent -> child' from frame_id / child_frame_id beside the transform or in its header."""
-    for depth in range(len(path), -1, -1):
-        here = groups.get(path[:depth], {})
-        child = here.get("child_frame_id")
-        parent = here.get("frame_id") or groups.get(path[:depth] + ("header",), {}).get("frame_id")
-        if child is not None and parent is not None:
-            return f"{parent.value.strip(chr(34) + chr(39))} -> {child.value.strip(chr(34) + chr(39))}"
-    return None
-
-
-def _group_name(path: tuple, groups: dict, display: Field | None) -> str | None:
-    frames = _frames(path, groups)
-    if frames:
-        return frames
-    if display is not None and display.path:
-        for part in reversed(display.path):
-            if not part.startswith("#") and part.lower() not in _GENERIC_NAMES:
-                return part
-    return None
-
-
-def _group_poses(path, group, groups, used, layout) -> list[PoseText]:
+def _group_poses(path, group, groups, used, layout, column_major=False) -> list[PoseText]:
     out: list[PoseText] = []
     for key, f in group.items():                       # whole transforms under one key: 16 or 12 numbers
         if not (_WHOLE.fullmatch(key.lower()) or f.shape == (4, 4)):   # a 3x4 projection_matrix is no pose
@@ -132,27 +93,34 @@ def _group_poses(path, group, groups, used, layout) -> list[PoseText]:
             continue
         rows = [values[i:i + 4] for i in range(0, len(values), 4)]
         shape = "4x4" if len(values) == 16 else "3x4"
+        more = []
+        if column_major:
+            rows, more = transform_grid(values, laid_out_in_lines(f), f.line)
         rotation, t = homogeneous(rows, f.line, f"{shape} transform", f.line)
         used.add(id(f))
         note = (f"a {shape} matrix with its shape written beside it (rows, cols, data); the shape is not data"
-                if f.shape else f"read '{f.key}' as a {shape} transform, rows written one after another")
+                if f.shape else f"read '{f.key}' as a {shape} transform, "
+                + ("as the text orders it" if column_major else "rows written one after another"))
         name = _frames(path, groups) or (f.key if key not in _GENERIC_NAMES else _group_name(path, groups, f))
         out.append(PoseText(tuple(rotation), f"{shape} transform", f.line, {"kind": "matrix"}, t,
-                            _unit_of(f, group), name, [note]))
-    pose = _translation_and_rotation(path, group, groups, used, layout, whole=bool(out))
+                            _unit_of(f, group), name, [note] + more))
+    pose = _translation_and_rotation(path, group, groups, used, layout, whole=bool(out), column_major=column_major)
     if pose:
         out.append(pose)
-    out += _suffix_pairs(group, used)
-    out += _rotations_alone(group, used, bool(out) or len(groups) > 1)
+    out += _suffix_pairs(group, used, column_major)
+    out += _rotations_alone(group, used, bool(out) or len(groups) > 1, column_major)
     return out
 
 
-def _translation_and_rotation(path, group, groups, used, layout, whole: bool) -> PoseText | None:
+def _translation_and_rotation(path, group, groups, used, layout, whole: bool, column_major=False) -> PoseText | None:
     t_field = next((group[k] for k in group if k.lower() in _TRANSLATION and id(group[k]) not in used), None)
     r_field = next((group[k] for k in group if k.lower() in _ROTATION and id(group[k]) not in used), None)
     t_sub = next((k for k in _TRANSLATION if _components(groups.get(path + (k,), {}), _COMPONENTS_T)), None)
     r_sub = next((k for k in _ROTATION if _components(groups.get(path + (k,), {}), _COMPONENTS_Q)), None)
-    has_translation = t_field is not None or t_sub is not None
+    # x, y, z beside qx … qw or roll, pitch, yaw in one group: a flat pose block
+    t_flat = t_field is None and t_sub is None and r_field is None and r_sub is None and \
+        all(k in group and id(group[k]) not in used for k in _COMPONENTS_T) and _flat_names(group)
+    has_translation = t_field is not None or t_sub is not None or t_flat
     if not has_translation and (whole or not path or (r_field is None and r_sub is None)):
         return None                         # a lone rotation (not under a name): the ordinary decoder reads it
     if has_translation and r_field is None and r_sub is None and not _flat_names(group):
@@ -168,8 +136,13 @@ def _translation_and_rotation(path, group, groups, used, layout, whole: bool) ->
         translation = checked_translation([_one(sub[c]) for c in _COMPONENTS_T], sub["x"].line)
         unit, line = _unit_of(sub["x"], sub) or _unit_of(sub["x"], group), sub["x"].line
         used.update(id(sub[c]) for c in _COMPONENTS_T)
+    elif t_flat:
+        translation = checked_translation([_one(group[c]) for c in _COMPONENTS_T], group["x"].line)
+        unit, line = _unit_of(group["x"], group), group["x"].line
+        used.update(id(group[c]) for c in _COMPONENTS_T)
+        notes.append("x, y, z read as the position beside the named rotation components")
     if r_field is not None:
-        rotation, fixed, prefer, more = _rotation_from_key(r_field)
+        rotation, fixed, prefer, more = _rotation_from_key(r_field, column_major)
         used.add(id(r_field))
         notes += more
         line = min(line or r_field.line, r_field.line)
@@ -204,7 +177,7 @@ def _one(field: Field) -> float:
     return one_value(field.value, field.line, field.key)
 
 
-def _rotation_from_key(field: Field):
+def _rotation_from_key(field: Field, column_major=False):
     """(numbers, fixed hints, ranking bonuses, notes) of a rotation written under one key."""
     values = values_in(field.value, field.line)
     key = _bare(field.name)
@@ -231,11 +204,12 @@ def _rotation_from_key(field: Field):
         if "order" not in fixed:
             notes.append(f"'{field.key}' holds 4 numbers and does not say which is w: both orders are offered")
             if key == "orientation":
-                prefer = (({"order": "xyzw", "convention": "Hamilton"}, 1.0,
+                prefer = (({"order": "xyzw", "convention": "Hamilton"}, POINTS["orientation list scalar last"],
                            "orientation lists are usually x, y, z, w (common practice)"),)
         return values, fixed, prefer, notes
     if len(values) == 9:
-        return values, {"kind": "matrix"}, (), notes
+        values, more = matrix_numbers(field, values, column_major)
+        return values, {"kind": "matrix"}, (), notes + more
     if len(values) == 3:
         return values, {}, (), notes
     raise DecodeError(f"line {field.line}: '{field.key}' holds {len(values)} numbers; a rotation is 9 (a matrix),"
@@ -255,7 +229,7 @@ def _flat_rotation(group, used):
         "roll, pitch and yaw read by name (yaw-pitch-roll, intrinsic Z-Y'-X'')"]
 
 
-def _suffix_pairs(group: dict, used: set) -> list[PoseText]:
+def _suffix_pairs(group: dict, used: set, column_major=False) -> list[PoseText]:
     """`R: …` with `T: …`, and `R_00`/`T_00` pairs: one transform per suffix (the suffix names it)."""
     out = []
     lowered = {k.lower(): f for k, f in group.items()}
@@ -270,14 +244,15 @@ def _suffix_pairs(group: dict, used: set) -> list[PoseText]:
         rotation = values_in(f.value, f.line)
         if len(rotation) != 9:
             continue
+        rotation, more = matrix_numbers(f, rotation, column_major)
         used.update((id(f), id(t)))
         out.append(PoseText(tuple(rotation), "rotation R with translation T", f.line, {"kind": "matrix"},
                             checked_translation(values_in(t.value, t.line), t.line), _unit_of(t, group),
-                            suffix.lstrip("_") or None, [f"read '{f.key}' (3x3) with '{t.key}' (translation)"]))
+                            suffix.lstrip("_") or None, [f"read '{f.key}' (3x3) with '{t.key}' (translation)"] + more))
     return out
 
 
-def _rotations_alone(group: dict, used: set, among_others: bool) -> list[PoseText]:
+def _rotations_alone(group: dict, used: set, among_others: bool, column_major=False) -> list[PoseText]:
     """A rectifying rotation (R0_rect, rectification_matrix, R_rect_00) among other transforms, or a
     rotation written with its shape: a transform without a translation, named by its key."""
     out = []
@@ -289,12 +264,13 @@ def _rotations_alone(group: dict, used: set, among_others: bool) -> list[PoseTex
         values = values_in(f.value, f.line)
         if len(values) != 9:
             continue
+        values, more = matrix_numbers(f, values, column_major)
         used.add(id(f))
         out.append(PoseText(tuple(values), "rotation", f.line, {"kind": "matrix"}, None, None, f.key,
-                            [f"read '{f.key}' as a 3x3 rotation (no translation is written with it)"]))
+                            [f"read '{f.key}' as a 3x3 rotation (no translation is written with it)"] + more))
     vectors = [f for k, f in group.items() if id(f) not in used and f.shape in ((3, 1), (1, 3)) and k in _ROTATION]
     for f in vectors:
-        rotation, fixed, prefer, notes = _rotation_from_key(f)
+        rotation, fixed, prefer, notes = _rotation_from_key(f, column_major)
         used.add(id(f))
         out.append(PoseText(tuple(rotation), "rotation", f.line, fixed, None, None, f.key, notes, prefer))
     return out

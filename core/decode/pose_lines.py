@@ -29,6 +29,9 @@ _UNIT_SUFFIX = re.compile(r"_(mm|m|cm)$")
 _COLUMN_UNIT = re.compile(r"[ ]*(?:\[(?P<unit>[^\[\]()]{0,12})\]|\((?P<unit2>[^\[\]()]{0,12})\))$")
 _INLINE_HEADER = re.compile(r"^[^\d\n\[(]{0,80}[\[(](?P<names>[A-Za-z_][^\[\]()\n]{0,200})[\])][ ]*[:=][ ]*(?P<data>[^\n]+)$",
                             re.MULTILINE)
+# names of columns, then ':' or '=', then their numbers, on one line ('x y z qx qy qz qw = 1 2 3 0 0 0 1')
+_INLINE_NAMES = re.compile(r"^[ \t]*(?:#+|//+)?[ \t]*(?P<names>[A-Za-z_][A-Za-z_ ,]{0,200}?)[ ]*[:=][ ]*"
+                           r"(?P<data>[-+.\d][^\n]*)$", re.MULTILINE)
 _MAX_LINE = 400             # a pose line or a header is short; longer lines are not one (and stay cheap)
 
 
@@ -175,10 +178,16 @@ def column_poses(text: str) -> list[PoseText] | None:
     inline = _INLINE_HEADER.search(clean)
     if inline and len(inline.group()) <= _MAX_LINE:   # 'pose [x, y, z, qx, qy, qz, qw] = [2.0, …]'
         names = [n.strip() for n in inline.group("names").split(",") if n.strip()]
-        roles = [_role(n) for n in names]
-        if sum(1 for r in roles if r and r[0] in "tq") >= 6:
+        if _names_a_pose([_role(n) for n in names]):
             line = clean.count("\n", 0, inline.start()) + 1
             return _pose_from_columns(names, [(line, values_in(inline.group("data"), line))], line)
+    bare = _INLINE_NAMES.search(clean)
+    if bare and len(bare.group()) <= _MAX_LINE:       # 'x y z yaw pitch roll: 0.1 0 0.2 90 0 0'
+        names = [n for n in re.split(r"[ ,]+", bare.group("names").strip()) if n]
+        roles = [_role(n) for n in names]
+        if all(roles) and _names_a_pose(roles):       # every word names a column: nothing else is on the line
+            line = clean.count("\n", 0, bare.start()) + 1
+            return _pose_from_columns(names, [(line, values_in(bare.group("data"), line))], line)
     lines = clean.split("\n")
     header, header_line, start = None, 0, 0
     for i, raw in enumerate(lines):
@@ -189,9 +198,7 @@ def column_poses(text: str) -> list[PoseText] | None:
             break                                    # data begins
         separators = r"[,;|]" if re.search(r"[,;|]", stripped) else r"\s+"
         names = [n.strip() for n in re.split(separators, stripped) if n.strip()]
-        roles = [_role(n) for n in names]
-        if sum(1 for r in roles if r and r[0] in "tq") >= 6 or \
-                (sum(1 for r in roles if r and r[0] == "t") == 3 and sum(1 for r in roles if r and r[0] == "a") == 3):
+        if _names_a_pose([_role(n) for n in names]):
             header, header_line, start = names, i + 1, i + 1
     if header is None:
         return None
@@ -207,6 +214,12 @@ def column_poses(text: str) -> list[PoseText] | None:
     if not rows:
         return None
     return _pose_from_columns(header, rows, header_line)
+
+
+def _names_a_pose(roles) -> bool:
+    """Column names for a position with a quaternion, or a position with roll, pitch and yaw."""
+    count = lambda kind: sum(1 for r in roles if r and r[0] == kind)
+    return count("t") + count("q") >= 6 or (count("t") == 3 and count("a") == 3)
 
 
 def _pose_from_columns(header: list[str], rows: list, header_line: int) -> list[PoseText] | None:

@@ -76,8 +76,10 @@ def one_value(text: str, line: int, key: str) -> float:
 def values_in(fragment: str, line: int) -> list[float]:
     """The numbers in a piece of the text, with every refusal of parse_numbers (NaN, words between
     numbers, expressions outside the evaluated subset) reported at the line where the piece is."""
+    from core.decode.pose_expressions import collect
     parsed = parse_numbers(fragment, first_line=line)
     refuse_strays(parsed, {line for line, _ in parsed.strays})
+    collect(parsed.notes)               # 'evaluated pi/2 as …' goes into the pose's notes
     return [n.value for n in parsed.numbers]
 
 

@@ -57,7 +57,7 @@ def _line_of(text: str, pos: int) -> int:
 
 
 def _block(text: str, a: int, z: int):
-    """(line, [(numbers, fixed hints, what, decimals, matrix)], translation, time) of one block."""
+    """(line, [(numbers, fixed hints, what, decimals, rounding bound)], translation, time) of one block."""
     body = text[a:z]
     t = _TRANSLATION.search(body)
     if t is None:
@@ -74,19 +74,20 @@ def _block(text: str, a: int, z: int):
         order = "wxyz" if q.group("order") and "wxyz" in q.group("order") else "xyzw"
         pieces.append((values_in(q.group("v"), _line_of(text, a + q.start())),
                        {"kind": "quaternion", "order": order}, f"quaternion ({', '.join(order)})",
-                       _decimals(q.group("v")), None))
+                       _decimals(q.group("v")), _ROUNDING_TURN["quaternion"] * _half_unit(q.group("v"))))
     for r in _RPY.finditer(body):
         degrees = r.group("unit") == "degree"
         values = values_in(r.group("v"), _line_of(text, a + r.start()))
         pieces.append((values, {"kind": "angles", "sequence": "XYZ", "intrinsic": False,
                                 "units": "deg" if degrees else "rad"},
                        f"RPY ({r.group('unit')})", _decimals(r.group("v")) + (math.log10(180 / math.pi) if degrees else 0),
-                       None))
+                       _ROUNDING_TURN["angles"] * _half_unit(r.group("v")) * (math.pi / 180 if degrees else 1.0)))
     m = _MATRIX.search(body)
     if m:
         rows = [values_in(row, _line_of(text, a + m.start())) for row in m.group("rows").strip().split("\n")]
         rotation, _ = homogeneous(rows, _line_of(text, a + m.start()), "printout's matrix")
-        pieces.append((rotation, {"kind": "matrix"}, "matrix", _decimals(m.group("rows")), None))
+        pieces.append((rotation, {"kind": "matrix"}, "matrix", _decimals(m.group("rows")),
+                       _ROUNDING_TURN["matrix"] * _half_unit(m.group("rows"))))
     if not pieces:
         raise DecodeError(f"line {line}: the printout gives a translation but no rotation Framewright reads")
     time = None
@@ -94,6 +95,18 @@ def _block(text: str, a: int, z: int):
     if s:
         time = s.group("time")
     return line, pieces, translation, time
+
+
+# How far (radians) rounding each printed number by h can turn a representation, per h: a quaternion's four
+# parts move it by at most 2·|δq| ≤ 4h; three angles by at most h each; a matrix by at most its Frobenius
+# change, 3h (first-order bounds, doubled below for the products the first order leaves out).
+_ROUNDING_TURN = {"quaternion": 4.0, "angles": 3.0, "matrix": 3.0}
+_SAFETY = 2.0
+
+
+def _half_unit(text: str) -> float:
+    """Half a unit in the last printed place of the least precise number ('0.707' -> 0.0005)."""
+    return 0.5 * 10.0 ** -_decimals(text)
 
 
 def _decimals(text: str) -> float:
@@ -122,7 +135,13 @@ def _agreement(pieces):
     worst = 0.0
     for p in pieces:
         d = reference.T @ _rotation_of(p)
-        worst = max(worst, math.degrees(math.acos(max(-1.0, min(1.0, (np.trace(d) - 1) / 2)))))
+        apart = math.degrees(math.acos(max(-1.0, min(1.0, (np.trace(d) - 1) / 2))))
+        allowed = math.degrees(_SAFETY * (p[4] + best[4]))
+        if apart > allowed:
+            # the text contradicts itself: which representation is right cannot be told from it
+            raise DecodeError(f"the printout's {p[2]} and its {best[2]} are {apart:.3g}° apart, more than their"
+                              f" printed digits allow ({allowed:.2g}°): the block contradicts itself; check it")
+        worst = max(worst, apart)
     names = ", ".join(p[2] for p in pieces)
     return (best[0], best[1], best[2]), f"the block gives {len(pieces)} representations ({names}); they agree within {worst:.3g}°"
 

@@ -10,8 +10,9 @@ import numpy as np
 from core import representations
 from core.errors import DecodeError, FramewrightError
 from core.decode.unit_marks import respect_unit_marks
-from core.decode.candidates import (_MAX_MAGNITUDE, _NEAR_LOCK_DEG, _Candidate, _four_candidates,
-                                    _matrix_candidates, _three_candidates)
+from core.decode.candidates import (POINTS, _MAX_MAGNITUDE, _NEAR_LOCK_DEG, _Candidate, _matrix_candidates,
+                                    _three_candidates)
+from core.decode.four_numbers import _four_candidates
 from core.decode.characters import _shorten
 from core.decode.clues import _WXYZ, _XYZW, _read_clues
 from core.decode.hints import DecodeHints, Reading
@@ -43,7 +44,8 @@ def readings_from_numbers(parsed: ParsedNumbers, hints=None, direction=None) -> 
                 others = _readings(untitled, hints, direction)
             except DecodeError:
                 others = []
-            others = [replace(r, score=round(r.score - 0.5, 6), why=f"{r.why}; reads the text without its title"
+            others = [replace(r, score=round(r.score + POINTS["without the title line"], 6),
+                              why=f"{r.why}; reads the text without its title"
                               " line") for r in others]
             readings = sorted(readings + others, key=lambda r: -r.score)
     if len(readings) == 1:

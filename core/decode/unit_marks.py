@@ -55,7 +55,8 @@ def respect_unit_marks(candidates: list, parsed, count: int, keyed) -> tuple[lis
             if marked != [angle_at]:
                 # the more telling reason: it names where an angle would have to stand
                 why = (f"'{numbers[marked[0]].text}' carries an angle unit where an axis component stands (an "
-                       "axis and angle is read axis first unless the text says the angle comes first)")
+                       "axis and angle is read axis first unless the text, or a unit axis after the first number,"
+                       " says the angle comes first)")
                 continue
         if c.kind in _ANGLES_ONLY and converted and unmarked_nonzero:
             mark = converted[0].converted_from

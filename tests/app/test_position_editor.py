@@ -211,3 +211,45 @@ def test_the_check_reports_the_position_offset_after_the_orientation(qtbot, wind
     qtbot.keyClick(panel.position_field.lineEdit(), Qt.Key.Key_Return)
     assert model.check.settings.position_tolerance_mm == 0.4
     assert "not a finite number" in panel.tolerance_note.text()
+
+
+def test_a_chain_step_from_the_editors_keeps_the_mounts_position_and_the_product_is_the_rigid_transform(qtbot,
+                                                                                                        window):
+    # issue 11 item 6: the Chain composes full rigid transforms; a step taken from the editors of a mount
+    # with a position keeps it. Check value: numpy's product of the two 4x4 matrices [[R, t], [0 0 0 1]]
+    # (CONVENTIONS.md "Poses"), the rotations from SciPy's Rotation.
+    panel = window.chain_panel
+    window.side_tabs.setCurrentIndex(window.side_tabs.indexOf(panel.parent().parent()))
+    first = window.model.current_mount()
+    window.model.set_orientation(first.orientation.from_rotation_vector([0, 0, 90], degrees=True))
+    _type_position(qtbot, window, "100", "0", "50")
+    qtbot.mouseClick(panel.add_from_editors, Qt.MouseButton.LeftButton)
+    window.model.set_orientation(first.orientation.from_rotation_vector([90, 0, 0], degrees=True))
+    _type_position(qtbot, window, "0", "20", "0")
+    qtbot.mouseClick(panel.add_from_editors, Qt.MouseButton.LeftButton)
+    steps = window.model.chain.steps
+    assert [s.position.shown() for s in steps] == [pytest.approx((100, 0, 50)), pytest.approx((0, 20, 0))]
+    assert "origin x 100, y 0, z 50 mm" in panel.table.item(0, 3).text()
+
+    def pose(rotvec_deg, t_mm):
+        m = np.eye(4)
+        m[:3, :3] = scipy_rotation_from_rotvec(rotvec_deg)
+        m[:3, 3] = np.array(t_mm) / 1000.0
+        return m
+
+    expected = pose([0, 0, 90], [100, 0, 50]) @ pose([90, 0, 0], [0, 20, 0])
+    orientation, position = window.model.chain.pose_product()
+    np.testing.assert_allclose(orientation.as_matrix(), expected[:3, :3], atol=1e-12)
+    np.testing.assert_allclose(position.metres, expected[:3, 3], atol=1e-12)
+    assert "Product position" in panel.product_label.text()
+    # 'Set from the text' changes the orientation only: the step keeps its position
+    panel.select_row(0)
+    panel.pasted.text_box.setFocus()
+    qtbot.keyClicks(panel.pasted.text_box, "axis 0 0 1 angle 45")
+    qtbot.mouseClick(panel.set_from_text, Qt.MouseButton.LeftButton)
+    assert window.model.chain.steps[0].position.shown() == pytest.approx((100, 0, 50))
+
+
+def scipy_rotation_from_rotvec(rotvec_deg):
+    from scipy.spatial.transform import Rotation
+    return Rotation.from_rotvec(rotvec_deg, degrees=True).as_matrix()             # SciPy from_rotvec

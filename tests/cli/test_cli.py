@@ -193,3 +193,15 @@ def test_text_that_starts_with_a_minus_is_text_not_an_option():
     expected = Rotation.from_quat([-0.5, 0, 0, 0.8660254], scalar_first=True)
     assert np.allclose(json.loads(result.stdout)["matrix"], expected.as_matrix(), atol=1e-12)
     assert framewright("compare", "-30 20 10", "-30 20 10.1", "--tolerance", "1").returncode == 0
+
+
+def test_decode_angle_first_and_axis_first_options_pick_the_layout():
+    # issue 11: '0.785398 0 0 1' printed angle first; with every option there is one reading
+    result = framewright("decode", "0.785398 0 0 1", "--kind", "axis-angle", "--radians", "--angle-first", "--json")
+    assert result.returncode == 0 and result.stderr == ""
+    data = json.loads(result.stdout)
+    assert data["conventions"]["order"] == "angle, axis"
+    expected = Rotation.from_rotvec([0, 0, 0.785398])                   # SciPy from_rotvec: angle times axis
+    assert np.allclose(data["matrix"], expected.as_matrix(), atol=1e-12)
+    other = framewright("decode", "0.785398 0 0 1", "--axis-first", "--degrees", "--json")
+    assert json.loads(other.stdout)["conventions"]["order"] == "axis, angle"

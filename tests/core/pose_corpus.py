@@ -198,6 +198,11 @@ HOMOGENEOUS = [
              " text says otherwise)",
              "model matrix (column-major): 0 1 0 0  -1 0 0 0  0 0 1 0  0.5 0.25 2 1",
              mat([[0, -1, 0], [1, 0, 0], [0, 0, 1]]), (0.5, 0.25, 2.0), None, "matrix"),
+    PoseCase("column-major-keyed-comment", "homogeneous-4x4",
+             "invented values; a keyed 16-number list whose trailing comment says column-major (numpy"
+             " reshape order='F' builds the expected matrix)",
+             "T_world_cam: [0, 1, 0, 0, -1, 0, 0, 0, 0, 0, 1, 0, 0.5, 0.25, 2, 1]  # column-major",
+             mat([[0, -1, 0], [1, 0, 0], [0, 0, 1]]), (0.5, 0.25, 2.0), None, "matrix", name=None),
     # invented: a camera 52.3 deg about x at 4.031128874 from the origin, stored as float32 values
     PoseCase("transforms-json-frame", "homogeneous-4x4",
              "invented values in the layout of a transforms.json camera file (camera_angle_x, frames with"
@@ -419,6 +424,14 @@ SEVERAL_NAMED = [
 # Position + quaternion lines, orders named by captions or headers
 # ---------------------------------------------------------------------------------------------------
 POSITION_QUATERNION = [
+    PoseCase("caption-on-the-line-xyz-ypr", "position-quaternion",
+             "invented values; the columns named before the numbers on the same line (x y z yaw pitch roll:)",
+             "x y z yaw pitch roll: 0.25 0 1.1 30 0 -5", euler("ZYX", [30, 0, -5], degrees=True), (0.25, 0.0, 1.1),
+             None, "angles"),
+    PoseCase("caption-on-the-line-xyz-quaternion", "position-quaternion",
+             "invented values; comma-separated names, '=', then the numbers (x, y, z, qx, qy, qz, qw = …)",
+             "x, y, z, qx, qy, qz, qw = 1, 2, 3, 0, 0, 0.3826834, 0.9238795", xyzw(0, 0, 0.3826834, 0.9238795),
+             (1.0, 2.0, 3.0), None, "quaternion"),
     PoseCase("tum-groundtruth-line", "position-quaternion", TUM,
              "# ground truth trajectory\n# file: 'rgbd_dataset_freiburg1_xyz.bag'\n"
              "# timestamp tx ty tz qx qy qz qw\n1305031098.6659 1.3563 0.6305 1.6380 0.6132 0.5962 -0.3311 -0.3986",
@@ -472,6 +485,14 @@ POSITION_QUATERNION = [
 # Pose YAML / JSON blocks
 # ---------------------------------------------------------------------------------------------------
 POSE_BLOCKS = [
+    PoseCase("flat-keys-position-rpy", "pose-yaml-json",
+             "invented values; a flat YAML group with x, y, z and roll, pitch, yaw keys (radians by their decimals)",
+             "imu:\n  x: 0.12\n  y: -0.03\n  z: 0.4\n  roll: 0.0\n  pitch: 0.1745\n  yaw: 1.5708",
+             euler("ZYX", [1.5708, 0.1745, 0.0]), (0.12, -0.03, 0.4), None, "angles"),
+    PoseCase("flat-json-position-quaternion", "pose-yaml-json",
+             "invented values; one flat JSON object with x, y, z and qx, qy, qz, qw",
+             '{"x": 1.0, "y": 2.0, "z": 3.0, "qx": 0.0, "qy": 0.0, "qz": 0.3826834, "qw": 0.9238795}',
+             xyzw(0, 0, 0.3826834, 0.9238795), (1.0, 2.0, 3.0), None, "quaternion"),
     PoseCase("pose-stamped-yaml-echo", "pose-yaml-json",
              "invented values in the YAML echo layout of geometry_msgs/PoseStamped (header, pose.position,"
              " pose.orientation x y z w)",
@@ -624,6 +645,17 @@ PUBLISHER = [
              "ros2 run tf2_ros static_transform_publisher --x 1 --y 2 --z 3 --qx 0 --qy 0 --qz 0.3826834"
              " --qw 0.9238795 --frame-id world --child-frame-id cam",
              xyzw(0, 0, 0.3826834, 0.9238795), (1.0, 2.0, 3.0), None, "quaternion"),
+    PoseCase("publisher-named-flags-left-out", "publisher-args",
+             "invented values; named-flag form with --y, --z, --pitch and --roll left out (the form's default"
+             " for a left-out flag is 0, from memory); read bare, the four numbers were an axis and an angle",
+             "ros2 run tf2_ros static_transform_publisher --x 0.25 --yaw 1.5708 --frame-id base_link"
+             " --child-frame-id gps",
+             euler("ZYX", [1.5708, 0, 0]), (0.25, 0.0, 0.0), None, "angles"),
+    PoseCase("publisher-named-flags-quaternion-left-out", "publisher-args",
+             "invented values; named-flag form with only --qz and --qw (--qx, --qy 0 by default, from memory)",
+             "ros2 run tf2_ros static_transform_publisher --x 0.1 --y 0.2 --z 0.3 --qz 0.7071068 --qw 0.7071068"
+             " --frame-id map --child-frame-id odom",
+             xyzw(0, 0, 0.7071068, 0.7071068), (0.1, 0.2, 0.3), None, "quaternion"),
     PoseCase("publisher-named-flags-order-shuffled", "publisher-args",
              "invented values; named flags in another order: the flags name each number",
              "ros2 run tf2_ros static_transform_publisher --frame-id a --child-frame-id b --roll -0.2"

@@ -84,7 +84,7 @@ def test_a_quoted_attribute_is_not_a_seconds_mark():
     ("rotation in arcseconds: 1 2 3", "names 'arcseconds'"),
     ("yaw 30 mrad, pitch 30′, roll 0", "marked in arcmin and mrad"),
     ("yaw 1 rad, pitch 2 gon, roll 0", "both degrees and radians"),
-    ("12° 0 0 1", "where an axis component stands"),
+    ("0 12° 0 1", "where an axis component stands"),
     ("0 0 1 12″ 0", "cannot read|numbers"),
     ("yaw 1′75″ pitch 0 roll 0", "below 60"),
     ("yaw 1.5′30″ pitch 0 roll 0", "whole minutes"),
@@ -92,6 +92,14 @@ def test_a_quoted_attribute_is_not_a_seconds_mark():
 def test_what_cannot_be_told_is_refused_with_the_reason(text, says):
     with pytest.raises(DecodeError, match=says):
         decode(text)
+
+
+def test_a_marked_angle_before_a_unit_axis_reads_angle_first():
+    # '12° 0 0 1': the mark says the first number is an angle, and (0, 0, 1) is a unit axis (issue 11:
+    # angle-first printouts); read axis first, the mark would sit on an axis component
+    top = decode("12° 0 0 1")[0]
+    assert top.conventions == {"order": "angle, axis", "units": "deg"}
+    _same(top.orientation, Rotation.from_rotvec([0, 0, 12], degrees=True))     # SciPy from_rotvec
 
 
 def test_unmarked_text_reads_as_before():
