@@ -127,8 +127,11 @@ def _about(axis, angle_rad) -> np.ndarray:
 
 
 def _product(p, q) -> np.ndarray:
-    pw, pv, qw, qv = p[0], p[1:], q[0], q[1:]
-    return np.concatenate([[pw * qw - pv @ qv], pw * qv + qw * pv + np.cross(pv, qv)])
+    """Hamilton product p ⊗ q, written out on floats: np.cross on one pair costs more than all of it."""
+    pw, px, py, pz = (float(v) for v in p)
+    qw, qx, qy, qz = (float(v) for v in q)
+    return np.array([pw * qw - px * qx - py * qy - pz * qz, pw * qx + px * qw + py * qz - pz * qy,
+                     pw * qy - px * qz + py * qw + pz * qx, pw * qz + px * qy - py * qx + pz * qw])
 
 
 def _basis(axis) -> tuple:
