@@ -142,3 +142,14 @@ def direction_fit_covariance(reference_directions, orientation: Orientation, res
     except np.linalg.LinAlgError:
         raise InvalidInputError("direction fit covariance: the directions are parallel; the turn about them is "
                                 "not determined") from None
+
+
+def check_figure_uncertainties(nominal: Orientation, measured: Orientation, settings, covariance) -> dict:
+    """Each figure a check judges (its criterion's name, core/check.py) with its standard uncertainty in
+    degrees, propagated from the measured orientation's covariance (radians², reference frame)."""
+    body_axis = settings.axis_vector() if settings.mode == "pointing_and_roll" else None
+    figures = figure_uncertainties(nominal, measured, covariance, body_axis)
+    if body_axis is None:
+        return {"total deviation": figures["total_deg"]}
+    return {"pointing error": figures["pointing_deg"], "roll": figures["roll_deg"],
+            "roll (undefined, judged as 180°)": figures["roll_deg"]}

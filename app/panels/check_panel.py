@@ -23,7 +23,7 @@ from app.widgets.number_field import NumberField, parse_number
 from app.widgets.with_tips import button, choice_box, line_field, reading_label
 from core import axes, operations, units
 from core.check import POSITION_TOLERANCE_LIMIT_MM, check, check_position
-from core.decision import CANNOT_DECIDE, decide_check
+from core.decision import CANNOT_DECIDE, decide_setup
 from core.errors import FramewrightError
 
 PASS_STYLE = "background:#2e7d32; color:white; padding:6px 18px; border-radius:4px"
@@ -380,7 +380,8 @@ class CheckPanel(Panel):
         self.margin_label.setText(
             f"Margin {degrees(result.margin_deg, signed=True)}: {deciding.name} {degrees(deciding.value_deg)} "
             f"{'within' if deciding.passed else 'exceeds'} {degrees(deciding.tolerance_deg)}")
-        self.decision_words.setText(self._decision_words(result))
+        self.decision_words.setText(self._decision_words(mounts[nominal].orientation, mounts[measured].orientation,
+                                                         result))
         lines = []
         if nominal == measured:
             lines.append("The nominal and the measured are the same mount.")
@@ -403,7 +404,7 @@ class CheckPanel(Panel):
         lines.extend(result.notes)
         self.details.setText("\n".join(lines))
 
-    def _decision_words(self, result) -> str:
+    def _decision_words(self, nominal, measured, result) -> str:
         """The verdict's standing: the ISO 14253-1 decision when the check has an uncertainty, else that
         none was given (a PASS by less than the uncertainty has not shown conformance)."""
         setup = self.model.check.adjustment
@@ -411,7 +412,7 @@ class CheckPanel(Panel):
             return ("No measurement uncertainty was given: the verdict is the plain comparison (give one on the "
                     "Adjust tab for the ISO 14253-1 decision).")
         try:
-            _, overall = decide_check(result, setup.uncertainty_deg, setup.coverage)
+            _, overall = decide_setup(nominal, measured, self.model.check.settings, result, setup)
         except FramewrightError as error:
             return f"ISO 14253-1 decision: none ({error})"
         expanded = setup.coverage * setup.uncertainty_deg

@@ -114,10 +114,13 @@ class RepeatedMeasurementsBox(QGroupBox):
             return
         at_mean = mount.orientation.angle_to(result.mean) <= AT_THE_MEAN_DEG
         # the mean's covariance is one measurement's over n (core/average.py), so one measurement's u is √n times
-        u = result.standard_uncertainty_deg * (1.0 if at_mean else math.sqrt(result.count))
+        scale = 1.0 if at_mean else float(result.count)
+        u = result.standard_uncertainty_deg * math.sqrt(scale)
+        # the covariance too, so each figure the check judges gets its own u (a scatter is seldom round)
+        covariance = result.covariance_rad2 * scale * (180 / math.pi) ** 2
         check = self.model.check
         try:
-            adjustment = replace(check.adjustment, uncertainty_deg=u)
+            adjustment = replace(check.adjustment, uncertainty_deg=u, covariance_deg2=covariance.tolist())
         except FramewrightError as error:
             self.message.say(f"{error} (kept the last good value)", problem=True)
             return

@@ -122,3 +122,31 @@ def test_the_coverage_factor_widens_the_guard_band():
 def test_decision_inputs_are_checked(args, words):
     with pytest.raises(InvalidInputError, match=words):
         decide(*args)
+
+
+def test_each_figure_is_decided_by_its_own_propagated_uncertainty():
+    """A covariance wholly about the measured boresight (invented: 0.1° standard deviation in roll only):
+    propagated (core/uncertainty.py, its Monte Carlo tests) the pointing error has no uncertainty and the
+    roll 0.1°. ISO 14253-1 then decides each figure by its own U = 2u: pointing 0.45° against 0.5° conforms,
+    roll 0.9° against 1° cannot be decided (1 − 0.2 < 0.9 <= 1 + 0.2), where one u = 0.1° on both would leave the
+    pointing undecided too."""
+    from core.check import CheckSettings, check
+    from core.decision import decide_check, setup_figure_uncertainties
+    from core.adjustment_setup import AdjustmentSetup
+    nominal = Orientation.from_angles("ZYX", [40, 10, -5])
+    measured = nominal @ Orientation.from_axis_angle((0, 1, 0), 0.45) @ Orientation.from_axis_angle((1, 0, 0), 0.9)
+    boresight = measured.apply([1.0, 0, 0])
+    setup = AdjustmentSetup(uncertainty_deg=0.1, covariance_deg2=tuple(map(tuple, 0.01 * np.outer(boresight, boresight))))
+    settings = CheckSettings(mode="pointing_and_roll", body_axis="+X", pointing_tolerance_deg=0.5, roll_tolerance_deg=1.0)
+    result = check(nominal, measured, settings)
+    figures = setup_figure_uncertainties(nominal, measured, settings, setup)
+    assert figures["pointing error"] == pytest.approx(0, abs=1e-9) and figures["roll"] == pytest.approx(0.1, rel=1e-9)
+    decisions, overall = decide_check(result, 0.1, 2.0, figures)
+    assert [(c.name, d.outcome) for c, d in decisions] == [("pointing error", CONFORMS), ("roll", CANNOT_DECIDE)]
+    assert overall == CANNOT_DECIDE
+    plain, _ = decide_check(result, 0.1, 2.0)
+    assert [d.outcome for _, d in plain] == [CANNOT_DECIDE, CANNOT_DECIDE]
+    # the total-deviation check takes the total's own uncertainty
+    total = CheckSettings(total_tolerance_deg=1.0)
+    assert set(setup_figure_uncertainties(nominal, measured, total, setup)) == {"total deviation"}
+    assert setup_figure_uncertainties(nominal, measured, total, AdjustmentSetup(uncertainty_deg=0.1)) is None
