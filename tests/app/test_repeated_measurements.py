@@ -257,3 +257,27 @@ def test_a_scatter_in_roll_alone_widens_the_guard_band_of_the_roll_and_not_of_th
     press(qtbot, window, Qt.Key.Key_Z)
     np.testing.assert_allclose(model.check.adjustment.covariance_deg2, expected, atol=1e-9)
     assert window.adjust_panel.decision_label.text().startswith("Conforms")
+
+
+def type_weight(qtbot, box, text):
+    focus(qtbot, box.weight_field)
+    box.weight_field.selectAll()
+    qtbot.keyClicks(box.weight_field, text)
+
+
+def test_a_weight_typed_before_add_counts_in_the_average_and_a_bad_weight_keeps_nothing(qtbot, bench):
+    window, box, _, repeats = bench
+    model = window.model
+    add_each(qtbot, window, box, repeats[:2])
+    type_quaternion(qtbot, window, repeats[2])
+    type_weight(qtbot, box, "-2")
+    click(qtbot, box.add_button)
+    assert "weight" in box.message.text() and len(model.current_mount().measurements) == 2
+    type_weight(qtbot, box, "3")
+    click(qtbot, box.add_button)
+    assert [m.weight for m in model.current_mount().measurements] == [1.0, 1.0, 3.0]
+    # SciPy's weighted mean (Markley et al. 2007) of the same three
+    expected = Rotation.concatenate(repeats).mean(weights=[1, 1, 3])
+    np.testing.assert_allclose(shown_numbers(box.summary_label, "Mean quaternion (w, x, y, z)"),
+                               canonical_wxyz(expected), atol=2e-9, rtol=0)
+    assert "weight 3" in box.list.item(2).text()
