@@ -336,7 +336,9 @@ def add_fit_arguments(parser: argparse.ArgumentParser) -> None:
                         help="CSV with a header row: nominal_x, nominal_y, nominal_z (body frame, from the "
                              "drawing), measured_x, measured_y, measured_z (reference frame), optional weight; "
                              "the same headers the Measure panel imports")
-    parser.add_argument("--unit", default="mm", help="length unit of the points, for the printout (default mm)")
+    parser.add_argument("--unit", default="mm", choices=tuple(units.LENGTH_UNITS),
+                        help="length unit of the points, for the printout (default mm; thou: a thousandth of an "
+                             "inch)")
     add_orientation_options(parser)
     parser.add_argument("--json", action="store_true", help="print one JSON object")
 
@@ -505,12 +507,17 @@ def add_correct_arguments(parser: argparse.ArgumentParser) -> None:
     parser.add_argument("--frame", choices=("body", "reference"), default="body",
                         help="the frame the adjustment axes are written in (default body)")
     parser.add_argument("--footprint", metavar="FILE",
-                        help="the feet (or bolt points) in body coordinates, mm: one 'x y z' a line")
+                        help="the feet (or bolt points) in body coordinates, in --lengths (mm by default): one "
+                             "'x y z' a line")
     parser.add_argument("--face-normal", metavar="AXIS",
                         help="outward normal of the mounting face (+X/-Z or three numbers); default: the feet's "
                              "plane, on the side away from the body origin")
     parser.add_argument("--pivot", type=int, default=1, metavar="N", help="the foot that stays put (default 1)")
-    parser.add_argument("--pitch", type=float, metavar="MM", help="thread pitch of levelling screws, mm per turn")
+    parser.add_argument("--pitch", type=float, metavar="P", help="thread pitch of levelling screws per turn, in "
+                                                                 "--lengths (mm by default)")
+    parser.add_argument("--lengths", choices=("mm", "in", "thou"), default="mm",
+                        help="the unit of the feet, the pitch and the printed shims (thou: a thousandth of an "
+                             "inch, not an angular mil); the JSON keeps millimetres and names it")
     parser.add_argument("--json", action="store_true", help="print one JSON object")
 
 
@@ -543,18 +550,19 @@ def run_correct(args, stdin, stdout) -> int:
                                   "angles_deg": list(adjust.angles_deg), "residual_deg": adjust.residual_deg,
                                   "exact": adjust.exact}
         if args.footprint is not None:
-            feet = read_footprint(read_file_text(args.footprint))
+            feet = units.to_millimetres(read_footprint(read_file_text(args.footprint)), args.lengths)
+            pitch_mm = None if args.pitch is None else float(units.to_millimetres(args.pitch, args.lengths))
             if args.face_normal is None:
                 normal = outward_normal(feet)
             else:
                 from core.check import axis_vector
                 from core.correction import read_axes as read_directions
                 normal = axis_vector(tuple(read_directions(args.face_normal)[0]), "face normal")
-            result = shims(fix.body, feet, normal, pivot=args.pivot - 1, pitch_mm=args.pitch)
+            result = shims(fix.body, feet, normal, pivot=args.pivot - 1, pitch_mm=pitch_mm)
             data["shims"] = {"face_normal": _floats(normal), "pivot_foot": args.pivot,
                              "feet_mm": [_floats(f) for f in feet], "shims_mm": _floats(result.shims_mm),
                              "screw_turns": None if result.turns is None else _floats(result.turns),
-                             "pitch_mm": args.pitch, "tilt_deg": result.tilt_deg,
+                             "pitch_mm": pitch_mm, "length_unit": args.lengths, "tilt_deg": result.tilt_deg,
                              "twist_deg": result.twist_deg, "pivot_lifted_mm": result.pivot_lifted_mm}
     except FramewrightError as error:
         raise _Refused(str(error)) from None
@@ -585,16 +593,21 @@ def _correction_lines(fix, data) -> list[str]:
                      "(the least-squares answer)")
     shim = data["shims"]
     if shim:
+        length = shim["length_unit"]
+        in_length = lambda mm: units.millimetres_to(mm, length)      # noqa: E731  (mm kept, the unit shown)
         lines.append(f"shims under the footprint (face normal ({', '.join(_n(v) for v in shim['face_normal'])}), "
-                     f"foot {shim['pivot_foot']} the pivot), mm:")
+                     f"foot {shim['pivot_foot']} the pivot), {length}:")
         turns = shim["screw_turns"]
+        decimals = {"mm": 4, "in": 5, "thou": 2}[length]
         for i, (foot, thickness) in enumerate(zip(shim["feet_mm"], shim["shims_mm"]), start=1):
             extra = "" if turns is None else f"   {turns[i - 1]:.3f} turns"
-            lines.append(f"  foot {i} at ({', '.join(_n(v) for v in foot)}): {thickness:.4f}{extra}")
+            lines.append(f"  foot {i} at ({', '.join(_n(float(v)) for v in in_length(foot))}): "
+                         f"{float(in_length(thickness)):.{decimals}f}{extra}")
         lines.append(f"  tilt the shims make: {_n(shim['tilt_deg'])} deg; turn about the face normal left for the "
                      f"slotted holes: {_n(shim['twist_deg'])} deg")
         if shim["pivot_lifted_mm"] > 0:
-            lines.append(f"  the pivot foot needs a shim too ({shim['pivot_lifted_mm']:.4f} mm): no shim can be "
+            lines.append(f"  the pivot foot needs a shim too ({float(in_length(shim['pivot_lifted_mm'])):.{decimals}f} "
+                         f"{length}): no shim can be "
                          "negative, so the thinnest set lifts every foot by that much")
     return lines
 
@@ -743,6 +756,11 @@ def add_report_arguments(parser: argparse.ArgumentParser) -> None:
     for flag, field in (("--operator", "Operator"), ("--instrument", "Instrument"),
                         ("--calibration-due", "Instrument calibration due")):
         parser.add_argument(flag, metavar="TEXT", help=f"fills the report's '{field}' line (blank to fill by hand)")
+    parser.add_argument("--points", metavar="POINTS.csv",
+                        help="with --check: the point pairs the check's measured orientation was fitted from (the "
+                             "columns 'framewright fit' reads); the record adds the fit's residual table")
+    parser.add_argument("--points-unit", default="mm", choices=POINT_UNITS,
+                        help="the length unit of the points (default mm)")
     parser.add_argument("--units", dest="show_units", default="deg", metavar="UNIT",
                         choices=tuple(k for k in units.ANGLE_UNITS if k != "dms"),
                         help="print the report's angles in this unit: " + ", ".join(
@@ -751,6 +769,28 @@ def add_report_arguments(parser: argparse.ArgumentParser) -> None:
                         choices=tuple(units.SLOPE_UNITS),
                         help="also print the level readings as slopes in this unit: " + ", ".join(
                             f"{u.key} ({u.name})" for u in units.SLOPE_UNITS.values() if u.key != "deg"))
+
+
+POINT_UNITS = ("mm", "cm", "m", "um", "in", "ft")
+
+
+def _report_fit(args):
+    """The point fit of --points (None without it), refused by name when it cannot be made."""
+    if args.points is None:
+        return None
+    if args.check is None:
+        raise _Refused("--points goes with --check NAME: the residuals belong to one check's measured mount")
+    from core.fit import fit_points
+    from core.point_rows import RowsError, read_point_pairs
+
+    text = read_file_text(args.points)
+    try:
+        pairs = read_point_pairs(text)
+        return fit_points(pairs.nominal, pairs.measured, pairs.weights)
+    except RowsError as error:
+        raise _Refused(f"{printable(args.points)}: {error}") from None
+    except FramewrightError as error:
+        raise _Refused(f"{printable(args.points)}: not fitted: {error}") from None
 
 
 def _report_target(out: str, session_path: str) -> str:
@@ -790,10 +830,12 @@ def run_report(args, stdin, stdout) -> int:
                 raise _Refused(f"{field.lower()}: {problem}")
             free[field] = value
     name, digest = Path(args.session).name, records.sha256_of_bytes(raw)
+    fit = _report_fit(args)
     try:
         shown = records.ReportUnits(args.show_units, args.slope_units)
-        record = (records.check_record(session, args.check, name, digest, shown=shown) if args.check is not None
-                  else records.session_record(session, name, digest, shown))
+        record = (records.check_record(session, args.check, name, digest, fit=fit, fit_unit=args.points_unit,
+                                       fit_source=None if fit is None else Path(args.points).name, shown=shown)
+                  if args.check is not None else records.session_record(session, name, digest, shown))
     except FramewrightError as error:
         raise _Refused(str(error)) from None
     if args.write_report is None:
@@ -824,6 +866,7 @@ def run_verify_report(args, stdin, stdout) -> int:
 
     from core import inspection_record as records
     from core.record_files import first_printed_difference, read_report
+    from core.record_values import expected_figures
     from core.session import load_session_and_bytes
 
     try:
@@ -838,8 +881,12 @@ def run_verify_report(args, stdin, stdout) -> int:
         stdout.write(f"NOT the record of this session: {printable(error)}\n")
         return EXIT_OUTSIDE
     embedded = {k: v for k, v in data.items() if k != "record_sha256"}
+    try:
+        expected = expected_figures(record.numbers()["figures"], data.get("version"))
+    except FramewrightError as error:
+        raise _Refused(f"{printable(args.report)}: {error}") from None
     problems = []
-    difference = records.first_difference(data["figures"], record.numbers()["figures"])
+    difference = records.first_difference(data["figures"], expected)
     if difference:
         problems.append(f"a figure differs from the session: {difference}")
     if printed is not None:
@@ -853,6 +900,12 @@ def run_verify_report(args, stdin, stdout) -> int:
         return EXIT_OUTSIDE
     lines = [f"the {kind.upper()} report's {len(data['figures'])} figures are this session's numbers "
              f"(record SHA-256 {data['record_sha256']})"]
+    fitted = sum(1 for f in data["figures"] if ".fit_" in str(f.get("key")))
+    if fitted:
+        lines[0] = (f"the {kind.upper()} report's {len(data['figures']) - fitted} figures of the session are "
+                    f"this session's numbers (record SHA-256 {data['record_sha256']})")
+        lines.append(f"note: its {fitted} figures of the point fit are as the report wrote them, not compared: "
+                     "the session file does not keep the points")
     if data.get("session_sha256") != records.sha256_of_bytes(raw):
         lines.append("note: the session file is not byte for byte the one the report names (its SHA-256 "
                      "differs), but every figure is the same")

@@ -70,9 +70,34 @@ class ReportPreview(QDialog):
 
     def record(self):
         check_name = self.scope_box.currentData()
+        # the record in the window's display unit, as its panels show the figures (it names the unit)
+        shown = records.ReportUnits(self.window_.model.preferences.angle_units)
         if check_name is None:
-            return records.session_record(self.session, self.session_name, self.digest)
-        return records.check_record(self.session, check_name, self.session_name, self.digest)
+            return records.session_record(self.session, self.session_name, self.digest, shown)
+        fit = self._point_fit(check_name)
+        if fit is None:
+            return records.check_record(self.session, check_name, self.session_name, self.digest, shown=shown)
+        return records.check_record(self.session, check_name, self.session_name, self.digest, fit=fit.fit,
+                                    fit_rows=[r + 1 for r in fit.rows], fit_unit=fit.unit,
+                                    fit_source="the Measure tab's points", shown=shown)
+
+    def _point_fit(self, check_name: str):
+        """The Measure tab's last point fit when the check's measured mount is that fit (to the record's
+        agreement limit), so its residual table belongs in the record; None otherwise."""
+        from app.panels.measure_fit import POINTS
+
+        page = self.window_.side_pages.pages.get("measure_panel")
+        fit = page.panel().last_fit if page is not None and page.built else None    # never built: no fit
+        if fit is None or fit.method != POINTS:
+            return None
+        try:
+            _, saved = records.find_check(self.session, check_name)
+        except FramewrightError:
+            return None
+        measured = next((m for m in self.session.mounts if m.name == saved.measured), None)
+        if measured is None or fit.orientation.angle_to(measured.orientation) > records.FIT_AGREEMENT_DEG:
+            return None
+        return fit
 
     def free_values(self) -> dict:
         return {name: field.text().strip() for name, field in self.fields.items()

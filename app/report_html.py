@@ -44,7 +44,9 @@ def _figure_rows(figures: list, header: bool = True) -> str:
 
 
 def _table(table: Table) -> str:
-    head = "".join(f'<th align="left">{_e(c)}</th>' for c in table.columns) + '<th align="left">unit</th>'
+    # the numbers are right-aligned, so their headings are too: each heading stands over its own column
+    head = "".join(f'<th align="{"left" if i == 0 else "right"}">{_e(c)}</th>' for i, c in enumerate(table.columns))
+    head += '<th align="left">unit</th>'
     body = ""
     for row in table.rows:
         cells = "".join(f'<td align="right"><span data-figure="{_e(row.key)}" data-index="{i}">{_e(v)}</span></td>'
@@ -136,6 +138,16 @@ def json_block(record: Record) -> str:
             f'{text.replace("</", "<" + chr(92) + "/")}</script>')
 
 
+def print_style(record: Record) -> str:
+    """For a browser's print: "page N of M" and both hashes in the margin of every printed page (CSS page
+    margin boxes; a browser without them prints the hashes once, at the end). The PDF draws its own footer;
+    QTextDocument never sees this rule."""
+    return ("\n@page { size: A4; margin: 15mm 15mm 20mm 15mm;\n"
+            f'  @bottom-left {{ content: "Session file SHA-256 {record.session_sha256} \\A Record SHA-256 '
+            f'{record.sha256()}"; white-space: pre; font-size: 7pt; }}\n'
+            '  @bottom-right { content: "page " counter(page) " of " counter(pages); font-size: 7pt; } }\n')
+
+
 def html_file(record: Record, when: str, pngs: dict, missing: dict, free_values: dict | None = None) -> str:
     """The self-contained HTML file: pngs {section index: PNG bytes}; missing {section index: why}."""
     pictures: dict = {i: "data:image/png;base64," + base64.b64encode(png).decode("ascii") for i, png in pngs.items()}
@@ -143,5 +155,5 @@ def html_file(record: Record, when: str, pngs: dict, missing: dict, free_values:
     footer = (f'<p><span class="hash">Session file SHA-256 {_e(record.session_sha256)} · record SHA-256 '
               f'{_e(record.sha256())}</span></p>')
     return ("<!DOCTYPE html>\n<html lang=\"en\"><head><meta charset=\"utf-8\">"
-            f"<title>{_e(record.title)}</title><style>{STYLE}</style></head>\n<body>\n"
+            f"<title>{_e(record.title)}</title><style>{STYLE}{print_style(record)}</style></head>\n<body>\n"
             f"{body_html(record, when, pictures, free_values)}\n{footer}\n{json_block(record)}\n</body></html>\n")

@@ -88,11 +88,14 @@ class Pages:
         painter.save()
         painter.setFont(_font(7))
         painter.setPen(QColor(60, 60, 60))
-        y = self.page.height() - self.margin - self.footer * 0.55
-        line = QRectF(self.margin, y, self.body.width(), self.footer * 0.5)
+        y = self.page.height() - self.margin - self.footer * 0.8
+        line = QRectF(self.margin, y, self.body.width(), self.footer * 0.4)
+        below = line.translated(0, self.footer * 0.4)
         painter.drawLine(int(self.margin), int(y), int(self.margin + self.body.width()), int(y))
-        text = f"Session file SHA-256 {self.record.session_sha256}"
-        painter.drawText(line, int(Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter), text)
+        left = int(Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter)
+        painter.drawText(line, left, f"Session file SHA-256 {self.record.session_sha256}")
+        # the record's own hash too: a page taken from another record of the same session shows it
+        painter.drawText(below, left, f"Record SHA-256 {self.record.sha256()}")
         painter.drawText(line, int(Qt.AlignmentFlag.AlignRight | Qt.AlignmentFlag.AlignVCenter),
                          f"page {number} of {self.count}")
         painter.restore()

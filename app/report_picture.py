@@ -1,7 +1,8 @@
 """The Scene picture of a record's section (core/inspection_record.Picture): the part as measured with the
 nominal as the faint outline, drawn by a SceneWidget of its own, never shown on the screen, through the
-same offscreen framebuffer the Scene's Export PNG uses. Where no OpenGL context can be made (the
-offscreen platform, no display, no GL driver) the picture is left out with the reason: never a crash."""
+same offscreen framebuffer the Scene's Export PNG uses. Without a display the picture is still drawn
+when the platform makes an OpenGL context offscreen; where none can be made (no display, no GL driver)
+it is left out with the reason: never a crash."""
 
 from __future__ import annotations
 
@@ -17,9 +18,22 @@ def no_picture_reason() -> str | None:
     if not isinstance(app, QtWidgets.QApplication):
         return "the program runs without its window (no Qt widgets)"
     platform = QtGui.QGuiApplication.platformName()
-    if platform not in GL_PLATFORMS:
-        return f"no display to draw the Scene with OpenGL (Qt platform '{platform}')"
+    if platform not in GL_PLATFORMS and not _offscreen_context_can_be_made():
+        return (f"no display to draw the Scene with OpenGL, and no OpenGL context could be made offscreen "
+                f"(Qt platform '{platform}')")
     return None
+
+
+def _offscreen_context_can_be_made() -> bool:
+    """Whether this platform (e.g. Qt's 'offscreen', which some builds give OpenGL through EGL) makes an
+    OpenGL context current on an offscreen surface: then the picture is drawn without a display."""
+    context, surface = QtGui.QOpenGLContext(), QtGui.QOffscreenSurface()
+    surface.create()
+    try:
+        return bool(context.create() and surface.isValid() and context.makeCurrent(surface))
+    finally:
+        context.doneCurrent()
+        surface.destroy()
 
 
 class PictureMaker:

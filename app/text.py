@@ -15,6 +15,7 @@ from __future__ import annotations
 
 import math
 
+from core import units
 from core.describe import MINUS
 from core.number_text import format_number
 
@@ -61,6 +62,22 @@ def fixed(value: float, decimals: int, *, signed: bool = False, width: int = 0) 
 
 def degrees(value: float, decimals: int = 3, *, signed: bool = False) -> str:
     return fixed(value, decimals, signed=signed) + DEGREE
+
+
+def angle(value: float, unit: str = "deg", decimals: int | None = None, *, signed: bool = False) -> str:
+    """An angle held in degrees, shown in the display unit `unit` (core/units.py): '0.390°',
+    '0.390 mrad', '81.0″', '1° 30′ 15.0″'. Degrees keep three decimals unless told; another unit is
+    read to its usual decimals (a milliradian to 0.001, an arcsecond to 0.1)."""
+    if unit == "deg":
+        return degrees(value, 3 if decimals is None else decimals, signed=signed)
+    if not math.isfinite(value):
+        return fixed(value, 0) + " " + units.angle_unit(unit).symbol
+    if unit == "dms":
+        shown = units.format_dms(value)
+        return "+" + shown if signed and not shown.startswith(MINUS) and shown.strip("0° ′″.") else shown
+    found = units.angle_unit(unit)
+    shown = fixed(float(value) * found.per_base, found.decimals if decimals is None else decimals, signed=signed)
+    return shown + found.symbol if found.symbol in "′″" else f"{shown} {found.symbol}"
 
 
 def numbers(values, digits: int) -> str:

@@ -11,19 +11,22 @@ from typing import Any
 import numpy as np
 
 from core.errors import FramewrightError
+from core.units import LENGTH_UNITS
 
 FRAMES = ("body", "reference")
-_KEYS = ("axes", "axes_frame", "footprint", "pivot", "pitch_mm", "uncertainty_deg", "coverage", "covariance_deg2")
+_KEYS = ("axes", "axes_frame", "footprint", "pivot", "pitch_mm", "uncertainty_deg", "coverage", "length_unit",
+         "covariance_deg2")
 
 
 @dataclass(frozen=True)
 class AdjustmentSetup:
     """axes: the adjustment axes as typed ('+Z; 0.2 1 0'; '' for none); footprint: feet in body mm (empty:
     none); pivot: 0-based foot that stays put; pitch_mm: levelling-screw pitch or None; uncertainty_deg:
-    standard uncertainty of the measured orientation or None; coverage: k of U = k u; covariance_deg2: when
-    the uncertainty came from repeated measurements or a fit, the 3×3 covariance of the measured orientation
-    (a small turn in the reference frame, degrees²) that each judged figure's uncertainty is propagated
-    from (core/uncertainty.py), else None (u is the same about every axis)."""
+    standard uncertainty of the measured orientation or None; coverage: k of U = k u; length_unit: the unit
+    the feet, the pitch and the shims are shown and typed in (they are kept in mm whatever it is);
+    covariance_deg2: when the uncertainty came from repeated measurements or a fit, the 3×3 covariance of
+    the measured orientation (a small turn in the reference frame, degrees²) that each judged figure's
+    uncertainty is propagated from (core/uncertainty.py), else None (u is the same about every axis)."""
     axes: str = ""
     axes_frame: str = "body"
     footprint: tuple = ()
@@ -31,9 +34,13 @@ class AdjustmentSetup:
     pitch_mm: float | None = None
     uncertainty_deg: float | None = None
     coverage: float = 2.0
+    length_unit: str = "mm"
     covariance_deg2: tuple | None = None
 
     def __post_init__(self):
+        if self.length_unit not in LENGTH_UNITS:
+            raise FramewrightError(f"adjustment length unit: expected one of {', '.join(LENGTH_UNITS)}, "
+                                   f"got {self.length_unit!r}")
         if not isinstance(self.axes, str) or len(self.axes) > 1000:
             raise FramewrightError("adjustment axes: expected text of at most 1000 characters")
         if self.axes_frame not in FRAMES:
@@ -64,7 +71,9 @@ class AdjustmentSetup:
     def to_dict(self) -> dict[str, Any]:
         data = {"axes": self.axes, "axes_frame": self.axes_frame, "footprint": [list(f) for f in self.footprint],
                 "pivot": self.pivot, "pitch_mm": self.pitch_mm, "uncertainty_deg": self.uncertainty_deg,
-                "coverage": self.coverage}
+                "coverage": self.coverage,
+                # only when not mm, so a file saved before lengths had a choice is written the same way
+                **({"length_unit": self.length_unit} if self.length_unit != "mm" else {})}
         if self.covariance_deg2 is not None:        # only when there is one: older files read back the same
             data["covariance_deg2"] = [list(row) for row in self.covariance_deg2]
         return data

@@ -19,11 +19,11 @@ from __future__ import annotations
 
 import numpy as np
 
-from core import describe, level, sequences, units
+from core import describe, level, representations, sequences, units
 from core.check import check, check_position
 from core.correction import adjustment_angles, correction, read_axes
 from core.decision import decide_setup, setup_figure_uncertainties
-from core.errors import FramewrightError
+from core.errors import FramewrightError, InvalidInputError
 from core.orientation import Orientation
 from core.session import SavedCheck, Session
 from core.shims import outward_normal, shims
@@ -103,6 +103,7 @@ class _Builder:
         items += [self.fig(f"{key}.angle", "Rotation angle about that axis (right-hand rule)", [angle], DEGREES),
                   self.fig(f"{key}.rotation_vector", "Rotation vector (x, y, z) = angle × axis",
                            o.as_rotation_vector(), DEGREES),
+                  *self.parameter_items(key, o),
                   self.fig(f"{key}.angles", f"Angles {sequences.spelled_sequence(seq, intrinsic)} {kind}{named}",
                            angles.angles, DEGREES),
                   self.fig(f"{key}.gimbal_margin", f"Gimbal margin of {seq} {kind}"
@@ -120,6 +121,23 @@ class _Builder:
         items += ["    " + line for line in describe.describe_orientation(o, self.preset)]
         if mount.notes.strip():
             items.append(f"Notes: {' '.join(mount.notes.split())}")
+        return items
+
+    def parameter_items(self, key: str, o: Orientation) -> list:
+        """Every pure-number vector of the registry (the Gibbs vector, the modified Rodrigues parameters,
+        and any added later), with its formula; where one does not exist (the Gibbs vector at a half turn)
+        a line says so in its place."""
+        items = []
+        for r in representations.VECTORS:
+            if r.units != representations.PURE:
+                continue                     # the rotation vector is printed in angle units above
+            label = f"{r.caption or r.title} (x, y, z) = {r.formula}, n the axis and φ the angle"
+            if r is representations.MRP:
+                label += ", the set of length at most 1"
+            try:
+                items.append(self.fig(f"{key}.{r.key}", label, r.values(o), DIMENSIONLESS))
+            except InvalidInputError:
+                items.append(f"{r.caption or r.title}: {r.half_turn_words or 'does not exist here'}.")
         return items
 
     def level_table(self, key: str, o: Orientation) -> Table:
@@ -280,18 +298,32 @@ class _Builder:
         return items
 
     # -- fit residuals --------------------------------------------------------------------------------
-    def fit_items(self, key: str, fit, rows=None, unit: str = "mm") -> list:
+    def fit_items(self, key: str, fit, rows=None, unit: str = "mm", source: str | None = None) -> list:
         """The residual table of a point fit (core/fit.PointFit); `rows` are the 1-based row numbers."""
         numbers = rows if rows is not None else list(range(1, len(fit.distances) + 1))
+        head = [f"The measured orientation is the best fit of {len(fit.distances)} point pairs "
+                "(measured = R · nominal + t, nominal in body axes, measured in reference axes); a residual is "
+                "measured − fitted."]
+        if source is not None:
+            head.insert(0, self.words(f"{key}.fit_points", "Points file", source))
+        if fit.flag_threshold is not None:
+            head.append(self.fig(f"{key}.fit_flag_threshold",
+                                 f"Flag threshold of the residual distance ({fit.flag_rule})", [fit.flag_threshold],
+                                 unit))
         flagged = set(fit.flagged)
         table_rows = []
         printed = self.table([*residual, distance] for residual, distance in zip(fit.residuals, fit.distances))
         for i, values in enumerate(printed):
             mark = " (flagged)" if i in flagged else " (worst)" if i == fit.worst_index else ""
             table_rows.append(Figure(f"{key}.fit_residual[{i}]", f"row {numbers[i]}{mark}", values, unit))
-        return [self.fig(f"{key}.fit_rms", "RMS residual of the point fit", [fit.rms], unit),
+        return [*head, self.fig(f"{key}.fit_rms", "RMS residual of the point fit", [fit.rms], unit),
                 Table(f"Residuals of the point fit (measured − fitted, reference axes), {unit}",
                       ("point", "x", "y", "z", "distance"), tuple(table_rows))]
+
+
+# A fit's residuals are printed only for the orientation they belong to: the measured mount must be the
+# fit itself (a session file keeps the quaternion to the last digit, so a saved fit is far closer).
+FIT_AGREEMENT_DEG = 1e-6
 
 
 def _conventions(session: Session, digits: int, shown: ReportUnits) -> tuple:
@@ -332,8 +364,14 @@ def check_record(session: Session, check_name: str, session_name: str, session_s
                 Section("Nominal", tuple(_clean(b.mount_items(nominal_i, "Nominal ")))),
                 Section("Measured", tuple(_clean(b.mount_items(measured_i, "Measured "))))]
     if fit is not None:
-        sections.append(Section("The measured orientation's point fit", tuple(b.fit_items(f"check[{index}]",
-                                                                                            fit, fit_rows, fit_unit))))
+        apart = fit.orientation.angle_to(session.mounts[measured_i].orientation)
+        if apart > FIT_AGREEMENT_DEG:
+            raise RecordError(f"the measured mount {saved.measured!r} is not the fit of "
+                              f"{fit_source or 'the points'}: they are {apart:.6g}° apart (at most "
+                              f"{FIT_AGREEMENT_DEG:g}° expected), so the residuals would describe another "
+                              "orientation")
+        sections.append(Section("The measured orientation's point fit", tuple(b.fit_items(
+            f"check[{index}]", fit, fit_rows, fit_unit, fit_source))))
     return Record(f"Inspection record: {session.mounts[measured_i].name}", "check", saved.name, session_name,
                   session_sha256, b.preset.title, b.digits, _conventions(session, b.digits, shown), tuple(sections),
                   verdict, fit_source=fit_source, units=shown)

@@ -15,9 +15,10 @@ import math
 from dataclasses import dataclass
 
 from core.errors import FramewrightError
+from core.units import LENGTH_UNITS as _UNITS
 
-# Metres per unit. The window offers these; more (inch, thousandths of an inch) join this table.
-LENGTH_UNITS = {"mm": 1e-3, "m": 1.0}
+# Metres per unit, from the one table of lengths (the inch is exactly 25.4 mm): mm, m, in, thou.
+LENGTH_UNITS = {key: 1.0 / (1000.0 * unit.per_base) for key, unit in _UNITS.items()}
 DEFAULT_UNIT = "mm"          # CONVENTIONS.md: translations in mm by default in the window
 # No mount sits farther than a thousand kilometres from its reference: a larger number is a slip (an
 # exponent, a unit mistaken), and the bound keeps every product and difference far from overflow.
@@ -87,6 +88,6 @@ class Position:
     @classmethod
     def from_dict(cls, data) -> "Position":
         if not isinstance(data, dict) or set(data) - {"metres", "unit"} or "metres" not in data:
-            raise FramewrightError('position: expected {"metres": [x, y, z], "unit": "mm" or "m"}')
+            raise FramewrightError('position: expected {"metres": [x, y, z], "unit": "mm", "m", "in" or "thou"}')
         return cls(tuple(data["metres"]) if isinstance(data["metres"], list) else data["metres"],
                    data.get("unit", DEFAULT_UNIT))

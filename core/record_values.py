@@ -17,7 +17,10 @@ from core.number_text import format_number
 from core.orientation import Orientation
 
 RECORD_FORMAT = "framewright inspection record"
-RECORD_VERSION = 1
+RECORD_VERSION = 2
+# The figures each version added, by how their keys end: a report of an earlier version is compared with
+# the session without them, so a record filed before stays verifiable.
+ADDED_IN_VERSION = {2: (".gibbs", ".mrp")}
 DEGREES, MILLIMETRES, DIMENSIONLESS, UNIT_VECTOR, WORDS = "deg", "mm", "dimensionless", "unit vector", ""
 CAUTION = ("A wrong orientation can point a safety-relevant sensor the wrong way. "
            f"{SAFETY_CAUTION[0].upper()}{SAFETY_CAUTION[1:].rstrip('.')}.")
@@ -210,6 +213,16 @@ def first_difference(reported: list, expected: list) -> str | None:
         key, figure = next(iter(by_key.items()))
         return f"{key} ({figure['label']}) is missing from the report"
     return None
+
+
+def expected_figures(figures: list, version) -> list:
+    """The figures (as in `Record.numbers()['figures']`) a report of record `version` holds: those of this
+    version less the ones added after it. A version this program does not know is refused."""
+    if isinstance(version, bool) or not isinstance(version, int) or not 1 <= version <= RECORD_VERSION:
+        raise RecordError(f"the report is record version {version!r}; this program reads versions 1 to "
+                          f"{RECORD_VERSION} (a newer report needs a newer Framewright)")
+    later = tuple(end for added, ends in ADDED_IN_VERSION.items() if added > version for end in ends)
+    return [f for f in figures if not (later and str(f.get("key", "")).endswith(later))]
 
 
 def _shown(values) -> str:

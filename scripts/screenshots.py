@@ -6,7 +6,8 @@ Starts its own virtual X display when none is set, uses a throw-away settings fo
 not depend on anyone's preferences) and writes docs/screenshots/: window.png, the Scene alone for two demo
 mounts, decode-pose.png (Decode with a 4x4 transform at 1280x800), check.png (the Check panel),
 repeated-measurements.png (the Adjust tab with three measurements of one mount at 1280x800), fit.png (the
-Measure panel with a fit), adjust.png (the Adjust tab on the invented demo check), and the whole window at
+Measure panel with a fit), adjust.png (the Adjust tab on the invented demo check) and adjust-inches.png (its feet and shims in
+inches), check-milliradians-1280x800.png (the Check figures in mrad), and the whole window at
 1280x800 (window.png, window-1280x800.png) and 1920x1080 (window-1920x1080.png), and at 1280x800 with the
 Gibbs vector and MRP editors shown (parameters-1280x800.png, parameters-half-turn-1280x800.png).
 """
@@ -122,6 +123,9 @@ def _units_shot(app, window, out_dir) -> bool:
     model.set_preferences(angle_units="mrad")
     _settle(app)
     ok = _grab(window, out_dir / "window-milliradians-1280x800.png")
+    _show_tab(window, "Check")              # the check figures in the display unit too
+    _settle(app)
+    ok = ok and _grab(window, out_dir / "check-milliradians-1280x800.png")
     model.set_preferences(angle_units=before)
     _settle(app)
     return ok
@@ -203,7 +207,20 @@ def _adjust_shot(app, window, out_dir) -> bool:
     if page is not None:
         page.verticalScrollBar().setValue(page.verticalScrollBar().maximum())
         _settle(app, 6)
-    return _grab(window, out_dir / "adjust.png")
+    ok = _grab(window, out_dir / "adjust.png")
+    # the same feet, pitch and shims in inches (the footprint is kept in mm; only the unit shown changes)
+    from dataclasses import replace
+    from core import operations
+    check_state = model.check
+    model.apply(operations.set_check, replace(check_state, adjustment=replace(check_state.adjustment,
+                                                                                length_unit="in")))
+    _settle(app, 6)
+    if page is not None:
+        page.verticalScrollBar().setValue(page.verticalScrollBar().maximum())
+        _settle(app, 6)
+    ok = ok and _grab(window, out_dir / "adjust-inches.png")
+    model.undo_stack.undo()
+    return ok
 
 
 def _parameters_shot(app, window, out_dir) -> bool:

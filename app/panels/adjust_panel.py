@@ -13,17 +13,17 @@ from __future__ import annotations
 
 from dataclasses import replace
 
-from PySide6.QtCore import QRectF
+from PySide6.QtCore import QRectF, Qt
 from PySide6.QtGui import QColor, QPainter
-from PySide6.QtWidgets import (QFormLayout, QGroupBox, QLineEdit, QPlainTextEdit, QSizePolicy, QSpinBox, QVBoxLayout,
+from PySide6.QtWidgets import (QFormLayout, QGroupBox, QPlainTextEdit, QSizePolicy, QSpinBox, QVBoxLayout,
                                QWidget)
 
 from app.model import CHECK, MEASUREMENTS, MOUNTS, ORIENTATION, PREFERENCES, SELECTION, SESSION, Change, SessionModel
 from app.panels.base import Panel
 from app.panels.repeats_box import RepeatedMeasurementsBox
-from app.text import degrees, vector
+from app.text import angle, fixed, vector
 from app.widgets.with_tips import button, choice_box, line_field, reading_label
-from core import operations
+from core import operations, units
 from core.check import check
 from core.correction import adjustment_angles, correction, read_axes
 from core.decision import CANNOT_DECIDE, CONFORMS, DOES_NOT_CONFORM, decide_setup
@@ -74,6 +74,7 @@ class AdjustPanel(Panel):
 
     def __init__(self, model: SessionModel, parent=None):
         super().__init__(model, parent)
+        self._shown: dict[str, str] = {}        # the feet and pitch text as last rendered
 
         self.correction_label = reading_label()
         self.axes_field = line_field("The mount's adjustment axes in the order they are turned, separated by ';': a "
@@ -84,10 +85,16 @@ class AdjustPanel(Panel):
         self.angles_label = reading_label()
 
         self.footprint_field = QPlainTextEdit()
-        self.footprint_field.setPlaceholderText("one foot a line: x y z (body mm)")
-        self.footprint_field.setToolTip("The feet or bolt points in body coordinates, mm, one 'x y z' a line. "
-                                        "They must lie on one face; its outward normal is taken on the side away "
-                                        "from the body origin.")
+        self.footprint_field.setPlaceholderText("one foot a line: x y z (body axes)")
+        self.footprint_field.setToolTip("The feet or bolt points in body coordinates, in the length unit chosen "
+                                        "below, one 'x y z' a line. They must lie on one face; its outward normal "
+                                        "is taken on the side away from the body origin.")
+        self.length_box = choice_box("The unit the feet, the screw pitch and the shims are typed and shown in. "
+                                     "They are kept in mm; changing it shows the same lengths in the new unit. "
+                                     "thou: a thousandth of an inch (0.0254 mm), not an angular mil.",
+                                     [(units.length_unit(key).symbol, key) for key in ("mm", "in", "thou")])
+        self.length_box.setItemData(self.length_box.findData("thou"), units.length_unit("thou").note,
+                                    Qt.ItemDataRole.ToolTipRole)
         self.footprint_field.setMaximumHeight(90)
         self.corners_button = button("Corners of the face opposite the boresight",
                                      "Fill in the four corners of the part box's face opposite its boresight "
@@ -97,12 +104,14 @@ class AdjustPanel(Panel):
         self.pivot_box = QSpinBox()
         self.pivot_box.setMinimum(1)
         self.pivot_box.setToolTip("The foot that should stay put.")
-        self.pitch_field = line_field("Thread pitch of levelling screws under the feet, mm per turn (empty: none). "
+        self.pitch_field = line_field("Thread pitch of levelling screws under the feet, in the length unit per turn "
+                                      "(an inch thread of 20 per inch is 0.05 in; empty: none). "
                                       "Enter to use it.", placeholder="none")
         self.shims_label = reading_label()
 
-        self.uncertainty_field = line_field("Standard uncertainty u of the measured orientation, degrees, the same "
-                                            "about every axis (empty: none). With it the check decides by ISO "
+        self.uncertainty_field = line_field("Standard uncertainty u of the measured orientation, degrees or a number "
+                                            "with its unit mark (0.1 mrad, 20″), the same about every axis (empty: "
+                                            "none). With it the check decides by ISO "
                                             "14253-1. Enter to use it.", placeholder="none")
         self.coverage_field = line_field("Coverage factor k of the expanded uncertainty U = k·u (usually 2).")
         self.decision_label = reading_label()
@@ -118,11 +127,12 @@ class AdjustPanel(Panel):
         turn_form.addRow(self.angles_label)
         feet = QGroupBox("Shims under the footprint")
         feet_form = QFormLayout(feet)
+        feet_form.addRow("Lengths in", self.length_box)
         feet_form.addRow(self.footprint_field)
         feet_form.addRow(self.corners_button)
         feet_form.addRow(self.use_feet_button)
         feet_form.addRow("Pivot foot", self.pivot_box)
-        feet_form.addRow("Screw pitch (mm)", self.pitch_field)
+        feet_form.addRow("Screw pitch", self.pitch_field)
         feet_form.addRow(self.shims_label)
         sure = QGroupBox("Measurement uncertainty (ISO 14253-1)")
         sure_form = QFormLayout(sure)
@@ -141,9 +151,9 @@ class AdjustPanel(Panel):
         self.use_feet_button.clicked.connect(self._feet_typed)
         self.corners_button.clicked.connect(self._corners)
         self.pivot_box.valueChanged.connect(self._pivot_chosen)
-        self.pitch_field.returnPressed.connect(lambda: self._optional_number(self.pitch_field, "pitch_mm"))
-        self.uncertainty_field.returnPressed.connect(
-            lambda: self._optional_number(self.uncertainty_field, "uncertainty_deg"))
+        self.pitch_field.returnPressed.connect(self._pitch_typed)
+        self.length_box.activated.connect(lambda i: self._set(length_unit=self.length_box.itemData(i)))
+        self.uncertainty_field.returnPressed.connect(self._uncertainty_typed)
         self.coverage_field.returnPressed.connect(self._coverage_typed)
         self.render()
 
@@ -173,8 +183,10 @@ class AdjustPanel(Panel):
 
     def _feet_typed(self) -> None:
         text = self.footprint_field.toPlainText()
+        if text == self._shown.get("feet"):
+            return          # the feet as shown, untouched: the stored ones stay exactly as they are
         try:
-            feet = read_footprint(text) if text.strip() else ()
+            feet = units.to_millimetres(read_footprint(text), self._length()) if text.strip() else ()
             if len(feet):
                 outward_normal(feet)
         except FramewrightError as error:
@@ -205,15 +217,30 @@ class AdjustPanel(Panel):
         if not self._rendering and self.model.check.adjustment.footprint:
             self._set(pivot=value - 1)
 
-    def _optional_number(self, field: QLineEdit, key: str) -> None:
-        text = field.text().strip()
+    def _length(self) -> str:
+        return self.model.check.adjustment.length_unit
+
+    def _pitch_typed(self) -> None:
+        text = self.pitch_field.text().strip()
+        if text == self._shown.get("pitch"):
+            return
         try:
-            value = None if text in ("", "none") else parse_number(text)
+            value = None if text in ("", "none") else float(units.to_millimetres(parse_number(text), self._length()))
+        except ValueError as error:
+            self.message.problem(f"{error} (kept the last good value)")
+            return
+        self._set(pitch_mm=value)
+
+    def _uncertainty_typed(self) -> None:
+        """Degrees, or a number with its unit mark as the instrument's certificate states it (0.1 mrad, 20″)."""
+        text = self.uncertainty_field.text().strip()
+        try:
+            value = None if text in ("", "none") else units.read_angle(text, "deg").degrees
         except ValueError as error:
             self.message.problem(f"{error} (kept the last good value)")
             return
         # a u typed by hand is the same about every axis: a covariance from a scatter or a fit no longer holds
-        self._set(**{key: value}, **({"covariance_deg2": None} if key == "uncertainty_deg" else {}))
+        self._set(uncertainty_deg=value, covariance_deg2=None)
 
     def _coverage_typed(self) -> None:
         try:
@@ -239,14 +266,19 @@ class AdjustPanel(Panel):
         if not self.axes_field.hasFocus():
             self.axes_field.setText(setup.axes)
         self.frame_box.setCurrentIndex(self.frame_box.findData(setup.axes_frame))
+        unit = setup.length_unit
+        self.length_box.setCurrentIndex(max(0, self.length_box.findData(unit)))
         if not self.footprint_field.hasFocus():
-            self.footprint_field.setPlainText("\n".join(" ".join(f"{v:g}" for v in foot) for foot in setup.footprint))
+            self._shown["feet"] = "\n".join(" ".join(_length_text(v, unit) for v in foot) for foot in setup.footprint)
+            self.footprint_field.setPlainText(self._shown["feet"])
         self.pivot_box.setMaximum(max(1, len(setup.footprint)))
         self.pivot_box.setValue(setup.pivot + 1)
         self.pivot_box.setEnabled(bool(setup.footprint))
-        for field, value in ((self.pitch_field, setup.pitch_mm), (self.uncertainty_field, setup.uncertainty_deg)):
-            if not field.hasFocus():
-                field.setText("" if value is None else f"{value:g}")
+        if not self.pitch_field.hasFocus():
+            self._shown["pitch"] = "" if setup.pitch_mm is None else _length_text(setup.pitch_mm, unit)
+            self.pitch_field.setText(self._shown["pitch"])
+        if not self.uncertainty_field.hasFocus():
+            self.uncertainty_field.setText("" if setup.uncertainty_deg is None else f"{setup.uncertainty_deg:g}")
         if not self.coverage_field.hasFocus():
             self.coverage_field.setText(f"{setup.coverage:g}")
 
@@ -261,20 +293,21 @@ class AdjustPanel(Panel):
         mounts = self.model.mounts
         nominal, measured = mounts[nominal_index].orientation, mounts[measured_index].orientation
         setup = self.model.check.adjustment
+        unit = self.model.preferences.angle_units
         fix = correction(nominal, measured)
         if fix.axis_body is None:
             self.correction_label.setText("No correction needed: the measured orientation is the nominal.")
         else:
             self.correction_label.setText(
-                f"{degrees(fix.angle_deg, 4)} about {vector(fix.axis_body)} in body axes\n"
-                f"{degrees(fix.angle_deg, 4)} about {vector(fix.axis_reference)} in reference axes\n"
-                f"Small turns about body X, Y, Z: {vector(fix.small_angles_body_deg)}°")
-        self.angles_label.setText(self._angles_text(fix, setup))
-        self.shims_label.setText(self._shims_text(fix, setup))
-        self._render_decision(nominal, measured, setup)
+                f"{_angle(fix.angle_deg, unit)} about {vector(fix.axis_body)} in body axes\n"
+                f"{_angle(fix.angle_deg, unit)} about {vector(fix.axis_reference)} in reference axes\n"
+                f"Small turns about body X, Y, Z: {_small_turns(fix.small_angles_body_deg, unit)}")
+        self.angles_label.setText(self._angles_text(fix, setup, unit))
+        self.shims_label.setText(self._shims_text(fix, setup, unit))
+        self._render_decision(nominal, measured, setup, unit)
 
     @staticmethod
-    def _angles_text(fix, setup) -> str:
+    def _angles_text(fix, setup, unit: str) -> str:
         if not setup.axes:
             return "Type the axes the mount turns about to get the angles for each."
         try:
@@ -282,15 +315,15 @@ class AdjustPanel(Panel):
                                        read_axes(setup.axes))
         except FramewrightError as error:
             return str(error)
-        lines = [f"{i}. about {vector(axis, 3)}: {degrees(angle, 4)}"
+        lines = [f"{i}. about {vector(axis, 3)}: {_angle(angle, unit)}"
                  for i, (axis, angle) in enumerate(zip(result.axes, result.angles_deg), start=1)]
         lines.append("These reach the correction exactly." if result.exact else
-                     f"These axes cannot reach the correction: {degrees(result.residual_deg, 4)} remains "
+                     f"These axes cannot reach the correction: {_angle(result.residual_deg, unit)} remains "
                      "(the closest they can do).")
         return "\n".join(lines)
 
     @staticmethod
-    def _shims_text(fix, setup) -> str:
+    def _shims_text(fix, setup, unit: str) -> str:
         if not setup.footprint:
             return "Type the feet, or take the corners of the part's face, to get the shims."
         try:
@@ -298,17 +331,20 @@ class AdjustPanel(Panel):
             result = shims(fix.body, setup.footprint, normal, pivot=setup.pivot, pitch_mm=setup.pitch_mm)
         except FramewrightError as error:
             return str(error)
-        lines = []
+        lines, length = [], setup.length_unit
         for i, (foot, thickness) in enumerate(zip(setup.footprint, result.shims_mm), start=1):
             turns = "" if result.turns is None else f", {result.turns[i - 1]:.3f} turns"
-            lines.append(f"Foot {i} at {vector(foot, 1)}: {thickness:.3f} mm{turns}")
-        lines.append(f"Tilt made by the shims: {degrees(result.tilt_deg, 4)}; turn about the face normal "
-                     f"{vector(normal, 3)} left for the slotted holes: {degrees(result.twist_deg, 4)}")
+            at = vector(units.millimetres_to(foot, length), _FOOT_DECIMALS[length])
+            lines.append(f"Foot {i} at {at}: {_shim_text(thickness, length)}{turns}")
+        slope = units.format_slope(result.tilt_deg, "mm/m" if length in ("mm", "m") else "in/ft")
+        lines.append(f"Tilt made by the shims: {_angle(result.tilt_deg, unit)} ({slope}); turn about the face "
+                     f"normal {vector(normal, 3)} left for the slotted holes: {_angle(result.twist_deg, unit)}")
         if result.pivot_lifted_mm > 0:
-            lines.append(f"The pivot foot needs {result.pivot_lifted_mm:.3f} mm too: no shim can be negative.")
+            lines.append(f"The pivot foot needs {_shim_text(result.pivot_lifted_mm, length)} too: no shim "
+                         "can be negative.")
         return "\n".join(lines)
 
-    def _render_decision(self, nominal, measured, setup) -> None:
+    def _render_decision(self, nominal, measured, setup, unit: str) -> None:
         result = check(nominal, measured, self.model.check.settings)
         try:
             decisions, overall = decide_setup(nominal, measured, self.model.check.settings, result, setup)
@@ -318,8 +354,38 @@ class AdjustPanel(Panel):
             return
         words = {CONFORMS: "Conforms", CANNOT_DECIDE: "Cannot decide", DOES_NOT_CONFORM: "Does not conform"}
         lines = [f"{words[overall]}"]
-        lines += [f"• {c.name} {degrees(c.value_deg, 4)} against {degrees(c.tolerance_deg, 4)}: {d.words()}"
+        lines += [f"• {c.name} {_angle(c.value_deg, unit)} against {_angle(c.tolerance_deg, unit)}: {d.words()}"
                   for c, d in decisions]
         self.decision_label.setText("\n".join(lines))
         closest = max(decisions, key=lambda cd: cd[0].value_deg - cd[0].tolerance_deg)
         self.decision_bar.show_decision(closest[1])
+
+
+def _angle(value_deg: float, unit: str) -> str:
+    """An angle in the display unit; degrees to 0.0001° here, finer than a check's figures, since a turn
+    of a screw or a shim is set from it."""
+    return angle(value_deg, unit, 4 if unit == "deg" else None)
+
+
+def _small_turns(values_deg, unit: str) -> str:
+    if unit in ("deg", "dms"):
+        return vector(values_deg) + "°"
+    found = units.angle_unit(unit)
+    return vector(units.degrees_to(values_deg, unit), found.decimals) + ("" if found.symbol in "′″" else " ") \
+        + found.symbol
+
+
+# Feet are read to a tenth of a millimetre (or its like); shims to the unit's usual reading (0.001 mm,
+# 0.0001 in, 0.01 thou: core/units.py).
+_FOOT_DECIMALS = {"mm": 1, "in": 3, "thou": 1}
+
+
+def _shim_text(millimetres: float, unit: str) -> str:
+    return f"{fixed(float(units.millimetres_to(millimetres, unit)), units.length_unit(unit).decimals)} " \
+           f"{units.length_unit(unit).symbol}"
+
+
+def _length_text(millimetres: float, unit: str) -> str:
+    """A stored length in the shown unit to six significant digits (9.84252 in for 250 mm): what a person
+    reads and types. Text left as shown is not read back, so the stored mm are never rounded through it."""
+    return f"{float(units.millimetres_to(millimetres, unit)):.6g}"

@@ -15,9 +15,9 @@ from PySide6.QtCore import Qt
 from PySide6.QtGui import QFont
 from PySide6.QtWidgets import QComboBox, QFormLayout, QGroupBox, QHBoxLayout, QLabel, QVBoxLayout
 
-from app.model import CHECK, MOUNTS, ORIENTATION, POSITION, SELECTION, Change, SessionModel
+from app.model import CHECK, MOUNTS, ORIENTATION, POSITION, PREFERENCES, SELECTION, Change, SessionModel
 from app.panels.base import Panel
-from app.text import degrees, fixed, vector
+from app.text import angle, fixed, vector
 from app.widgets.message_line import MessageLine
 from app.widgets.number_field import NumberField, parse_number
 from app.widgets.with_tips import button, choice_box, line_field, reading_label
@@ -40,7 +40,7 @@ TOLERANCE_MAX_DEG = 180.0
 
 
 class CheckPanel(Panel):
-    watches = frozenset({CHECK, MOUNTS, ORIENTATION, SELECTION, POSITION})
+    watches = frozenset({CHECK, MOUNTS, ORIENTATION, SELECTION, POSITION, PREFERENCES})
 
     def __init__(self, model: SessionModel, parent=None):
         super().__init__(model, parent)
@@ -66,13 +66,13 @@ class CheckPanel(Panel):
         self.axis_field = line_field("A body-frame direction as three numbers x, y, z (any length; '.' is the "
                                      "decimal point); Enter to use it.", placeholder="x, y, z")
         self.total_field = self._tolerance_field(
-            "Total deviation tolerance in degrees: the largest angle of the turn from nominal to measured that "
+            "Total deviation tolerance: the largest angle of the turn from nominal to measured that "
             "passes. A value equal to the tolerance passes.")
         self.pointing_field = self._tolerance_field(
-            "Pointing tolerance in degrees: the largest angle between where the body axis should point "
+            "Pointing tolerance: the largest angle between where the body axis should point "
             "(nominal) and where it does point (measured) that passes.")
         self.roll_field = self._tolerance_field(
-            "Roll tolerance in degrees: the largest turn about the body axis (after the pointing is corrected) "
+            "Roll tolerance: the largest turn about the body axis (after the pointing is corrected) "
             "that passes, either sign.")
         self.position_field = NumberField(
             "Position tolerance in mm: the largest distance of the measured origin from the nominal one that "
@@ -369,6 +369,7 @@ class CheckPanel(Panel):
             return
         mounts = self.model.mounts
         settings = self.model.check.settings
+        unit = self.model.preferences.angle_units        # figures in the display unit; judged in degrees
         result = check(mounts[nominal].orientation, mounts[measured].orientation, settings)
         offset = check_position(mounts[nominal].orientation, mounts[nominal].position, mounts[measured].position,
                                 settings.position_tolerance_mm)
@@ -378,29 +379,30 @@ class CheckPanel(Panel):
         self.position_result.setText(self._position_words(offset, mounts[nominal], mounts[measured], settings))
         deciding = min(result.criteria, key=lambda c: c.margin_deg)
         self.margin_label.setText(
-            f"Margin {degrees(result.margin_deg, signed=True)}: {deciding.name} {degrees(deciding.value_deg)} "
-            f"{'within' if deciding.passed else 'exceeds'} {degrees(deciding.tolerance_deg)}")
+            f"Margin {angle(result.margin_deg, unit, signed=True)}: {deciding.name} "
+            f"{angle(deciding.value_deg, unit)} {'within' if deciding.passed else 'exceeds'} "
+            f"{angle(deciding.tolerance_deg, unit)}")
         self.decision_words.setText(self._decision_words(mounts[nominal].orientation, mounts[measured].orientation,
                                                          result))
         lines = []
         if nominal == measured:
             lines.append("The nominal and the measured are the same mount.")
         if result.total_deg == 0:
-            lines.append("Total deviation: 0.000° (the orientations are the same)")
+            lines.append(f"Total deviation: {angle(0.0, unit)} (the orientations are the same)")
         else:
-            lines.append(f"Total deviation: {degrees(result.total_deg)}, about {vector(result.axis)} "
+            lines.append(f"Total deviation: {angle(result.total_deg, unit)}, about {vector(result.axis)} "
                          "in the nominal body axes")
         if result.body_axis is not None:
             name = axes.axis_name(settings.body_axis) if isinstance(settings.body_axis, str) else None
             axis = axes.display(name) if name else vector(result.body_axis)
-            lines.append(f"Pointing error of body {axis}: {degrees(result.pointing_deg)}")
-            roll = (degrees(result.roll_deg, signed=True) if result.roll_defined
+            lines.append(f"Pointing error of body {axis}: {angle(result.pointing_deg, unit)}")
+            roll = (angle(result.roll_deg, unit, signed=True) if result.roll_defined
                     else "undefined (the axis points backwards)")
             lines.append(f"Roll about body {axis}: {roll}")
         for c in result.criteria:
             verdict = "within" if c.passed else "exceeds"
-            lines.append(f"• {c.name}: {degrees(c.value_deg)} {verdict} its tolerance {degrees(c.tolerance_deg)}, "
-                         f"margin {degrees(c.margin_deg, signed=True)}")
+            lines.append(f"• {c.name}: {angle(c.value_deg, unit)} {verdict} its tolerance "
+                         f"{angle(c.tolerance_deg, unit)}, margin {angle(c.margin_deg, unit, signed=True)}")
         lines.extend(result.notes)
         self.details.setText("\n".join(lines))
 
@@ -417,8 +419,9 @@ class CheckPanel(Panel):
             return f"ISO 14253-1 decision: none ({error})"
         expanded = setup.coverage * setup.uncertainty_deg
         words = {CANNOT_DECIDE: "cannot decide within the measurement uncertainty"}.get(overall, overall)
-        return (f"ISO 14253-1 decision: {words} (u = {degrees(setup.uncertainty_deg)}, k = {setup.coverage:g}, "
-                f"U = {degrees(expanded)})")
+        unit = self.model.preferences.angle_units
+        return (f"ISO 14253-1 decision: {words} (u = {angle(setup.uncertainty_deg, unit)}, k = {setup.coverage:g}, "
+                f"U = {angle(expanded, unit)})")
 
     @staticmethod
     def _position_words(offset, nominal, measured, settings) -> str:

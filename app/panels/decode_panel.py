@@ -253,7 +253,7 @@ class DecodePanel(Panel):
             return Position.from_shown([m / LENGTH_UNITS[shown] for m in metres], shown), f"in {unit}, as the text says"
         unit = self.unit_box.currentData()
         if unit is None:
-            raise FramewrightError("the text gives the translation without a unit: choose mm or m first")
+            raise FramewrightError("the text gives the translation without a unit: choose its unit first")
         return Position.from_shown(t, unit), f"read as {unit} (you chose it: the text gives no unit)"
 
     def apply_selected(self) -> None:

@@ -9,6 +9,7 @@ from PySide6.QtCore import QRectF, QSize, Qt
 from PySide6.QtGui import QColor, QPainter, QPen
 from PySide6.QtWidgets import QGroupBox, QLabel, QPushButton, QSizePolicy, QVBoxLayout, QWidget
 
+from core import units
 from core.sequences import preset_names, spelled_sequence
 from app.model import Change, SessionModel
 from core.orientation import Orientation
@@ -102,6 +103,7 @@ class GimbalMeter(QGroupBox):
         font.setPointSizeF(font.pointSizeF() * 1.4)
         font.setBold(True)
         self.margin_label.setFont(font)
+        self.margin_label.setWordWrap(True)    # '1527 mrad from lock' breaks before it widens the editors' row
         self.band_label = QLabel()
         self.band_label.setWordWrap(True)  # so the meter can be narrow on a laptop
         self.bar = MarginBar()
@@ -137,8 +139,7 @@ class GimbalMeter(QGroupBox):
         self.band = band
         self.margin = m
         self.sequence_label.setText(f"For {spelled_sequence(seq, intr)} {'intrinsic' if intr else 'extrinsic'}")
-        self.margin_label.setText(f"{m.margin_deg:.3g}° from lock" if m.margin_deg >= 0.01 or m.margin_deg == 0
-                                  else f"{m.margin_deg:.2e}° from lock")
+        self.margin_label.setText(_margin_words(m.margin_deg, prefs.angle_units) + " from lock")
         colour = BAND_COLOURS[band].name()
         self.band_label.setText(f"<span style='color:{colour}; font-weight:600'>■ {BAND_WORDS[band]}</span>"
                                 f"  (amber under {prefs.amber_margin_deg:g}°, red under {prefs.red_margin_deg:g}°)")
@@ -169,10 +170,20 @@ class GimbalMeter(QGroupBox):
             self.switch_button.setEnabled(False)
         else:
             self.best_label.setText(f"Best-conditioned here: {spelled_sequence(best.sequence, intr)} "
-                                    f"({best.margin_deg:.3g}° from lock).")
+                                    f"({_margin_words(best.margin_deg, prefs.angle_units)} from lock).")
             self.switch_button.setText(f"Show the angles in {'-'.join(best.sequence)}")
             self.switch_button.setEnabled(True)
 
     def _switch(self) -> None:
         if self._best is not None:
             self.model.set_preferences(origin=self, sequence=self._best.sequence)
+
+
+def _margin_words(margin_deg: float, unit: str) -> str:
+    """The distance from lock in the display unit, to three significant digits (an exponent when tiny)."""
+    found = units.angle_unit(unit)
+    value = float(units.degrees_to(margin_deg, unit)) if unit != "deg" else margin_deg
+    # three significant digits, whole numbers past a thousand (1483 mrad, not 1.48e+03), an exponent when tiny
+    shown = f"{value:.0f}" if value >= 1000 else f"{value:.3g}" if margin_deg >= 0.01 or margin_deg == 0 \
+        else f"{value:.2e}"
+    return shown + "°" if unit == "deg" else shown + ("" if found.symbol in "′″" else " ") + found.symbol

@@ -55,6 +55,8 @@ class SceneBinding:
             kind, sequence, intrinsic = scene.overlay_representation()
             if (prefs.sequence, prefs.intrinsic) != (sequence, intrinsic):
                 scene.set_overlay_representation(kind, prefs.sequence, prefs.intrinsic)
+            if prefs.angle_units != scene.angle_unit():
+                scene.set_angle_unit(prefs.angle_units)
 
     def disconnect(self):
         self.model.changed.disconnect(self.refresh)

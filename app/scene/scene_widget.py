@@ -69,6 +69,7 @@ class SceneWidget(QtWidgets.QWidget):
         self._tracked_body = FACE_NORMALS["+Z"].copy()
         self._sweep_t = 1.0
         self._representation = "axis-angle"
+        self._angle_unit = "deg"          # the display unit the overlay writes angles in
         self._sequence, self._intrinsic = "ZYX", True
         self._preset = describe.DEFAULT_PRESET
 
@@ -212,6 +213,15 @@ class SceneWidget(QtWidgets.QWidget):
             self._intrinsic = bool(intrinsic)
         self.toolbar.select(self.toolbar.representation, kind)
         self._refresh()
+
+    def set_angle_unit(self, unit: str) -> None:
+        """The display unit of the overlay's angles (a key of core/units.ANGLE_UNITS)."""
+        if unit != self._angle_unit:
+            self._angle_unit = unit
+            self._refresh()
+
+    def angle_unit(self) -> str:
+        return self._angle_unit
 
     def overlay_representation(self) -> tuple[str, str, bool]:
         """(kind, sequence, intrinsic) the overlay writes the orientation in."""
@@ -380,10 +390,11 @@ class SceneWidget(QtWidgets.QWidget):
         lab.set_label("n", pos=a.get("n", np.zeros(3)), text="n", rgb=palette.ROTATION_AXIS_RGB, bold=True,
                       visible=has_axis)
         swept = self._sweep_t * angle
-        phi_text = f"\u03c6 {swept:.1f}\u00b0" if self._sweep_t == 1.0 else f"\u03c6 {swept:.1f}\u00b0 of {angle:.1f}\u00b0"
+        short = lambda deg: overlay_text.short_angle(deg, self._angle_unit)      # noqa: E731
+        phi_text = f"\u03c6 {short(swept)}" if self._sweep_t == 1.0 else f"\u03c6 {short(swept)} of {short(angle)}"
         lab.set_label("phi", pos=a.get("phi", np.zeros(3)), text=phi_text, rgb=palette.ROTATION_AXIS_RGB,
                       bold=True, visible=has_axis and self.rotation.cone_visible and swept > 0)
-        lab.set_label("alpha", pos=a.get("alpha", np.zeros(3)), text=f"\u03b1 {self.rotation.alpha_deg:.1f}\u00b0",
+        lab.set_label("alpha", pos=a.get("alpha", np.zeros(3)), text=f"\u03b1 {short(self.rotation.alpha_deg)}",
                       rgb=palette.ALPHA_RGB, visible=has_axis)
         lab.set_label("r", pos=a["r"], text=f"r ({overlay_text.tracked_words(self._tracked_label(), self._tracked_body)})",
                       rgb=palette.TRACKED_RGB, bold=True, visible=True)
@@ -406,7 +417,7 @@ class SceneWidget(QtWidgets.QWidget):
     def _update_panels(self, angle, ghost_shown):
         text = palette.LABEL_TEXT_RGB
         lines = overlay_text.orientation_panel(self._orientation, self._representation, self._sequence,
-                                               self._intrinsic, self._preset)
+                                               self._intrinsic, self._preset, self._angle_unit)
         self.labels.set_panel("orientation", "top-left", [(s, text) for s in lines])
         state = []
         if self._sweep_t < 1.0 and angle > 0:

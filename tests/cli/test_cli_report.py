@@ -74,6 +74,7 @@ def test_the_pdf_text_holds_every_field_every_figure_and_the_caution_and_every_p
     for number, page in enumerate(pages, start=1):
         assert f"page {number} of {len(pages)}" in page
         assert record.session_sha256 in page
+        assert f"Record SHA-256 {record.sha256()}" in page
     # the numbers, in the document's XMP metadata, are the record's own
     assert read_pdf_report(written["pdf"][0].read_bytes(), "pdf") == record.embedded()
     assert reader.metadata.title == record.title
@@ -210,3 +211,70 @@ def test_the_time_to_write_a_session_report_of_every_demo_mount(tmp_path, capsys
         load_session_and_bytes(DEMO)[0].mounts, start=1))
     with capsys.disabled():
         print(f"\n[report] session report of the demo's 5 mounts (no display): {seconds:.2f} s, {pages} pages")
+
+
+def _as_version(text, version, drop_ends=()):
+    """The HTML report as a report of record `version` would be: the figures ending in `drop_ends` taken
+    out of its JSON block and its page, the block's own hash made again."""
+    start = text.index('id="framewright-record">') + len('id="framewright-record">')
+    end = text.index("</script>", start)
+    data = json.loads(text[start:end])
+    data["figures"] = [f for f in data["figures"] if not f["key"].endswith(drop_ends)]
+    data["version"] = version
+    data.pop("record_sha256")
+    data["record_sha256"] = records.numbers_sha256(data)
+    page = re.sub(r'<span data-figure="[^"]*\.(?:gibbs|mrp)" data-index="\d">[^<]*</span>', "",
+                  text[:start]) if drop_ends else text[:start]
+    return page + json.dumps(data) + text[end:]
+
+
+def test_a_report_written_before_the_gibbs_and_mrp_figures_still_verifies(written, tmp_path):
+    text = written["html"][0].read_text()
+    assert '.gibbs" data-index="0"' in text and '.mrp" data-index="0"' in text
+    old = tmp_path / "old.html"
+    old.write_text(_as_version(text, 1, (".gibbs", ".mrp")))
+    result = framewright("verify-report", str(old), str(DEMO_CHECK))
+    assert result.returncode == 0 and "figures are this session's numbers" in result.stdout, result.stdout
+    # the same page claiming the present version is missing figures
+    claimed = tmp_path / "claimed.html"
+    claimed.write_text(_as_version(text, 2, (".gibbs", ".mrp")))
+    result = framewright("verify-report", str(claimed), str(DEMO_CHECK))
+    assert result.returncode == 1 and "gibbs" in result.stdout and "missing from the report" in result.stdout
+
+
+def test_a_report_of_a_newer_record_version_is_refused_by_name(written, tmp_path):
+    newer = tmp_path / "newer.html"
+    newer.write_text(_as_version(written["html"][0].read_text(), 3))
+    line = _refused(framewright("verify-report", str(newer), str(DEMO_CHECK)), "framewright verify-report: ")
+    assert "record version 3" in line and "newer Framewright" in line
+
+
+def test_a_table_heads_its_right_aligned_numbers_with_right_aligned_headings(written):
+    # A margin of -2 printed flush right under a left-aligned "margin" heading reads as the unit's column.
+    text = written["html"][0].read_text()
+    head = text[text.index('<tr><th align="left">figure</th><th align="right">value</th>'):]
+    head = head[:head.index("</tr>")]
+    assert '<th align="right">tolerance</th><th align="right">margin</th><th align="left">unit</th>' in head
+    level = text[text.index('<th align="left">face</th>'):]
+    assert level.startswith('<th align="left">face</th><th align="right">tilt from level</th>')
+
+
+def test_the_html_printed_from_a_browser_numbers_its_pages_and_carries_both_hashes(written):
+    text = written["html"][0].read_text()
+    style = text[text.index("<style>"):text.index("</style>")]
+    record = _record()
+    page = style[style.index("@page"):]
+    assert 'content: "page " counter(page) " of " counter(pages)' in page
+    assert f"Session file SHA-256 {record.session_sha256}" in page and f"Record SHA-256 {record.sha256()}" in page
+
+
+def test_the_date_and_time_carry_the_time_zone(tmp_path, monkeypatch):
+    # India Standard Time is UTC+05:30 with no daylight saving (a handbook fact): a half-hour offset that a
+    # report printing only whole hours or only UTC would get wrong.
+    monkeypatch.setenv("TZ", "Asia/Kolkata")
+    out = tmp_path / "zoned.html"
+    result = framewright("report", str(DEMO_CHECK), "--check", CHECK, "-o", str(out))
+    assert result.returncode == 0, result.stderr
+    row = re.search(r"<b>Date and time</b></td><td>([^<]*)</td>", out.read_text())
+    assert row is not None
+    assert re.fullmatch(r"\d{4}-\d\d-\d\d \d\d:\d\d:\d\d \+05:30 \(IST\)", row.group(1)), row.group(1)

@@ -130,3 +130,37 @@ def test_a_report_in_arcseconds_and_mm_per_metre_verifies_and_an_edited_unit_doe
     edited.write_text(re.sub(r'"angle":\s*"arcsec"', '"angle":"deg"', html, count=1), encoding="utf-8")
     assert framewright("verify-report", str(edited), str(session)).returncode == 1
     assert framewright("report", str(session), "--units", "dms", "-o", str(tmp_path / "x.pdf")).returncode == 2
+
+
+# ---- lengths: framewright correct --lengths -------------------------------------------------------
+def _feet(tmp_path, scale, name):
+    # a plate 200 mm tall (z ±100) on four feet at x = −300 mm: a turn about body Y lifts one edge
+    feet = ((-300, 40, 100), (-300, -40, 100), (-300, -40, -100), (-300, 40, -100))
+    path = tmp_path / name
+    path.write_text("\n".join(" ".join(f"{v * scale:.12g}" for v in foot) for foot in feet) + "\n")
+    return str(path)
+
+
+@pytest.mark.parametrize("lengths, per_mm, decimals", [("in", 1 / 25.4, 5), ("thou", 1000 / 25.4, 2)])
+def test_correct_reads_the_feet_and_pitch_and_prints_the_shims_in_the_lengths_chosen(tmp_path, lengths,
+                                                                                     per_mm, decimals):
+    # hand-worked: 0.5° about body Y over the 200 mm tall face lifts the far feet by 200 mm · sin 0.5°;
+    # the inch is exactly 25.4 mm (1959), the thou a thousandth of it (common practice)
+    lift_mm = 200 * math.sin(math.radians(0.5))
+    feet = _feet(tmp_path, per_mm, f"feet-{lengths}.txt")
+    pitch = 1.27 * per_mm                                        # 20 threads per inch
+    args = ("correct", "yaw 0, pitch 0, roll 0", "yaw 0, pitch 0.5, roll 0", "--degrees",
+            "--footprint", feet, "--pitch", f"{pitch:.12g}", "--lengths", lengths)
+    status, out, err = _run(*args)
+    assert status == 0 and err == ""
+    assert f"foot 1 the pivot), {lengths}:" in out
+    assert f": {lift_mm * per_mm:.{decimals}f}   {lift_mm / 1.27:.3f} turns" in out
+    status, out, err = _run(*args, "--json")
+    shims = json.loads(out)["shims"]
+    assert shims["length_unit"] == lengths and shims["pitch_mm"] == pytest.approx(1.27, rel=1e-11)
+    assert max(shims["shims_mm"]) == pytest.approx(lift_mm, rel=1e-9)      # the JSON keeps millimetres
+
+
+def test_correct_refuses_a_length_unit_it_does_not_know(tmp_path):
+    status, out, err = _run("correct", "yaw 0, pitch 0, roll 0", "yaw 0, pitch 0.5, roll 0", "--lengths", "mil")
+    assert status == 2 and out == "" and "--lengths" in err and len(err.strip().splitlines()) == 1

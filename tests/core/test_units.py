@@ -206,3 +206,13 @@ def test_formatting_uses_the_unicode_minus_and_never_minus_zero():
     assert units.format_angle(-1e-12, "mrad") == "0 mrad"
     assert units.format_slope(0.05, "mm/m") == "0.873 mm/m"
     assert units.format_length(-25.4, "in") == "−1 in"
+
+
+def test_positions_take_their_lengths_from_the_one_table_and_keep_metres():
+    # the inch is exactly 25.4 mm (1959 international agreement); a thou is a thousandth of it (common practice)
+    from core.position import LENGTH_UNITS as METRES_PER_UNIT, Position
+    assert METRES_PER_UNIT == {"mm": 1e-3, "m": 1.0, "in": 0.0254, "thou": 0.0000254}
+    place = Position.from_shown((10.0, -2.5, 0.125), "in")
+    assert place.metres == pytest.approx((0.254, -0.0635, 0.003175), rel=1e-15)
+    assert place.shown("thou") == pytest.approx((10000.0, -2500.0, 125.0), rel=1e-14)
+    assert Position.from_dict(place.to_dict()) == place and place.to_dict()["unit"] == "in"
