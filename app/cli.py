@@ -624,7 +624,24 @@ def add_average_arguments(parser: argparse.ArgumentParser) -> None:
                         help="repeated measurements of one mount: one orientation a line, or blocks separated by "
                              "blank lines (a matrix on three lines); '-' reads standard input")
     add_reading_options(parser)
+    parser.add_argument("--weights", metavar="W1,W2,...",
+                        help="how much each measurement counts, in the file's order (commas or spaces between; "
+                             "0 or more, not all 0); default: all alike")
     parser.add_argument("--json", action="store_true", help="print one JSON object")
+
+
+def _average_weights(text, count: int):
+    """The --weights list, one number a measurement, or a refusal that says which is wrong."""
+    from core.number_text import parse_number
+    if text is None:
+        return None
+    cells = text.replace(",", " ").split()
+    if len(cells) != count:
+        raise _Refused(f"--weights: {len(cells)} weight(s) for {count} measurements; expected one for each")
+    try:
+        return [parse_number(cell) for cell in cells]
+    except ValueError as error:
+        raise _Refused(f"--weights: {error}") from None
 
 
 def measurement_blocks(text: str) -> tuple[list[tuple[int, str]], bool]:
@@ -673,8 +690,9 @@ def run_average(args, stdin, stdout) -> int:
         if found[0].label != first_label:
             raise _Refused(f"{args.file} line {line}: read as {found[0].label} but the first measurement as "
                            f"{first_label}; options such as --kind make them read alike")
+    weights = _average_weights(args.weights, len(readings))
     try:
-        result = average([found[0].orientation for _, found in readings])
+        result = average([found[0].orientation for _, found in readings], weights)
     except FramewrightError as error:
         raise _Refused(f"{args.file}: {error}") from None
     summary = formats.summary(result.mean, args.sequence or "ZYX", True if args.intrinsic is None else args.intrinsic)
@@ -685,7 +703,8 @@ def run_average(args, stdin, stdout) -> int:
              for i, ((line, _), angle) in enumerate(zip(readings, result.angles_deg))]
     if args.json:
         stdout.write(formats.json_object_text({
-            "measurements": result.count, "read_as": first_label, **summary, "rms_deg": result.rms_deg,
+            "measurements": result.count, "read_as": first_label, "weights": weights, **summary,
+            "rms_deg": result.rms_deg,
             "max_deg": result.max_deg, "standard_uncertainty_deg": result.standard_uncertainty_deg,
             "flagged_lines": [readings[i][0] for i in result.flagged], "scatter": table, "notes": notes}))
         return EXIT_OK

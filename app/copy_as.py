@@ -118,7 +118,7 @@ def render_copy(model, fmt: str, editor=None) -> tuple[str, str | None, float]:
 def _check_notes(model) -> list[str]:
     """When the copied mount is the check's measured one: the check, its verdict and its decision."""
     from core.check import check
-    from core.decision import check_lines
+    from core.decision import check_lines, setup_figure_uncertainties
     from core.errors import FramewrightError
 
     nominal, measured = model.check_mount_indices()
@@ -127,8 +127,10 @@ def _check_notes(model) -> list[str]:
     state = model.check
     setup = state.adjustment
     try:
-        result = check(model.mounts[nominal].orientation, model.mounts[measured].orientation, state.settings)
-        lines = check_lines(result, setup.uncertainty_deg, setup.coverage)
+        pair = model.mounts[nominal].orientation, model.mounts[measured].orientation
+        result = check(*pair, state.settings)
+        lines = check_lines(result, setup.uncertainty_deg, setup.coverage,
+                            setup_figure_uncertainties(*pair, state.settings, setup))
     except FramewrightError as error:
         return [f"the check could not be judged: {error}"]
     return [f"measured side of the check against “{model.mounts[nominal].name}”"] + lines

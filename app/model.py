@@ -233,9 +233,9 @@ class SessionModel(QObject):
         """Set the selected mount's orientation and position together."""
         self.apply(operations.set_pose, orientation, position, origin=origin, text=text)
 
-    def add_measurement(self, source: str = "typed", origin: object | None = None) -> None:
-        """Keep the selected mount's current orientation as one more measurement."""
-        self.apply(operations.add_measurement, source, origin=origin)
+    def add_measurement(self, source: str = "typed", origin: object | None = None, weight: float = 1.0) -> None:
+        """Keep the selected mount's current orientation as one more measurement, of `weight` in the average."""
+        self.apply(operations.add_measurement, source, weight, origin=origin)
 
     def remove_measurement(self, number: int, origin: object | None = None) -> None:
         """Remove measurement `number` (0-based) of the selected mount."""

@@ -51,36 +51,52 @@ def _quaternions(measurements) -> np.ndarray:
         raise InvalidInputError(f"average: expected quaternions (w, x, y, z), got shape {q.shape}")
     if not 1 <= len(q) <= MAX_MEASUREMENTS:
         raise InvalidInputError(f"average: expected 1 to {MAX_MEASUREMENTS} measurements, got {len(q)}")
-    if not np.all(np.isfinite(q)) or np.abs(q).max() > 1e150:
-        raise InvalidInputError("average: every quaternion must hold finite numbers")
-    norms = np.linalg.norm(q, axis=1)
-    bad = np.flatnonzero(np.abs(norms - 1) > 1e-6)
-    if len(bad):
-        raise InvalidInputError(f"average: measurement {bad[0] + 1} has norm {norms[bad[0]]:.9g}; expected unit "
-                                "quaternions")
-    return q / norms[:, None]
+    # one pass over the squared norms: within about 1e-6 of 1 also proves the four numbers finite and at most
+    # about 1 (NaN fails the comparison), so finiteness is looked at only to word the refusal
+    with np.errstate(over="ignore", invalid="ignore"):          # 1e200 squared is inf: refused below
+        square = (q * q) @ np.ones(4)
+        off = float(np.abs(square - 1).max())
+    if not off <= 2e-6:
+        if not np.all(np.isfinite(q)) or np.abs(q).max() > 1e150:
+            raise InvalidInputError("average: every quaternion must hold finite numbers")
+        bad = int(np.argmax(np.abs(square - 1) > 2e-6))
+        raise InvalidInputError(f"average: measurement {bad + 1} has norm {math.sqrt(square[bad]):.9g}; expected "
+                                "unit quaternions")
+    # rows unit to a few ulps (as every Orientation's and SciPy's are) would change by rounding only
+    return q if off <= 1e-15 else q / np.sqrt(square)[:, None]
 
 
-def _weights(weights, n) -> np.ndarray:
+def _weights(weights, n) -> np.ndarray | None:
+    """None for equal weights (the sums skip the products), else the weights scaled to a largest of 1."""
     if weights is None:
-        return np.ones(n)
+        return None
     w = np.array(weights, dtype=float).reshape(-1)
     if w.shape != (n,) or not np.all(np.isfinite(w)) or np.any(w < 0) or w.sum() <= 0 or w.max() > 1e150:
         raise InvalidInputError(f"average: expected {n} finite weights, 0 or more and not all 0")
     return w / w.max()
 
 
-def _mean(q: np.ndarray, w: np.ndarray) -> np.ndarray:
-    values, vectors = np.linalg.eigh((q * w[:, None]).T @ q)
-    return vectors[:, -1]
+def _mean(q: np.ndarray, w: np.ndarray | None) -> Orientation:
+    values, vectors = np.linalg.eigh((q.T if w is None else (q * w[:, None]).T) @ q)
+    top = vectors[:, -1]
+    top = top / math.sqrt(float(top @ top))
+    # eigh gives a unit vector; the canonical sign makes it an Orientation without the constructor's checks
+    # (w far from 0 decides the sign alone; near a half turn the kernel's rule does)
+    w = float(top[0])
+    return Orientation._from_kernel(top if w > 1e-6 else -top if w < -1e-6 else kernels.canonical_quaternions(top))
 
 
-def _far_from_the_others(errors: np.ndarray, w: np.ndarray) -> list[int]:
+def mean_orientation(measurements, weights=None) -> Orientation:
+    """The weighted average alone (the same input and checks as average, without the scatter)."""
+    q = _quaternions(measurements)
+    return _mean(q, _weights(weights, len(q)))
+
+
+def _far_from_the_others(errors: np.ndarray, square: np.ndarray, w: np.ndarray) -> list[int]:
     """Measurements more than OUTLIER_SCATTERS scatters from the average of the others. Leaving out
     measurement i (error eᵢ from the average, small turns) moves the average by Δ = −wᵢ eᵢ / (W − wᵢ), so its
     distance from the others' average is |eᵢ| W / (W − wᵢ), and the others' mean square error about their
     own average is (Σ w|e|² − wᵢ|eᵢ|² − wᵢ²|eᵢ|² / (W − wᵢ)) / (W − wᵢ): every case at once, to first order."""
-    square = np.einsum("ij,ij->i", errors, errors)
     total, total_square = w.sum(), float(w @ square)
     rest = total - w
     usable = (w > 0) & (rest > 0)
@@ -90,23 +106,31 @@ def _far_from_the_others(errors: np.ndarray, w: np.ndarray) -> list[int]:
     return [int(i) for i in np.flatnonzero(usable & (own > OUTLIER_SCATTERS * rest_rms) & (rest_rms > 0))]
 
 
+def _left_product_matrix(p) -> np.ndarray:
+    """L with L · q = p ⊗ q (Hamilton product, w first): one matrix product turns every measurement."""
+    a, b, c, d = p
+    return np.array([[a, -b, -c, -d], [b, a, -d, c], [c, d, a, -b], [d, -c, b, a]])
+
+
 def average(measurements, weights=None) -> Average:
     """The weighted average of Orientations (or (n, 4) w-first quaternions), with its scatter."""
     q = _quaternions(measurements)
-    w = _weights(weights, len(q))
-    mean = Orientation.from_quaternion(_mean(q, w))
+    weighted = _weights(weights, len(q))
+    mean = _mean(q, weighted)
+    w = np.ones(len(q)) if weighted is None else weighted
     # each measurement as a small turn from the average, in the average's body axes (radians)
-    turns = kernels.multiply_quaternions(kernels.conjugate_quaternions(mean.quaternion), q)
+    turns = q @ _left_product_matrix(kernels.conjugate_quaternions(mean.quaternion)).T     # mean⁻¹ ⊗ qᵢ
     turns *= np.where(turns[:, :1] < 0, -1.0, 1.0)          # w >= 0: the short way round, as canonical
     errors = kernels.quaternions_to_rotation_vectors(turns, assume_canonical=True)
-    angles = np.degrees(np.sqrt(np.einsum("ij,ij->i", errors, errors)))
+    square = (errors * errors) @ np.ones(3)
+    angles = np.degrees(np.sqrt(square))
     total = w.sum()
     rms = math.sqrt(float((w * angles ** 2).sum() / total))
     n = len(q)
-    flagged = _far_from_the_others(errors, w) if n >= 3 else []
+    flagged = _far_from_the_others(errors, square, w) if n >= 3 else []
     covariance = uncertainty = None
     if n > 1:
-        spread = mean.apply(errors)                  # the same turns in the reference frame: δ = M · e
+        spread = errors @ mean.as_matrix().T         # the same turns in the reference frame: δ = M · e
         covariance = (spread * w[:, None]).T @ spread / total / (n - 1)
         uncertainty = math.degrees(math.sqrt(float(np.trace(covariance)) / 3))
     return Average(mean, n, angles, rms, float(angles.max()), uncertainty, tuple(flagged),

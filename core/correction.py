@@ -10,7 +10,8 @@ Written with quaternions, q1 q2 q3 · c = u1ᵀ K(θ2) u3 with u = (cos θ/2, si
 best outer angles are the leading singular vectors of a 2×2 matrix, and the exact middle angle solves
 A cos θ2 + B sin θ2 = a1ᵀ C a3 − (a1·a2)(a2·a3). Two axes are the same problem without a middle angle (a
 2×2 singular value problem, least squares). Axes that cannot reach C get the least-squares answer and
-the residual that remains, which is computed from the returned angles themselves.
+the residual that remains, which is computed from the returned angles themselves. Every answer is then
+polished by Newton steps (kept only when they bring it closer), so exact answers rebuild C to about 1e-14°.
 """
 
 from __future__ import annotations
@@ -126,8 +127,11 @@ def _about(axis, angle_rad) -> np.ndarray:
 
 
 def _product(p, q) -> np.ndarray:
-    pw, pv, qw, qv = p[0], p[1:], q[0], q[1:]
-    return np.concatenate([[pw * qw - pv @ qv], pw * qv + qw * pv + np.cross(pv, qv)])
+    """Hamilton product p ⊗ q, written out on floats: np.cross on one pair costs more than all of it."""
+    pw, px, py, pz = (float(v) for v in p)
+    qw, qx, qy, qz = (float(v) for v in q)
+    return np.array([pw * qw - px * qx - py * qy - pz * qz, pw * qx + px * qw + py * qz - pz * qy,
+                     pw * qy - px * qz + py * qw + pz * qx, pw * qz + px * qy - py * qx + pz * qw])
 
 
 def _basis(axis) -> tuple:
@@ -202,6 +206,48 @@ def _best_middle(a1, a2, a3, target, start: float) -> float:
     return (low + high) / 2
 
 
+def _conjugate(q) -> np.ndarray:
+    return q * np.array([1.0, -1.0, -1.0, -1.0])
+
+
+def _turn_left(q, target) -> np.ndarray:
+    """The small turn e (radians, body axes of q) with q · exp(e) = target."""
+    error = _product(_conjugate(q), target)
+    error = error if error[0] >= 0 else -error
+    size = float(np.linalg.norm(error[1:]))
+    return np.zeros(3) if size == 0 else error[1:] * (2 * math.atan2(size, error[0]) / size)
+
+
+def _polish(unit, angles, target) -> tuple:
+    """Newton steps on the angles: the closed form loses digits where the middle angle sits near the edge
+    of the axes' reach (first and last axes nearly parallel), leaving up to 1e-10° where 1e-14° is possible.
+    Turning θi by d turns the composed rotation about (R(i+1)…R(n))ᵀ aᵢ in its body axes, so the step solves
+    J d = e in the least-squares sense; a step is kept only when it brings the result closer."""
+    def composed(values):
+        parts = [_about(a, t) for a, t in zip(unit, values)]
+        q = np.array([1.0, 0, 0, 0])
+        for part in parts:
+            q = _product(q, part)
+        return q, parts
+
+    best = np.array(angles, dtype=float)
+    q, parts = composed(best)
+    error = _turn_left(q, target)
+    for _ in range(4):
+        columns, tail = [None] * len(unit), np.array([1.0, 0, 0, 0])
+        for i in range(len(unit) - 1, -1, -1):
+            columns[i] = _product(_product(_conjugate(tail), np.concatenate([[0.0], unit[i]])), tail)[1:]
+            tail = _product(parts[i], tail)
+        step = np.linalg.lstsq(np.array(columns).T, error, rcond=1e-10)[0]
+        trial = best + step
+        q_trial, parts_trial = composed(trial)
+        error_trial = _turn_left(q_trial, target)
+        if not np.linalg.norm(error_trial) < np.linalg.norm(error):
+            break
+        best, parts, error = trial, parts_trial, error_trial
+    return tuple(float(a) for a in best)
+
+
 def adjustment_angles(target: Orientation, axes) -> AdjustmentAngles:
     """Angles about two or three `axes` (in the frame `target` is written in) that produce `target`,
     exactly when the axes can, else in the least-squares sense with the residual stated."""
@@ -221,7 +267,7 @@ def adjustment_angles(target: Orientation, axes) -> AdjustmentAngles:
             candidates.append((theta1, middle, theta3))
     results = []
     for angles in candidates:
-        degrees = tuple(_wrap_deg(a) for a in angles)
+        degrees = tuple(_wrap_deg(a) for a in _polish(unit, angles, c))
         residual = compose_about_axes(unit, degrees).angle_to(target)
         results.append((round(residual, 9), max(abs(d) for d in degrees), degrees, residual))
     # the closest fit; between exact answers the one with the smaller largest turn (less to adjust)

@@ -12,6 +12,8 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
+import numpy as np
+
 from core.errors import InvalidInputError
 
 CONFORMS, DOES_NOT_CONFORM, CANNOT_DECIDE = "conforms", "does not conform", "cannot decide"
@@ -59,18 +61,44 @@ def overall_outcome(outcomes) -> str:
     return DOES_NOT_CONFORM if DOES_NOT_CONFORM in outcomes else CANNOT_DECIDE
 
 
-def decide_check(result, standard_uncertainty_deg=None, coverage=DEFAULT_COVERAGE):
+def decide_check(result, standard_uncertainty_deg=None, coverage=DEFAULT_COVERAGE, figure_uncertainties_deg=None):
     """([(criterion, Decision)], overall outcome) of a check result (core/check.py): every judged figure
-    decided against its tolerance, and the check's decision from them (overall_outcome)."""
-    decisions = [(c, decide(c.value_deg, c.tolerance_deg, standard_uncertainty_deg, coverage)) for c in result.criteria]
+    decided against its tolerance, and the check's decision from them (overall_outcome). Each figure takes
+    its own uncertainty from figure_uncertainties_deg (criterion name -> degrees) when given, else the one
+    standard uncertainty."""
+    def u(criterion):
+        if standard_uncertainty_deg is None or figure_uncertainties_deg is None:
+            return standard_uncertainty_deg
+        if criterion.name not in figure_uncertainties_deg:
+            raise InvalidInputError(f"decisions: no propagated uncertainty for the figure '{criterion.name}'")
+        return figure_uncertainties_deg[criterion.name]
+    decisions = [(c, decide(c.value_deg, c.tolerance_deg, u(c), coverage)) for c in result.criteria]
     return decisions, overall_outcome(d.outcome for _, d in decisions)
 
 
-def check_lines(result, standard_uncertainty_deg=None, coverage=DEFAULT_COVERAGE) -> list[str]:
+def setup_figure_uncertainties(nominal, measured, settings, setup):
+    """The figures' own uncertainties (criterion name -> degrees) propagated from the check's covariance
+    when its adjustment setup holds one (core/adjustment_setup.py), else None (the one u on every figure)."""
+    if setup.uncertainty_deg is None or setup.covariance_deg2 is None:
+        return None
+    from core.uncertainty import check_figure_uncertainties
+    covariance = np.array(setup.covariance_deg2) * (math.pi / 180) ** 2
+    return check_figure_uncertainties(nominal, measured, settings, covariance)
+
+
+def decide_setup(nominal, measured, settings, result, setup):
+    """decide_check for a check as saved: its uncertainty and coverage, propagated per figure when it has a
+    covariance."""
+    return decide_check(result, setup.uncertainty_deg, setup.coverage,
+                        setup_figure_uncertainties(nominal, measured, settings, setup))
+
+
+def check_lines(result, standard_uncertainty_deg=None, coverage=DEFAULT_COVERAGE,
+                figure_uncertainties_deg=None) -> list[str]:
     """A check's verdict and, with an uncertainty, its ISO 14253-1 decision, as lines for a report: the
     plain verdict first, then each judged figure against its tolerance with its decision."""
     lines = [f"Check verdict: {'PASS' if result.passed else 'FAIL'}"]
-    decisions, overall = decide_check(result, standard_uncertainty_deg, coverage)
+    decisions, overall = decide_check(result, standard_uncertainty_deg, coverage, figure_uncertainties_deg)
     for c, d in decisions:
         lines.append(f"  {c.name} {c.value_deg:.4f} deg against {c.tolerance_deg:.4f} deg: {d.words()}")
     if standard_uncertainty_deg is not None:

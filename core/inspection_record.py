@@ -22,7 +22,7 @@ import numpy as np
 from core import describe, level, representations, sequences, units
 from core.check import check, check_position
 from core.correction import adjustment_angles, correction, read_axes
-from core.decision import decide_check
+from core.decision import decide_setup, setup_figure_uncertainties
 from core.errors import FramewrightError, InvalidInputError
 from core.orientation import Orientation
 from core.session import SavedCheck, Session
@@ -212,13 +212,20 @@ class _Builder:
         verdict_line = f"{verdict}: {self._criteria_words(result)}"
         items += [f"Note: {note}" for note in result.notes]
         if setup.uncertainty_deg is not None:
-            _, outcome = decide_check(result, setup.uncertainty_deg, setup.coverage)
+            pair = nominal.orientation, measured.orientation
+            _, outcome = decide_setup(*pair, settings, result, setup)
+            figures = setup_figure_uncertainties(*pair, settings, setup)
             u, k = setup.uncertainty_deg, setup.coverage
             items.append(DECISION_RULE + ".")
             items += [self.fig(f"{key}.uncertainty", "Standard uncertainty u of the measured orientation", [u],
                                DEGREES),
                       self.fig(f"{key}.coverage", "Coverage factor k", [k], DIMENSIONLESS),
                       self.fig(f"{key}.expanded_uncertainty", "Expanded uncertainty U = k·u", [k * u], DEGREES)]
+            if figures is not None:        # judged with each figure's own u, propagated from the covariance
+                names = [c.name for c in result.criteria]
+                items.append(self.fig(f"{key}.figure_uncertainties", "Standard uncertainty of each figure, "
+                                      f"propagated from the orientation's covariance ({', '.join(names)})",
+                                      [figures[n] for n in names], DEGREES))
             items.append(self.words(f"{key}.decision", "Decision (ISO 14253-1)", outcome))
             verdict_line += (f"; ISO 14253-1 decision: {outcome} (U = {self.n([self.angles(k * u)])[0]} "
                              f"{self.angle_unit}, k = {self.n([k])[0]})")

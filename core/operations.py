@@ -102,13 +102,13 @@ def set_measurements(session: Session, measurements, index: int | None = None) -
     return _with_mount(session, index, session.mounts[index].with_measurements(measurements))
 
 
-def add_measurement(session: Session, source: str = "typed") -> Session:
-    """Keep the selected mount's current orientation as one more measurement."""
+def add_measurement(session: Session, source: str = "typed", weight: float = 1.0) -> Session:
+    """Keep the selected mount's current orientation as one more measurement, of `weight` in the average."""
     mount = session.current_mount
     if len(mount.measurements) >= MAX_MEASUREMENTS_PER_MOUNT:
         raise ValueError(f"“{mount.name}” already keeps {MAX_MEASUREMENTS_PER_MOUNT:,} measurements, the most "
                          "a mount can; remove some first")
-    return set_measurements(session, mount.measurements + (Measurement(mount.orientation, 1.0, source),))
+    return set_measurements(session, mount.measurements + (Measurement(mount.orientation, weight, source),))
 
 
 def remove_measurement(session: Session, number: int) -> Session:

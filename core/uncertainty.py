@@ -70,6 +70,21 @@ def point_fit_standard_uncertainty(nominal_points, orientation: Orientation, res
     """(largest, (about reference X, Y, Z)) standard uncertainty in degrees of a point fit's orientation:
     the square roots of the covariance's largest eigenvalue and of its diagonal. The largest is what a
     check may take as one uncertainty for every figure (no figure's projection of Cov(δ) exceeds it)."""
+    largest, per_axis, _ = point_fit_uncertainty(nominal_points, orientation, residuals, weights)
+    return largest, per_axis
+
+
+def _summed_up(cov) -> tuple:
+    """(largest, per reference axis) standard uncertainty in degrees of a covariance in radians², and it."""
+    if not np.all(np.isfinite(cov)):
+        raise InvalidInputError("fit uncertainty: the covariance is not a finite number")
+    largest = math.degrees(math.sqrt(max(float(np.linalg.eigvalsh(cov).max()), 0.0)))
+    per_axis = tuple(math.degrees(math.sqrt(max(float(v), 0.0))) for v in np.diag(cov))
+    return largest, per_axis, cov
+
+
+def point_fit_uncertainty(nominal_points, orientation: Orientation, residuals, weights=None):
+    """(largest, per axis, covariance in radians², reference frame) of a point fit's orientation."""
     # Cov(δ) depends only on residuals over point spread: scale both by one length first, so points of
     # 1e200 mm (or 1e-200) neither overflow nor underflow in the squares.
     p = np.asarray(nominal_points, dtype=float)
@@ -78,12 +93,24 @@ def point_fit_standard_uncertainty(nominal_points, orientation: Orientation, res
         spread = float(np.max(np.abs(p - p.mean(axis=0)))) if p.ndim == 2 and len(p) else 0.0
     if not math.isfinite(spread) or spread == 0.0 or not np.all(np.isfinite(r)):
         raise InvalidInputError("point fit uncertainty: the points' spread or residuals are not finite numbers")
-    cov = point_fit_covariance(p / spread, orientation, r / spread, weights)
-    if not np.all(np.isfinite(cov)):
-        raise InvalidInputError("point fit uncertainty: the covariance is not a finite number")
-    largest = math.degrees(math.sqrt(max(float(np.linalg.eigvalsh(cov).max()), 0.0)))
-    per_axis = tuple(math.degrees(math.sqrt(max(float(v), 0.0))) for v in np.diag(cov))
-    return largest, per_axis
+    return _summed_up(point_fit_covariance(p / spread, orientation, r / spread, weights))
+
+
+# Below this many directions the residuals say too little of the directions' own spread (2n − 3 degrees
+# of freedom; two directions leave one, and TRIAD matches the first exactly).
+MIN_DIRECTIONS_FOR_SCATTER = 3
+
+
+def direction_fit_uncertainty(reference_directions, orientation: Orientation, residual_angles_deg, weights=None):
+    """(largest, per axis, covariance in radians², reference frame) of a direction fit's orientation, the
+    directions' spread estimated from the residual angles (direction_fit_covariance); three directions at
+    least, or InvalidInputError."""
+    r = np.asarray(reference_directions, dtype=float)
+    w = np.ones(len(r)) if weights is None else np.asarray(weights, dtype=float)
+    if int(np.count_nonzero(w)) < MIN_DIRECTIONS_FOR_SCATTER:
+        raise InvalidInputError(f"direction fit uncertainty: expected {MIN_DIRECTIONS_FOR_SCATTER} or more "
+                                "directions with weight, so that the residuals show their spread")
+    return _summed_up(direction_fit_covariance(r, orientation, residual_angles_deg, w))
 
 
 def figure_uncertainties(nominal: Orientation, measured: Orientation, covariance, body_axis=None) -> dict:
@@ -142,3 +169,14 @@ def direction_fit_covariance(reference_directions, orientation: Orientation, res
     except np.linalg.LinAlgError:
         raise InvalidInputError("direction fit covariance: the directions are parallel; the turn about them is "
                                 "not determined") from None
+
+
+def check_figure_uncertainties(nominal: Orientation, measured: Orientation, settings, covariance) -> dict:
+    """Each figure a check judges (its criterion's name, core/check.py) with its standard uncertainty in
+    degrees, propagated from the measured orientation's covariance (radians², reference frame)."""
+    body_axis = settings.axis_vector() if settings.mode == "pointing_and_roll" else None
+    figures = figure_uncertainties(nominal, measured, covariance, body_axis)
+    if body_axis is None:
+        return {"total deviation": figures["total_deg"]}
+    return {"pointing error": figures["pointing_deg"], "roll": figures["roll_deg"],
+            "roll (undefined, judged as 180°)": figures["roll_deg"]}

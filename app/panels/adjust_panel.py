@@ -26,7 +26,7 @@ from app.widgets.with_tips import button, choice_box, line_field, reading_label
 from core import operations, units
 from core.check import check
 from core.correction import adjustment_angles, correction, read_axes
-from core.decision import CANNOT_DECIDE, CONFORMS, DOES_NOT_CONFORM, decide_check
+from core.decision import CANNOT_DECIDE, CONFORMS, DOES_NOT_CONFORM, decide_setup
 from core.errors import FramewrightError
 from core.number_text import parse_number
 from core.shims import outward_normal, read_footprint, shims
@@ -239,7 +239,8 @@ class AdjustPanel(Panel):
         except ValueError as error:
             self.message.problem(f"{error} (kept the last good value)")
             return
-        self._set(uncertainty_deg=value)
+        # a u typed by hand is the same about every axis: a covariance from a scatter or a fit no longer holds
+        self._set(uncertainty_deg=value, covariance_deg2=None)
 
     def _coverage_typed(self) -> None:
         try:
@@ -346,7 +347,7 @@ class AdjustPanel(Panel):
     def _render_decision(self, nominal, measured, setup, unit: str) -> None:
         result = check(nominal, measured, self.model.check.settings)
         try:
-            decisions, overall = decide_check(result, setup.uncertainty_deg, setup.coverage)
+            decisions, overall = decide_setup(nominal, measured, self.model.check.settings, result, setup)
         except FramewrightError as error:
             self.decision_label.setText(str(error))
             self.decision_bar.show_decision(None)

@@ -23,6 +23,7 @@ from app.widgets.number_field import NumberField, parse_number
 from app.widgets.with_tips import button, choice_box, line_field, reading_label
 from core import axes, operations, units
 from core.check import POSITION_TOLERANCE_LIMIT_MM, check, check_position
+from core.decision import CANNOT_DECIDE, decide_setup
 from core.errors import FramewrightError
 
 PASS_STYLE = "background:#2e7d32; color:white; padding:6px 18px; border-radius:4px"
@@ -130,12 +131,17 @@ class CheckPanel(Panel):
                                      "body axes. Pointing error: angle between N·a and M·a. Roll: the turn about a "
                                      "left after the pointing correction (right-hand rule about a).")
         self.margin_label.setWordWrap(True)
+        self.decision_words = reading_label("With a standard uncertainty u of the measurement (typed on the Adjust tab, "
+                                            "or taken from a fit or from repeated measurements), the decision of "
+                                            "ISO 14253-1: conforms at most T − U, does not conform beyond T + U, "
+                                            "and in between the measurement cannot decide (U = k·u).")
         verdict_row = QHBoxLayout()
         verdict_row.addWidget(self.verdict)
         verdict_row.addStretch(1)
         result_layout = QVBoxLayout(result)
         result_layout.addLayout(verdict_row)
         result_layout.addWidget(self.margin_label)
+        result_layout.addWidget(self.decision_words)
         result_layout.addWidget(self.details)
         # After the orientation's figures: the position offset, when both mounts have a position.
         self.position_result = reading_label("Offset of the measured origin from the nominal one: the distance, and "
@@ -376,6 +382,8 @@ class CheckPanel(Panel):
             f"Margin {angle(result.margin_deg, unit, signed=True)}: {deciding.name} "
             f"{angle(deciding.value_deg, unit)} {'within' if deciding.passed else 'exceeds'} "
             f"{angle(deciding.tolerance_deg, unit)}")
+        self.decision_words.setText(self._decision_words(mounts[nominal].orientation, mounts[measured].orientation,
+                                                         result))
         lines = []
         if nominal == measured:
             lines.append("The nominal and the measured are the same mount.")
@@ -398,6 +406,23 @@ class CheckPanel(Panel):
         lines.extend(result.notes)
         self.details.setText("\n".join(lines))
 
+    def _decision_words(self, nominal, measured, result) -> str:
+        """The verdict's standing: the ISO 14253-1 decision when the check has an uncertainty, else that
+        none was given (a PASS by less than the uncertainty has not shown conformance)."""
+        setup = self.model.check.adjustment
+        if setup.uncertainty_deg is None:
+            return ("No measurement uncertainty was given: the verdict is the plain comparison (give one on the "
+                    "Adjust tab for the ISO 14253-1 decision).")
+        try:
+            _, overall = decide_setup(nominal, measured, self.model.check.settings, result, setup)
+        except FramewrightError as error:
+            return f"ISO 14253-1 decision: none ({error})"
+        expanded = setup.coverage * setup.uncertainty_deg
+        words = {CANNOT_DECIDE: "cannot decide within the measurement uncertainty"}.get(overall, overall)
+        unit = self.model.preferences.angle_units
+        return (f"ISO 14253-1 decision: {words} (u = {angle(setup.uncertainty_deg, unit)}, k = {setup.coverage:g}, "
+                f"U = {angle(expanded, unit)})")
+
     @staticmethod
     def _position_words(offset, nominal, measured, settings) -> str:
         if offset is None:
@@ -417,6 +442,7 @@ class CheckPanel(Panel):
 
     def _idle(self, text: str) -> None:
         self.position_result.setText("")
+        self.decision_words.setText("")
         self.verdict.setText("—")
         self.verdict.setStyleSheet(IDLE_STYLE)
         self.margin_label.setText("")

@@ -13,7 +13,7 @@ from core.fit import FitRefusedError, fit_points, frame_from_three_points
 from core.kernels import unit_vectors
 from core.errors import FramewrightError
 from core.orientation import Orientation
-from core.uncertainty import point_fit_standard_uncertainty
+from core.uncertainty import direction_fit_uncertainty, point_fit_uncertainty
 
 POINTS, THREE_POINTS, DIRECTIONS = "points", "three_points", "directions"
 
@@ -43,6 +43,7 @@ class MeasuredFit:
     unit: str = "mm"
     uncertainty_deg: float | None = None     # a point fit's largest standard uncertainty (core/uncertainty.py)
     uncertainty_axes_deg: tuple | None = None
+    covariance_rad2: np.ndarray | None = None  # of the fitted orientation, a small turn in the reference frame
 
 
 def fit_point_rows(values: np.ndarray, weights: np.ndarray | None, rows: list[int], unit: str) -> MeasuredFit:
@@ -56,11 +57,12 @@ def fit_point_rows(values: np.ndarray, weights: np.ndarray | None, rows: list[in
         raise FitRefusedError("the fitted points lie beyond the largest number a double holds (about 1.8e308); "
                               "expected coordinates well inside that", "range")
     try:
-        largest, per_axis = point_fit_standard_uncertainty(nominal, fit.orientation, fit.residuals, weights)
+        largest, per_axis, covariance = point_fit_uncertainty(nominal, fit.orientation, fit.residuals, weights)
     except FramewrightError:
-        largest, per_axis = None, None
+        largest, per_axis, covariance = None, None, None
     return MeasuredFit(POINTS, fit.orientation, fit.translation, tuple(rows), nominal, measured, fitted,
-                       fit.residuals, fit.distances, fit.flagged, fit.worst_index, fit, unit, largest, per_axis)
+                       fit.residuals, fit.distances, fit.flagged, fit.worst_index, fit, unit, largest, per_axis,
+                       covariance)
 
 
 def fit_three_points(values: np.ndarray, rows: list[int], unit: str) -> MeasuredFit:
@@ -81,8 +83,13 @@ def fit_direction_rows(values: np.ndarray, weights: np.ndarray | None, rows: lis
     unit_ref = unit_vectors(reference, "reference direction")[0]
     fitted = fit.orientation.apply(unit_body)
     residual = fit.residual_angles_deg
+    try:   # the QUEST covariance from the residuals, for three or more directions (core/uncertainty.py)
+        largest, per_axis, covariance = direction_fit_uncertainty(unit_ref, fit.orientation, residual, weights)
+    except FramewrightError:
+        largest, per_axis, covariance = None, None, None
     return MeasuredFit(DIRECTIONS, fit.orientation, None, tuple(rows), unit_body, unit_ref, fitted,
-                       unit_ref - fitted, residual, (), int(np.argmax(residual)), fit)
+                       unit_ref - fitted, residual, (), int(np.argmax(residual)), fit, "mm", largest, per_axis,
+                       covariance)
 
 
 # ---- words --------------------------------------------------------------------------------------
@@ -154,6 +161,11 @@ def result_lines(result: MeasuredFit, digits: int = 9, sequence: str = "ZYX", in
                      f"apart: mismatch {fit.mismatch_deg:.4g}° (no rotation can remove it).")
         lines.append(f"Largest residual: row {result.rows[result.worst] + 1} at "
                      f"{float(np.max(fit.residual_angles_deg)):.4g}°")
+        if result.uncertainty_deg is not None:
+            axes = ", ".join(_short(v) for v in result.uncertainty_axes_deg)
+            lines.append(f"Standard uncertainty of the orientation (QUEST covariance, the directions' spread from "
+                         f"the residuals): {_short(result.uncertainty_deg)}° at most; about reference X, Y, Z: "
+                         f"{axes}°.")
     lines += [f"Note: {note}" for note in fit.notes]
     return lines
 

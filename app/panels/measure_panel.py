@@ -7,6 +7,7 @@ residual vectors) goes out through ``fit_changed`` for a view that draws it; Non
 
 from __future__ import annotations
 
+import math
 from pathlib import Path
 
 import numpy as np
@@ -91,8 +92,9 @@ class MeasurePanel(Panel):
         self.make_mount_button.setEnabled(False)
         self.use_uncertainty_button = button(
             "Use its uncertainty in the check",
-            "Set the check's standard uncertainty (Adjust tab, ISO 14253-1 decision) to the fit's largest "
-            "standard uncertainty: no figure of the check spreads more than that (one undo step).")
+            "Set the check's standard uncertainty (Adjust tab, ISO 14253-1 decision) to the fit's: its "
+            "covariance, from which each figure the check judges gets its own u, and the largest as the "
+            "headline (one undo step).")
         self.use_uncertainty_button.setEnabled(False)
 
         layout = QVBoxLayout(self)
@@ -221,13 +223,17 @@ class MeasurePanel(Panel):
                          "belongs to it.")
             return
         try:
-            adjustment = replace(check.adjustment, uncertainty_deg=float(fit.uncertainty_deg))
+            # with the covariance, so each figure the check judges gets its own u; the largest is the headline
+            covariance = None if fit.covariance_rad2 is None else (fit.covariance_rad2 * (180 / math.pi) ** 2).tolist()
+            adjustment = replace(check.adjustment, uncertainty_deg=float(fit.uncertainty_deg),
+                                 covariance_deg2=covariance)
         except FramewrightError as error:
             self.problem(f"{error} (the check is unchanged)")
             return
         self.model.apply(operations.set_check, replace(check, adjustment=adjustment), origin=self,
                          text="Measure: the check's uncertainty from the fit")
-        self.say(f"The check's standard uncertainty is now {fit.uncertainty_deg:.4g}°, the fit's largest; "
+        self.say(f"The check's standard uncertainty is now {fit.uncertainty_deg:.4g}°, the fit's largest (each "
+                 "figure is judged by its own, from the fit's covariance); "
                  f"it applies to the measured mount “{self.model.mounts[measured].name}” (Undo takes it back).")
 
     def make_mount(self) -> None:

@@ -10,7 +10,8 @@ from __future__ import annotations
 import math
 from dataclasses import replace
 
-from PySide6.QtWidgets import QComboBox, QGridLayout, QGroupBox, QListWidget, QPushButton, QSizePolicy, QVBoxLayout
+from PySide6.QtWidgets import (QComboBox, QGridLayout, QGroupBox, QLineEdit, QListWidget, QPushButton, QSizePolicy,
+                               QVBoxLayout)
 
 from app.plain_text import plain_label
 from app.widgets.message_line import MessageLine
@@ -20,6 +21,7 @@ from core import operations
 from core.average import OUTLIER_SCATTERS
 from core.errors import FramewrightError
 from core.measurement import SOURCES
+from core.number_text import parse_number
 
 # The mount counts as being at the mean this close to it (degrees): then its uncertainty is the mean's.
 AT_THE_MEAN_DEG = 1e-9
@@ -41,6 +43,10 @@ class RepeatedMeasurementsBox(QGroupBox):
         for source in SOURCES:
             self.source_box.addItem(source)
         self.source_box.setToolTip("Where the orientation being kept came from; saved beside it.")
+        self.weight_field = QLineEdit()
+        self.weight_field.setPlaceholderText("weight 1")
+        self.weight_field.setToolTip("How much the next measurement kept counts in the average against the others "
+                                     "(empty: 1; 0 keeps it without counting it).")
         self.add_button = QPushButton("Add current")
         self.add_button.setToolTip("Keep the mount's orientation as the editors show it as one more measurement.")
         self.remove_button = QPushButton("Remove")
@@ -59,6 +65,7 @@ class RepeatedMeasurementsBox(QGroupBox):
         buttons.addWidget(plain_label("From"), 0, 0)
         buttons.addWidget(self.source_box, 0, 1)
         buttons.addWidget(self.add_button, 0, 2)
+        buttons.addWidget(self.weight_field, 1, 0)
         buttons.addWidget(self.remove_button, 1, 1)
         buttons.addWidget(self.clear_button, 1, 2)
         layout = QVBoxLayout(self)
@@ -91,7 +98,13 @@ class RepeatedMeasurementsBox(QGroupBox):
         self.message.say("")
 
     def _add(self) -> None:
-        self._run(lambda: self.model.add_measurement(self.source_box.currentText(), origin=self))
+        text = self.weight_field.text().strip()
+        try:
+            weight = 1.0 if not text else parse_number(text)
+        except ValueError as error:
+            self.message.say(f"weight: {error} (nothing kept)", problem=True)
+            return
+        self._run(lambda: self.model.add_measurement(self.source_box.currentText(), origin=self, weight=weight))
 
     def _remove(self) -> None:
         row = self.list.currentRow()
@@ -114,10 +127,13 @@ class RepeatedMeasurementsBox(QGroupBox):
             return
         at_mean = mount.orientation.angle_to(result.mean) <= AT_THE_MEAN_DEG
         # the mean's covariance is one measurement's over n (core/average.py), so one measurement's u is √n times
-        u = result.standard_uncertainty_deg * (1.0 if at_mean else math.sqrt(result.count))
+        scale = 1.0 if at_mean else float(result.count)
+        u = result.standard_uncertainty_deg * math.sqrt(scale)
+        # the covariance too, so each figure the check judges gets its own u (a scatter is seldom round)
+        covariance = result.covariance_rad2 * scale * (180 / math.pi) ** 2
         check = self.model.check
         try:
-            adjustment = replace(check.adjustment, uncertainty_deg=u)
+            adjustment = replace(check.adjustment, uncertainty_deg=u, covariance_deg2=covariance.tolist())
         except FramewrightError as error:
             self.message.say(f"{error} (kept the last good value)", problem=True)
             return

@@ -97,3 +97,40 @@ def test_every_label_with_numbers_or_names_is_plain_text(panel):
     for label in (panel.correction_label, panel.angles_label, panel.shims_label, panel.decision_label,
                   panel.message):
         assert label.textFormat() == Qt.TextFormat.PlainText
+
+
+def _bar_colours(qtbot, decision, width=400):
+    """The colour the decision bar paints at each figure (degrees), read from its picture mid-height."""
+    from app.panels.adjust_panel import DecisionBar
+    bar = DecisionBar()
+    qtbot.addWidget(bar)
+    bar.resize(width, 26)
+    bar.show_decision(decision)
+    image = bar.grab().toImage()
+    top = max(decision.non_conformance_limit_deg, decision.value_deg) * 1.15
+
+    def at(value):
+        return image.pixelColor(int(1 + (width - 2) * value / top), 13).name()
+    return at
+
+
+def test_the_decision_bar_draws_the_zone_the_guard_bands_and_the_measured_value_where_the_standard_puts_them(qtbot):
+    from core.decision import decide
+    # ISO 14253-1 zones; our case: T = 1°, u = 0.1°, k = 2, so U = 0.2°: conforms to 0.8°, guard band to 1.2°
+    at = _bar_colours(qtbot, decide(1.1, 1.0, 0.1))
+    green, amber, red, black = "#2e7d32", "#f9a825", "#c62828", "#000000"
+    assert [at(v) for v in (0.05, 0.4, 0.78)] == [green] * 3
+    assert [at(v) for v in (0.83, 0.95, 1.05, 1.18)] == [amber] * 4
+    assert at(1.1) == black                                         # the measured value
+    assert [at(v) for v in (1.23, 1.3)] == [red] * 2
+    # without an uncertainty there is no guard band: green to the tolerance, red beyond it
+    plain = _bar_colours(qtbot, decide(0.5, 1.0))
+    assert plain(0.9) == green and plain(1.05) == red and plain(0.5) == black
+
+
+def test_the_panels_bar_shows_the_figure_closest_to_failing(qtbot, panel, model):
+    type_and_enter(qtbot, panel.uncertainty_field, "0.1")
+    shown = panel.decision_bar.decision
+    # total deviation 0.5° against the default 0.5°: the only figure judged, with U = 0.2°
+    assert shown.value_deg == pytest.approx(TURN_DEG, abs=1e-12) and shown.expanded_deg == pytest.approx(0.2)
+    assert shown.tolerance_deg == pytest.approx(0.5)

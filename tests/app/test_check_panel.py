@@ -184,3 +184,34 @@ def test_renaming_a_checked_mount_renames_it_in_the_check_in_one_undo_step(qtbot
     assert panel.verdict.text() == "—" and "(no such mount)" in panel.nominal_box.currentText()
     model.undo()
     assert panel.verdict.text() in ("PASS", "FAIL")
+
+
+def test_the_verdict_states_the_iso_14253_1_decision_once_an_uncertainty_is_typed(qtbot, panel, model, shimmed):
+    """ISO 14253-1: conforms when the figure is at most T − U, does not conform beyond T + U, otherwise the
+    measurement cannot decide (U = k·u). Our cases: a pointing error of 0.5° (the hand-worked shim) and
+    the roll of 0 against tolerances of 1° or 0.3°."""
+    from app.panels.adjust_panel import AdjustPanel
+    from tests.app.test_adjust_panel import type_and_enter
+    set_up_pointing_check(qtbot, panel, shimmed)
+    commit(qtbot, panel.pointing_field, "1.0")
+    assert panel.verdict.text() == "PASS"
+    assert "No measurement uncertainty was given" in panel.decision_words.text()
+    adjust = AdjustPanel(model)
+    qtbot.addWidget(adjust)
+    adjust.show()
+    qtbot.waitExposed(adjust)
+    type_and_enter(qtbot, adjust.uncertainty_field, "0.1")          # U = 0.2: 0.5 <= 1 − 0.2
+    assert panel.decision_words.text().startswith("ISO 14253-1 decision: conforms (u = 0.100°, k = 2, U = 0.200°)")
+    type_and_enter(qtbot, adjust.uncertainty_field, "0.3")          # U = 0.6: 1 − 0.6 < 0.5 <= 1 + 0.6
+    assert panel.verdict.text() == "PASS"
+    assert "cannot decide within the measurement uncertainty" in panel.decision_words.text()
+    commit(qtbot, panel.pointing_field, "0.3")                       # 0.5 <= 0.3 + 0.6: still undecided
+    assert panel.verdict.text() == "FAIL" and "cannot decide" in panel.decision_words.text()
+    type_and_enter(qtbot, adjust.uncertainty_field, "0.05")         # U = 0.1: 0.5 > 0.3 + 0.1
+    assert "decision: does not conform" in panel.decision_words.text()
+    model.undo()
+    model.undo()
+    model.undo()
+    model.undo()
+    assert model.check.adjustment.uncertainty_deg is None
+    assert "No measurement uncertainty was given" in panel.decision_words.text()

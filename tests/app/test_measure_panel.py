@@ -291,6 +291,38 @@ def test_the_fit_uncertainty_becomes_the_checks_in_one_undo_step(qtbot, panel, m
     fit = panel.last_fit.fit
     want, _ = point_fit_standard_uncertainty(NOMINAL, fit.orientation, fit.residuals)
     assert model.check.adjustment.uncertainty_deg == pytest.approx(want, rel=1e-12)
+    # the covariance goes with it (degrees²), so each figure gets its own u: Cov(δ) = σ² H⁻¹ by hand here,
+    # H = Σ |cᵢ|² I − cᵢ cᵢᵀ of the centred nominal points turned by the fit, σ² = Σ|rᵢ|² / (3n − 6)
+    c = fit.orientation.apply(NOMINAL - NOMINAL.mean(axis=0))
+    h = np.sum(c * c) * np.eye(3) - c.T @ c
+    sigma2 = np.sum(fit.residuals ** 2) / (3 * len(NOMINAL) - 6)
+    np.testing.assert_allclose(model.check.adjustment.covariance_deg2, sigma2 * np.linalg.inv(h) * (180 / np.pi) ** 2,
+                               rtol=1e-9)
     assert model.undo_stack.count() == steps + 1
     model.undo_stack.undo()
-    assert model.check.adjustment.uncertainty_deg is None
+    assert model.check.adjustment.uncertainty_deg is None and model.check.adjustment.covariance_deg2 is None
+
+
+def test_four_directions_give_the_quest_uncertainty_and_two_give_none(qtbot, panel):
+    panel.set_method(DIRECTIONS)
+    rng = np.random.default_rng(5)
+    body = np.array([[0.0, 0.0, 1.0], [1.0, 0.0, 0.0], [0.0, 0.6, 0.8], [0.6, 0.8, 0.0]])
+    reference = ROTATION.apply(body) + rng.normal(scale=1e-3, size=(4, 3))
+    paste_into(qtbot, panel.current_table(), "\n".join(
+        "\t".join(repr(float(v)) for v in (*b, *r)) for b, r in zip(body, reference)))
+    click(qtbot, panel.fit_button)
+    fit = panel.last_fit
+    # Shuster & Oh (1981), as worked here: P = σ² (Σ (I − rᵢ rᵢᵀ))⁻¹ with σ² = Σ θᵢ² / (2n − 3) from the
+    # residual angles θᵢ, rᵢ the measured unit directions
+    unit = reference / np.linalg.norm(reference, axis=1)[:, None]
+    sigma2 = np.sum(np.radians(fit.fit.residual_angles_deg) ** 2) / (2 * 4 - 3)
+    expected = sigma2 * np.linalg.inv(sum(np.eye(3) - np.outer(r, r) for r in unit))
+    np.testing.assert_allclose(fit.covariance_rad2, expected, rtol=1e-9)
+    assert fit.uncertainty_deg == pytest.approx(np.degrees(np.sqrt(np.linalg.eigvalsh(expected).max())), rel=1e-9)
+    assert "QUEST covariance" in panel.result_text.toPlainText() and panel.use_uncertainty_button.isEnabled()
+    # two directions (TRIAD) leave one degree of freedom: no uncertainty from so little
+    panel.current_table().clear_inputs()
+    paste_into(qtbot, panel.current_table(), "\n".join(
+        "\t".join(repr(float(v)) for v in (*b, *r)) for b, r in zip(body[:2], reference[:2])))
+    click(qtbot, panel.fit_button)
+    assert panel.last_fit.uncertainty_deg is None and not panel.use_uncertainty_button.isEnabled()

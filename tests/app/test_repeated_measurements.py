@@ -216,3 +216,68 @@ def test_every_label_of_the_box_is_plain_text_so_a_mount_name_never_draws_as_mar
     assert "“<b>ALL PASS</b>”" in box.mount_label.text()
     for label in box.findChildren(QLabel):
         assert label.textFormat() == Qt.TextFormat.PlainText, label.text()
+
+
+def test_a_scatter_in_roll_alone_widens_the_guard_band_of_the_roll_and_not_of_the_pointing(qtbot, bench):
+    """Three measurements that differ only in roll about the boresight +X (invented: 0.3°, −0.2°, −0.1° about
+    body X, the antenna 0.45° off in pointing). Their covariance, propagated to each figure, gives the
+    pointing error no uncertainty and the roll all of it, so the check decides each by its own U where one u
+    on every figure could not decide the pointing."""
+    from core.check import CheckSettings
+    window, box, nominal, _ = bench
+    model = window.model
+    settings = CheckSettings(mode="pointing_and_roll", body_axis="+X", pointing_tolerance_deg=0.5,
+                             roll_tolerance_deg=1.0)
+    model.apply(operations.set_check, SavedCheck(model.mounts[RADAR].name, "Radar antenna, as measured",
+                                                 settings=settings))
+    off = nominal * Rotation.from_rotvec([0, math.radians(OFF_DEG), 0])
+    repeats = [off * Rotation.from_rotvec([math.radians(d), 0, 0]) for d in (0.3, -0.2, -0.1)]
+    add_each(qtbot, window, box, repeats)
+    click(qtbot, box.average_button)
+    click(qtbot, box.scatter_button)
+    # by hand: every turn from the mean is about body X, so the mean's covariance in body axes is
+    # diag(Σ eᵢ², 0, 0) / (n (n − 1)) = diag(0.14, 0, 0) / 6 deg²; in the reference frame M C Mᵀ (SciPy's M)
+    mean = Rotation.concatenate(repeats).mean()
+    matrix = mean.as_matrix()
+    expected = matrix @ np.diag([0.14 / 6, 0, 0]) @ matrix.T
+    np.testing.assert_allclose(model.check.adjustment.covariance_deg2, expected, atol=1e-9)
+    u_roll = math.sqrt(0.14 / 6)
+    text = window.adjust_panel.decision_label.text()
+    # ISO 14253-1: pointing 0.45° <= 0.5° − 2·0 conforms; roll 0 <= 1° − 2·0.1528° conforms
+    assert text.startswith("Conforms"), text
+    assert f"roll 0.0000° against 1.0000°: conforms (U = {2 * u_roll:.3g}°" in text.replace("−", "-")
+    assert "ISO 14253-1 decision: conforms" in window.check_panel.decision_words.text()
+    # the one u typed by hand is the same about every axis: the pointing cannot be decided with it
+    focus(qtbot, window.adjust_panel.uncertainty_field)
+    window.adjust_panel.uncertainty_field.selectAll()
+    qtbot.keyClicks(window.adjust_panel.uncertainty_field, f"{u_roll:.6f}")
+    qtbot.keyClick(window.adjust_panel.uncertainty_field, Qt.Key.Key_Return)
+    assert model.check.adjustment.covariance_deg2 is None
+    assert window.adjust_panel.decision_label.text().startswith("Cannot decide")       # 0.45° > 0.5° − 0.31°
+    press(qtbot, window, Qt.Key.Key_Z)
+    np.testing.assert_allclose(model.check.adjustment.covariance_deg2, expected, atol=1e-9)
+    assert window.adjust_panel.decision_label.text().startswith("Conforms")
+
+
+def type_weight(qtbot, box, text):
+    focus(qtbot, box.weight_field)
+    box.weight_field.selectAll()
+    qtbot.keyClicks(box.weight_field, text)
+
+
+def test_a_weight_typed_before_add_counts_in_the_average_and_a_bad_weight_keeps_nothing(qtbot, bench):
+    window, box, _, repeats = bench
+    model = window.model
+    add_each(qtbot, window, box, repeats[:2])
+    type_quaternion(qtbot, window, repeats[2])
+    type_weight(qtbot, box, "-2")
+    click(qtbot, box.add_button)
+    assert "weight" in box.message.text() and len(model.current_mount().measurements) == 2
+    type_weight(qtbot, box, "3")
+    click(qtbot, box.add_button)
+    assert [m.weight for m in model.current_mount().measurements] == [1.0, 1.0, 3.0]
+    # SciPy's weighted mean (Markley et al. 2007) of the same three
+    expected = Rotation.concatenate(repeats).mean(weights=[1, 1, 3])
+    np.testing.assert_allclose(shown_numbers(box.summary_label, "Mean quaternion (w, x, y, z)"),
+                               canonical_wxyz(expected), atol=2e-9, rtol=0)
+    assert "weight 3" in box.list.item(2).text()

@@ -1,7 +1,13 @@
 """After the verdict: the correction with three adjustment axes and a four-foot footprint (what one mount
 costs), and the average of 1,000 repeated measurements beside SciPy's Rotation.mean on the same input, in
-the same run (ratio = ours / SciPy; below 1 is faster). Timings only; nothing here passes or fails."""
+the same run (ratio = ours / SciPy; below 1 is faster). Timings only; nothing here passes or fails.
 
+The same input is the (1000, 4) array of quaternions; SciPy reaches its mean through from_quat, which
+checks and normalises the rows, as mean_orientation does. The row with SciPy's Rotation built beforehand
+leaves that check out of SciPy's time only, so its ratio cannot reach 1: the floor is our check of the
+1,000 norms (a few µs), printed beside it."""
+
+import math
 import statistics
 import sys
 import time
@@ -13,7 +19,7 @@ from scipy.spatial.transform import Rotation
 
 sys.path.insert(0, str(Path(__file__).resolve().parents[2]))
 
-from core.average import average  # noqa: E402
+from core.average import _quaternions, average, mean_orientation  # noqa: E402
 from core.correction import adjustment_angles, correction  # noqa: E402
 from core.orientation import Orientation  # noqa: E402
 from core.shims import shims  # noqa: E402
@@ -39,14 +45,17 @@ def _per_mount(nominal, measured):
     shims(fix.body, FEET, (0, 0, -1), pitch_mm=0.5)
 
 
-def best_time(function):
-    times = []
+def best_times(*functions):
+    """Best time per call of each function, their runs interleaved so that load from elsewhere on the
+    machine falls on all of them alike."""
+    best = [math.inf] * len(functions)
     for _ in range(REPEATS):
-        start = time.perf_counter()
-        for _ in range(CALLS):
-            function()
-        times.append((time.perf_counter() - start) / CALLS)
-    return min(times)
+        for i, function in enumerate(functions):
+            start = time.perf_counter()
+            for _ in range(CALLS):
+                function()
+            best[i] = min(best[i], (time.perf_counter() - start) / CALLS)
+    return best
 
 
 def main():
@@ -67,16 +76,18 @@ def main():
         mean = Rotation.from_quat(q, scalar_first=True).mean()
         return (mean.inv() * Rotation.from_quat(q, scalar_first=True)).magnitude()
 
-    ours = best_time(lambda: average(q))
-    mean_only = best_time(rotations.mean)
-    with_scatter = best_time(scipy_scatter)
-    print(f"average of 1,000 measurements (best of {REPEATS} x {CALLS}; SciPy {scipy.__version__}); ours also checks "
-          "the input, flags far readings and gives the covariance")
-    print(f"{'against':44s} {'ours':>9s} {'SciPy':>9s} {'ratio':>7s}  goal")
-    for name, theirs in (("Rotation.mean alone (already built)", mean_only),
-                         ("from_quat, mean and each angle to it", with_scatter)):
-        print(f"{name:44s} {ours * 1e6:7.0f}µs {theirs * 1e6:7.0f}µs {ours / theirs:7.2f}  <= 1.0 "
+    mean, full, check, scipy_raw, scipy_built, scipy_full = best_times(
+        lambda: mean_orientation(q), lambda: average(q), lambda: _quaternions(q),
+        lambda: Rotation.from_quat(q, scalar_first=True).mean(), rotations.mean, scipy_scatter)
+    print(f"average of 1,000 measurements, best of {REPEATS} x {CALLS}, interleaved; SciPy {scipy.__version__}")
+    print(f"{'same input, same output':58s} {'ours':>8s} {'SciPy':>8s} {'ratio':>6s}  goal <= 1.0")
+    for name, ours, theirs in (("the mean, from the (1000, 4) array (SciPy from_quat, mean)", mean, scipy_raw),
+                               ("the mean, with the scatter angle of each measurement", full, scipy_full)):
+        print(f"{name:58s} {ours * 1e6:6.0f}µs {theirs * 1e6:6.0f}µs {ours / theirs:6.2f}  "
               f"{'met' if ours <= theirs else 'not met'}")
+    print(f"{'the mean, SciPy Rotation built beforehand (not the same)':58s} {mean * 1e6:6.0f}µs "
+          f"{scipy_built * 1e6:6.0f}µs {mean / scipy_built:6.2f}  floor: our check of the rows, {check * 1e6:.0f}µs")
+    print("(ours with the scatter also gives the covariance, the standard uncertainty and the flagged readings)")
 
 
 if __name__ == "__main__":

@@ -85,6 +85,24 @@ def test_average_is_scipys_mean_and_flags_the_bad_repeat(tmp_path):
     assert data["measurements"] == 7 and data["flagged_lines"] == [8]   # line 1 is the comment
 
 
+def test_average_with_weights_is_scipys_weighted_mean_and_a_wrong_count_is_refused(tmp_path):
+    rng = np.random.default_rng(8)
+    repeats = _scipy([30, 5, 2.5]) * Rotation.from_rotvec(rng.normal(scale=math.radians(0.2), size=(4, 3)))
+    path = tmp_path / "repeats.txt"
+    path.write_text(_measurement_lines(repeats) + "\n")
+    status, out, err = run("average", str(path), "--weights", "1, 2, 0.5 4", "--json")
+    assert status == 0 and err == ""
+    data = json.loads(out)
+    mean = repeats.mean(weights=[1, 2, 0.5, 4])                          # SciPy, Markley et al. 2007
+    assert (Rotation.from_quat(data["quaternion_wxyz"], scalar_first=True) * mean.inv()).magnitude() < 1e-9
+    assert (Rotation.from_quat(data["quaternion_wxyz"], scalar_first=True) * repeats.mean().inv()).magnitude() > 1e-5
+    assert data["weights"] == [1, 2, 0.5, 4]
+    for weights, words in (("1 2 3", "3 weight(s) for 4"), ("1 2 x 4", "--weights"), ("1 -2 1 1", "weights"),
+                           ("0 0 0 0", "weights")):
+        status, out, err = run("average", str(path), "--weights", weights)
+        assert status == 2 and out == "" and words in err, err
+
+
 def test_average_refuses_three_lines_that_read_as_one_matrix_and_mixed_readings(tmp_path):
     status, _, err = run("average", "-", stdin="1 0 0\n0 1 0\n0 0 1\n")
     assert status == 2 and "read together as one orientation" in err

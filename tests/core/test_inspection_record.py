@@ -5,6 +5,7 @@ import math
 from dataclasses import replace
 from pathlib import Path
 
+import numpy as np
 import pytest
 from scipy.spatial.transform import Rotation
 
@@ -92,3 +93,22 @@ def test_the_caution_is_the_one_the_about_box_and_readme_carry():
     assert SAFETY_CAUTION[1:] in records.CAUTION
     readme = (ROOT / "README.md").read_text()
     assert "verify every value against the governing drawing" in readme.lower() or SAFETY_CAUTION[:20] in readme.lower()
+
+
+def test_a_check_with_a_covariance_prints_each_figures_propagated_uncertainty():
+    """The demo check with an invented covariance about the measured boresight only (0.04° standard
+    deviation): the record prints the pointing error's uncertainty 0 and the roll's 0.04°, as
+    core/uncertainty.py propagates them (its Monte Carlo tests); without one, no such line."""
+    from core.adjustment_setup import AdjustmentSetup
+    mounts = {m.name: m for m in SESSION.mounts}
+    saved = SESSION.checks[0]
+    boresight = mounts[saved.measured].orientation.apply([1.0, 0, 0])
+    covariance = tuple(tuple(float(v) for v in row) for row in 0.04 ** 2 * np.outer(boresight, boresight))
+    setup = AdjustmentSetup(uncertainty_deg=0.04, covariance_deg2=covariance)
+    session = replace(SESSION, checks=(replace(saved, adjustment=setup),))
+    figures = _figures(records.check_record(session, CHECK, "demo_check.fwsession.json", "0" * 64))
+    line = figures["check[0].figure_uncertainties"]
+    assert [float(v) for v in line.values] == pytest.approx([0.0, 0.04], abs=1e-9) and line.unit == "deg"
+    assert "pointing error, roll" in line.label
+    assert "check[0].figure_uncertainties" not in _figures(
+        records.check_record(SESSION, CHECK, "demo_check.fwsession.json", "0" * 64))
