@@ -91,3 +91,18 @@ class Position:
             raise FramewrightError('position: expected {"metres": [x, y, z], "unit": "mm", "m", "in" or "thou"}')
         return cls(tuple(data["metres"]) if isinstance(data["metres"], list) else data["metres"],
                    data.get("unit", DEFAULT_UNIT))
+
+
+# Units a text may state a translation in: the ones shown, and centimetres (shown as millimetres).
+STATED_UNITS = {**LENGTH_UNITS, "cm": 1e-2}
+_SHOWN_FOR = {"cm": "mm"}
+
+
+def position_as_stated(values, unit: str) -> Position:
+    """A translation in the unit a text states ('cm' is shown in mm); FramewrightError for any other unit."""
+    if unit not in STATED_UNITS:
+        raise FramewrightError(f"the translation is in {unit!r}, which Framewright cannot convert yet "
+                               f"(expected {', '.join(STATED_UNITS)})")
+    shown = _SHOWN_FOR.get(unit, unit)
+    metres = [float(v) * STATED_UNITS[unit] for v in values]
+    return Position.from_shown([m / LENGTH_UNITS[shown] for m in metres], shown)

@@ -101,6 +101,24 @@ class PastedOrientation(QWidget):
             return None
         return self.readings[index].orientation
 
+    def position(self):
+        """(Position or None, words for the message): the chosen reading's translation when the text states
+        its unit; without a unit the step takes the rotation only, and the words say so (never a guess)."""
+        from core.position import position_as_stated
+
+        index = self.reading_box.currentIndex()
+        if not self.readings or index < 0 or getattr(self.readings[index], "translation", None) is None:
+            return None, ""
+        reading = self.readings[index]
+        unit = getattr(reading, "translation_unit", None)
+        if not unit:
+            return None, ("The text gives a translation without a unit: the step takes the rotation only. "
+                          "Give its origin through the editors' Position (in its unit) and Set from the editors.")
+        try:
+            return position_as_stated(reading.translation, unit), f"Its origin is kept, in {unit} as the text says."
+        except FramewrightError as error:
+            return None, f"{error}: the step takes the rotation only."
+
     def reading_words(self) -> str:
         index = self.reading_box.currentIndex()
         if not self.readings or index < 0:

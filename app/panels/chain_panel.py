@@ -137,8 +137,8 @@ class ChainPanel(Panel):
                                                                     self.model.current_mount().position))
         self.set_from_editors.clicked.connect(lambda: self.set_step(self.model.current_orientation(),
                                                                     self.model.current_mount().position))
-        self.add_from_text.clicked.connect(lambda: self.add_step(self.pasted.orientation(), "text"))
-        self.set_from_text.clicked.connect(lambda: self.set_step(self.pasted.orientation()))
+        self.add_from_text.clicked.connect(self._add_from_text)
+        self.set_from_text.clicked.connect(self._set_from_text)
         self.pasted.reading_changed.connect(self._update_buttons)
         self.frames_box.toggled.connect(lambda on: self.model.set_show_chain_frames(on, origin=self))
         self.make_mount_button.clicked.connect(lambda: self.model.make_chain_mount(origin=self))
@@ -154,6 +154,19 @@ class ChainPanel(Panel):
             self.table.selectRow(row)
 
     # ---- edits (each one undo step) ------------------------------------------------------------------
+    def _add_from_text(self) -> None:
+        """A pose read from the text keeps its translation when the text states the unit."""
+        position, words = self.pasted.position()
+        self.add_step(self.pasted.orientation(), "text", position)
+        if words:
+            self.pasted.message.say(words, problem=position is None)
+
+    def _set_from_text(self) -> None:
+        position, words = self.pasted.position()
+        self.set_step(self.pasted.orientation(), _KEEP if position is None else position)
+        if words:
+            self.pasted.message.say(words, problem=position is None)
+
     def add_step(self, orientation, source: str, position=None) -> None:
         if orientation is None:
             return

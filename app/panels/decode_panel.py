@@ -13,12 +13,10 @@ from app.panels import reading_rows
 from app.text import numbers
 from app.widgets.with_tips import button
 from core.errors import FramewrightError
-from core.position import LENGTH_UNITS, Position
+from core.position import LENGTH_UNITS, Position, position_as_stated
 
 # Units a decoded translation may state, in metres; the position is then shown in the nearest one the
 # window offers (core/position.py). The decoder names the unit; nothing here guesses one.
-_STATED_UNITS = {**LENGTH_UNITS, "cm": 1e-2}
-_SHOWN_FOR = {"cm": "mm"}
 
 
 # Text up to this length decodes in a few milliseconds and is read at once; longer text (up to the
@@ -245,12 +243,7 @@ class DecodePanel(Panel):
             return None, ""
         unit = getattr(reading, "translation_unit", None)
         if unit:
-            if unit not in _STATED_UNITS:
-                raise FramewrightError(f"the translation is in {unit!r}, which Framewright cannot convert yet "
-                                       f"(expected {', '.join(_STATED_UNITS)})")
-            shown = _SHOWN_FOR.get(unit, unit)
-            metres = tuple(float(v) * _STATED_UNITS[unit] for v in t)
-            return Position.from_shown([m / LENGTH_UNITS[shown] for m in metres], shown), f"in {unit}, as the text says"
+            return position_as_stated(t, unit), f"in {unit}, as the text says"
         unit = self.unit_box.currentData()
         if unit is None:
             raise FramewrightError("the text gives the translation without a unit: choose its unit first")

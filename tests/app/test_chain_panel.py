@@ -166,3 +166,29 @@ def test_the_scene_shows_every_intermediate_frame_labelled(qtbot, window):
     qtbot.mouseClick(box, Qt.MouseButton.LeftButton, pos=QPoint(8, box.height() // 2))
     assert not window.model.show_chain_frames and frames.count == 0
     assert not labels["chain0"].visible
+
+
+def _paste(qtbot, panel, name, text):
+    panel.step_name.setFocus()
+    qtbot.keyClicks(panel.step_name, name)
+    panel.pasted.text_box.setFocus()
+    panel.pasted.text_box.selectAll()
+    qtbot.keyClicks(panel.pasted.text_box, text)
+
+
+def test_a_pose_pasted_with_its_unit_keeps_its_origin_and_one_without_says_so(qtbot, panel, model):
+    # a 4x4 whose caption names millimetres (a layout of tests/core/pose_corpus.py, invented values):
+    # rotation +90° about z ([[0,-1,0],[1,0,0],[0,0,1]], the hand-worked Rz(90) above), origin (120, 35.5, 410) mm
+    _paste(qtbot, panel, "camera", "T (translation in mm) = [[0, -1, 0, 120.0], [1, 0, 0, 35.5], "
+                                   "[0, 0, 1, 410.0], [0, 0, 0, 1]]")
+    click(qtbot, panel.add_from_text)
+    step = model.chain.steps[-1]
+    assert step.position is not None and step.position.unit == "mm"
+    assert np.allclose(step.position.metres, (0.120, 0.0355, 0.410), rtol=1e-15, atol=0)
+    assert np.allclose(step.orientation.as_matrix(), SCIPY_BRACKET.as_matrix(), atol=1e-15)
+    assert "kept, in mm" in panel.pasted.message.text()
+    # the same pose with no unit: the rotation only, and the message says why (no guess between mm and m)
+    _paste(qtbot, panel, "unknown", "1 0 0 0.1  0 0 -1 0.2  0 1 0 0.3  0 0 0 1")      # 16 on one line
+    click(qtbot, panel.add_from_text)
+    assert model.chain.steps[-1].position is None
+    assert "without a unit" in panel.pasted.message.text()
