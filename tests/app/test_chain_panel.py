@@ -38,11 +38,7 @@ def click(qtbot, button):
 
 
 def add_from_text(qtbot, panel, name, text):
-    panel.step_name.setFocus()
-    qtbot.keyClicks(panel.step_name, name)
-    panel.pasted.text_box.setFocus()
-    panel.pasted.text_box.selectAll()
-    qtbot.keyClicks(panel.pasted.text_box, text)
+    _paste(qtbot, panel, name, text)
     assert panel.pasted.reading_box.currentText().startswith("1. axis-angle"), panel.pasted.reading_box.currentText()
     click(qtbot, panel.add_from_text)
 

@@ -13,9 +13,8 @@ import numpy as np
 import pytest
 from PySide6.QtCore import Qt
 
-from app.panels.adjust_panel import AdjustPanel
 from core.session import session_from_dict, session_to_dict
-from tests.app.test_adjust_panel import TURN_DEG, checked, type_and_enter  # noqa: F401  (fixture)
+from tests.app.test_adjust_panel import TURN_DEG, checked, panel, type_and_enter  # noqa: F401  (fixtures)
 from tests.app.window_driver import focus, type_into
 
 INCH_MM = 25.4
@@ -60,16 +59,6 @@ def test_the_unit_a_position_is_shown_in_is_saved_and_reopened(qtbot, window, tm
     window.new_session()
     assert window.open_file(str(path))
     assert [f.text() for f in window.position.fields] == ["250", "0", "-40"]
-
-
-@pytest.fixture
-def panel(qtbot, model, checked):  # noqa: F811  (the fixture imported above)
-    widget = AdjustPanel(model)
-    qtbot.addWidget(widget)
-    widget.resize(460, 1000)
-    widget.show()
-    qtbot.waitExposed(widget)
-    return widget
 
 
 def test_feet_typed_in_inches_get_their_shims_in_inches_and_are_kept_in_mm(qtbot, panel, model):
