@@ -14,7 +14,7 @@ from core import kernels
 from core.kernels import rodrigues
 from core.errors import InvalidInputError, MatrixRefusedError
 from core.kernels import check_flag
-from core.nearest import orthogonality_report
+from core.nearest import checked_orthogonality_report
 from core.sequences import parse_sequence
 
 # A quaternion or axis whose length is off by more than this was not meant to be unit length: say so.
@@ -152,7 +152,7 @@ class Orientation:
             raise InvalidInputError(f"matrix: expected 3x3, got shape {m.shape}")
         if check_flag(transposed, "transposed"):
             m = m.T
-        report = orthogonality_report(m)
+        report = checked_orthogonality_report(m)
         if not report.accepted:
             raise MatrixRefusedError(report.message, report)
         notes = () if report.band == "exact" else (report.message,)
