@@ -43,7 +43,7 @@ def rodrigues_pieces(n, r) -> RodriguesPieces:
     r = np.asarray(r, dtype=float)
     r_par = np.dot(r, n) * n
     r_perp = r - r_par
-    w = np.cross(n, r)
+    w = _cross(n, r)
     alpha = float(np.degrees(np.arctan2(np.linalg.norm(w), np.dot(r, n))))
     return RodriguesPieces(n, r, r_par, r_perp, w, alpha)
 
@@ -58,10 +58,18 @@ def cone_sector_triangles(pieces: RodriguesPieces, sweep_rad: float, segments: i
     return tris
 
 
+def _cross(a, b) -> np.ndarray:
+    """a × b of two 3-vectors, written out: np.cross costs ten times this on one pair (every edit draws
+    several)."""
+    a0, a1, a2 = a.tolist() if isinstance(a, np.ndarray) else a
+    b0, b1, b2 = b.tolist() if isinstance(b, np.ndarray) else b
+    return np.array((a1 * b2 - a2 * b1, a2 * b0 - a0 * b2, a0 * b1 - a1 * b0))
+
+
 def arc_between(a, b, radius: float, samples: int) -> np.ndarray:
     """Points on the great-circle arc from direction a to direction b at the given radius (for the angle α)."""
     a, b = unit(a), unit(b)
-    angle = np.arctan2(np.linalg.norm(np.cross(a, b)), np.dot(a, b))
+    angle = np.arctan2(np.linalg.norm(_cross(a, b)), np.dot(a, b))
     side = b - np.dot(a, b) * a
     if np.linalg.norm(side) < 1e-12:
         side = any_perpendicular(a)
@@ -73,14 +81,14 @@ def arc_between(a, b, radius: float, samples: int) -> np.ndarray:
 def any_perpendicular(v) -> np.ndarray:
     v = unit(v)
     helper = np.eye(3)[int(np.argmin(np.abs(v)))]
-    return unit(np.cross(v, helper))
+    return unit(_cross(v, helper))
 
 
 def basis_with_z_along(direction) -> np.ndarray:
     """A rotation matrix whose third column is the given direction (to stand an arrowhead on it)."""
     z = unit(direction)
     x = any_perpendicular(z)
-    y = np.cross(z, x)
+    y = _cross(z, x)
     return np.column_stack([x, y, z])
 
 
