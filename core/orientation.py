@@ -73,6 +73,9 @@ def _angle_out(value, degrees):
     return np.degrees(value) if degrees else value
 
 
+_IDENTITIES = {}
+
+
 class Orientation:
     __slots__ = ("_q", "_notes", "_matrix")
 
@@ -107,7 +110,12 @@ class Orientation:
 
     @classmethod
     def identity(cls):
-        return cls((1.0, 0.0, 0.0, 0.0))
+        # An Orientation is immutable, so one value serves every caller (the model and the Scene ask for
+        # it on every edit, and the constructor's checks cost more than sharing it).
+        value = _IDENTITIES.get(cls)
+        if value is None:
+            value = _IDENTITIES[cls] = cls((1.0, 0.0, 0.0, 0.0))
+        return value
 
     @classmethod
     def from_quaternion(cls, quaternion, scalar_last=False):
