@@ -77,7 +77,9 @@ _IDENTITIES = {}
 
 
 class Orientation:
-    __slots__ = ("_q", "_notes", "_matrix")
+    # _matrix and _axis_angle: derived values kept once computed (the value is immutable, and the Scene and
+    # the editors ask for the same ones on every edit).
+    __slots__ = ("_q", "_notes", "_matrix", "_axis_angle")
 
     def __init__(self, quaternion_wxyz, notes=()):
         """Prefer the from_* constructors; this one takes a finite, non-zero w-first quaternion."""
@@ -90,6 +92,7 @@ class Orientation:
         object.__setattr__(self, "_q", q)
         object.__setattr__(self, "_notes", tuple(notes))
         object.__setattr__(self, "_matrix", None)
+        object.__setattr__(self, "_axis_angle", None)
 
     @classmethod
     def _from_kernel(cls, q, notes=()):
@@ -101,6 +104,7 @@ class Orientation:
         object.__setattr__(self, "_q", q)
         object.__setattr__(self, "_notes", tuple(notes))
         object.__setattr__(self, "_matrix", None)
+        object.__setattr__(self, "_axis_angle", None)
         return self
 
     def __setattr__(self, name, value):
@@ -197,8 +201,12 @@ class Orientation:
     def as_axis_angle(self, degrees=True):
         """(unit axis, angle) with the angle in [0, 180] degrees; the axis is (0, 0, 0) at angle 0."""
         degrees = check_flag(degrees, "degrees")
-        axis, angle = kernels.quaternions_to_axis_angles(self._q, assume_canonical=True)
-        return axis, float(_angle_out(angle, degrees))
+        if self._axis_angle is None:
+            axis, angle = kernels.quaternions_to_axis_angles(self._q, assume_canonical=True)
+            axis.setflags(write=False)
+            object.__setattr__(self, "_axis_angle", (axis, float(angle)))
+        axis, angle = self._axis_angle
+        return axis.copy(), float(_angle_out(angle, degrees))
 
     @classmethod
     def from_rotation_vector(cls, rotation_vector, degrees=True):
