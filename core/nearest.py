@@ -63,9 +63,15 @@ def _locate_problem(m):
 
 
 def orthogonality_report(matrix):
-    m = kernels.check_array(matrix, (3, 3), "matrix")
-    r, c = np.unravel_index(np.argmax(np.abs(m)), m.shape)
-    if abs(m[r, c]) > _LARGEST_ELEMENT:
+    return checked_orthogonality_report(kernels.check_array(matrix, (3, 3), "matrix"))
+
+
+def checked_orthogonality_report(m):
+    """orthogonality_report of a matrix check_array has already accepted (Orientation.from_matrix, on
+    the path of every edit, checks it once)."""
+    entries = m.ravel().tolist()
+    if max(map(abs, entries)) > _LARGEST_ELEMENT:
+        r, c = np.unravel_index(np.argmax(np.abs(m)), m.shape)
         # A rotation's elements lie in [−1, 1]; far outside, the products would overflow, and the
         # element itself is the clearest thing to point at.
         problem = f"row {r + 1}, column {c + 1} is {m[r, c]:.4g}; a rotation's elements lie between −1 and 1"
@@ -73,7 +79,7 @@ def orthogonality_report(matrix):
                                    f"refused: not a rotation: {problem}", problem)
     nearest, error, det = kernels.nearest_rotations(m)
     error, det = float(error), float(det)
-    max_change = float(np.abs(nearest - m).max())
+    max_change = max(abs(a - b) for a, b in zip(nearest.ravel().tolist(), entries))
     if det <= 0:
         handed = "a reflection (left-handed: a sign or an axis convention is wrong)" if det < 0 \
             else "singular (the rows do not span three directions)"

@@ -14,7 +14,7 @@ from core import kernels
 from core.kernels import rodrigues
 from core.errors import InvalidInputError, MatrixRefusedError
 from core.kernels import check_flag
-from core.nearest import orthogonality_report
+from core.nearest import checked_orthogonality_report
 from core.sequences import parse_sequence
 
 # A quaternion or axis whose length is off by more than this was not meant to be unit length: say so.
@@ -73,8 +73,13 @@ def _angle_out(value, degrees):
     return np.degrees(value) if degrees else value
 
 
+_IDENTITIES = {}
+
+
 class Orientation:
-    __slots__ = ("_q", "_notes", "_matrix")
+    # _matrix and _axis_angle: derived values kept once computed (the value is immutable, and the Scene and
+    # the editors ask for the same ones on every edit).
+    __slots__ = ("_q", "_notes", "_matrix", "_axis_angle")
 
     def __init__(self, quaternion_wxyz, notes=()):
         """Prefer the from_* constructors; this one takes a finite, non-zero w-first quaternion."""
@@ -87,6 +92,7 @@ class Orientation:
         object.__setattr__(self, "_q", q)
         object.__setattr__(self, "_notes", tuple(notes))
         object.__setattr__(self, "_matrix", None)
+        object.__setattr__(self, "_axis_angle", None)
 
     @classmethod
     def _from_kernel(cls, q, notes=()):
@@ -98,6 +104,7 @@ class Orientation:
         object.__setattr__(self, "_q", q)
         object.__setattr__(self, "_notes", tuple(notes))
         object.__setattr__(self, "_matrix", None)
+        object.__setattr__(self, "_axis_angle", None)
         return self
 
     def __setattr__(self, name, value):
@@ -107,7 +114,12 @@ class Orientation:
 
     @classmethod
     def identity(cls):
-        return cls((1.0, 0.0, 0.0, 0.0))
+        # An Orientation is immutable, so one value serves every caller (the model and the Scene ask for
+        # it on every edit, and the constructor's checks cost more than sharing it).
+        value = _IDENTITIES.get(cls)
+        if value is None:
+            value = _IDENTITIES[cls] = cls((1.0, 0.0, 0.0, 0.0))
+        return value
 
     @classmethod
     def from_quaternion(cls, quaternion, scalar_last=False):
@@ -152,7 +164,7 @@ class Orientation:
             raise InvalidInputError(f"matrix: expected 3x3, got shape {m.shape}")
         if check_flag(transposed, "transposed"):
             m = m.T
-        report = orthogonality_report(m)
+        report = checked_orthogonality_report(m)
         if not report.accepted:
             raise MatrixRefusedError(report.message, report)
         notes = () if report.band == "exact" else (report.message,)
@@ -189,8 +201,12 @@ class Orientation:
     def as_axis_angle(self, degrees=True):
         """(unit axis, angle) with the angle in [0, 180] degrees; the axis is (0, 0, 0) at angle 0."""
         degrees = check_flag(degrees, "degrees")
-        axis, angle = kernels.quaternions_to_axis_angles(self._q, assume_canonical=True)
-        return axis, float(_angle_out(angle, degrees))
+        if self._axis_angle is None:
+            axis, angle = kernels.quaternions_to_axis_angles(self._q, assume_canonical=True)
+            axis.setflags(write=False)
+            object.__setattr__(self, "_axis_angle", (axis, float(angle)))
+        axis, angle = self._axis_angle
+        return axis.copy(), float(_angle_out(angle, degrees))
 
     @classmethod
     def from_rotation_vector(cls, rotation_vector, degrees=True):

@@ -149,6 +149,8 @@ class NumberField(QAbstractSpinBox):
         return self._problem
 
     def set_convention_tooltip(self, text: str) -> None:
+        if text == self._base_tooltip:
+            return                      # every edit renders it again; Qt's setToolTip is not free
         self._base_tooltip = text
         if self._problem is None:
             self.setToolTip(text)

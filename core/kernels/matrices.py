@@ -148,6 +148,8 @@ def _gram(e):
 
 def _gram_error(g):
     g00, g11, g22, g01, g02, g12 = g
+    if type(g00) is float:    # one matrix: Python floats (numpy's ufuncs on floats cost ten times more)
+        return max(abs(g00 - 1.0), abs(g11 - 1.0), abs(g22 - 1.0), abs(g01), abs(g02), abs(g12))
     error = np.maximum(np.abs(g00 - 1.0), np.abs(g11 - 1.0))
     error = np.maximum(error, np.abs(g22 - 1.0))
     error = np.maximum(error, np.abs(g01))
@@ -208,6 +210,10 @@ def nearest_rotations(m):
     gram = _gram(entries)
     error = _gram_error(gram)
     det = _determinant(entries)
+    if type(error) is float:   # one matrix: an exact rotation needs no float-to-array round trips
+        if error <= _POLAR_TOLERANCE:
+            return m.copy(), np.float64(error), det
+        error = np.float64(error)
     near = (error <= _NEWTON_SCHULZ_LIMIT) & (det > 0)
     if np.all(error <= _POLAR_TOLERANCE):
         return m.copy(), error, det
