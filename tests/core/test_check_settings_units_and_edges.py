@@ -110,3 +110,16 @@ def test_the_roll_cannot_be_told_within_the_limit_of_a_flip_and_can_just_outside
     for along, told in ((at, False), (at * (1 + 1e-6), True)):
         d = np.array([along, np.sqrt(1 - along * along), 0.0, 0.0])
         assert bool(swing_twist_angles(d, axis)[2]) is told
+
+
+def test_a_position_tolerance_given_as_a_numpy_number_is_kept_as_a_plain_float_that_saves_as_json():
+    import json
+    settings = CheckSettings(position_tolerance_mm=np.float32(0.5))
+    assert type(settings.position_tolerance_mm) is float
+    assert json.loads(json.dumps(settings.to_dict()))["position_tolerance_mm"] == 0.5
+
+
+def test_pointing_and_roll_without_a_body_axis_is_refused_word_for_word():
+    with pytest.raises(InvalidInputError) as raised:
+        CheckSettings(mode="pointing_and_roll")
+    assert str(raised.value) == "check mode 'pointing_and_roll' needs a body axis; expected body_axis such as '+Z'"
