@@ -15,8 +15,9 @@ def _problems(*rows):
 
 
 def test_a_name_of_1000_characters_is_kept_and_one_of_1001_is_a_problem_named_in_its_column():
-    table, problems = _problems("n" * 1000 + ",1,0,0,0,1,0,0,0")
-    assert problems == [] and table.names == ("n" * 1000,)
+    # The limits are applied where rows are read one by one, as when another row is in error.
+    table, problems = _problems("n" * 1000 + ",1,0,0,0,1,0,0,0", "b,1,0,0,0,x,0,0,0")
+    assert [p[0] for p in problems] == [3] and table.names == ("n" * 1000, "b")
     _, problems = _problems("n" * 1001 + ",1,0,0,0,1,0,0,0")
     assert problems == [(2, "name", f"line 2 (row 1, mount '{'n' * 80}'), column 'name': the name is 1,001 "
                                     f"characters long; expected at most 1,000")]
@@ -25,7 +26,6 @@ def test_a_name_of_1000_characters_is_kept_and_one_of_1001_is_a_problem_named_in
 def test_a_number_of_1000_characters_is_read_and_one_of_1001_is_a_problem():
     number = "0." + "0" * 997 + "1"                              # 1,000 characters, 1e-998 (finite)
     assert len(number) == 1000
-    # The cell limit is applied where rows are read one by one, as when another row is in error.
     assert _problems(f"a,1,0,0,0,1,{number},0,0", "b,1,0,0,0,x,0,0,0")[1][0][0] == 3
     _, problems = _problems(f"a,1,0,0,0,1,{number}0,0,0", "b,1,0,0,0,x,0,0,0")
     assert problems[:1] == [(2, "measured_qx", "line 2 (row 1, mount 'a'), column 'measured_qx': the cell is 1,001 "

@@ -73,3 +73,11 @@ def test_the_coverage_factor_runs_from_1_to_10_inclusive(k, accepted):
     with pytest.raises(InvalidInputError) as raised:
         run_batch(text, coverage=k)
     assert str(raised.value) == f"coverage factor: expected a number from 1 to 10 (usually 2), got {k!r}"
+
+
+def test_a_unit_quaternion_whose_largest_part_is_below_one_is_not_said_to_be_normalised():
+    # |(0.8, 0, 0.6, 0)| = 1 exactly (the 3-4-5 right triangle, hand-worked)
+    result, _ = run_batch(f"{HEADER}\na,1,0,0,0,{','.join(map(str, ABOUT_Y))}\n")
+    assert not any("normalised" in note for note in result.notes)
+    result, _ = run_batch(f"{HEADER}\na,1,0,0,0,0.96,0,0.72,0\n")            # length 1.2
+    assert any("measured: 1 quaternion(s) normalised" in note for note in result.notes)

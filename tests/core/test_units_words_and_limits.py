@@ -93,3 +93,8 @@ def test_formatters_use_the_unit_decimals_unless_given_and_the_percent_sign_sits
     assert format_length(1.5, "mm") == "1.5 mm"
     assert format_angle(10.5, "dms", decimals=0) == "10° 30′ 0″"
     assert format_slope(1.0, "percent") == f"{100 * math.tan(math.radians(1.0)):.3f}%"
+
+
+def test_given_decimals_win_over_the_units_own_and_dms_shows_its_own_one_decimal_otherwise():
+    assert format_length(1.23456, "mm", decimals=2) == "1.23 mm"
+    assert format_angle(10.5, "dms") == "10° 30′ 0.0″"
