@@ -38,6 +38,8 @@ fuzz: system-packages $(TEST_STAMP)
 
 # Mutation run (mutmut, settings in setup.cfg; never part of `make test`). MODULE narrows it to some
 # files, e.g. `make mutate MODULE="core/check.py core/nearest.py"`; JOBS sets how many run at once.
+# Qt offscreen and no Xvfb: each mutant runs in a forked process, and a fork sharing the parent's X
+# connection crashes in xcb (reported as a segfault, not a verdict) and leaves its own Xvfb behind.
 MODULE ?= core/ app/model.py app/commands.py app/changes.py app/copy_as.py
 JOBS ?= 2
 MUTANT_PATTERNS = $(foreach m,$(MODULE),$(if $(filter %.py,$(m)),$(subst /,.,$(basename $(m))).*,$(subst /,.,$(patsubst %/,%,$(m))).*))
@@ -48,7 +50,7 @@ $(MUTATE_STAMP): pyproject.toml $(TEST_STAMP)
 
 mutate: system-packages $(MUTATE_STAMP)
 	rm -rf mutants
-	$(VENV)/bin/mutmut run --max-children $(JOBS) $(MUTANT_PATTERNS) > mutants-run.log 2>&1 || true
+	QT_QPA_PLATFORM=offscreen $(VENV)/bin/mutmut run --max-children $(JOBS) $(MUTANT_PATTERNS) > mutants-run.log 2>&1 || true
 	$(PY) scripts/mutation_score.py $(MUTANT_PATTERNS)
 
 screenshots: system-packages $(TEST_STAMP)
