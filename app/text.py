@@ -76,8 +76,8 @@ def angle(value: float, unit: str = "deg", decimals: int | None = None, *, signe
         shown = units.format_dms(value)
         return "+" + shown if signed and not shown.startswith(MINUS) and shown.strip("0° ′″.") else shown
     found = units.angle_unit(unit)
-    shown = fixed(float(value) * found.per_base, found.decimals if decimals is None else decimals, signed=signed)
-    return shown + found.symbol if found.symbol in "′″" else f"{shown} {found.symbol}"
+    return units.with_symbol(fixed(float(value) * found.per_base, found.decimals if decimals is None else decimals,
+                                   signed=signed), unit)
 
 
 def numbers(values, digits: int) -> str:

@@ -278,6 +278,13 @@ def _plain(value: float, decimals: int) -> str:
     return text.replace("-", "\u2212")
 
 
+def with_symbol(shown: str, key: str) -> str:
+    """A number already written in angle unit `key`, with its symbol: a mark (°, ′, ″) is written on the
+    number, a symbol of letters after a space ('30″', '0.5 mrad')."""
+    symbol = angle_unit(key).symbol
+    return f"{shown}{symbol}" if symbol in "°′″" else f"{shown} {symbol}"
+
+
 def format_angle(degrees: float, key: str, decimals: int | None = None) -> str:
     """An angle in degrees shown in unit `key` with its symbol: '0.5 mrad', '30″', '1.5°', '2 gon'."""
     unit = angle_unit(key)
@@ -285,8 +292,8 @@ def format_angle(degrees: float, key: str, decimals: int | None = None) -> str:
         raise InvalidInputError(f"not a finite angle: {degrees!r}")
     if unit.key == "dms":
         return format_dms(degrees, unit.decimals if decimals is None else decimals)
-    shown = _plain(float(degrees) * unit.per_base, unit.decimals if decimals is None else decimals)
-    return f"{shown}{unit.symbol}" if unit.symbol in "°′″" else f"{shown} {unit.symbol}"
+    return with_symbol(_plain(float(degrees) * unit.per_base, unit.decimals if decimals is None else decimals),
+                       unit.key)
 
 
 def format_dms(degrees: float, second_decimals: int = 1) -> str:

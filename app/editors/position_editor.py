@@ -8,14 +8,14 @@ per commit. The editor renders from the model and ignores the change it made its
 from __future__ import annotations
 
 from PySide6.QtCore import Qt
-from PySide6.QtWidgets import QApplication, QComboBox, QFrame, QGridLayout, QLabel, QVBoxLayout
+from PySide6.QtWidgets import QApplication, QFrame, QGridLayout, QLabel, QVBoxLayout
 
 from app.editors.base import EditorBase, focus_left
 from app.text import significant
 from app.widgets.number_field import NumberField
+from app.widgets.with_tips import length_choice
 from app.model import MOUNTS, POSITION, PREFERENCES, SELECTION, Change, SessionModel
 from core.errors import FramewrightError
-from core import units
 from core.position import DEFAULT_UNIT, LENGTH_UNITS, Position, position_problem
 
 _TIP = ("{axis} of the body origin in the reference frame, in the unit chosen beside the fields. "
@@ -32,15 +32,9 @@ class PositionEditor(QFrame):
         self.model = model
         self._editing = False
         self.fields = [NumberField(_TIP.format(axis=a), steppable=False) for a in ("X", "Y", "Z")]
-        self.unit_box = QComboBox()
-        for index, unit in enumerate(LENGTH_UNITS):
-            self.unit_box.addItem(units.length_unit(unit).symbol, unit)
-            # thou: said in words, so a thousandth of an inch is never taken for an angular mil
-            self.unit_box.setItemData(index, units.length_unit(unit).note or units.length_unit(unit).name,
-                                      Qt.ItemDataRole.ToolTipRole)
-        self.unit_box.setToolTip("Unit of the position shown and typed (mm, m, in, or thou: a thousandth of an "
-                                 "inch, 0.0254 mm, not an angular mil). Changing it keeps the same place; the "
-                                 "session stores metres and the unit shown.")
+        self.unit_box = length_choice("Unit of the position shown and typed (mm, m, in, or thou: a thousandth of "
+                                      "an inch, 0.0254 mm, not an angular mil). Changing it keeps the same place; "
+                                      "the session stores metres and the unit shown.", tuple(LENGTH_UNITS))
         self.note = EditorBase.note_label(lines=1)
         self.note.hide()            # shown only when it has something to say, so it costs no height
         self.note.setAlignment(Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter)

@@ -13,7 +13,7 @@ from __future__ import annotations
 
 from dataclasses import replace
 
-from PySide6.QtCore import QRectF, Qt
+from PySide6.QtCore import QRectF
 from PySide6.QtGui import QColor, QPainter
 from PySide6.QtWidgets import (QFormLayout, QGroupBox, QPlainTextEdit, QSizePolicy, QSpinBox, QVBoxLayout,
                                QWidget)
@@ -22,7 +22,7 @@ from app.model import CHECK, MEASUREMENTS, MOUNTS, ORIENTATION, PREFERENCES, SEL
 from app.panels.base import Panel
 from app.panels.repeats_box import RepeatedMeasurementsBox
 from app.text import angle, fixed, vector
-from app.widgets.with_tips import button, choice_box, line_field, reading_label
+from app.widgets.with_tips import button, choice_box, length_choice, line_field, reading_label
 from core import operations, units
 from core.check import check
 from core.correction import adjustment_angles, correction, read_axes
@@ -87,14 +87,12 @@ class AdjustPanel(Panel):
         self.footprint_field = QPlainTextEdit()
         self.footprint_field.setPlaceholderText("one foot a line: x y z (body axes)")
         self.footprint_field.setToolTip("The feet or bolt points in body coordinates, in the length unit chosen "
-                                        "below, one 'x y z' a line. They must lie on one face; its outward normal "
+                                        "above, one 'x y z' a line. They must lie on one face; its outward normal "
                                         "is taken on the side away from the body origin.")
-        self.length_box = choice_box("The unit the feet, the screw pitch and the shims are typed and shown in. "
-                                     "They are kept in mm; changing it shows the same lengths in the new unit. "
-                                     "thou: a thousandth of an inch (0.0254 mm), not an angular mil.",
-                                     [(units.length_unit(key).symbol, key) for key in ("mm", "in", "thou")])
-        self.length_box.setItemData(self.length_box.findData("thou"), units.length_unit("thou").note,
-                                    Qt.ItemDataRole.ToolTipRole)
+        self.length_box = length_choice("The unit the feet, the screw pitch and the shims are typed and shown in. "
+                                        "They are kept in mm; changing it shows the same lengths in the new unit. "
+                                        "thou: a thousandth of an inch (0.0254 mm), not an angular mil.",
+                                        ("mm", "in", "thou"))
         self.footprint_field.setMaximumHeight(90)
         self.corners_button = button("Corners of the face opposite the boresight",
                                      "Fill in the four corners of the part box's face opposite its boresight "
@@ -368,11 +366,8 @@ def _angle(value_deg: float, unit: str) -> str:
 
 
 def _small_turns(values_deg, unit: str) -> str:
-    if unit in ("deg", "dms"):
-        return vector(values_deg) + "°"
-    found = units.angle_unit(unit)
-    return vector(units.degrees_to(values_deg, unit), found.decimals) + ("" if found.symbol in "′″" else " ") \
-        + found.symbol
+    key = "deg" if unit == "dms" else unit          # three small turns read best as decimals
+    return units.with_symbol(vector(units.degrees_to(values_deg, key), units.angle_unit(key).decimals), key)
 
 
 # Feet are read to a tenth of a millimetre (or its like); shims to the unit's usual reading (0.001 mm,

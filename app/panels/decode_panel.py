@@ -15,10 +15,6 @@ from app.widgets.with_tips import button
 from core.errors import FramewrightError
 from core.position import LENGTH_UNITS, Position, position_as_stated
 
-# Units a decoded translation may state, in metres; the position is then shown in the nearest one the
-# window offers (core/position.py). The decoder names the unit; nothing here guesses one.
-
-
 # Text up to this length decodes in a few milliseconds and is read at once; longer text (up to the
 # decoder's 100 kB, which can take a few hundred ms) is read on a worker thread so a paste never freezes
 # the window.

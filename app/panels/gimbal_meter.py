@@ -181,9 +181,8 @@ class GimbalMeter(QGroupBox):
 
 def _margin_words(margin_deg: float, unit: str) -> str:
     """The distance from lock in the display unit, to three significant digits (an exponent when tiny)."""
-    found = units.angle_unit(unit)
-    value = float(units.degrees_to(margin_deg, unit)) if unit != "deg" else margin_deg
+    value = float(units.degrees_to(margin_deg, unit))
     # three significant digits, whole numbers past a thousand (1483 mrad, not 1.48e+03), an exponent when tiny
     shown = f"{value:.0f}" if value >= 1000 else f"{value:.3g}" if margin_deg >= 0.01 or margin_deg == 0 \
         else f"{value:.2e}"
-    return shown + "°" if unit == "deg" else shown + ("" if found.symbol in "′″" else " ") + found.symbol
+    return units.with_symbol(shown, unit)

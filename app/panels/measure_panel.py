@@ -11,7 +11,7 @@ import math
 from pathlib import Path
 
 import numpy as np
-from PySide6.QtCore import Qt, Signal
+from PySide6.QtCore import Signal
 from PySide6.QtGui import QFontDatabase, QGuiApplication
 from PySide6.QtWidgets import QHBoxLayout, QLabel, QPlainTextEdit, QStackedWidget, QVBoxLayout
 
@@ -22,8 +22,8 @@ from app.panels.measure_fit import (DIRECTIONS, POINTS, THREE_POINTS, MeasuredFi
                                     fit_point_rows, fit_three_points, result_lines, row_outputs)
 from app.panels.measure_rows import RowsError, rows_from_csv
 from app.panels.measure_table import MeasureTable, TableInputError
-from app.widgets.with_tips import button, choice_box, line_field
-from core import operations, units
+from app.widgets.with_tips import button, choice_box, length_choice, line_field
+from core import operations
 from core.errors import FramewrightError
 from core.point_rows import DIRECTION_COLUMNS, POINT_COLUMNS, THREE_POINT_COLUMNS, THREE_POINT_ROWS
 
@@ -51,11 +51,9 @@ class MeasurePanel(Panel):
 
         self.method = choice_box("How the orientation is found from the measurements.",
                                  [(label, key) for key, label, _ in METHODS])
-        self.unit = choice_box("The length unit of every point (nominal and measured alike). It only labels "
+        self.unit = length_choice("The length unit of every point (nominal and measured alike). It only labels "
                                "the residuals: the orientation does not depend on it.",
-                               [(unit, None) for unit in ("mm", "in", "thou", "m")])
-        # thou is said in words where it is chosen: a thousandth of an inch, never an angular mil
-        self.unit.setItemData(self.unit.findText("thou"), units.length_unit("thou").note, Qt.ItemDataRole.ToolTipRole)
+                               ("mm", "in", "thou", "m"))
         self.help = QLabel()
         self.help.setWordWrap(True)
 

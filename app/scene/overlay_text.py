@@ -94,10 +94,8 @@ def short_angle(value_deg: float, unit: str = "deg") -> str:
     """A label's angle, short: '30.6°' to a tenth of a degree, or four digits in another unit ('534.3 mrad')."""
     if unit == "deg":
         return f"{value_deg:.1f}\u00b0"
-    found = units.angle_unit(unit)
     value = float(units.degrees_to(value_deg, unit))
-    shown = f"{value:.0f}" if abs(value) >= 1000 else f"{value:.4g}"
-    return shown + found.symbol if found.symbol in "\u2032\u2033" else f"{shown} {found.symbol}"
+    return units.with_symbol(f"{value:.0f}" if abs(value) >= 1000 else f"{value:.4g}", unit)
 
 
 def sweep_line(t, angle_deg) -> str:

@@ -7,6 +7,7 @@ from PySide6.QtCore import Qt
 from PySide6.QtWidgets import QComboBox, QLineEdit, QPushButton
 
 from app import plain_text
+from core import units
 
 
 def button(text: str, tip: str) -> QPushButton:
@@ -20,6 +21,17 @@ def line_field(tip: str, placeholder: str = "") -> QLineEdit:
     widget.setToolTip(tip)
     if placeholder:
         widget.setPlaceholderText(placeholder)
+    return widget
+
+
+def length_choice(tip: str, keys) -> QComboBox:
+    """A drop-down of length units (keys of core/units.LENGTH_UNITS), each shown by its symbol with its
+    name, or its note, as the entry's tooltip: a thou is said in words wherever it is chosen, so a
+    thousandth of an inch is never taken for an angular mil."""
+    widget = choice_box(tip, [(units.length_unit(key).symbol, key) for key in keys])
+    for index, key in enumerate(keys):
+        found = units.length_unit(key)
+        widget.setItemData(index, found.note or found.name, Qt.ItemDataRole.ToolTipRole)
     return widget
 
 
