@@ -2,26 +2,15 @@
 parameters too, with their conventions in the label; a half turn has no Gibbs vector and says so; a report
 written before they were printed (record version 1) still verifies against its session."""
 
-import math
 from dataclasses import replace
-from pathlib import Path
 
-import numpy as np
 import pytest
 from scipy.spatial.transform import Rotation
 
 from core import inspection_record as records
 from core.orientation import Orientation
 from core.record_values import RecordError, expected_figures
-from core.session import load_session
-
-ROOT = Path(__file__).resolve().parents[2]
-SESSION = load_session(ROOT / "resources" / "demo_check.fwsession.json")
-CHECK = "Radar antenna after remount"
-
-
-def _figures(record):
-    return {f.key: f for f in record.figures()}
+from tests.core.test_inspection_record import CHECK, SESSION, _figures
 
 
 def test_every_mount_prints_its_gibbs_vector_and_mrp_as_scipy_gives_them():
