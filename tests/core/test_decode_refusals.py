@@ -10,6 +10,7 @@ from hypothesis import strategies as st
 
 from core.decode import DecodeError, decode, parse_numbers
 from tests.core.test_decode_snippets import SNIPPETS
+from tests.plain_ids import plain_id
 
 # (text, what the message must name)
 REFUSED = [
@@ -42,7 +43,7 @@ REFUSED = [
 ]
 
 
-@pytest.mark.parametrize("text, named", REFUSED, ids=[t for t, _ in REFUSED])
+@pytest.mark.parametrize("text, named", REFUSED, ids=[plain_id(t) for t, _ in REFUSED])
 def test_refused_naming_the_token_and_line(text, named):
     with pytest.raises(DecodeError) as caught:
         decode(text)

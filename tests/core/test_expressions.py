@@ -11,6 +11,7 @@ import pytest
 
 from core.decode.expressions import evaluate
 from core.errors import DecodeError
+from tests.plain_ids import plain_id
 
 # (text, value computed with Python's math module)
 VALUES = [
@@ -57,7 +58,7 @@ VALUES = [
 ]
 
 
-@pytest.mark.parametrize("text, value", VALUES, ids=[t for t, _ in VALUES])
+@pytest.mark.parametrize("text, value", VALUES, ids=[plain_id(t) for t, _ in VALUES])
 def test_evaluates_the_subset(text, value):
     result = evaluate(text)
     assert isinstance(result, float)
@@ -125,7 +126,7 @@ REFUSED = [
 ]
 
 
-@pytest.mark.parametrize("text, named", REFUSED, ids=[t or "<empty>" for t, _ in REFUSED])
+@pytest.mark.parametrize("text, named", REFUSED, ids=[plain_id(t) for t, _ in REFUSED])
 def test_refuses_everything_outside_the_subset_by_name(text, named):
     with pytest.raises(DecodeError) as refused:
         evaluate(text)
