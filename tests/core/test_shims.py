@@ -372,3 +372,10 @@ def test_a_face_normal_given_as_a_column_is_read_and_named_to_six_decimals():
     # (0, 1, −7)/√50 to six decimals: 0.141421, −0.989949
     with pytest.raises(InvalidInputError, match=r"normal \[0\.0, 0\.141421, -0\.989949\]\)"):
         shims(Orientation.identity(), feet, (0, 1, -7))
+
+
+@pytest.mark.parametrize("turn, twist", [(1, -1), (-1, 1), (0.5, -0.5)])
+def test_a_twist_of_one_degree_gets_its_sign_like_any_other(turn, twist):
+    # SciPy: a turn about +Z is a turn of the opposite sign about the outward normal −Z
+    rotation = Rotation.from_euler("z", turn, degrees=True)
+    assert shims(_orientation(rotation), PLATE, DOWN).twist_deg == pytest.approx(twist, abs=1e-12)
