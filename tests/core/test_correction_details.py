@@ -209,3 +209,17 @@ def test_axes_that_cannot_reach_get_an_answer_no_grid_of_angles_beats():
     for axis, angle in zip(axes, result.angles_deg):
         rebuilt = rebuilt * Rotation.from_rotvec(math.radians(angle) * axis)
     assert np.degrees((rebuilt * target.inv()).magnitude()) == pytest.approx(result.residual_deg, abs=1e-9)
+
+
+@pytest.mark.parametrize("axis", [(1, 1, 1), (3, -7, 11), (1e-3, 2, 5)])
+def test_an_axis_twice_is_refused_as_parallel_even_where_rounding_puts_its_cosine_above_1(axis):
+    # worked here: each of these, made unit, has a dot product with itself of 1.0000000000000002
+    with pytest.raises(InvalidInputError, match="^adjustment axes 1 and 2 are parallel"):
+        adjustment_angles(Orientation.identity(), [axis, axis])
+
+
+def test_axes_that_are_not_unit_compose_as_their_directions():
+    # SciPy: turns of 30° about Z then 40° about X, given as (0, 0, 2) and (3, 0, 0)
+    want = Rotation.from_rotvec(np.radians(30) * np.array([0, 0, 1])) * Rotation.from_rotvec(
+        np.radians(40) * np.array([1, 0, 0]))
+    assert compose_about_axes([(0, 0, 2), (3, 0, 0)], [30, 40]).isclose(_orientation(want), 1e-12)
