@@ -242,6 +242,9 @@ def compute_deviations(table, settings=CheckSettings(), progress=None, coverage=
     problems = list(table.problems)
     figures = [total, dev_axis, margin] + ([pointing, roll] if axis is not None else [])
     # Belt and braces: a figure that came out non-finite from trusted input is an error, never a verdict.
+    # No text reaches this: read_mounts makes every row it does not refuse a finite unit quaternion, and
+    # CheckSettings holds finite tolerances, so every figure is finite. A MountTable built by a caller
+    # (it is a public value) can carry NaN in a row with no problem: that is what this still catches.
     unfinished = ~error & ~np.logical_and.reduce([np.isfinite(f).reshape(n, -1).all(axis=1) for f in figures])
     if unfinished.any():
         for row in np.flatnonzero(unfinished):

@@ -123,6 +123,14 @@ def _read_one_by_one(text, header, numeric):
     return tuple(names), values, problems
 
 
+def _has_long_cell(text):
+    """Whether some cell may be over MAX_CELL_CHARS (numpy's reader would take a 1,001-character number):
+    such a file is read row by row, where the limit is applied. Splitting at every comma never makes a
+    cell look longer than it is."""
+    return any(len(line) > MAX_CELL_CHARS and any(len(piece) > MAX_CELL_CHARS for piece in line.split(","))
+               for line in text.split("\n")[1:])
+
+
 def _structure_problems(text, header):
     """Rows with the wrong number of cells (loadtxt's usecols would not notice extra cells)."""
     if '"' in text:
@@ -136,7 +144,7 @@ def _structure_problems(text, header):
 def _read_cells(text, header, numeric):
     """Names (tuple), the numeric columns (N, len(numeric)) and the RowProblems of rows that cannot be
     read. Clean files take numpy's fast reader; any doubt sends every row through the csv module."""
-    if _structure_problems(text, header):
+    if _structure_problems(text, header) or _has_long_cell(text):
         return _read_one_by_one(text, header, numeric)
     try:
         with warnings.catch_warnings():

@@ -56,8 +56,9 @@ def _footprint(points) -> np.ndarray:
     bad = np.argwhere(~np.isfinite(p) | (np.abs(p) > 1e9))
     if len(bad):
         row, column = bad[0]
-        raise InvalidInputError(f"footprint: foot {row + 1}, {'xyz'[column]} = {p[row, column]!r} is not a finite "
-                                "length below 1e9")
+        value = float(p[row, column])        # as written (inf, 1e+10), not numpy's spelling of its type
+        raise InvalidInputError(f"footprint: foot {row + 1}, {'xyz'[column]} = {value!r} is not a finite length "
+                                "below 1e9")
     return p
 
 

@@ -150,8 +150,10 @@ def rise_over(tilt_deg, base_mm):
 
 # --- reading text with a unit mark -----------------------------------------------------------------
 
-_NUMBER = r"[+\-\u2212\u2013]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+\-\u2212\u2013]?\d+)?"
-_PART = re.compile(rf"\s*({_NUMBER})\s*([^\d\s+\-\u2212\u2013.][^\d+\-\u2212\u2013]*?)?\s*(?=$|[+\-\u2212\u2013]?\d|\.\d)")
+# The number is an atomic group: a part never ends inside a number ('10' is not '1' then '0'), and a part may
+# end before a sign, so text that cannot be read is quoted from where it goes wrong ('+ 30′' in '10° + 30′').
+_NUMBER = r"(?>[+\-\u2212\u2013]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+\-\u2212\u2013]?\d+)?)"
+_PART = re.compile(rf"\s*({_NUMBER})\s*([^\d\s+\-\u2212\u2013.][^\d+\-\u2212\u2013]*?)?\s*(?=$|[+\-\u2212\u2013]|\d|\.\d)")
 _SEXAGESIMAL = ("deg", "arcmin", "arcsec")
 
 

@@ -78,17 +78,20 @@ def mrp_shadows(p):
     """The shadow set −p / |p|² of modified Rodrigues parameters: the same orientation turned the other
     way round. The shadow of zero (no rotation) is infinite: its components are inf or nan."""
     p = np.asarray(p, dtype=np.float64)
-    unit, scale = _scaled(p)
+    # −(u / |u|²) / s with u = p / s and s the largest component: |u| is between 1 and √3, so no square
+    # overflows (|p| near 1e308) or underflows (|p| near 1e-200, whose shadow is near 1e200)
+    scale = np.abs(p).max(axis=-1)[..., None]
     with np.errstate(divide="ignore", invalid="ignore"):
-        return -unit / (scale * np.einsum("...i,...i->...", unit, unit))[..., None]
+        unit = p / scale
+        return -(unit / np.einsum("...i,...i->...", unit, unit)[..., None]) / scale
 
 
 def mrp_shadows_if_long(p):
     """Each vector with |p| > 1 replaced by its shadow (|p_s| < 1); the others as they are."""
     p = np.asarray(p, dtype=np.float64)
     unit, scale = _scaled(p)
-    with np.errstate(over="ignore"):      # a length beyond 1e154 squares to inf: still long
-        long = scale * scale * np.einsum("...i,...i->...", unit, unit) > 1.0
+    # a component beyond 1 makes |p| > 1; otherwise unit is p itself: no square of a huge length is taken
+    long = (scale > 1.0) | (np.einsum("...i,...i->...", unit, unit) > 1.0)
     if not np.any(long):
         return p
     return np.where(long[..., None], mrp_shadows(np.where(long[..., None], p, 1.0)), p)

@@ -44,3 +44,18 @@ def test_the_names_are_kept_in_order_around_an_error_row():
     table, problems = _problems("a,1,0,0,0,1,0,0,0", "b,1,0,0,0,x,0,0,0", "c,1,0,0,0,1,0,0,0")
     assert table.names == ("a", "b", "c")
     assert [p[0] for p in problems] == [3]
+
+
+def test_the_1000_character_limit_on_a_number_holds_when_every_other_row_is_clean():
+    """The limit is the file's, not only the careful reader's: a clean file (read by numpy's fast reader)
+    refuses a 1,001-character number cell as a file with an error row does, and keeps one of 1,000."""
+    number = "0." + "0" * 997 + "1"                              # 1,000 characters, 1e-998 (finite)
+    table, problems = _problems(f"a,1,0,0,0,1,{number},0,0", "b,1,0,0,0,1,0,0,0")
+    assert problems == [] and table.names == ("a", "b")
+    table, problems = _problems(f"a,1,0,0,0,1,{number}0,0,0", "b,1,0,0,0,1,0,0,0")
+    assert problems == [(2, "measured_qx", "line 2 (row 1, mount 'a'), column 'measured_qx': the cell is 1,001 "
+                                           "characters long; expected a number")]
+    assert table.names == ("a", "b")
+    padded = " " * 1000 + "1"                                    # spaces count too: 1,001 characters
+    _, problems = _problems("a,1,0,0,0,1,0,0,0", f"b,1,0,0,0,{padded},0,0,0")
+    assert [(p[0], p[1]) for p in problems] == [(3, "measured_qw")]

@@ -27,7 +27,10 @@ def test_a_row_with_a_cell_missing_is_named_with_its_line_and_the_count():
 
 def test_a_line_of_the_longest_length_is_read_and_one_character_more_is_refused():
     start = "a,1,0,0,0,1,0,0,"
-    assert read_mounts(f"{HEADER}\n{start}{'0' * (MAX_LINE_CHARS - len(start))}\n").problems == ()
+    # at the line limit the file is read; the one cell that long is the row's problem (over 1,000 characters)
+    longest = read_mounts(f"{HEADER}\n{start}{'0' * (MAX_LINE_CHARS - len(start))}\n")
+    assert [(p.line, p.column) for p in longest.problems] == [(2, "measured_qz")]
+    assert longest.names == ("a",)
     with pytest.raises(BatchFileError) as raised:
         read_mounts(f"{HEADER}\n{start}{'0' * (MAX_LINE_CHARS + 1 - len(start))}\n")
     assert str(raised.value) == ("line 2, column 'measured_qz': the line is 100,001 characters long; expected at "

@@ -5,6 +5,7 @@ right side of each, and the result keeps its settings and says when no row is in
 Check values: SciPy's Rotation gives the turn (a reference library); the rest is hand-worked from the
 rules the modules state (ROUNDING_ALLOWANCE_DEG = 1e-9: within a nanodegree counts as equal)."""
 
+import numpy as np
 import pytest
 from scipy.spatial.transform import Rotation
 
@@ -52,3 +53,20 @@ def test_the_results_are_written_with_nine_decimals_unless_asked_and_no_negative
     row = write_results(result).splitlines()[1].split(",")
     assert row[1:5] == ["0.000000000"] * 4 and row[7] == "0.000000000"
     assert write_results(result, decimals=3).splitlines()[1].split(",")[1] == "0.000"
+
+
+def test_a_table_built_by_hand_with_a_nan_row_gets_an_error_not_a_verdict():
+    """The guard in compute_deviations that text cannot reach (read_mounts refuses such rows first): a
+    MountTable made by a caller with NaN in a row it names no problem for."""
+    from core.batch import MountTable, compute_deviations, read_mounts
+    header = "name,nominal_qw,nominal_qx,nominal_qy,nominal_qz,measured_qw,measured_qx,measured_qy,measured_qz"
+    read = read_mounts(f"{header}\na,1,0,0,0,1,0,0,0\nb,1,0,0,0,1,0,0,0\n")
+    measured = read.measured.copy()
+    measured[1] = np.nan
+    table = MountTable(read.names, read.nominal, measured, read.sets)
+    result = compute_deviations(table)
+    assert result.passed.tolist() == [True, False]
+    assert [(p.row, p.message) for p in result.problems] == [
+        (1, "row 2 (mount 'b'): the deviation could not be computed as a finite number; expected finite, "
+            "in-range numbers")]
+    assert np.isnan(result.total_deg[1]) and result.total_deg[0] == 0

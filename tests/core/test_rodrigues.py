@@ -3,6 +3,8 @@ as_gibbs / from_mrp / as_mrp): against SciPy's Rotation.as_mrp / from_mrp, again
 g = n·tan(φ/2) of Shuster, "A Survey of Attitude Representations", J. Astronautical Sciences 41(4), 1993
 (section on the Gibbs vector), round trips, batches, and hostile input."""
 
+import warnings
+
 import numpy as np
 import pytest
 from scipy.spatial.transform import Rotation
@@ -115,3 +117,41 @@ def test_kernels_serve_one_orientation_and_a_shaped_batch_alike():
         assert shaped.shape == (3, 4, 3)
         np.testing.assert_allclose(shaped[1, 2], forward(q[1, 2]), atol=0)
         assert back(shaped).shape == (3, 4, 4)
+
+
+@pytest.mark.parametrize("length", [1e200, 1e308, 1.7976931348623157e308])
+@pytest.mark.parametrize("direction", [(1, 0, 0), (1, 1, 1), (-3, 2, 7)])
+def test_an_mrp_of_huge_length_is_read_as_the_identity_with_no_overflow_warning(length, direction):
+    """The shadow of p is −p/|p|² (Schaub & Junkins, "Analytical Mechanics of Space Systems", the MRP shadow
+    set): of length 1/|p|, below 1e-200 here, so the turn is the identity to far below rounding. No step may
+    overflow on the way (warnings are errors here), the kernel and the Orientation alike."""
+    p = np.asarray(direction, dtype=float) / np.abs(direction).max() * length
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        q = rodrigues.mrps_to_quaternions(p)
+        shadows = rodrigues.mrp_shadows(p)
+        o = Orientation.from_mrp(p)
+    # q = (1 − |s|², 2s)/(1 + |s|²) of the shadow s: w = 1 and a vector part at most 2/|p| (same reference)
+    assert q[0] == 1.0 and np.abs(q[1:]).max() <= 2 / length * (1 + 1e-12)
+    assert o.angle_to(Orientation.identity()) == 0.0
+    assert np.all(np.isfinite(shadows)) and np.abs(shadows).max() <= 1 / length
+    # the shadow of a shadow is the set itself (same reference), where the shadow does not underflow
+    if length == 1e200:
+        assert np.allclose(rodrigues.mrp_shadows(shadows), p, rtol=1e-14, atol=0)
+
+
+@pytest.mark.parametrize("bad", [[np.inf, 0, 0], [1e308, -np.inf, 1e308], [np.nan, 1e308, 0]])
+def test_an_infinite_mrp_is_refused_without_a_warning(bad):
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        with pytest.raises(InvalidInputError, match="NaN or infinity"):
+            Orientation.from_mrp(bad)
+
+
+def test_a_long_mrp_is_read_as_scipy_reads_it_and_the_length_one_boundary_holds():
+    # SciPy's from_mrp, for a length it squares without overflow; at |p| = 1 (a half turn) either set
+    for p in ([3e10, -1e10, 2e10], [0.0, 1.0, 0.0], [0.0, 1.0 + 2e-16, 0.0], [0.6, 0.8, 0.0]):
+        with warnings.catch_warnings():
+            warnings.simplefilter("error")
+            o = Orientation.from_mrp(p)
+        assert o.angle_to(from_scipy(Rotation.from_mrp(p))) < 1e-9

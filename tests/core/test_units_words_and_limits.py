@@ -98,3 +98,15 @@ def test_formatters_use_the_unit_decimals_unless_given_and_the_percent_sign_sits
 def test_given_decimals_win_over_the_units_own_and_dms_shows_its_own_one_decimal_otherwise():
     assert format_length(1.23456, "mm", decimals=2) == "1.23 mm"
     assert format_angle(10.5, "dms") == "10° 30′ 0.0″"
+
+
+@pytest.mark.parametrize("text, quoted", [
+    ("10° + 30′", "+ 30′"), ("10° ++30′", "++30′"), ("10 - 5", "- 5"), ("1°30′ − 15″", "− 15″"),
+    ("12 mrad +", "+")])
+def test_text_that_cannot_be_read_is_quoted_from_where_it_goes_wrong(text, quoted):
+    """A sign parted from its number is what cannot be read: the message quotes from that sign, not from
+    the middle of the number before it ('0° + 30′' in '10° + 30′' was one character late)."""
+    with pytest.raises(InvalidInputError) as raised:
+        read_angle(text)
+    assert str(raised.value) == (f"{text!r}: cannot read {quoted!r} as a number with a unit mark (e.g. 0.5 mrad, "
+                                 "30″, 1°30′, 2 gon)")
