@@ -97,13 +97,13 @@ def read_axes(text: str) -> np.ndarray:
     return _unit_axes(axes)
 
 
-def _unit_axes(axes) -> np.ndarray:
+def _unit_axes(axes, counts=(2, 3)) -> np.ndarray:
     try:
         a = np.array(axes, dtype=float)
     except (TypeError, ValueError):
         raise InvalidInputError(f"adjustment axes: expected two or three axes of three numbers, got {axes!r}") \
             from None
-    if a.ndim != 2 or a.shape[1] != 3 or a.shape[0] not in (2, 3):
+    if a.ndim != 2 or a.shape[1] != 3 or a.shape[0] not in counts:
         raise InvalidInputError(f"adjustment axes: expected two or three axes of three numbers each, got shape "
                                 f"{a.shape}")
     out = []
@@ -165,7 +165,11 @@ def _wrap_deg(angle_rad: float) -> float:
 
 def compose_about_axes(axes, angles_deg) -> Orientation:
     """R(a1, θ1) R(a2, θ2) … as an Orientation (angles in degrees)."""
-    unit = _unit_axes(axes) if len(axes) > 1 else np.array(axes, dtype=float)
+    # one axis too is made unit: (0, 0, 2) at 90° must be a quarter turn, not the 127° an unscaled axis gives
+    unit = _unit_axes(axes, counts=(1, 2, 3))
+    if len(angles_deg) != len(unit):
+        raise InvalidInputError(f"{len(unit)} adjustment axes but {len(angles_deg)} angles: expected one angle "
+                                "per axis")
     q = np.array([1.0, 0, 0, 0])
     for axis, angle in zip(unit, angles_deg):
         q = _product(q, _about(axis, math.radians(angle)))

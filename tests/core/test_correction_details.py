@@ -223,3 +223,17 @@ def test_axes_that_are_not_unit_compose_as_their_directions():
     want = Rotation.from_rotvec(np.radians(30) * np.array([0, 0, 1])) * Rotation.from_rotvec(
         np.radians(40) * np.array([1, 0, 0]))
     assert compose_about_axes([(0, 0, 2), (3, 0, 0)], [30, 40]).isclose(_orientation(want), 1e-12)
+
+
+def test_one_axis_of_any_length_composes_as_a_turn_about_its_direction():
+    # (0, 0, 2) at 90° is a quarter turn about z (SciPy from_rotvec of the unit axis times the angle); an axis
+    # left unscaled would give about 127°
+    got = compose_about_axes([(0, 0, 2)], [90])
+    assert got.isclose(_orientation(Rotation.from_rotvec([0, 0, np.pi / 2])), 1e-12)
+    assert got.angle_to(Orientation.identity()) == pytest.approx(90.0, abs=1e-12)
+
+
+@pytest.mark.parametrize("axes, angles", [([(0, 0, 1)], [10, 20]), ([(0, 0, 1), (1, 0, 0)], [10])])
+def test_an_angle_count_other_than_the_axis_count_is_refused(axes, angles):
+    with pytest.raises(InvalidInputError, match="one angle per axis"):
+        compose_about_axes(axes, angles)
