@@ -50,7 +50,12 @@ def _lighter(rgb, amount=0.35):
 class SceneWidget(QtWidgets.QWidget):
     sweep_changed = QtCore.Signal(float)
 
-    def __init__(self, parent=None):
+    def __init__(self, parent=None, native_view=False):
+        """native_view: the Scene is a native child window of its own. Qt composes the window that holds
+        a QOpenGLWidget through OpenGL on every frame; in a native child only the Scene's own area is
+        composed so, not the whole top-level window around it, which on software OpenGL took a large
+        window longer than the Scene's drawing (tests/bench/bench_window.py). The window's Scene uses it;
+        a Scene that is never put on the screen (the report's pictures) does without."""
         super().__init__(parent)
         self.view = SceneView()
         self.view.setBackgroundColor(palette.BACKGROUND)
@@ -62,6 +67,8 @@ class SceneWidget(QtWidgets.QWidget):
         layout.setSpacing(0)
         layout.addWidget(self.toolbar)
         layout.addWidget(self.view, 1)
+        if native_view:
+            self.setAttribute(QtCore.Qt.WidgetAttribute.WA_NativeWindow)
 
         self._orientation = Orientation.identity()
         self._ghost = Orientation.identity()

@@ -102,3 +102,22 @@ def test_a_label_whose_text_is_unchanged_is_not_drawn_again(qtbot, laptop):
     wait_for_a_frame(qtbot, laptop)
     # new texts: the angle label, the α label maybe, the orientation panel; the axis and face names stay
     assert drawn < scene.labels.images.drawn <= drawn + 5
+
+
+def test_the_scene_composed_in_its_own_native_window_reaches_the_screen(qtbot, laptop):
+    from PySide6.QtGui import QGuiApplication
+
+    from app.scene import palette
+
+    scene = laptop.scene
+    assert scene.windowHandle() is not None          # a native child: only its own area goes through GL
+    type_into(qtbot, laptop.axis_angle.angle_field, "40")
+    wait_for_a_frame(qtbot, laptop)
+    qtbot.wait(50)
+    # What the X server holds for the view (read back, not rendered again): mostly the Scene's background.
+    shot = QGuiApplication.primaryScreen().grabWindow(int(scene.winId())).toImage()
+    top_left = scene.view.mapTo(scene, scene.view.rect().topLeft())
+    pixels = [shot.pixelColor(top_left.x() + x, top_left.y() + y).getRgb()[:3]
+              for x in range(20, scene.view.width() - 20, 37) for y in range(20, scene.view.height() - 20, 29)]
+    background = sum(1 for p in pixels if max(abs(a - b) for a, b in zip(p, palette.BACKGROUND)) <= 6)
+    assert background > 0.4 * len(pixels), (background, len(pixels))
