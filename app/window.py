@@ -244,7 +244,7 @@ class MainWindow(QMainWindow):
         if self.scene is not None:
             return
         from app.scene.scene_widget import SceneWidget
-        self.scene = SceneWidget()
+        self.scene = SceneWidget(native_view=True)   # composed on its own (scene_widget.py says why)
         self._scene_binding = bind_scene_to_model(self.scene, self.model)
         if self._measured_fit is not None:
             self.scene.set_measured_points(self._measured_fit)

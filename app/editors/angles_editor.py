@@ -101,7 +101,7 @@ class AnglesEditor(EditorBase):
         return (f"θ{i + 1} ({self.angle_unit}): turn about the {frame} {axis} axis, right-handed, "
                 f"{spelled_sequence(seq, intr)} {'intrinsic' if intr else 'extrinsic'}. Shown in {span}.")
 
-    def render(self) -> None:
+    def render_setup(self) -> None:
         seq, intr = self.sequence, self.intrinsic
         self.show_unit_in_title("Angles")
         self.limit_angles(self.fields)
@@ -111,6 +111,9 @@ class AnglesEditor(EditorBase):
             label.setText(self.unit_label(text))
             self.fields[i].set_convention_tooltip(self._tooltip(i))
             self.fields[i].set_step(self.angle_step)
+
+    def render_values(self) -> None:
+        seq, intr = self.sequence, self.intrinsic
         angle_set = self.model.current_orientation().as_angles(seq, intrinsic=intr, degrees=True)
         shown = self.shown_angles(angle_set.angles)
         for field, value in zip(self.fields, shown):

@@ -68,9 +68,7 @@ class AxisAngleEditor(EditorBase):
         return self.axis_fields if self.showing_rotation_vector else self.axis_fields + [self.angle_field]
 
     # ---- model -> fields ------------------------------------------------------------------------
-    def render(self) -> None:
-        self._pending_length = None
-        o = self.model.current_orientation()
+    def render_setup(self) -> None:
         unit = self.angle_unit
         rotvec = self.showing_rotation_vector
         self.angle_label.setVisible(not rotvec)
@@ -90,7 +88,11 @@ class AxisAngleEditor(EditorBase):
             field.set_step(self.angle_step if rotvec else 0.01)
             if not rotvec:
                 field.set_angle_unit(None)          # axis components are plain numbers
-        if rotvec:
+
+    def render_values(self) -> None:
+        self._pending_length = None
+        o = self.model.current_orientation()
+        if self.showing_rotation_vector:
             for field, v in zip(self.axis_fields, self.shown_angles(o.as_rotation_vector(degrees=True))):
                 field.set_text(self.fmt(v))
             self.note.setText("Length = angle; direction = axis.")

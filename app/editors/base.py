@@ -9,7 +9,7 @@ from PySide6.QtWidgets import QApplication, QGroupBox, QLabel, QWidget
 from app.text import significant
 from app.widgets.number_field import NumberField, quoted
 from core import units
-from app.model import ORIENTATION, PREFERENCES, Change, SessionModel
+from app.model import ORIENTATION, PREFERENCES, SESSION, Change, SessionModel
 
 
 # Typed angles beyond this are refused (not asked about: a question on every keystroke of a run would
@@ -25,6 +25,10 @@ def focus_left(widget: QWidget, old, new) -> bool:
 class EditorBase(QGroupBox):
     # The core/representations.py entry this editor shows (what Copy as writes when it is the one in use).
     representation = None
+    renders = 0            # how often it rendered from a change of the model (tests count: hidden, none)
+    _stale = False         # a change came while it was hidden in a shown window: it renders when shown
+    _digits_stale = False  # the significant digits changed since the fields were last fitted to them
+    _setup_stale = False   # the display preferences changed since the labels and units were last set
 
     def __init__(self, model: SessionModel, title: str, parent: QWidget | None = None):
         super().__init__(title, parent)
@@ -39,7 +43,17 @@ class EditorBase(QGroupBox):
 
     # ---- to implement ---------------------------------------------------------------------------
     def render(self) -> None:
-        """Show the model's current orientation in this editor's canonical spelling."""
+        """Show the model's current orientation in this editor's canonical spelling: what the display
+        preferences set up, then the numbers."""
+        self.render_setup()
+        self.render_values()
+
+    def render_setup(self) -> None:
+        """Titles, labels, units, tooltips, ranges and choices: what only the display preferences (and the
+        editor's own toggles) decide. An edit of the orientation leaves them as they are."""
+
+    def render_values(self) -> None:
+        """The current orientation's numbers (and what they decide, such as a note)."""
         raise NotImplementedError
 
     def read_orientation(self):
@@ -150,10 +164,30 @@ class EditorBase(QGroupBox):
             return  # our own edit: the fields already hold what the user typed
         self._editing = False
         self._preview_start = self._field_start = None
-        if change.touches(PREFERENCES):
+        if change.touches(PREFERENCES, SESSION):
+            self._digits_stale = self._setup_stale = True
+        if self.window().isVisible() and not self.isVisible():
+            self._stale = True  # not shown (the Gibbs and MRP editors until View asks): drawn when shown
+            return
+        self._render_change()
+
+    def _render_change(self) -> None:
+        self._stale = False
+        if self._digits_stale:
+            self._digits_stale = False
             for field in self.findChildren(NumberField):
                 field.fit_digits(self.digits)
-        self.render()
+        self.renders += 1
+        if self._setup_stale:
+            self._setup_stale = False
+            self.render()
+        else:
+            self.render_values()   # the orientation (or the mount) changed: only the numbers
+
+    def showEvent(self, event) -> None:
+        super().showEvent(event)
+        if self._stale:
+            self._render_change()
 
     def _on_focus_changed(self, old, new) -> None:
         if self._editing and focus_left(self, old, new):

@@ -123,7 +123,7 @@ class MatrixEditor(EditorBase):
     def flat_cells(self) -> list[NumberField]:
         return [cell for row in self.cells for cell in row]
 
-    def render(self) -> None:
+    def render_setup(self) -> None:
         meaning = self.model.preferences.matrix_meaning
         self.meaning_buttons[meaning].setChecked(True)
         for i in range(3):
@@ -133,10 +133,14 @@ class MatrixEditor(EditorBase):
             else:
                 self.column_labels[i].setText(f"body {'XYZ'[i]}")
                 self.row_labels[i].setText(f"ref {'xyz'[i]}")
-        m = self.model.current_orientation().as_matrix(transposed=self.transposed)
         for r in range(3):
             for c in range(3):
                 self.cells[r][c].set_convention_tooltip(_cell_tip(r, c, meaning))
+
+    def render_values(self) -> None:
+        m = self.model.current_orientation().as_matrix(transposed=self.transposed)
+        for r in range(3):
+            for c in range(3):
                 self.cells[r][c].set_text(self.fmt(m[r, c]))
         self._show_readouts(m)
         self.note.setText("")

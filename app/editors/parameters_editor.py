@@ -53,7 +53,7 @@ class ParametersEditor(EditorBase):
         return ""
 
     # ---- model -> fields ------------------------------------------------------------------------------
-    def render(self) -> None:
+    def render_values(self) -> None:
         o = self.model.current_orientation()
         problem = self.shown_problem(o)
         for field in self.fields:

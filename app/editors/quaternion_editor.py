@@ -65,13 +65,16 @@ class QuaternionEditor(EditorBase):
     def order(self) -> str:
         return self.model.preferences.quaternion_order
 
-    def render(self) -> None:
+    def render_setup(self) -> None:
         order = self.order
         self.order_box.setCurrentIndex(self.order_box.findData(order))
-        q = self.model.current_orientation().as_quaternion(scalar_last=(order == "xyzw"))
-        for letter, label, field, value in zip(order, self.labels, self.fields, q):
+        for letter, label, field in zip(order, self.labels, self.fields):
             label.setText(letter)
             field.set_convention_tooltip(_TIPS[letter])
+
+    def render_values(self) -> None:
+        q = self.model.current_orientation().as_quaternion(scalar_last=(self.order == "xyzw"))
+        for field, value in zip(self.fields, q):
             field.set_text(self.fmt(value))
         self._show_norm(q)
         self.note.setText("")

@@ -1,6 +1,8 @@
 """All text of the scene drawn in one QPainter pass after the 3D items: labels anchored to 3D points and
 overlay panels in the corners. One pass (instead of one painter per label) keeps a redraw cheap on software
-OpenGL, and every label gets a dark box behind it so it stays readable over any line or face."""
+OpenGL, and every label gets a dark box behind it so it stays readable over any line or face. Each box
+with its text is an image drawn once while it stays the same (text_images.py), so a frame places images
+and draws only the leader lines."""
 
 from __future__ import annotations
 
@@ -14,6 +16,7 @@ from pyqtgraph.opengl.GLGraphicsItem import GLGraphicsItem
 
 from app.scene import palette
 from app.scene.label_placement import leader_end, place_labels, stack_panels
+from app.scene.text_images import TextImages
 
 _BASE_HEIGHT = 800.0  # label sizes are chosen for an 800-pixel-high view and scale with the image
 
@@ -49,24 +52,39 @@ def importance(key: str) -> int:
 
 
 class LabelLayer(GLGraphicsItem):
-    def __init__(self):
+    """before_read: called before the labels or panels are read from outside (the Scene works them out
+    only when they are drawn or read, and this keeps a read from ever finding them stale)."""
+
+    def __init__(self, before_read=None):
         super().__init__()
-        self.labels: dict[str, Label] = {}
-        self.panels: dict[str, OverlayPanel] = {}
+        self._labels: dict[str, Label] = {}
+        self._panels: dict[str, OverlayPanel] = {}
+        self._before_read = before_read
+        self.images = TextImages()
         self.setDepthValue(10_000)  # drawn after every 3D item
         self._fonts = {}
         self._panel_rects = []
         self.drawn_labels: dict[str, QtCore.QRectF] = {}   # where each label went in the last paint
         self.drawn_panels: dict[str, QtCore.QRectF] = {}
-        self._label_box = QtGui.QColor(*palette.LABEL_BOX_RGBA)
-        self._panel_box = QtGui.QColor(*palette.OVERLAY_BOX_RGBA)
         self._device = None
 
     # --- state --------------------------------------------------------------------------------------
+    @property
+    def labels(self) -> dict[str, Label]:
+        if self._before_read is not None:
+            self._before_read()
+        return self._labels
+
+    @property
+    def panels(self) -> dict[str, OverlayPanel]:
+        if self._before_read is not None:
+            self._before_read()
+        return self._panels
+
     def set_label(self, key, pos=None, text=None, rgb=None, bold=None, visible=None, normal=None):
-        label = self.labels.get(key)
+        label = self._labels.get(key)
         if label is None:
-            label = self.labels[key] = Label(np.zeros(3), "", palette.LABEL_TEXT_RGB)
+            label = self._labels[key] = Label(np.zeros(3), "", palette.LABEL_TEXT_RGB)
         if pos is not None:
             label.pos = np.asarray(pos, dtype=float)
         if text is not None:
@@ -81,7 +99,7 @@ class LabelLayer(GLGraphicsItem):
             label.normal = np.asarray(normal, dtype=float)
 
     def set_panel(self, key, corner, lines, visible=True, optional=False):
-        self.panels[key] = OverlayPanel(corner, list(lines), visible, optional)
+        self._panels[key] = OverlayPanel(corner, list(lines), visible, optional)
 
     # --- drawing ------------------------------------------------------------------------------------
     def _font(self, pixel_size, bold, mono):
@@ -96,6 +114,10 @@ class LabelLayer(GLGraphicsItem):
     def paint(self):
         view = self.view()
         GL.glDepthMask(GL.GL_TRUE)  # see-through items turn depth writes off; the next clear needs them on
+        # The box part culls its back faces; QPainter leaves culling as it finds it, and its boxes and
+        # images, wound the other way once flipped to the screen, would be culled when the part was the
+        # last item drawn (r along n: no cone after it).
+        GL.glDisable(GL.GL_CULL_FACE)
         _, _, width, height = (int(v) for v in GL.glGetIntegerv(GL.GL_VIEWPORT))
         if width <= 0 or height <= 0:
             return
@@ -115,7 +137,7 @@ class LabelLayer(GLGraphicsItem):
 
     def _paint_labels(self, painter, view, width, height, scale, before_boxes):
         self.drawn_labels = {}
-        shown = [(key, lab) for key, lab in self.labels.items() if lab.visible and lab.text]
+        shown = [(key, lab) for key, lab in self._labels.items() if lab.visible and lab.text]
         if not shown:
             before_boxes()
             return
@@ -139,7 +161,7 @@ class LabelLayer(GLGraphicsItem):
         places = place_labels(anchors, sizes, [importance(k) for k in keys], width, height, self._panel_rects)
         for key, (x, y), place in zip(keys, anchors, places):
             if place.rect is not None and place.leader:
-                lab = self.labels[key]
+                lab = self._labels[key]
                 painter.setPen(QtGui.QPen(QtGui.QColor(*lab.rgb, 170), max(1.0, scale)))
                 painter.drawLine(QtCore.QPointF(x, y), QtCore.QPointF(*leader_end(place.rect, x, y)))
                 painter.setBrush(QtGui.QColor(*lab.rgb))
@@ -149,12 +171,11 @@ class LabelLayer(GLGraphicsItem):
         for key, font, place in zip(keys, fonts, places):
             if place.rect is None:
                 continue  # no room near its anchor: the less important label is left out
-            lab = self.labels[key]
+            lab = self._labels[key]
             self.drawn_labels[key] = place.rect
-            painter.fillRect(place.rect, self._label_box)  # square boxes: far cheaper than rounded paths on GL
-            painter.setFont(font)
-            painter.setPen(QtGui.QColor(*lab.rgb))
-            painter.drawText(place.rect, QtCore.Qt.AlignmentFlag.AlignCenter, lab.text)
+            rect = place.rect
+            image = self.images.label(lab.text, font, lab.rgb, palette.LABEL_BOX_RGBA, rect.width(), rect.height())
+            painter.drawImage(QtCore.QPointF(round(rect.left()), round(rect.top())), image)
 
     def _layout_panels(self, width, height, scale):
         """Where each shown overlay panel goes, as (panel, rect) pairs; also kept for the labels to avoid."""
@@ -162,7 +183,7 @@ class LabelLayer(GLGraphicsItem):
         _, metrics = self._font(round(14 * scale), False, True)
         line_h = metrics.height()
         # the required panels first, so an optional one (the legend) gives way when they meet
-        shown = sorted(((k, p) for k, p in self.panels.items() if p.visible and p.lines), key=lambda kp: kp[1].optional)
+        shown = sorted(((k, p) for k, p in self._panels.items() if p.visible and p.lines), key=lambda kp: kp[1].optional)
         sizes = [(max(metrics.horizontalAdvance(text) for text, _ in p.lines) + 2 * pad, line_h * len(p.lines) + 2 * pad)
                  for _, p in shown]
         rects = stack_panels(sizes, [p.corner for _, p in shown], [p.optional for _, p in shown], width, height,
@@ -174,10 +195,7 @@ class LabelLayer(GLGraphicsItem):
     def _paint_panels(self, painter, panels, scale):
         pad = round(8 * scale)
         font, metrics = self._font(round(14 * scale), False, True)
-        painter.setFont(font)
         for panel, rect in panels:
-            painter.fillRect(rect, self._panel_box)
-            for i, (text, rgb) in enumerate(panel.lines):
-                painter.setPen(QtGui.QColor(*rgb))
-                painter.drawText(QtCore.QPointF(rect.left() + pad, rect.top() + pad + i * metrics.height() + metrics.ascent()),
-                                 text)
+            image = self.images.panel(panel.lines, font, metrics, palette.OVERLAY_BOX_RGBA, pad, rect.width(),
+                                      rect.height())
+            painter.drawImage(QtCore.QPointF(round(rect.left()), round(rect.top())), image)

@@ -10,7 +10,12 @@ the reference orientation as its ghost). Used when present: ``ghost_label()``; `
 
 from __future__ import annotations
 
+from app.changes import ORIENTATION
 from core.orientation import Orientation
+
+# An edit of the selected mount's orientation changes only that and (when the mount is the chain's
+# product, or stops being it) the chain's frames: the ghost is another mount, and nothing else moved.
+_ORIENTATION_ONLY = frozenset({ORIENTATION})
 
 
 class SceneBinding:
@@ -31,6 +36,9 @@ class SceneBinding:
         orientation = model.current_orientation()
         if orientation != scene.orientation():
             scene.set_orientation(orientation)
+        if change is not None and getattr(change, "what", None) == _ORIENTATION_ONLY:
+            self._refresh_frames()
+            return
         ghost = model.ghost_orientation()
         label = model.ghost_label() if hasattr(model, "ghost_label") else None
         if ghost is None:
@@ -43,10 +51,7 @@ class SceneBinding:
         if part is not None and part != self._part:
             self._part = part
             scene.set_part(part.box_size_mm, part.face_names, part.boresight)
-        frames = model.scene_frames() if hasattr(model, "scene_frames") else []
-        if frames != self._frames:
-            self._frames = list(frames)
-            scene.set_extra_frames(self._frames)
+        self._refresh_frames()
         preset = getattr(model, "reference_frame", None)
         if preset is not None and preset != scene.frame_preset():
             scene.set_frame_preset(preset)
@@ -57,6 +62,13 @@ class SceneBinding:
                 scene.set_overlay_representation(kind, prefs.sequence, prefs.intrinsic)
             if prefs.angle_units != scene.angle_unit():
                 scene.set_angle_unit(prefs.angle_units)
+
+    def _refresh_frames(self):
+        model = self.model
+        frames = model.scene_frames() if hasattr(model, "scene_frames") else []
+        if frames != self._frames:
+            self._frames = list(frames)
+            self.scene.set_extra_frames(self._frames)
 
     def disconnect(self):
         self.model.changed.disconnect(self.refresh)

@@ -1,5 +1,6 @@
 """The GL viewport: pyqtgraph's GLViewWidget, counting the frames it draws (tests and the benchmark wait
-for a real paint instead of guessing)."""
+for a real paint instead of guessing) and letting its owner bring the items up to date just before each
+frame (before_paint)."""
 
 import pyqtgraph.opengl as gl
 from PySide6 import QtGui
@@ -14,10 +15,13 @@ class SceneView(gl.GLViewWidget):
     half a turn about X first, so the frame's -Z is up. Elevation and azimuth then apply to that turned
     frame (SceneWidget.set_view converts)."""
 
+    _settling = False   # before_paint is running (pyqtgraph's constructor asks for a frame before ours runs)
+
     def __init__(self, *args, **kwargs):
         super().__init__(*args, **kwargs)
         self.frames_drawn = 0
         self.up_z = 1
+        self.before_paint = None   # called just before each frame is drawn (the Scene's settle)
 
     def viewMatrix(self):
         tr = super().viewMatrix()
@@ -29,6 +33,18 @@ class SceneView(gl.GLViewWidget):
             position = QtGui.QVector3D(position.x(), -position.y(), -position.z())
         return position
 
+    def update(self):
+        # Items set while the frame is being prepared ask for a frame: this one draws them already, and
+        # asking for another would draw frames without end.
+        if not self._settling:
+            super().update()
+
     def paintGL(self):
+        if self.before_paint is not None:
+            self._settling = True
+            try:
+                self.before_paint()
+            finally:
+                self._settling = False
         super().paintGL()
         self.frames_drawn += 1

@@ -1,7 +1,9 @@
 """SceneWidget: the 3D viewport (pyqtgraph.opengl on PyOpenGL) with its small toolbar, behind a plain state
-API. It knows nothing about the model: bind_scene_to_model (model_binding.py) feeds it. Every setter only
-rewrites item transforms and vertex data — no item is rebuilt on an edit — so a redraw stays cheap on
-software OpenGL."""
+API. It knows nothing about the model: bind_scene_to_model (model_binding.py) feeds it. A setter only
+records the new state and asks for a frame; the items' transforms and vertex data, the labels and the
+overlay text are worked out once, just before the next frame is drawn or when someone reads them
+(settle), so an edit costs the editors' time and several edits between two frames cost one update. No
+item is rebuilt on an edit, so a redraw stays cheap on software OpenGL."""
 
 from __future__ import annotations
 
@@ -48,7 +50,12 @@ def _lighter(rgb, amount=0.35):
 class SceneWidget(QtWidgets.QWidget):
     sweep_changed = QtCore.Signal(float)
 
-    def __init__(self, parent=None):
+    def __init__(self, parent=None, native_view=False):
+        """native_view: the Scene is a native child window of its own. Qt composes the window that holds
+        a QOpenGLWidget through OpenGL on every frame; in a native child only the Scene's own area is
+        composed so, not the whole top-level window around it, which on software OpenGL took a large
+        window longer than the Scene's drawing (tests/bench/bench_window.py). The window's Scene uses it;
+        a Scene that is never put on the screen (the report's pictures) does without."""
         super().__init__(parent)
         self.view = SceneView()
         self.view.setBackgroundColor(palette.BACKGROUND)
@@ -60,6 +67,8 @@ class SceneWidget(QtWidgets.QWidget):
         layout.setSpacing(0)
         layout.addWidget(self.toolbar)
         layout.addWidget(self.view, 1)
+        if native_view:
+            self.setAttribute(QtCore.Qt.WidgetAttribute.WA_NativeWindow)
 
         self._orientation = Orientation.identity()
         self._ghost = Orientation.identity()
@@ -73,7 +82,10 @@ class SceneWidget(QtWidgets.QWidget):
         self._sequence, self._intrinsic = "ZYX", True
         self._preset = describe.DEFAULT_PRESET
 
+        self._unsettled = False    # state set since the items were last worked out (settle)
+        self.settles = 0           # how often they were: what an edit costs here, for tests to count
         self._build_items()
+        self.view.before_paint = self.settle
         self._wire_toolbar()
         self._play_timer = QtCore.QTimer(self, interval=16)
         self._play_timer.timeout.connect(self._play_step)
@@ -110,7 +122,7 @@ class SceneWidget(QtWidgets.QWidget):
         self.body = FrameTriad(self.body_group, BODY_AXIS_LENGTH, palette.AXIS_RGB, width=3.5, head=0.11)
         self.part = PartModel(self.body_group, depth=1)
 
-        self.labels = LabelLayer()
+        self.labels = LabelLayer(before_read=self.settle)  # a label read is never stale
         v.addItem(self.labels)
         # Labels are placed in this order; a later one moves aside when an earlier one holds its spot.
         for key in ("body0", "body1", "body2", "r", "n", "phi", "alpha", *(f"face{f}" for f in FACE_NAMES),
@@ -315,6 +327,7 @@ class SceneWidget(QtWidgets.QWidget):
         """The scene rendered offscreen at width x height, as an (height, width, 4) RGBA uint8 array."""
         if not self.view.isValid():
             raise RuntimeError("the scene must be shown (have an OpenGL context) before it can be rendered")
+        self.settle()
         width, height = int(width), int(height)
         self.view.makeCurrent()
         fmt = QOpenGLFramebufferObjectFormat()
@@ -358,6 +371,18 @@ class SceneWidget(QtWidgets.QWidget):
         return Orientation.from_axis_angle(axis, self._sweep_t * angle).as_matrix()
 
     def _refresh(self):
+        """The state changed: the picture is worked out when it is next drawn or read (settle)."""
+        self._unsettled = True
+        self.view.update()
+
+    def settle(self):
+        """Bring the items, labels and overlay text up to date with the state set so far. Run before each
+        frame is drawn and whenever the labels are read (LabelLayer's before_read), so nothing drawn or
+        read is ever stale; between two frames it does its work once, however many edits came."""
+        if not self._unsettled:
+            return
+        self._unsettled = False
+        self.settles += 1
         axis, angle = self._axis_angle()
         rotation = self._swept_matrix()
         self.body_group.setTransform(gl_helpers.transform(rotation))
@@ -368,7 +393,6 @@ class SceneWidget(QtWidgets.QWidget):
             self.ghost_group.setTransform(gl_helpers.transform(self._ghost.as_matrix()))
         self._update_labels(rotation, axis, angle, ghost_shown)
         self._update_panels(angle, ghost_shown)
-        self.view.update()
 
     def _update_labels(self, rotation, axis, angle, ghost_shown):
         lab = self.labels

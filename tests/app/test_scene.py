@@ -210,3 +210,21 @@ def test_play_replays_the_sweep_from_the_reference_and_stops_at_the_current_orie
     assert seen[0] == 0.0 and seen[-1] == 1.0
     assert all(a <= b for a, b in zip(seen, seen[1:]))
     assert scene.sweep() == 1.0
+
+
+# With the tracked vector along the rotation axis (the boresight +Z, 90° about z: common practice) there is
+# no cone, and the box part, which culls its back faces, is the last item drawn before the texts.
+@pytest.mark.parametrize("name, rotation", [("60 about x: cone drawn", Rotation.from_euler("x", 60, degrees=True)),
+                                            ("90 about z: r along n", Rotation.from_euler("z", 90, degrees=True))],
+                         ids=["cone", "no cone"])
+def test_the_overlay_panel_keeps_its_dark_box_whatever_is_drawn_before_it(scene, name, rotation):
+    from app.scene import palette
+
+    scene.set_orientation(Orientation.from_quaternion(rotation.as_quat(scalar_first=True)))
+    image = scene.render_image(W, H)
+    rect = scene.labels.drawn_panels["orientation"]
+    # the panel's left margin holds no text: only its box over the background
+    strip = image[int(rect.top()) + 3: int(rect.bottom()) - 3, int(rect.left()) + 1: int(rect.left()) + 4, :3]
+    *box, alpha = palette.OVERLAY_BOX_RGBA
+    expected = np.array(box) * alpha / 255 + np.array(palette.BACKGROUND) * (1 - alpha / 255)
+    assert np.all(np.abs(np.median(strip.reshape(-1, 3), axis=0) - expected) <= 3), (name, np.median(strip, axis=(0, 1)))
