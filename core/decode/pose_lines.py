@@ -241,9 +241,13 @@ def _pose_from_columns(header: list[str], rows: list, header_line: int) -> list[
     if len(rows) > 1:
         notes.append(f"the text holds {len(rows)} pose lines; read the last (line {line})")
     if all(k in by for k in ("qw", "qx", "qy", "qz")):
-        rotation = (by["qw"], by["qx"], by["qy"], by["qz"])
-        fixed = {"kind": "quaternion", "order": "wxyz"}
-        notes.append("the quaternion's columns are named; read as w, x, y, z")
+        # The order the text writes, so that a hint of that order agrees and the other is refused; a
+        # shuffled order (qx qw qz qy) is put in w, x, y, z order by name.
+        written = "".join(r[1] for r in roles if r in ("qw", "qx", "qy", "qz"))
+        order = "xyzw" if written == "xyzw" else "wxyz"
+        rotation = tuple(by["q" + axis] for axis in order)
+        fixed = {"kind": "quaternion", "order": order}
+        notes.append(f"the quaternion's columns are named; read as {', '.join(order)}")
     elif all(k in by for k in ("ayaw", "apitch", "aroll")):
         rotation = (by["ayaw"], by["apitch"], by["aroll"])
         fixed = {"kind": "angles", "sequence": "ZYX", "intrinsic": True}

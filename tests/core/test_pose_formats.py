@@ -53,11 +53,39 @@ def test_the_pose_line_names_its_order_and_holds_position_then_quaternion(scalar
 
 @pytest.mark.parametrize("fmt", ["pose-matrix", "pose-line"])
 @pytest.mark.parametrize("unit", ["mm", "m"])
-def test_every_pose_copy_reads_back_exactly(fmt, unit):
+@pytest.mark.parametrize("scalar_last", [False, True])
+def test_every_pose_copy_reads_back_exactly(fmt, unit, scalar_last):
+    # Scalar last was refused on its way back: the header's named columns were put in w, x, y, z order
+    # and then said to conflict with the 'x, y, z, w' the copy was asked for.
     position = POSITION.in_unit(unit)
-    text = render_pose(ORIENTATION, position, fmt)
-    angle, distance = pose_round_trip(ORIENTATION, position, text, fmt)
+    text = render_pose(ORIENTATION, position, fmt, scalar_last)
+    angle, distance = pose_round_trip(ORIENTATION, position, text, fmt, scalar_last)
     assert angle < 1e-9 and distance < 1e-12
+
+
+@pytest.mark.parametrize("scalar_last", [False, True])
+def test_a_pose_line_reads_back_as_scipys_rotation_in_either_order(scalar_last):
+    text = render_pose(ORIENTATION, POSITION, "pose-line", scalar_last)
+    back, metres = read_pose(text, "pose-line", scalar_last)
+    # SciPy's Rotation gives the check: the angle between the two is ~0 (q and −q alike).
+    assert (Rotation.from_quat(back.as_quaternion(scalar_last=True)) * ROTATION.inv()).magnitude() < 1e-12
+    np.testing.assert_allclose(metres, (0.25, -0.0125, 1.00175), atol=1e-15)
+
+
+@pytest.mark.parametrize("scalar_last", [False, True])
+def test_a_pose_line_read_with_the_other_order_is_refused_not_read(scalar_last):
+    text = render_pose(ORIENTATION, POSITION, "pose-line", scalar_last)
+    written, asked = ("xyzw", "wxyz") if scalar_last else ("wxyz", "xyzw")
+    with pytest.raises(FramewrightError, match=f"whose order is '{written}'; the order hint says '{asked}'"):
+        read_pose(text, "pose-line", not scalar_last)
+
+
+def test_a_pose_line_with_its_quaternion_columns_shuffled_is_read_by_name():
+    # Columns qx qw qz qy: each number goes where its name says (SciPy's scalar-last array is the check).
+    x, y, z, w = ROTATION.as_quat()
+    text = f"# x_mm y_mm z_mm qx qw qz qy\n250, -12.5, 1001.75, {x!r}, {w!r}, {z!r}, {y!r}\n"
+    back, _ = read_pose(text, "pose-line")
+    assert (Rotation.from_quat(back.as_quaternion(scalar_last=True)) * ROTATION.inv()).magnitude() < 1e-12
 
 
 def test_a_copy_changed_by_one_digit_is_caught_by_the_round_trip():
