@@ -30,7 +30,8 @@ _COLUMN_UNIT = re.compile(r"[ ]*(?:\[(?P<unit>[^\[\]()]{0,12})\]|\((?P<unit2>[^\
 _INLINE_HEADER = re.compile(r"^[^\d\n\[(]{0,80}[\[(](?P<names>[A-Za-z_][^\[\]()\n]{0,200})[\])][ ]*[:=][ ]*(?P<data>[^\n]+)$",
                             re.MULTILINE)
 # names of columns, then ':' or '=', then their numbers, on one line ('x y z qx qy qz qw = 1 2 3 0 0 0 1')
-_INLINE_NAMES = re.compile(r"^[ \t]*(?:#+|//+)?[ \t]*(?P<names>[A-Za-z_][A-Za-z_ ,]{0,200}?)[ ]*[:=][ ]*"
+# (possessive runs of blanks: two runs side by side would share a long run of spaces in n² ways)
+_INLINE_NAMES = re.compile(r"^[ \t]*+(?:(?:#++|//++)[ \t]*+)?(?P<names>[A-Za-z_][A-Za-z_ ,]{0,200}?)[ ]*[:=][ ]*"
                            r"(?P<data>[-+.\d][^\n]*)$", re.MULTILINE)
 _MAX_LINE = 400             # a pose line or a header is short; longer lines are not one (and stay cheap)
 

@@ -32,6 +32,8 @@ def hostile_inputs(seed: int = 7) -> dict[str, str]:
         "long number": _fill("1"),
         "long decimals": _fill("1", "0."),
         "signs and spaces": _fill("- "),
+        "spaces": _fill(" "),               # one line of blanks: two blank runs side by side split it n² ways
+        "tabs after a hash": _fill("\t", "#"),
         "separated signs": _fill(", - ", "", "1"),
         "signs": _fill("+-"),
         "many lines": _fill("1\n"),
