@@ -33,6 +33,8 @@ _INLINE_HEADER = re.compile(r"^[^\d\n\[(]{0,80}[\[(](?P<names>[A-Za-z_][^\[\]()\
 # (possessive runs of blanks: two runs side by side would share a long run of spaces in n² ways)
 _INLINE_NAMES = re.compile(r"^[ \t]*+(?:(?:#++|//++)[ \t]*+)?(?P<names>[A-Za-z_][A-Za-z_ ,]{0,200}?)[ ]*[:=][ ]*"
                            r"(?P<data>[-+.\d][^\n]*)$", re.MULTILINE)
+_LETTER = re.compile(r"[A-Za-z]")
+_DIGIT = re.compile(r"\d")
 _MAX_LINE = 400             # a pose line or a header is short; longer lines are not one (and stay cheap)
 
 
@@ -195,11 +197,14 @@ def column_poses(text: str) -> list[PoseText] | None:
         stripped = raw.strip().lstrip("#%/").strip()
         if not stripped or len(stripped) > _MAX_LINE:
             continue
-        if re.search(r"\d", stripped.replace("_", "")) and not re.search(r"[A-Za-z]", stripped):
-            break                                    # data begins
+        if not _LETTER.search(stripped):
+            if _DIGIT.search(stripped.replace("_", "")):
+                break                                # data begins
+            continue                                 # no letters, no names
         separators = r"[,;|]" if re.search(r"[,;|]", stripped) else r"\s+"
         names = [n.strip() for n in re.split(separators, stripped) if n.strip()]
-        if _names_a_pose([_role(n) for n in names]):
+        # a pose needs six columns at least: fewer names are no header (and 50,000 short lines stay cheap)
+        if len(names) >= 6 and _names_a_pose([_role(n) for n in names]):
             header, header_line, start = names, i + 1, i + 1
     if header is None:
         return None
