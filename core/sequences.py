@@ -121,5 +121,5 @@ def best_conditioned_sequence(orientation, candidates=ALL_SEQUENCES, intrinsic=T
     names = [parse_sequence(c) for c in candidates]
     if not names:
         raise SequenceError("no candidate sequences given; expected at least one, such as 'ZYX'")
-    margins = [_margin_of(orientation.quaternion, s, intrinsic) for s in names]
-    return max(margins, key=lambda m: m.margin_deg)
+    margins = kernels.gimbal_margins_of_sequences(orientation.quaternion, names, intrinsic)
+    return _margin_of(orientation.quaternion, names[int(np.argmax(margins))], intrinsic)

@@ -14,7 +14,8 @@ vectors), angles (the twelve sequences) and rodrigues (the Gibbs vector and the 
 parameters). `from core import kernels` and `kernels.<name>` keep working for every name listed here.
 """
 
-from core.kernels.angles import LOCK_MARGIN_RAD, angles_to_quaternions, gimbal_margins, quaternions_to_angles
+from core.kernels.angles import (LOCK_MARGIN_RAD, angles_to_quaternions, gimbal_margins, gimbal_margins_of_sequences,
+                                 quaternions_to_angles)
 from core.kernels.checks import (ALL_SEQUENCES, PROPER_EULER, TAIT_BRYAN, check_array, check_flag,
                                  check_sequence_name, shortened_repr, unit_vectors)
 from core.kernels.matrices import (determinants, matrices_to_quaternions, nearest_rotations, orthogonality_errors,
@@ -30,7 +31,8 @@ from core.kernels.slices import _CHUNK  # noqa: E402,F401
 
 __all__ = ["ALL_SEQUENCES", "LOCK_MARGIN_RAD", "PROPER_EULER", "TAIT_BRYAN", "angles_between", "angles_to_quaternions",
            "axis_angles_to_quaternions", "canonical_quaternions", "check_array", "check_flag", "check_sequence_name",
-           "conjugate_quaternions", "determinants", "gimbal_margins", "matrices_to_quaternions", "multiply_quaternions",
+           "conjugate_quaternions", "determinants", "gimbal_margins", "gimbal_margins_of_sequences",
+           "matrices_to_quaternions", "multiply_quaternions",
            "nearest_rotations", "normalize_quaternions", "orthogonality_errors", "quaternions_to_angles",
            "quaternions_to_axis_angles", "quaternions_to_matrices", "quaternions_to_rotation_vectors", "rotate_vectors",
            "rotation_vectors_to_quaternions", "shortened_repr", "unit_vectors"]
