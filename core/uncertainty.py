@@ -28,6 +28,11 @@ from core.orientation import Orientation
 
 # Below this pointing error (radians) its direction is rounding: use the largest spread across the axis.
 _POINTING_DEFINED_RAD = 1e-9
+# An information matrix whose smallest eigenvalue is below this fraction of its largest leaves the turn about
+# one direction to rounding (collinear points, parallel directions): refused. The fits refuse far sooner
+# (core/fit.py: points off their line by 1e-3 of the along-line spread give a ratio of about 5e-7; directions
+# 2° apart about 3e-4), so a covariance is refused only where its fit was.
+_DETERMINED_RATIO = 1e-9
 
 
 def isotropic(standard_uncertainty_deg) -> np.ndarray:
@@ -59,11 +64,18 @@ def point_fit_covariance(nominal_points, orientation: Orientation, residuals, we
     c = orientation.apply(p - centre)
     h = (w * np.einsum("ij,ij->i", c, c)).sum() * np.eye(3) - (c * w[:, None]).T @ c
     sigma2 = float((w * np.einsum("ij,ij->i", r, r)).sum()) / (3 * used - 6)
-    try:
-        return sigma2 * np.linalg.inv(h)
-    except np.linalg.LinAlgError:
-        raise InvalidInputError("point fit covariance: the nominal points do not fix the rotation "
-                                "(collinear)") from None
+    return sigma2 * _inverse(h, "point fit covariance: the nominal points do not fix the rotation (collinear "
+                                "or nearly so)")
+
+
+def _inverse(information, refusal):
+    """The inverse of a symmetric information matrix, or `refusal` when it is singular to rounding: an exact
+    zero eigenvalue comes out as ±1e-16 once the points are turned, and its inverse would be a confident
+    figure with no meaning."""
+    values = np.linalg.eigvalsh(information)
+    if not values[0] > _DETERMINED_RATIO * values[-1]:      # also all zeros
+        raise InvalidInputError(refusal)
+    return np.linalg.inv(information)
 
 
 def point_fit_standard_uncertainty(nominal_points, orientation: Orientation, residuals, weights=None):
@@ -164,11 +176,8 @@ def direction_fit_covariance(reference_directions, orientation: Orientation, res
         theta = np.radians(np.asarray(residual_angles_deg, dtype=float))
         sigma2 = float((w * theta ** 2).sum()) / dof
     information = (w[:, None, None] * (np.eye(3) - r[:, :, None] * r[:, None, :])).sum(axis=0)
-    try:
-        return sigma2 * np.linalg.inv(information)
-    except np.linalg.LinAlgError:
-        raise InvalidInputError("direction fit covariance: the directions are parallel; the turn about them is "
-                                "not determined") from None
+    return sigma2 * _inverse(information, "direction fit covariance: the directions are parallel or nearly so; "
+                                          "the turn about them is not determined")
 
 
 def check_figure_uncertainties(nominal: Orientation, measured: Orientation, settings, covariance) -> dict:
