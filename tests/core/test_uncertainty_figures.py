@@ -136,3 +136,15 @@ def test_directions_nearly_parallel_above_the_limit_get_the_hand_worked_covarian
     m = Rotation.from_quat(TURNED.as_quaternion(), scalar_first=True).as_matrix()
     want = m @ (sigma2 * np.diag([1 / (2 * s * s), 1 / (3 - 2 * s * s), 1 / 3])) @ m.T
     assert np.allclose(got, want, rtol=1e-6, atol=1e-6 * np.abs(want).max())
+
+
+# ---- weights ---------------------------------------------------------------------------------------------
+
+@pytest.mark.parametrize("weight, shown", [(-1, "-1.0"), (-1e-300, "-1e-300"), (float("nan"), "nan"),
+                                           (float("inf"), "inf")])
+def test_a_fits_bad_weight_is_named_as_a_plain_number(weight, shown):
+    # the weight as a person typed it, not numpy's np.float64(-1.0)
+    from core.fit import fit_points
+    points = _cross_points(0.5)
+    _refused(f"weights: weight 2 is {shown}; expected a finite number >= 0", fit_points, points, points,
+             [1, weight, 1, 1])
