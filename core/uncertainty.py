@@ -24,6 +24,8 @@ import math
 import numpy as np
 
 from core.errors import InvalidInputError
+from core.fit import read_weights
+from core.kernels import unit_vectors
 from core.orientation import Orientation
 
 # Below this pointing error (radians) its direction is rounding: use the largest spread across the axis.
@@ -37,16 +39,20 @@ _DETERMINED_RATIO = 1e-9
 
 def isotropic(standard_uncertainty_deg) -> np.ndarray:
     """The covariance of an orientation known to u degrees (one standard deviation) about every axis."""
-    if isinstance(standard_uncertainty_deg, bool):
-        raise InvalidInputError("standard uncertainty: expected a number of degrees")
+    return np.eye(3) * _radians(standard_uncertainty_deg, "standard uncertainty") ** 2
+
+
+def _radians(degrees, what) -> float:
+    """A typed standard uncertainty, 0 to 180 degrees, in radians."""
+    if isinstance(degrees, bool):
+        raise InvalidInputError(f"{what}: expected a number of degrees")
     try:
-        u = float(standard_uncertainty_deg)
+        u = float(degrees)
     except (TypeError, ValueError):
-        raise InvalidInputError(f"standard uncertainty: expected a number of degrees, got "
-                                f"{standard_uncertainty_deg!r}") from None
+        raise InvalidInputError(f"{what}: expected a number of degrees, got {degrees!r}") from None
     if not math.isfinite(u) or not 0 <= u <= 180:
-        raise InvalidInputError(f"standard uncertainty: expected 0 to 180 degrees, got {standard_uncertainty_deg!r}")
-    return np.eye(3) * math.radians(u) ** 2
+        raise InvalidInputError(f"{what}: expected 0 to 180 degrees, got {degrees!r}")
+    return math.radians(u)
 
 
 def point_fit_covariance(nominal_points, orientation: Orientation, residuals, weights=None) -> np.ndarray:
@@ -56,7 +62,9 @@ def point_fit_covariance(nominal_points, orientation: Orientation, residuals, we
     n = len(p)
     if p.ndim != 2 or p.shape[1] != 3 or r.shape != p.shape:
         raise InvalidInputError("point fit covariance: expected nominal points and residuals as matching (N, 3) rows")
-    w = np.ones(n) if weights is None else np.asarray(weights, dtype=float)
+    if not (np.all(np.isfinite(p)) and np.all(np.isfinite(r))):
+        raise InvalidInputError("point fit covariance: expected finite numbers in the nominal points and residuals")
+    w = np.ones(n) if weights is None else read_weights(weights, n, "point fit covariance: weights")
     used = int(np.count_nonzero(w))
     if used < 3:
         raise InvalidInputError("point fit covariance: expected at least 3 points with weight above zero")
@@ -97,15 +105,26 @@ def _summed_up(cov) -> tuple:
 
 def point_fit_uncertainty(nominal_points, orientation: Orientation, residuals, weights=None):
     """(largest, per axis, covariance in radians², reference frame) of a point fit's orientation."""
-    # Cov(δ) depends only on residuals over point spread: scale both by one length first, so points of
-    # 1e200 mm (or 1e-200) neither overflow nor underflow in the squares.
+    # Cov(δ) depends only on residuals over point spread: scale both by one length first (the largest
+    # coordinate, then the spread), so points of 1e300 mm (or 1e-300) neither overflow nor underflow.
     p = np.asarray(nominal_points, dtype=float)
     r = np.asarray(residuals, dtype=float)
-    with np.errstate(all="ignore"):
-        spread = float(np.max(np.abs(p - p.mean(axis=0)))) if p.ndim == 2 and len(p) else 0.0
-    if not math.isfinite(spread) or spread == 0.0 or not np.all(np.isfinite(r)):
-        raise InvalidInputError("point fit uncertainty: the points' spread or residuals are not finite numbers")
-    return _summed_up(point_fit_covariance(p / spread, orientation, r / spread, weights))
+    if p.ndim != 2 or p.shape[1:] != (3,) or r.shape != p.shape or not len(p):
+        raise InvalidInputError("point fit uncertainty: expected nominal points and residuals as matching (N, 3) rows")
+    if not (np.all(np.isfinite(p)) and np.all(np.isfinite(r))):
+        raise InvalidInputError("point fit uncertainty: expected finite numbers in the nominal points and residuals")
+    largest = float(np.abs(p).max())
+    if largest > 0:
+        p = p / largest
+    spread = float(np.abs(p - p.mean(axis=0)).max())
+    if spread == 0.0:
+        raise InvalidInputError("point fit uncertainty: all nominal points coincide; the rotation is not determined")
+    with np.errstate(over="ignore"):
+        r = r / largest / spread
+    if not np.all(np.abs(r) <= 1e100):     # their squares and sums stay far from overflow
+        raise InvalidInputError("point fit uncertainty: the residuals are out of all proportion to the points' "
+                                "spread (more than 1e100 times it); expected residuals and points in one unit")
+    return _summed_up(point_fit_covariance(p / spread, orientation, r, weights))
 
 
 # Below this many directions the residuals say too little of the directions' own spread (2n − 3 degrees
@@ -117,8 +136,8 @@ def direction_fit_uncertainty(reference_directions, orientation: Orientation, re
     """(largest, per axis, covariance in radians², reference frame) of a direction fit's orientation, the
     directions' spread estimated from the residual angles (direction_fit_covariance); three directions at
     least, or InvalidInputError."""
-    r = np.asarray(reference_directions, dtype=float)
-    w = np.ones(len(r)) if weights is None else np.asarray(weights, dtype=float)
+    r = _unit_directions(reference_directions)
+    w = np.ones(len(r)) if weights is None else read_weights(weights, len(r), "direction fit uncertainty: weights")
     if int(np.count_nonzero(w)) < MIN_DIRECTIONS_FOR_SCATTER:
         raise InvalidInputError(f"direction fit uncertainty: expected {MIN_DIRECTIONS_FOR_SCATTER} or more "
                                 "directions with weight, so that the residuals show their spread")
@@ -161,23 +180,36 @@ def direction_fit_covariance(reference_directions, orientation: Orientation, res
     """Cov(δ) (radians², reference frame) of an orientation fitted to two or more measured directions, by
     the QUEST covariance of M. D. Shuster & S. D. Oh (1981), "Three-axis attitude determination from vector
     observations", J. Guidance and Control 4(1) (from memory): P = σ² (Σ wᵢ (I − rᵢ rᵢᵀ))⁻¹, with σ the
-    directions' own uncertainty when given, else estimated from the residual angles, Σ wᵢ θᵢ² / (2n − 3)."""
-    r = np.asarray(reference_directions, dtype=float)
-    if r.ndim != 2 or r.shape[1] != 3 or len(r) < 2:
-        raise InvalidInputError("direction fit covariance: expected two or more measured directions")
-    r = r / np.linalg.norm(r, axis=1)[:, None]
-    w = np.ones(len(r)) if weights is None else np.asarray(weights, dtype=float)
+    directions' own uncertainty when given (that of a direction of weight 1), else estimated from the residual
+    angles, Σ wᵢ θᵢ² / (2n − 3)."""
+    r = _unit_directions(reference_directions)
+    w = np.ones(len(r)) if weights is None else read_weights(weights, len(r), "direction fit covariance: weights")
     if direction_uncertainty_deg is not None:
-        sigma2 = math.radians(float(direction_uncertainty_deg)) ** 2
+        sigma2 = _radians(direction_uncertainty_deg, "direction fit covariance: the directions' uncertainty") ** 2
+        if weights is not None:     # σ is a direction's of weight 1 (weight w: σ² / w): the weights as given
+            w = np.asarray(weights, dtype=float)
     else:
         if residual_angles_deg is None:
             raise InvalidInputError("direction fit covariance: give the directions' uncertainty or the residuals")
+        theta = np.asarray(residual_angles_deg, dtype=float)
+        if theta.shape != (len(r),) or not np.all((theta >= 0) & (theta <= 180)):     # NaN fails too
+            raise InvalidInputError(f"direction fit covariance: expected {len(r)} residual angles, one per "
+                                    "direction, each 0 to 180 degrees")
+        theta = np.radians(theta)
         dof = 2 * int(np.count_nonzero(w)) - 3
-        theta = np.radians(np.asarray(residual_angles_deg, dtype=float))
         sigma2 = float((w * theta ** 2).sum()) / dof
     information = (w[:, None, None] * (np.eye(3) - r[:, :, None] * r[:, None, :])).sum(axis=0)
     return sigma2 * _inverse(information, "direction fit covariance: the directions are parallel or nearly so; "
                                           "the turn about them is not determined")
+
+
+def _unit_directions(reference_directions) -> np.ndarray:
+    r = np.asarray(reference_directions, dtype=float)
+    if r.ndim != 2 or r.shape[1] != 3 or len(r) < 2:
+        raise InvalidInputError("direction fit covariance: expected two or more measured directions")
+    if not np.all(np.isfinite(r)):
+        raise InvalidInputError("direction fit covariance: expected finite numbers in the directions")
+    return unit_vectors(r, "direction fit covariance: direction")[0]      # scaled: 1e200 keeps its direction
 
 
 def check_figure_uncertainties(nominal: Orientation, measured: Orientation, settings, covariance) -> dict:

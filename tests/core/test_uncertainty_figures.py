@@ -148,3 +148,282 @@ def test_a_fits_bad_weight_is_named_as_a_plain_number(weight, shown):
     points = _cross_points(0.5)
     _refused(f"weights: weight 2 is {shown}; expected a finite number >= 0", fit_points, points, points,
              [1, weight, 1, 1])
+
+
+BRACKET = np.array([[150, 60, 40], [-150, 60, 40], [-150, -60, 40], [150, -60, -40], [0, 0, 40], [120, -60, 0]],
+                   dtype=float)     # an invented bracket's points (mm), off its centre, not symmetric
+BRACKET_RESIDUALS = np.random.default_rng(29).normal(scale=0.05, size=BRACKET.shape)
+
+
+@pytest.mark.parametrize("function, what", [(point_fit_covariance, "point fit covariance"),
+                                            (point_fit_uncertainty, "point fit covariance")])
+@pytest.mark.parametrize("weight, shown", [(-1, "-1.0"), (-1e-300, "-1e-300"), (float("nan"), "nan"),
+                                           (float("-inf"), "-inf")])
+def test_a_point_fits_negative_or_non_finite_weight_is_refused_by_its_number(function, what, weight, shown):
+    # a negative weight used to pass, and gave an indefinite H (worked: 1, 1, 1, −1 on four points)
+    weights = [1, 1, 1, weight, 1, 1]
+    _refused(f"{what}: weights: weight 4 is {shown}; expected a finite number >= 0", function, BRACKET, TURNED,
+             BRACKET_RESIDUALS, weights)
+
+
+def test_a_point_fits_weights_must_be_one_per_point():
+    _refused("point fit covariance: weights: expected 6 numbers (one per point), got shape (5,)",
+             point_fit_covariance, BRACKET, TURNED, BRACKET_RESIDUALS, [1, 1, 1, 1, 1])
+
+
+def test_unequal_weights_give_the_gauss_newton_covariance():
+    weights = np.array([1.0, 0.25, 3.0, 0.5, 2.0, 1.5])
+    want = _gauss_newton_covariance(BRACKET, TURNED, BRACKET_RESIDUALS, weights)
+    got = point_fit_covariance(BRACKET, TURNED, BRACKET_RESIDUALS, weights)
+    assert np.allclose(got, want, rtol=1e-10, atol=1e-14 * np.abs(want).max())
+    largest, per_axis, covariance = point_fit_uncertainty(BRACKET, TURNED, BRACKET_RESIDUALS, weights)
+    assert np.allclose(covariance, want, rtol=1e-10, atol=1e-14 * np.abs(want).max())
+    # the figures in degrees: the square roots of numpy's largest eigenvalue and of the diagonal
+    assert largest == pytest.approx(math.degrees(math.sqrt(np.linalg.eigvalsh(want)[-1])), rel=1e-10)
+    assert per_axis == pytest.approx(tuple(np.degrees(np.sqrt(np.diag(want)))), rel=1e-10)
+    # and unweighted, the same computation with equal weights
+    plain = _gauss_newton_covariance(BRACKET, TURNED, BRACKET_RESIDUALS)
+    assert np.allclose(point_fit_covariance(BRACKET, TURNED, BRACKET_RESIDUALS), plain, rtol=1e-10,
+                       atol=1e-14 * np.abs(plain).max())
+
+
+@pytest.mark.parametrize("scale", [1e-300, 1e306])
+def test_only_the_ratios_of_the_weights_count(scale):
+    # Cov = σ² H⁻¹ with both σ² and H proportional to the weights (worked here): 1e306 must not overflow
+    weights = np.array([1.0, 0.25, 3.0, 0.5, 2.0, 1.5])
+    want = point_fit_covariance(BRACKET, TURNED, BRACKET_RESIDUALS, weights)
+    got = point_fit_covariance(BRACKET, TURNED, BRACKET_RESIDUALS, weights * scale)
+    assert np.allclose(got, want, rtol=1e-12, atol=0)
+
+
+def test_a_point_of_weight_zero_counts_as_if_it_were_not_there():
+    # its residual, its place (the weighted centre) and the count of 3n − 6 all leave it out
+    far = np.vstack([BRACKET, [[5000.0, -7000.0, 900.0]]])
+    residuals = np.vstack([BRACKET_RESIDUALS, [[40.0, -30.0, 20.0]]])
+    weights = [2, 1, 1, 0.5, 1, 3, 0]
+    want = point_fit_covariance(BRACKET, TURNED, BRACKET_RESIDUALS, weights[:-1])
+    assert np.allclose(point_fit_covariance(far, TURNED, residuals, weights), want, rtol=1e-12, atol=0)
+    assert np.allclose(point_fit_uncertainty(far, TURNED, residuals, weights)[2], want, rtol=1e-9, atol=0)
+
+
+def test_three_points_with_weight_are_enough_and_two_are_not():
+    # three points leave 3·3 − 6 = 3 degrees of freedom (the module's docstring); the fourth's weight is 0
+    points, residuals = BRACKET[:4], BRACKET_RESIDUALS[:4]
+    want = _gauss_newton_covariance(points[:3], TURNED, residuals[:3])
+    got = point_fit_covariance(points, TURNED, residuals, [1, 1, 1, 0])
+    assert np.allclose(got, want, rtol=1e-10, atol=1e-14 * np.abs(want).max())
+    words = "point fit covariance: expected at least 3 points with weight above zero"
+    _refused(words, point_fit_covariance, points, TURNED, residuals, [1, 0, 1, 0])
+    _refused(words, point_fit_covariance, points[:2], TURNED, residuals[:2])
+    _refused(words, point_fit_uncertainty, points, TURNED, residuals, [0, 0, 0, 1e-300 * 0])
+
+
+# ---- what the point fit's covariance refuses ---------------------------------------------------------------
+
+ROWS_WORDS = "expected nominal points and residuals as matching (N, 3) rows"
+
+
+@pytest.mark.parametrize("points, residuals", [
+    (BRACKET[:, :2], BRACKET_RESIDUALS[:, :2]),                 # two columns
+    (BRACKET[:, :, None], BRACKET_RESIDUALS[:, :, None]),       # three dimensions
+    (BRACKET, BRACKET_RESIDUALS[:5]),                           # one residual short
+    (BRACKET[0], BRACKET_RESIDUALS[0]),                         # one row, flat
+])
+def test_points_and_residuals_of_the_wrong_shape_are_refused(points, residuals):
+    _refused("point fit covariance: " + ROWS_WORDS, point_fit_covariance, points, TURNED, residuals)
+    _refused("point fit uncertainty: " + ROWS_WORDS, point_fit_uncertainty, points, TURNED, residuals)
+
+
+def test_no_points_are_refused():
+    _refused("point fit uncertainty: " + ROWS_WORDS, point_fit_uncertainty, np.empty((0, 3)), TURNED,
+             np.empty((0, 3)))
+
+
+@pytest.mark.parametrize("where", ["points", "residuals"])
+@pytest.mark.parametrize("bad", [float("nan"), float("inf"), -float("inf")])
+def test_a_non_finite_point_or_residual_is_refused(where, bad):
+    points, residuals = BRACKET.copy(), BRACKET_RESIDUALS.copy()
+    (points if where == "points" else residuals)[2, 1] = bad
+    words = "expected finite numbers in the nominal points and residuals"
+    _refused("point fit covariance: " + words, point_fit_covariance, points, TURNED, residuals)
+    _refused("point fit uncertainty: " + words, point_fit_uncertainty, points, TURNED, residuals)
+
+
+def test_coincident_points_are_refused_as_such():
+    words = "point fit uncertainty: all nominal points coincide; the rotation is not determined"
+    _refused(words, point_fit_uncertainty, np.tile([3.0, -4.0, 5.0], (4, 1)), TURNED, RESIDUALS_4)
+    _refused(words, point_fit_uncertainty, np.zeros((4, 3)), TURNED, RESIDUALS_4)
+
+
+@pytest.mark.parametrize("factor, refused", [(1e99, False), (1e101, True), (1e300, True)])
+def test_residuals_out_of_all_proportion_to_the_points_are_refused(factor, refused):
+    # the points' largest spread from their mean is 150 mm (worked here); residuals up to 1e100 times that
+    # are carried through (their squares stay in range), beyond they are refused
+    spread = float(np.abs(BRACKET - BRACKET.mean(axis=0)).max())
+    residuals = np.zeros_like(BRACKET)
+    residuals[0] = [factor * spread, 0.0, 0.0]
+    if refused:
+        _refused("point fit uncertainty: the residuals are out of all proportion to the points' spread (more "
+                 "than 1e100 times it); expected residuals and points in one unit", point_fit_uncertainty, BRACKET,
+                 TURNED, residuals)
+    else:
+        # scaled by one length the covariance is σ²/L² H⁻¹ of the scaled points: proportional to factor²
+        got = point_fit_uncertainty(BRACKET, TURNED, residuals)[0]
+        small = point_fit_uncertainty(BRACKET, TURNED, residuals / factor)[0]
+        assert got == pytest.approx(math.degrees(math.radians(small) * factor), rel=1e-12)
+
+
+@pytest.mark.parametrize("factor", [1e-300, 1e300])
+def test_points_of_1e300_or_1e_minus_300_have_the_covariance_of_the_same_points_in_mm(factor):
+    want = point_fit_uncertainty(BRACKET, TURNED, BRACKET_RESIDUALS)
+    got = point_fit_uncertainty(BRACKET * factor, TURNED, BRACKET_RESIDUALS * factor)
+    assert got[0] == pytest.approx(want[0], rel=1e-12)
+    assert got[1] == pytest.approx(want[1], rel=1e-12)
+    assert np.allclose(got[2], want[2], rtol=1e-12, atol=0)
+
+
+def test_the_standard_uncertainty_pair_is_the_largest_and_the_per_axis_figures():
+    from core.uncertainty import point_fit_standard_uncertainty
+    largest, per_axis, _ = point_fit_uncertainty(BRACKET, TURNED, BRACKET_RESIDUALS, [1, 2, 1, 2, 1, 2])
+    assert point_fit_standard_uncertainty(BRACKET, TURNED, BRACKET_RESIDUALS, [1, 2, 1, 2, 1, 2]) == (largest,
+                                                                                                     per_axis)
+
+
+# ---- the direction fit's covariance ------------------------------------------------------------------------
+
+# an invented bench: gravity, a boresight and two tracker directions, in the reference frame (not unit on purpose)
+DIRECTIONS = np.array([[0.0, 0.0, -9.81], [1.0, 0.2, 0.0], [0.3, 0.9, 0.1], [-0.5, 0.4, 0.7]])
+ANGLES = np.array([0.03, 0.01, 0.05, 0.02])       # residual angles, degrees
+
+
+def _quest_covariance(directions, angles_deg, weights=None, sigma_deg=None):
+    """A second computation of the QUEST covariance (Shuster & Oh 1981, from memory): the information
+    Σ wᵢ [rᵢ]×ᵀ [rᵢ]× built from cross-product matrices (for a unit r, [r]×ᵀ[r]× = I − r rᵀ), σ² from the
+    residual angles over 2n − 3 degrees of freedom or as given."""
+    r = np.asarray(directions, dtype=float)
+    r = r / np.sqrt(np.sum(r * r, axis=1))[:, None]
+    w = np.ones(len(r)) if weights is None else np.asarray(weights, dtype=float)
+    information = sum(wi * _skew(ri).T @ _skew(ri) for wi, ri in zip(w, r))
+    if sigma_deg is None:
+        sigma2 = float(np.sum(w * np.radians(angles_deg) ** 2)) / (2 * np.count_nonzero(w) - 3)
+    else:
+        sigma2 = math.radians(sigma_deg) ** 2
+    return sigma2 * np.linalg.solve(information, np.eye(3))
+
+
+def test_three_square_directions_give_the_hand_worked_covariance():
+    # Worked here: x, y, z give Σ(I − r rᵀ) = 3I − I = 2I; residuals of 0.1° each give σ² = 3 (0.1°)² / 3,
+    # so Cov = (0.1°)² / 2 on every axis: u = 0.1° / √2, the largest and each axis alike.
+    largest, per_axis, covariance = direction_fit_uncertainty(np.eye(3), TURNED, [0.1, 0.1, 0.1])
+    assert largest == pytest.approx(0.1 / math.sqrt(2), rel=1e-12)
+    assert per_axis == pytest.approx((0.1 / math.sqrt(2),) * 3, rel=1e-12)
+    assert np.allclose(covariance, np.eye(3) * math.radians(0.1) ** 2 / 2, rtol=1e-12, atol=0)
+
+
+@pytest.mark.parametrize("weights", [None, [1.0, 0.5, 2.0, 0.25], [3.0, 1.0, 1.0, 1.0]])
+def test_the_direction_covariance_is_the_quest_covariance(weights):
+    want = _quest_covariance(DIRECTIONS, ANGLES, weights)
+    assert np.allclose(direction_fit_covariance(DIRECTIONS, TURNED, ANGLES, weights), want, rtol=1e-12, atol=0)
+    largest, per_axis, covariance = direction_fit_uncertainty(DIRECTIONS, TURNED, ANGLES, weights)
+    assert np.allclose(covariance, want, rtol=1e-12, atol=0)
+    assert largest == pytest.approx(math.degrees(math.sqrt(np.linalg.eigvalsh(want)[-1])), rel=1e-12)
+    assert per_axis == pytest.approx(tuple(np.degrees(np.sqrt(np.diag(want)))), rel=1e-12)
+
+
+@pytest.mark.parametrize("sigma", [0.0, 0.02, 180.0])
+def test_a_given_direction_uncertainty_replaces_the_residuals(sigma):
+    want = _quest_covariance(DIRECTIONS, None, [1, 2, 1, 2], sigma_deg=sigma)
+    got = direction_fit_covariance(DIRECTIONS, TURNED, ANGLES * 100, [1, 2, 1, 2], direction_uncertainty_deg=sigma)
+    assert np.allclose(got, want, rtol=1e-12, atol=0)
+    # two directions are enough then (no degrees of freedom needed)
+    assert np.allclose(direction_fit_covariance(DIRECTIONS[:2], TURNED, direction_uncertainty_deg=sigma),
+                       _quest_covariance(DIRECTIONS[:2], None, sigma_deg=sigma), rtol=1e-12, atol=0)
+
+
+@pytest.mark.parametrize("sigma, shown", [(-1e-9, "-1e-09"), (180.000001, "180.000001"), (float("nan"), "nan"),
+                                          (float("inf"), "inf"), ("a lot", "'a lot'"), (None, None)])
+def test_a_direction_uncertainty_outside_0_to_180_degrees_is_refused(sigma, shown):
+    if sigma is None:     # neither the uncertainty nor the residuals
+        _refused("direction fit covariance: give the directions' uncertainty or the residuals",
+                 direction_fit_covariance, DIRECTIONS, TURNED)
+        return
+    what = "direction fit covariance: the directions' uncertainty"
+    words = f"{what}: expected a number of degrees, got {shown}" if isinstance(sigma, str) else \
+        f"{what}: expected 0 to 180 degrees, got {shown}"
+    _refused(words, direction_fit_covariance, DIRECTIONS, TURNED, direction_uncertainty_deg=sigma)
+
+
+def test_a_direction_uncertainty_of_true_is_refused():
+    _refused("direction fit covariance: the directions' uncertainty: expected a number of degrees",
+             direction_fit_covariance, DIRECTIONS, TURNED, direction_uncertainty_deg=True)
+
+
+@pytest.mark.parametrize("angles", [[0.03, 0.01, 0.05], [0.03, 0.01, 0.05, 0.02, 0.0], [0.03, -1e-9, 0.05, 0.02],
+                                    [0.03, 180.0000001, 0.05, 0.02], [0.03, float("nan"), 0.05, 0.02],
+                                    [0.03, float("inf"), 0.05, 0.02], [[0.03, 0.01, 0.05, 0.02]]])
+def test_residual_angles_must_be_one_per_direction_and_0_to_180_degrees(angles):
+    words = "direction fit covariance: expected 4 residual angles, one per direction, each 0 to 180 degrees"
+    _refused(words, direction_fit_covariance, DIRECTIONS, TURNED, angles)
+    _refused(words, direction_fit_uncertainty, DIRECTIONS, TURNED, angles)
+
+
+def test_residual_angles_of_0_and_180_degrees_are_taken():
+    got = direction_fit_covariance(DIRECTIONS, TURNED, [0.0, 180.0, 0.0, 0.0])
+    assert np.allclose(got, _quest_covariance(DIRECTIONS, [0.0, 180.0, 0.0, 0.0]), rtol=1e-12, atol=0)
+
+
+def test_three_directions_with_weight_are_enough_for_their_scatter_and_two_are_not():
+    words = ("direction fit uncertainty: expected 3 or more directions with weight, so that the residuals show "
+             "their spread")
+    want = _quest_covariance(DIRECTIONS[:3], ANGLES[:3])
+    assert np.allclose(direction_fit_uncertainty(DIRECTIONS, TURNED, ANGLES, [1, 1, 1, 0])[2], want, rtol=1e-12,
+                       atol=0)
+    assert np.allclose(direction_fit_uncertainty(DIRECTIONS[:3], TURNED, ANGLES[:3])[2], want, rtol=1e-12, atol=0)
+    _refused(words, direction_fit_uncertainty, DIRECTIONS, TURNED, ANGLES, [1, 0, 1, 0])
+    _refused(words, direction_fit_uncertainty, DIRECTIONS[:2], TURNED, ANGLES[:2])
+    # the covariance alone takes two (one degree of freedom, 2·2 − 3)
+    assert np.allclose(direction_fit_covariance(DIRECTIONS[:2], TURNED, ANGLES[:2]),
+                       _quest_covariance(DIRECTIONS[:2], ANGLES[:2]), rtol=1e-12, atol=0)
+
+
+def test_a_direction_of_weight_zero_counts_as_if_it_were_not_there():
+    want = direction_fit_covariance(DIRECTIONS[[0, 1, 3]], TURNED, ANGLES[[0, 1, 3]], [2, 1, 0.5])
+    got = direction_fit_covariance(DIRECTIONS, TURNED, [0.03, 0.01, 170.0, 0.02], [2, 1, 0, 0.5])
+    assert np.allclose(got, want, rtol=1e-12, atol=0)
+
+
+@pytest.mark.parametrize("function, what", [(direction_fit_covariance, "direction fit covariance"),
+                                            (direction_fit_uncertainty, "direction fit uncertainty")])
+@pytest.mark.parametrize("weight, shown", [(-1, "-1.0"), (float("nan"), "nan"), (float("inf"), "inf")])
+def test_a_directions_negative_or_non_finite_weight_is_refused_by_its_number(function, what, weight, shown):
+    _refused(f"{what}: weights: weight 3 is {shown}; expected a finite number >= 0", function, DIRECTIONS,
+             TURNED, ANGLES, [1, 1, weight, 1])
+
+
+def test_a_directions_weights_must_be_one_per_direction():
+    _refused("direction fit uncertainty: weights: expected 4 numbers (one per point), got shape (3,)",
+             direction_fit_uncertainty, DIRECTIONS, TURNED, ANGLES, [1, 1, 1])
+
+
+@pytest.mark.parametrize("scale", [1e-300, 1e300])
+def test_directions_and_weights_of_1e300_or_1e_minus_300_count_by_direction_and_ratio_only(scale):
+    want = direction_fit_covariance(DIRECTIONS, TURNED, ANGLES, [1, 2, 3, 4])
+    got = direction_fit_covariance(DIRECTIONS * scale, TURNED, ANGLES, np.array([1, 2, 3, 4]) * scale)
+    assert np.allclose(got, want, rtol=1e-12, atol=0)
+
+
+@pytest.mark.parametrize("directions, words", [
+    (DIRECTIONS[:1], "direction fit covariance: expected two or more measured directions"),
+    (DIRECTIONS[:, :2], "direction fit covariance: expected two or more measured directions"),
+    (DIRECTIONS[0], "direction fit covariance: expected two or more measured directions"),
+    (DIRECTIONS[:, :, None], "direction fit covariance: expected two or more measured directions"),
+    ([[0, 0, 1], [0, 0, 0], [1, 0, 0]], "direction fit covariance: direction 2 has zero length; expected a non-zero "
+                                        "(x, y, z)"),
+    ([[0, 0, 1], [0, float("nan"), 0], [1, 0, 0]], "direction fit covariance: expected finite numbers in the "
+                                                  "directions"),
+    ([[0, 0, float("inf")], [0, 1, 0], [1, 0, 0]], "direction fit covariance: expected finite numbers in the "
+                                                  "directions"),
+])
+def test_directions_that_are_not_directions_are_refused(directions, words):
+    _refused(words, direction_fit_covariance, directions, TURNED, [0.1, 0.1, 0.1])
+    _refused(words, direction_fit_uncertainty, directions, TURNED, [0.1, 0.1, 0.1])
