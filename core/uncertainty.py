@@ -11,7 +11,8 @@ weight of 1; six parameters fitted). This is the small-angle covariance of the a
 (Horn 1987; Kabsch 1976 for the fit itself).
 
 Figures of a check (D = Nᵀ M, CONVENTIONS.md), to first order in δ:
-- total deviation d = |log D|: its change is a · (Mᵀ δ) with a the deviation axis in body axes;
+- total deviation d = |log D|: its change is a · (Mᵀ δ) with a the deviation axis in body axes (where d is
+  near zero, the largest spread of Mᵀ δ);
 - pointing error of body axis b: the change of the angle between N b and M b is e · δ, e the unit normal of
   the plane through them (where the pointing error is near zero the largest spread across M b is used);
 - roll about b: (M b) · δ.
@@ -28,8 +29,9 @@ from core.fit import read_weights
 from core.kernels import unit_vectors
 from core.orientation import Orientation
 
-# Below this pointing error (radians) its direction is rounding: use the largest spread across the axis.
-_POINTING_DEFINED_RAD = 1e-9
+# Below this deviation or pointing error (radians) its direction is rounding (N⁻¹ N itself comes out as
+# about 7e-18 rad about some axis): use the largest spread instead.
+_DIRECTION_DEFINED_RAD = 1e-9
 # An information matrix whose smallest eigenvalue is below this fraction of its largest leaves the turn about
 # one direction to rounding (collinear points, parallel directions): refused. The fits refuse far sooner
 # (core/fit.py: points off their line by 1e-3 of the along-line spread give a ratio of about 5e-7; directions
@@ -154,17 +156,16 @@ def figure_uncertainties(nominal: Orientation, measured: Orientation, covariance
     deviation = nominal.inverse() @ measured
     axis, angle = deviation.as_axis_angle(degrees=False)
     body_cov = m.T @ cov @ m
-    if angle > 0:
+    if angle > _DIRECTION_DEFINED_RAD:
         total = math.sqrt(max(0.0, float(axis @ body_cov @ axis)))
     else:   # at zero deviation the angle grows with the whole spread: its largest direction
         total = math.sqrt(max(0.0, float(np.linalg.eigvalsh(body_cov)[-1])))
     out = {"total_deg": math.degrees(total)}
     if body_axis is not None:
-        b = np.asarray(body_axis, dtype=float)
-        b = b / np.linalg.norm(b)
+        b = unit_vectors(np.asarray(body_axis, dtype=float), "body axis")[0]    # scaled: 1e-200 keeps its direction
         nominal_b, measured_b = nominal.apply(b), measured.apply(b)
         normal = np.cross(nominal_b, measured_b)
-        if np.linalg.norm(normal) > _POINTING_DEFINED_RAD:
+        if np.linalg.norm(normal) > _DIRECTION_DEFINED_RAD:
             e = normal / np.linalg.norm(normal)
             pointing = float(e @ cov @ e)
         else:

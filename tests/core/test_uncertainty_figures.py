@@ -427,3 +427,215 @@ def test_directions_and_weights_of_1e300_or_1e_minus_300_count_by_direction_and_
 def test_directions_that_are_not_directions_are_refused(directions, words):
     _refused(words, direction_fit_covariance, directions, TURNED, [0.1, 0.1, 0.1])
     _refused(words, direction_fit_uncertainty, directions, TURNED, [0.1, 0.1, 0.1])
+
+
+# ---- a typed uncertainty ------------------------------------------------------------------------------------
+
+@pytest.mark.parametrize("u", [0, -0.0, 1e-300, 0.05, 180, "0.05", np.float64(3.5)])
+def test_a_typed_uncertainty_is_the_same_variance_on_every_axis(u):
+    from core.uncertainty import isotropic
+    want = (float(u) * math.pi / 180) ** 2          # degrees to radians, squared
+    got = isotropic(u)
+    assert got.shape == (3, 3) and got.dtype == np.float64
+    assert np.array_equal(got, np.diag([want] * 3))
+
+
+@pytest.mark.parametrize("u, words", [
+    (-1e-300, "expected 0 to 180 degrees, got -1e-300"),
+    (float(np.nextafter(180.0, 200.0)), "expected 0 to 180 degrees, got 180.00000000000003"),
+    (float("nan"), "expected 0 to 180 degrees, got nan"), (float("inf"), "expected 0 to 180 degrees, got inf"),
+    ("181", "expected 0 to 180 degrees, got '181'"), ("a tenth", "expected a number of degrees, got 'a tenth'"),
+    (None, "expected a number of degrees, got None"), ([0.1], "expected a number of degrees, got [0.1]"),
+    (True, "expected a number of degrees"), (False, "expected a number of degrees"),
+])
+def test_a_typed_uncertainty_is_refused_word_for_word(u, words):
+    from core.uncertainty import isotropic
+    error = _refused("standard uncertainty: " + words, isotropic, u)
+    if "got" in words and "number" in words:
+        assert error.__suppress_context__          # no chained traceback from float()
+
+
+# ---- figures of a check: against numerical derivatives ---------------------------------------------------
+
+NOMINAL = Orientation.from_angles("ZYX", [40.0, 10.0, -5.0])
+# a covariance with unequal spreads and correlations (an invented case), radians²
+_A = np.random.default_rng(41).normal(size=(3, 3))
+COVARIANCE = _A @ _A.T * math.radians(0.05) ** 2
+
+
+def _scipy(o):
+    return Rotation.from_quat(o.as_quaternion(), scalar_first=True)
+
+
+def _figures_after(nominal, measured, body_axis, delta):
+    """(total, pointing, roll) in radians of the check with measured turned by exp([δ]×) (reference frame),
+    computed with SciPy: total |log D|, D = Nᵀ M; pointing the angle between N b and M b; roll the twist of D
+    about b by the swing–twist split, 2 atan2(v · b, w) of D's quaternion (common practice)."""
+    n, m = _scipy(nominal), Rotation.from_rotvec(delta) * _scipy(measured)
+    d = n.inv() * m
+    out = [d.magnitude()]
+    if body_axis is not None:
+        b = np.asarray(body_axis, dtype=float) / np.abs(body_axis).max()      # 3e-200 squared would underflow
+        b /= np.linalg.norm(b)
+        nb, mb = n.apply(b), m.apply(b)
+        out.append(math.atan2(np.linalg.norm(np.cross(nb, mb)), nb @ mb))
+        w, *v = d.as_quat(scalar_first=True)
+        out.append(2 * math.atan2(np.dot(v, b), w))
+    return np.array(out)
+
+
+def _propagated_deg(nominal, measured, body_axis, covariance, step=1e-7):
+    """Standard deviations (degrees) of the figures, σ² = J C Jᵀ, J by central differences (common practice)."""
+    columns = [(_figures_after(nominal, measured, body_axis, step * e) -
+                _figures_after(nominal, measured, body_axis, -step * e)) / (2 * step) for e in np.eye(3)]
+    jacobian = np.column_stack(columns)
+    return np.degrees(np.sqrt(np.diag(jacobian @ covariance @ jacobian.T)))
+
+
+@pytest.mark.parametrize("turn", [((1, 2, 2), 1.5), ((0, 0, 1), 30.0), ((3, -1, 0.5), 150.0)])
+def test_the_total_deviations_uncertainty_is_its_derivatives(turn):
+    from core.uncertainty import figure_uncertainties
+    measured = NOMINAL @ Orientation.from_axis_angle(*turn)
+    got = figure_uncertainties(NOMINAL, measured, COVARIANCE)
+    assert set(got) == {"total_deg"}
+    assert got["total_deg"] == pytest.approx(_propagated_deg(NOMINAL, measured, None, COVARIANCE)[0], rel=1e-6)
+
+
+@pytest.mark.parametrize("body_axis", [(1, 0, 0), (0, 0, 1), (1, 2, -2), (0, -3e-200, 0)])
+def test_the_pointing_errors_uncertainty_is_its_derivatives(body_axis):
+    from core.uncertainty import figure_uncertainties
+    measured = NOMINAL @ Orientation.from_axis_angle((1, -2, 0.5), 2.0)
+    got = figure_uncertainties(NOMINAL, measured, COVARIANCE, body_axis)
+    assert set(got) == {"total_deg", "pointing_deg", "roll_deg"}
+    total, pointing, roll = _propagated_deg(NOMINAL, measured, body_axis, COVARIANCE)
+    assert got["total_deg"] == pytest.approx(total, rel=1e-6)
+    assert got["pointing_deg"] == pytest.approx(pointing, rel=1e-6)
+    # the roll's first-order figure, (M b) · δ, neglects terms of the order of the deviation (2° = 0.035 rad)
+    assert got["roll_deg"] == pytest.approx(roll, rel=0.05)
+
+
+@pytest.mark.parametrize("body_axis", [(1, 0, 0), (0, 1, 0), (2, -1, 2)])
+def test_the_rolls_uncertainty_is_its_derivative_for_a_pure_roll_and_near_it_for_a_small_deviation(body_axis):
+    from core.uncertainty import figure_uncertainties
+    # a turn about the body axis itself: the twist's derivative is exactly b · ε (worked here)
+    measured = NOMINAL @ Orientation.from_axis_angle(body_axis, 3.0)
+    got = figure_uncertainties(NOMINAL, measured, COVARIANCE, body_axis)
+    assert got["roll_deg"] == pytest.approx(_propagated_deg(NOMINAL, measured, body_axis, COVARIANCE)[2], rel=1e-6)
+    # a deviation of 0.01°: first order to about 2e-4
+    small = NOMINAL @ Orientation.from_axis_angle((1, -2, 0.5), 0.01)
+    got = figure_uncertainties(NOMINAL, small, COVARIANCE, body_axis)
+    assert got["roll_deg"] == pytest.approx(_propagated_deg(NOMINAL, small, body_axis, COVARIANCE)[2], rel=1e-3)
+
+
+def _largest_across(direction, covariance):
+    """The largest variance across a unit direction: the larger eigenvalue of the 2×2 covariance in two
+    directions across it, (a + c) / 2 + √(((a − c) / 2)² + b²) (closed form, common practice)."""
+    u = np.cross(direction, [1.0, 0, 0] if abs(direction[0]) < 0.9 else [0, 1.0, 0])
+    u /= np.linalg.norm(u)
+    v = np.cross(direction, u)
+    a, b, c = u @ covariance @ u, u @ covariance @ v, v @ covariance @ v
+    return (a + c) / 2 + math.sqrt(((a - c) / 2) ** 2 + b * b)
+
+
+@pytest.mark.parametrize("body_axis", [(1, 0, 0), (0.3, -0.4, 0.5)])
+def test_with_no_pointing_error_its_uncertainty_is_the_largest_spread_across_the_axis(body_axis):
+    from core.uncertainty import figure_uncertainties
+    b = np.asarray(body_axis) / np.linalg.norm(body_axis)
+    measured = NOMINAL @ Orientation.from_axis_angle(body_axis, 4.0)      # roll only: M b = N b
+    got = figure_uncertainties(NOMINAL, measured, COVARIANCE, body_axis)
+    mb = _scipy(measured).apply(b)
+    assert got["pointing_deg"] == pytest.approx(math.degrees(math.sqrt(_largest_across(mb, COVARIANCE))), rel=1e-9)
+    assert got["roll_deg"] == pytest.approx(math.degrees(math.sqrt(mb @ COVARIANCE @ mb)), rel=1e-9)
+
+
+@pytest.mark.parametrize("pointing_rad, defined", [(1e-8, True), (2e-9, True), (5e-10, False), (1e-11, False)])
+def test_a_pointing_error_below_1e_minus_9_rad_has_no_direction_and_above_it_has_one(pointing_rad, defined):
+    from core.uncertainty import figure_uncertainties
+    # body +X tipped towards −Z about body +Y: the plane of N x and M x has normal N y (worked here). The
+    # covariance, in the nominal body axes, spreads 4 along y and 9 along z: a defined pointing error takes the
+    # spread along N y (2 units), an undefined one the largest across M x (3 units).
+    m = _scipy(NOMINAL).as_matrix()
+    unit = math.radians(0.01) ** 2
+    covariance = m @ np.diag([1.0, 4.0, 9.0]) @ m.T * unit
+    measured = NOMINAL @ Orientation.from_rotation_vector([0, pointing_rad, 0], degrees=False)
+    got = figure_uncertainties(NOMINAL, measured, covariance, (1, 0, 0))
+    want = 2.0 if defined else 3.0
+    assert got["pointing_deg"] == pytest.approx(want * 0.01, rel=1e-6)
+
+
+def test_with_no_deviation_the_total_takes_the_largest_spread():
+    from core.uncertainty import figure_uncertainties
+    # eigenvalues do not change when the covariance is turned into body axes (linear algebra): numpy's largest.
+    # N⁻¹ N comes out as about 7e-18 rad about some axis: that rounding once decided the figure.
+    got = figure_uncertainties(NOMINAL, NOMINAL, COVARIANCE)
+    assert got["total_deg"] == pytest.approx(math.degrees(math.sqrt(np.linalg.eigvalsh(COVARIANCE)[-1])), rel=1e-12)
+
+
+@pytest.mark.parametrize("deviation_rad, defined", [(1e-8, True), (2e-9, True), (5e-10, False), (0.0, False)])
+def test_a_deviation_below_1e_minus_9_rad_has_no_axis_and_above_it_has_one(deviation_rad, defined):
+    from core.uncertainty import figure_uncertainties
+    # a deviation about body y; the covariance, in the measured body axes, spreads 4 along y and 9 along z:
+    # a defined deviation takes the spread along its axis (2 units), an undefined one the largest (3 units)
+    measured = NOMINAL @ Orientation.from_rotation_vector([0, deviation_rad, 0], degrees=False)
+    m = _scipy(measured).as_matrix()
+    covariance = m @ np.diag([1.0, 4.0, 9.0]) @ m.T * math.radians(0.01) ** 2
+    got = figure_uncertainties(NOMINAL, measured, covariance)
+    assert got["total_deg"] == pytest.approx((2.0 if defined else 3.0) * 0.01, rel=1e-6)
+
+
+def test_a_zero_body_axis_is_refused():
+    from core.uncertainty import figure_uncertainties
+    _refused("body axis has zero length; expected a non-zero (x, y, z)", figure_uncertainties, NOMINAL, NOMINAL,
+             COVARIANCE, (0, 0, 0))
+
+
+@pytest.mark.parametrize("factor", [1e-200, 1e200])
+def test_a_tiny_or_huge_covariance_scales_every_figure_by_its_square_root(factor):
+    from core.uncertainty import figure_uncertainties
+    measured = NOMINAL @ Orientation.from_axis_angle((1, -2, 0.5), 2.0)
+    want = figure_uncertainties(NOMINAL, measured, COVARIANCE, (0, 0, 1))
+    got = figure_uncertainties(NOMINAL, measured, COVARIANCE * factor, (0, 0, 1))
+    assert got == pytest.approx({k: v * math.sqrt(factor) for k, v in want.items()}, rel=1e-12)
+
+
+def test_a_body_axis_counts_by_its_direction_only():
+    from core.uncertainty import figure_uncertainties
+    measured = NOMINAL @ Orientation.from_axis_angle((1, -2, 0.5), 2.0)
+    assert figure_uncertainties(NOMINAL, measured, COVARIANCE, (0, 0, 5e10)) == pytest.approx(
+        figure_uncertainties(NOMINAL, measured, COVARIANCE, (0, 0, 1)), rel=1e-14)
+
+
+@pytest.mark.parametrize("covariance", [np.eye(2), np.eye(3)[:, :, None], np.ones(9), [[1, 0, 0], [0, 1, 0]],
+                                        np.diag([1, float("nan"), 1]), np.diag([1, 1, float("inf")])])
+def test_a_covariance_that_is_not_a_finite_3_by_3_matrix_is_refused(covariance):
+    from core.uncertainty import figure_uncertainties
+    _refused("orientation covariance: expected a finite 3×3 matrix", figure_uncertainties, NOMINAL, NOMINAL,
+             covariance)
+
+
+def test_a_covariance_may_be_nested_lists():
+    from core.uncertainty import figure_uncertainties
+    assert figure_uncertainties(NOMINAL, NOMINAL, COVARIANCE.tolist()) == figure_uncertainties(NOMINAL, NOMINAL,
+                                                                                                COVARIANCE)
+
+
+@pytest.mark.parametrize("settings", [
+    dict(total_tolerance_deg=1.0),
+    dict(mode="pointing_and_roll", body_axis="+X", pointing_tolerance_deg=0.5, roll_tolerance_deg=1.0),
+    dict(mode="pointing_and_roll", body_axis=(0.0, 3.0, 4.0), pointing_tolerance_deg=0.5, roll_tolerance_deg=1.0),
+])
+def test_every_figure_a_check_judges_gets_its_own_uncertainty(settings):
+    from core.check import CheckSettings, check
+    from core.uncertainty import check_figure_uncertainties, figure_uncertainties
+    settings = CheckSettings(**settings)
+    for measured in (NOMINAL @ Orientation.from_axis_angle((1, -2, 0.5), 2.0),          # roll defined
+                     NOMINAL @ Orientation.from_axis_angle((0, 1, 0), 180.0)):          # +X turned over
+        figures = check_figure_uncertainties(NOMINAL, measured, settings, COVARIANCE)
+        # the names are the check's own criteria (core/check.py), each one present
+        assert {c.name for c in check(NOMINAL, measured, settings).criteria} <= set(figures)
+        raw = figure_uncertainties(NOMINAL, measured, COVARIANCE, settings.axis_vector())
+        if settings.mode == "pointing_and_roll":
+            assert figures == {"pointing error": raw["pointing_deg"], "roll": raw["roll_deg"],
+                               "roll (undefined, judged as 180°)": raw["roll_deg"]}
+        else:
+            assert figures == {"total deviation": raw["total_deg"]}
