@@ -27,7 +27,8 @@ class Average:
     """mean: the average; angles_deg[i]: measurement i's angle from it; rms_deg, max_deg: the scatter;
     covariance_rad2: of the average, a small rotation in the reference frame (core.uncertainty), the
     scatter's covariance (Bessel-corrected) over n; standard_uncertainty_deg: its mean per axis,
-    √(trace / 3) (for equal weights rms / √(3 (n − 1))); both None for one measurement;
+    √(trace / 3) (for equal weights rms / √(3 (n − 1))), n counting the measurements of weight above 0;
+    both None for one such measurement;
     flagged: measurements more than OUTLIER_SCATTERS scatters from the average of the others."""
     mean: Orientation
     count: int
@@ -129,9 +130,10 @@ def average(measurements, weights=None) -> Average:
     n = len(q)
     flagged = _far_from_the_others(errors, square, w) if n >= 3 else []
     covariance = uncertainty = None
-    if n > 1:
+    used = n if weighted is None else int(np.count_nonzero(weighted))     # a weight of 0 leaves one out
+    if used > 1:
         spread = errors @ mean.as_matrix().T         # the same turns in the reference frame: δ = M · e
-        covariance = (spread * w[:, None]).T @ spread / total / (n - 1)
+        covariance = (spread * w[:, None]).T @ spread / total / (used - 1)
         uncertainty = math.degrees(math.sqrt(float(np.trace(covariance)) / 3))
     return Average(mean, n, angles, rms, float(angles.max()), uncertainty, tuple(flagged),
                    covariance)
