@@ -74,18 +74,23 @@ def point_fit_covariance(nominal_points, orientation: Orientation, residuals, we
     c = orientation.apply(p - centre)
     h = (w * np.einsum("ij,ij->i", c, c)).sum() * np.eye(3) - (c * w[:, None]).T @ c
     sigma2 = float((w * np.einsum("ij,ij->i", r, r)).sum()) / (3 * used - 6)
-    return sigma2 * _inverse(h, "point fit covariance: the nominal points do not fix the rotation (collinear "
-                                "or nearly so)")
+    return _covariance(sigma2, h, "point fit covariance", "the nominal points do not fix the rotation (collinear "
+                                                          "or nearly so)")
 
 
-def _inverse(information, refusal):
-    """The inverse of a symmetric information matrix, or `refusal` when it is singular to rounding: an exact
-    zero eigenvalue comes out as ±1e-16 once the points are turned, and its inverse would be a confident
-    figure with no meaning."""
+def _covariance(sigma2, information, what, singular):
+    """σ² times the inverse of a symmetric information matrix; refused (`singular`) when the matrix is singular
+    to rounding: an exact zero eigenvalue comes out as ±1e-16 once the points are turned, and its inverse
+    would be a confident figure with no meaning. Refused too when the product is beyond a double."""
     values = np.linalg.eigvalsh(information)
     if not values[0] > _DETERMINED_RATIO * values[-1]:      # also all zeros
-        raise InvalidInputError(refusal)
-    return np.linalg.inv(information)
+        raise InvalidInputError(f"{what}: {singular}")
+    with np.errstate(over="ignore", invalid="ignore"):
+        covariance = sigma2 * np.linalg.inv(information)
+    if not np.all(np.isfinite(covariance)):
+        raise InvalidInputError(f"{what}: the covariance is beyond the largest number a double holds; expected "
+                                "residuals and weights in proportion to the spread of the points or directions")
+    return covariance
 
 
 def point_fit_standard_uncertainty(nominal_points, orientation: Orientation, residuals, weights=None):
@@ -97,9 +102,7 @@ def point_fit_standard_uncertainty(nominal_points, orientation: Orientation, res
 
 
 def _summed_up(cov) -> tuple:
-    """(largest, per reference axis) standard uncertainty in degrees of a covariance in radians², and it."""
-    if not np.all(np.isfinite(cov)):
-        raise InvalidInputError("fit uncertainty: the covariance is not a finite number")
+    """(largest, per reference axis) standard uncertainty in degrees of a finite covariance in radians², and it."""
     largest = math.degrees(math.sqrt(max(float(np.linalg.eigvalsh(cov).max()), 0.0)))
     per_axis = tuple(math.degrees(math.sqrt(max(float(v), 0.0))) for v in np.diag(cov))
     return largest, per_axis, cov
@@ -162,7 +165,7 @@ def figure_uncertainties(nominal: Orientation, measured: Orientation, covariance
         total = math.sqrt(max(0.0, float(np.linalg.eigvalsh(body_cov)[-1])))
     out = {"total_deg": math.degrees(total)}
     if body_axis is not None:
-        b = unit_vectors(np.asarray(body_axis, dtype=float), "body axis")[0]    # scaled: 1e-200 keeps its direction
+        b = unit_vectors(body_axis, "body axis")[0]        # scaled: 1e-200 keeps its direction
         nominal_b, measured_b = nominal.apply(b), measured.apply(b)
         normal = np.cross(nominal_b, measured_b)
         if np.linalg.norm(normal) > _DIRECTION_DEFINED_RAD:
@@ -200,8 +203,8 @@ def direction_fit_covariance(reference_directions, orientation: Orientation, res
         dof = 2 * int(np.count_nonzero(w)) - 3
         sigma2 = float((w * theta ** 2).sum()) / dof
     information = (w[:, None, None] * (np.eye(3) - r[:, :, None] * r[:, None, :])).sum(axis=0)
-    return sigma2 * _inverse(information, "direction fit covariance: the directions are parallel or nearly so; "
-                                          "the turn about them is not determined")
+    return _covariance(sigma2, information, "direction fit covariance",
+                       "the directions are parallel or nearly so; the turn about them is not determined")
 
 
 def _unit_directions(reference_directions) -> np.ndarray:

@@ -639,3 +639,81 @@ def test_every_figure_a_check_judges_gets_its_own_uncertainty(settings):
                                "roll (undefined, judged as 180°)": raw["roll_deg"]}
         else:
             assert figures == {"total deviation": raw["total_deg"]}
+
+
+# ---- numbers of any kind, and the ends of a double ---------------------------------------------------------
+
+def _fractions(values):
+    from fractions import Fraction
+    return [[Fraction(v).limit_denominator(10 ** 12) for v in row] for row in np.atleast_2d(values).tolist()]
+
+
+def test_exact_fractions_are_numbers_like_any_other():
+    # each input read as floats: the same covariance as for the floats the fractions stand for
+    points, residuals = _fractions(BRACKET), _fractions(BRACKET_RESIDUALS)
+    as_floats = np.array(points, dtype=float), np.array(residuals, dtype=float)
+    want = point_fit_covariance(*as_floats[:1], TURNED, as_floats[1])
+    assert np.allclose(point_fit_covariance(points, TURNED, residuals), want, rtol=1e-12, atol=0)
+    assert np.allclose(point_fit_uncertainty(points, TURNED, residuals)[2], want, rtol=1e-12, atol=0)
+    directions, angles, weights = _fractions(DIRECTIONS), _fractions(ANGLES)[0], _fractions([1, 2, 3, 4])[0]
+    want = direction_fit_covariance(np.array(directions, dtype=float), TURNED, np.array(angles, dtype=float))
+    assert np.allclose(direction_fit_covariance(directions, TURNED, angles), want, rtol=1e-12, atol=0)
+    want = direction_fit_covariance(DIRECTIONS, TURNED, weights=[1, 2, 3, 4], direction_uncertainty_deg=0.1)
+    got = direction_fit_covariance(DIRECTIONS, TURNED, weights=weights, direction_uncertainty_deg=0.1)
+    assert np.allclose(got, want, rtol=1e-12, atol=0)
+    from core.uncertainty import figure_uncertainties
+    measured = NOMINAL @ Orientation.from_axis_angle((1, -2, 0.5), 2.0)
+    assert figure_uncertainties(NOMINAL, measured, _fractions(COVARIANCE)) == pytest.approx(
+        figure_uncertainties(NOMINAL, measured, np.array(_fractions(COVARIANCE), dtype=float)), rel=1e-12)
+
+
+def test_residuals_of_exactly_1e100_times_the_spread_are_taken():
+    # unit points about their mean (largest coordinate 1, spread 1: no rounding in the scaling)
+    points = np.array([[1, 0, 0], [-1, 0, 0], [0, 1, 0], [0, -1, 0]], dtype=float)
+    residuals = np.zeros((4, 3))
+    residuals[0, 1] = 1e100
+    # hand-worked: H = diag(2, 2, 4), σ² = 1e200 / 6, so the largest variance is 1e200 / 12 (about X and Y)
+    largest = point_fit_uncertainty(points, TURNED, residuals)[0]
+    assert largest == pytest.approx(math.degrees(math.sqrt(1e200 / 12)), rel=1e-12)
+    residuals[0, 1] = float(np.nextafter(1e100, 1e101))
+    with pytest.raises(InvalidInputError, match="out of all proportion"):
+        point_fit_uncertainty(points, TURNED, residuals)
+
+
+def test_residuals_that_overflow_when_scaled_are_refused_without_a_warning():
+    # points 1e-300 apart with residuals of 1: scaled to the points' spread they pass 1e308
+    _refused("point fit uncertainty: the residuals are out of all proportion to the points' spread (more than "
+             "1e100 times it); expected residuals and points in one unit", point_fit_uncertainty, BRACKET * 1e-300,
+             TURNED, np.ones_like(BRACKET))
+
+
+OVERFLOW_WORDS = ("the covariance is beyond the largest number a double holds; expected residuals and weights in "
+                  "proportion to the spread of the points or directions")
+
+
+def test_a_covariance_beyond_a_double_is_refused_and_not_returned_as_infinity():
+    # three points of weight 1e-60 apart (a tiny triangle) next to one of weight 0 a whole unit away: the
+    # weighted spread is 1e-60 of the scale, so σ²/spread² passes 1e308 with residuals of 1e95
+    points = np.array([[1e-60, 0, 0], [0, 1e-60, 0], [0, 0, 1e-60], [-1e-60, 0, 0], [1, 0, 0]])
+    residuals = np.zeros((5, 3))
+    residuals[:4, 0] = [1e95, -1e95, 1e95, -1e95]
+    _refused("point fit covariance: " + OVERFLOW_WORDS, point_fit_uncertainty, points, TURNED, residuals,
+             [1, 1, 1, 1, 0])
+    # a given direction uncertainty with weights of the smallest double: an information of 1e-323
+    _refused("direction fit covariance: " + OVERFLOW_WORDS, direction_fit_covariance, np.eye(3), TURNED,
+             weights=[5e-324] * 3, direction_uncertainty_deg=1.0)
+
+
+def test_an_information_of_zeros_is_refused_as_undetermined():
+    _refused(COLLINEAR_WORDS, point_fit_covariance, np.tile([1.0, 2.0, 3.0], (4, 1)), TURNED, RESIDUALS_4)
+    _refused(PARALLEL_WORDS, direction_fit_covariance, np.eye(3), TURNED, weights=[0, 0, 0],
+             direction_uncertainty_deg=1.0)
+
+
+def test_a_total_deviation_check_with_a_body_axis_set_judges_the_total_only():
+    from core.check import CheckSettings
+    from core.uncertainty import check_figure_uncertainties, figure_uncertainties
+    measured = NOMINAL @ Orientation.from_axis_angle((1, -2, 0.5), 2.0)
+    settings = CheckSettings(total_tolerance_deg=1.0, body_axis="+Z")
+    assert check_figure_uncertainties(NOMINAL, measured, settings, COVARIANCE) == {
+        "total deviation": figure_uncertainties(NOMINAL, measured, COVARIANCE)["total_deg"]}
