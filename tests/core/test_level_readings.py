@@ -216,3 +216,23 @@ def test_an_unknown_face_is_refused(face, words):
 ])
 def test_an_in_face_direction_that_is_not_one_is_refused(direction, words):
     _refused(words, inclinometer_reading, Orientation.identity(), "+Z", direction)
+
+
+def test_an_in_face_part_of_exactly_1e_minus_6_is_taken():
+    # (1.0000000000005e-6, 0, 1) made unit leaves an in-face part of exactly 1e-6 (found by search, checked here
+    # the module's way: axis_vector, then the part across the normal): at the limit, not beyond it
+    from core.check import axis_vector
+    direction = (1.0000000000005e-06, 0.0, 1.0)
+    unit = axis_vector(direction)
+    assert float(np.linalg.norm(unit - unit[2] * np.array([0, 0, 1.0]))) == 1e-6
+    reading = inclinometer_reading(Orientation.identity(), "+Z", direction)
+    assert reading.direction.tolist() == [1.0, 0.0, 0.0]
+
+
+def test_an_in_face_part_of_exactly_1_minus_1e_minus_12_has_no_note():
+    # found by search and checked the module's way, as above: a length of exactly 1 − 1e-12 is not noted
+    from core.check import axis_vector
+    direction = (1.0, 0.31024187555895566, 1.480784388677447e-06)
+    unit = axis_vector(direction)
+    assert float(np.linalg.norm(unit - unit[2] * np.array([0, 0, 1.0]))) == 1.0 - 1e-12
+    assert inclinometer_reading(Orientation.identity(), "+Z", direction).notes == ()
