@@ -54,7 +54,7 @@ def _quaternions(measurements) -> np.ndarray:
         raise InvalidInputError(f"average: expected 1 to {MAX_MEASUREMENTS} measurements, got {len(q)}")
     # one pass over the squared norms: within about 1e-6 of 1 also proves the four numbers finite and at most
     # about 1 (NaN fails the comparison), so finiteness is looked at only to word the refusal
-    with np.errstate(over="ignore", invalid="ignore"):          # 1e200 squared is inf: refused below
+    with np.errstate(over="ignore"):          # 1e200 squared is inf: refused below
         square = (q * q) @ np.ones(4)
         off = float(np.abs(square - 1).max())
     if not off <= 2e-6:
@@ -93,8 +93,9 @@ def mean_orientation(measurements, weights=None) -> Orientation:
     return _mean(q, _weights(weights, len(q)))
 
 
-def _far_from_the_others(errors: np.ndarray, square: np.ndarray, w: np.ndarray) -> list[int]:
-    """Measurements more than OUTLIER_SCATTERS scatters from the average of the others. Leaving out
+def _far_from_the_others(square: np.ndarray, w: np.ndarray) -> list[int]:
+    """Measurements more than OUTLIER_SCATTERS scatters from the average of the others, from the squared
+    errors |eᵢ|² about the average and the weights. Leaving out
     measurement i (error eᵢ from the average, small turns) moves the average by Δ = −wᵢ eᵢ / (W − wᵢ), so its
     distance from the others' average is |eᵢ| W / (W − wᵢ), and the others' mean square error about their
     own average is (Σ w|e|² − wᵢ|eᵢ|² − wᵢ²|eᵢ|² / (W − wᵢ)) / (W − wᵢ): every case at once, to first order."""
@@ -128,7 +129,7 @@ def average(measurements, weights=None) -> Average:
     total = w.sum()
     rms = math.sqrt(float((w * angles ** 2).sum() / total))
     n = len(q)
-    flagged = _far_from_the_others(errors, square, w) if n >= 3 else []
+    flagged = _far_from_the_others(square, w) if n >= 3 else []
     covariance = uncertainty = None
     used = n if weighted is None else int(np.count_nonzero(weighted))     # a weight of 0 leaves one out
     if used > 1:

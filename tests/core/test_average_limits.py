@@ -302,3 +302,31 @@ def test_all_the_weight_on_one_measurement_flags_none_and_divides_by_no_zero():
         warnings.simplefilter("error")
         result = average(_w_first(rotations), [0, 3, 0, 0])
     assert result.flagged == () and result.standard_uncertainty_deg is None
+
+
+def test_exact_fractions_are_numbers_like_any_other():
+    from fractions import Fraction
+    rows = [[Fraction(3, 5), Fraction(4, 5), 0, 0], [Fraction(3, 5), 0, Fraction(4, 5), 0], [1, 0, 0, 0]]
+    weights = [Fraction(1, 3), Fraction(2, 3), 1]
+    want = average(np.array(rows, dtype=float), [1 / 3, 2 / 3, 1])
+    for given in (rows, np.array(rows, dtype=object)):
+        got = average(given, weights)
+        assert got.mean.isclose(want.mean, 1e-15) and got.rms_deg == pytest.approx(want.rms_deg, rel=1e-15)
+        assert mean_orientation(given, np.array(weights, dtype=object)).isclose(want.mean, 1e-15)
+
+
+def test_a_far_measurement_of_the_largest_weight_is_flagged():
+    # the others weigh 0.3 each, less than it together (a leave-one-out with SciPy says 12 scatters)
+    good = _measurements(4, scatter_deg=0.02, seed=21)
+    rotations = Rotation.concatenate([good, good[0] * Rotation.from_rotvec([0, 0, math.radians(0.4)])])
+    weights = np.array([0.3, 0.3, 0.3, 0.3, 1.0])
+    assert _scatters_from_the_others(rotations, weights, 4) > 2 * OUTLIER_SCATTERS
+    assert average(_w_first(rotations), weights).flagged == (4,)
+
+
+def test_others_with_no_scatter_cannot_judge_one_that_differs():
+    # three identical readings and one 0.57° off: the others' scatter is zero, so "three scatters" means
+    # nothing and none is flagged (the rule asks for a scatter above zero)
+    a = Rotation.from_euler("ZYX", [10, 20, 30], degrees=True)
+    rows = np.array([_w_first(a)] * 3 + [_w_first(a * Rotation.from_rotvec([0.01, 0, 0]))])
+    assert average(rows).flagged == ()
