@@ -681,10 +681,10 @@ def test_residuals_of_exactly_1e100_times_the_spread_are_taken():
 
 
 def test_residuals_that_overflow_when_scaled_are_refused_without_a_warning():
-    # points 1e-300 apart with residuals of 1: scaled to the points' spread they pass 1e308
+    # points 1e-300 apart with residuals of 1e100: scaled to the points' spread they pass 1e308
     _refused("point fit uncertainty: the residuals are out of all proportion to the points' spread (more than "
              "1e100 times it); expected residuals and points in one unit", point_fit_uncertainty, BRACKET * 1e-300,
-             TURNED, np.ones_like(BRACKET))
+             TURNED, np.full_like(BRACKET, 1e100))
 
 
 OVERFLOW_WORDS = ("the covariance is beyond the largest number a double holds; expected residuals and weights in "
@@ -702,6 +702,9 @@ def test_a_covariance_beyond_a_double_is_refused_and_not_returned_as_infinity():
     # a given direction uncertainty with weights of the smallest double: an information of 1e-323
     _refused("direction fit covariance: " + OVERFLOW_WORDS, direction_fit_covariance, np.eye(3), TURNED,
              weights=[5e-324] * 3, direction_uncertainty_deg=1.0)
+    # and with an uncertainty of 0: 0 times that infinite inverse is no number either (refused, no warning)
+    _refused("direction fit covariance: " + OVERFLOW_WORDS, direction_fit_covariance, np.eye(3), TURNED,
+             weights=[5e-324] * 3, direction_uncertainty_deg=0.0)
 
 
 def test_an_information_of_zeros_is_refused_as_undetermined():
