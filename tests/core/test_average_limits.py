@@ -330,3 +330,14 @@ def test_others_with_no_scatter_cannot_judge_one_that_differs():
     a = Rotation.from_euler("ZYX", [10, 20, 30], degrees=True)
     rows = np.array([_w_first(a)] * 3 + [_w_first(a * Rotation.from_rotvec([0.01, 0, 0]))])
     assert average(rows).flagged == ()
+
+
+@pytest.mark.parametrize("row, canonical", [([0.6, -0.8, 0.0, 0.0], [0.6, -0.8, 0.0, 0.0]),
+                                            ([-0.6, 0.0, 0.0, 0.8], [0.6, 0.0, 0.0, -0.8]),
+                                            ([0.8, 0.0, 0.6, 0.0], [0.8, 0.0, 0.6, 0.0])])
+def test_the_mean_has_no_minus_zero(row, canonical):
+    # eigh returned −0.0 in the zero components of these (numpy 2.4): the canonical quaternion (w >= 0,
+    # CONVENTIONS.md) with plain zeros, so nothing prints as "-0"
+    for q in (mean_orientation([row]).quaternion, average([row, row]).mean.quaternion):
+        assert np.allclose(q, canonical, rtol=0, atol=1e-15)
+        assert not np.any(np.signbit(q) & (q == 0)) and np.count_nonzero(q == 0) == 2
