@@ -82,11 +82,11 @@ def _mean(q: np.ndarray, w: np.ndarray | None) -> Orientation:
     top = vectors[:, -1]
     top = top / math.sqrt(float(top @ top))
     # eigh gives a unit vector; the canonical sign makes it an Orientation without the constructor's checks
-    # (w far from 0 decides the sign alone; near a half turn the kernel's rule does). + 0.0 turns eigh's -0.0
-    # into 0.0, as the kernel does, so no component prints as "-0".
+    # (w far from 0 decides the sign alone; near a half turn the kernel's rule does). + 0.0 turns the -0.0
+    # that eigh leaves into 0.0, as the kernel does, so no component prints as "-0".
     w = float(top[0])
-    return Orientation._from_kernel(top + 0.0 if w > 1e-6 else -top + 0.0 if w < -1e-6
-                                    else kernels.canonical_quaternions(top))
+    return Orientation._from_kernel((top if w > 1e-6 else -top if w < -1e-6 else kernels.canonical_quaternions(top))
+                                    + 0.0)
 
 
 def mean_orientation(measurements, weights=None) -> Orientation:
