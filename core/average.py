@@ -27,7 +27,8 @@ class Average:
     """mean: the average; angles_deg[i]: measurement i's angle from it; rms_deg, max_deg: the scatter;
     covariance_rad2: of the average, a small rotation in the reference frame (core.uncertainty), the
     scatter's covariance (Bessel-corrected) over n; standard_uncertainty_deg: its mean per axis,
-    √(trace / 3) (for equal weights rms / √(3 (n − 1))); both None for one measurement;
+    √(trace / 3) (for equal weights rms / √(3 (n − 1))), n counting the measurements of weight above 0;
+    both None for one such measurement;
     flagged: measurements more than OUTLIER_SCATTERS scatters from the average of the others."""
     mean: Orientation
     count: int
@@ -53,7 +54,7 @@ def _quaternions(measurements) -> np.ndarray:
         raise InvalidInputError(f"average: expected 1 to {MAX_MEASUREMENTS} measurements, got {len(q)}")
     # one pass over the squared norms: within about 1e-6 of 1 also proves the four numbers finite and at most
     # about 1 (NaN fails the comparison), so finiteness is looked at only to word the refusal
-    with np.errstate(over="ignore", invalid="ignore"):          # 1e200 squared is inf: refused below
+    with np.errstate(over="ignore"):          # 1e200 squared is inf: refused below
         square = (q * q) @ np.ones(4)
         off = float(np.abs(square - 1).max())
     if not off <= 2e-6:
@@ -81,9 +82,11 @@ def _mean(q: np.ndarray, w: np.ndarray | None) -> Orientation:
     top = vectors[:, -1]
     top = top / math.sqrt(float(top @ top))
     # eigh gives a unit vector; the canonical sign makes it an Orientation without the constructor's checks
-    # (w far from 0 decides the sign alone; near a half turn the kernel's rule does)
+    # (w far from 0 decides the sign alone; near a half turn the kernel's rule does). + 0.0 turns the -0.0
+    # that eigh leaves into 0.0, as the kernel does, so no component prints as "-0".
     w = float(top[0])
-    return Orientation._from_kernel(top if w > 1e-6 else -top if w < -1e-6 else kernels.canonical_quaternions(top))
+    return Orientation._from_kernel((top if w > 1e-6 else -top if w < -1e-6 else kernels.canonical_quaternions(top))
+                                    + 0.0)
 
 
 def mean_orientation(measurements, weights=None) -> Orientation:
@@ -92,8 +95,9 @@ def mean_orientation(measurements, weights=None) -> Orientation:
     return _mean(q, _weights(weights, len(q)))
 
 
-def _far_from_the_others(errors: np.ndarray, square: np.ndarray, w: np.ndarray) -> list[int]:
-    """Measurements more than OUTLIER_SCATTERS scatters from the average of the others. Leaving out
+def _far_from_the_others(square: np.ndarray, w: np.ndarray) -> list[int]:
+    """Measurements more than OUTLIER_SCATTERS scatters from the average of the others, from the squared
+    errors |eᵢ|² about the average and the weights. Leaving out
     measurement i (error eᵢ from the average, small turns) moves the average by Δ = −wᵢ eᵢ / (W − wᵢ), so its
     distance from the others' average is |eᵢ| W / (W − wᵢ), and the others' mean square error about their
     own average is (Σ w|e|² − wᵢ|eᵢ|² − wᵢ²|eᵢ|² / (W − wᵢ)) / (W − wᵢ): every case at once, to first order."""
@@ -127,11 +131,12 @@ def average(measurements, weights=None) -> Average:
     total = w.sum()
     rms = math.sqrt(float((w * angles ** 2).sum() / total))
     n = len(q)
-    flagged = _far_from_the_others(errors, square, w) if n >= 3 else []
+    flagged = _far_from_the_others(square, w) if n >= 3 else []
     covariance = uncertainty = None
-    if n > 1:
+    used = n if weighted is None else int(np.count_nonzero(weighted))     # a weight of 0 leaves one out
+    if used > 1:
         spread = errors @ mean.as_matrix().T         # the same turns in the reference frame: δ = M · e
-        covariance = (spread * w[:, None]).T @ spread / total / (n - 1)
+        covariance = (spread * w[:, None]).T @ spread / total / (used - 1)
         uncertainty = math.degrees(math.sqrt(float(np.trace(covariance)) / 3))
     return Average(mean, n, angles, rms, float(angles.max()), uncertainty, tuple(flagged),
                    covariance)

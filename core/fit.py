@@ -89,7 +89,7 @@ def read_weights(weights, n, what="weights"):
     bad = ~np.isfinite(w) | (w < 0)
     if bad.any():
         i = int(np.argmax(bad))
-        raise InvalidInputError(f"{what}: weight {i + 1} is {w[i]!r}; expected a finite number >= 0")
+        raise InvalidInputError(f"{what}: weight {i + 1} is {float(w[i])!r}; expected a finite number >= 0")
     return w / _binary_scale(_largest(w))    # only their ratios count; 1e308s must not overflow the sum
 
 

@@ -139,7 +139,7 @@ def inclinometer_reading(orientation, face, direction=None, down=DOWN_Z_UP):
             f"in the face, such as {DEFAULT_IN_FACE[name[1]]}")
     notes = ()
     if length < 1.0 - 1e-12:
-        notes = (f"the chosen direction was {np.degrees(np.arccos(min(length, 1.0))):.3g}° out of the face "
+        notes = (f"the chosen direction was {np.degrees(np.arccos(length)):.3g}° out of the face "
                  f"plane; it was projected onto the face",)
     x = x / length
     y = np.cross(normal, x)
