@@ -249,7 +249,7 @@ class SessionModel(QObject):
         """Set the selected mount's orientation to the average of its measurements."""
         result = self.current_average()
         self.apply(operations.use_average, origin=origin, text=None if result is None else
-                   f"Use the average of {result.count} measurements of “{self.current_mount().name}”")
+                   f"Use the average of {result.counted} measurements of “{self.current_mount().name}”")
 
     def add_mount(self, name: str | None = None, orientation: Orientation | None = None,
                   origin: object | None = None) -> None:

@@ -29,7 +29,8 @@ class Average:
     scatter's covariance (Bessel-corrected) over n; standard_uncertainty_deg: its mean per axis,
     √(trace / 3) (for equal weights rms / √(3 (n − 1))), n counting the measurements of weight above 0;
     both None for one such measurement;
-    flagged: measurements more than OUTLIER_SCATTERS scatters from the average of the others."""
+    flagged: measurements more than OUTLIER_SCATTERS scatters from the average of the others;
+    counted: how many have a weight above 0 (those that move the mean; count is all of them)."""
     mean: Orientation
     count: int
     angles_deg: np.ndarray
@@ -38,6 +39,7 @@ class Average:
     standard_uncertainty_deg: float | None
     flagged: tuple[int, ...]
     covariance_rad2: np.ndarray | None = None
+    counted: int | None = None
 
 
 def _quaternions(measurements) -> np.ndarray:
@@ -139,4 +141,4 @@ def average(measurements, weights=None) -> Average:
         covariance = (spread * w[:, None]).T @ spread / total / (used - 1)
         uncertainty = math.degrees(math.sqrt(float(np.trace(covariance)) / 3))
     return Average(mean, n, angles, rms, float(angles.max()), uncertainty, tuple(flagged),
-                   covariance)
+                   covariance, used)

@@ -126,8 +126,9 @@ class RepeatedMeasurementsBox(QGroupBox):
                               f"“{mount.name}”: select it to use its scatter.", problem=True)
             return
         at_mean = mount.orientation.angle_to(result.mean) <= AT_THE_MEAN_DEG
-        # the mean's covariance is one measurement's over n (core/average.py), so one measurement's u is √n times
-        scale = 1.0 if at_mean else float(result.count)
+        # the mean's covariance is one measurement's over n (core/average.py), n counting the measurements of
+        # weight above 0, so one measurement's u is √n times
+        scale = 1.0 if at_mean else float(result.counted)
         u = result.standard_uncertainty_deg * math.sqrt(scale)
         # the covariance too, so each figure the check judges gets its own u (a scatter is seldom round)
         covariance = result.covariance_rad2 * scale * (180 / math.pi) ** 2
@@ -140,7 +141,7 @@ class RepeatedMeasurementsBox(QGroupBox):
         what = "of the mean (the mount is at the average)" if at_mean else \
             "of one measurement (the mount is not at the average)"
         self.model.apply(operations.set_check, replace(check, adjustment=adjustment), origin=self,
-                         text=f"Use the scatter of {result.count} measurements as the uncertainty")
+                         text=f"Use the scatter of {result.counted} measurements as the uncertainty")
         digits = self.model.preferences.significant_digits
         self.message.say(f"u = {significant(u, digits)}°, the standard uncertainty {what}.")
 

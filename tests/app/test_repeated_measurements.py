@@ -281,3 +281,25 @@ def test_a_weight_typed_before_add_counts_in_the_average_and_a_bad_weight_keeps_
     np.testing.assert_allclose(shown_numbers(box.summary_label, "Mean quaternion (w, x, y, z)"),
                                canonical_wxyz(expected), atol=2e-9, rtol=0)
     assert "weight 3" in box.list.item(2).text()
+
+
+def test_a_measurement_of_weight_0_is_not_counted_in_one_measurements_uncertainty(qtbot, bench):
+    # Three measurements of weight 1 and the nominal kept with weight 0: the mean and its scatter are the
+    # three's; away from the mean one measurement's u is the mean's times √3, not √4 (core/average.py:
+    # the mean's covariance is one measurement's over the number that count).
+    window, box, nominal, repeats = bench
+    model = window.model
+    add_each(qtbot, window, box, repeats)
+    type_quaternion(qtbot, window, nominal)
+    type_weight(qtbot, box, "0")
+    click(qtbot, box.add_button)
+    assert [m.weight for m in model.current_mount().measurements] == [1.0, 1.0, 1.0, 0.0]
+    mean = Rotation.concatenate(repeats).mean()                      # SciPy, the three alone
+    angles = np.degrees([(mean.inv() * r).magnitude() for r in repeats])
+    u_mean = math.sqrt(np.sum(angles ** 2) / 18)                     # by hand, see the module note
+    click(qtbot, box.scatter_button)
+    assert "of one measurement" in box.message.text()
+    assert model.check.adjustment.uncertainty_deg == pytest.approx(u_mean * math.sqrt(3), rel=1e-9)
+    assert model.undo_stack.undoText() == "Use the scatter of 3 measurements as the uncertainty"
+    click(qtbot, box.average_button)
+    assert model.undo_stack.undoText() == "Use the average of 3 measurements of “Radar antenna, as measured”"

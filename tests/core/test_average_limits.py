@@ -341,3 +341,12 @@ def test_the_mean_has_no_minus_zero(row, canonical):
     for q in (mean_orientation([row]).quaternion, average([row, row]).mean.quaternion):
         assert np.allclose(q, canonical, rtol=0, atol=1e-15)
         assert not np.any(np.signbit(q) & (q == 0)) and np.count_nonzero(q == 0) == 2
+
+
+def test_counted_is_the_number_of_measurements_of_weight_above_0():
+    # count is every measurement given; counted those that move the mean (weight above 0), by hand.
+    q = Rotation.from_rotvec(np.radians([[0.1, 0, 0], [0, 0.2, 0], [0, 0, 0.3], [0.2, 0.2, 0]])).as_quat(
+        scalar_first=True)
+    assert (average(q).count, average(q).counted) == (4, 4)
+    assert (average(q, [1, 0, 2, 0]).count, average(q, [1, 0, 2, 0]).counted) == (4, 2)
+    assert average(q[:1]).counted == 1
