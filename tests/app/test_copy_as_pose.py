@@ -96,14 +96,34 @@ def test_a_verified_pose_copy_states_both_round_trip_errors(fmt):
     assert f" and {result.round_trip_error_m * 1e3:.1e} mm — verified." in result.status_message
 
 
-def test_a_pose_copy_whose_position_is_a_micrometre_off_is_not_verified(monkeypatch):
+def written_off_by(monkeypatch, metres):
+    """Copies whose position is written `metres` off along +X (a renderer with a fault)."""
     real = pose_formats.render_pose
 
     def moved(orientation, position, fmt, scalar_last=False):
-        metres = np.array(position.metres) + (1e-6, 0.0, 0.0)
-        return real(orientation, Position(tuple(metres), position.unit), fmt, scalar_last)
+        shifted = np.array(position.metres) + (metres, 0.0, 0.0)
+        return real(orientation, Position(tuple(shifted), position.unit), fmt, scalar_last)
 
     monkeypatch.setattr(pose_formats, "render_pose", moved)
+
+
+def test_a_pose_copy_within_a_nanometre_is_verified_and_says_how_far_in_mm(monkeypatch):
+    written_off_by(monkeypatch, 9.949e-10)                      # 9.949e-07 mm, printed 9.9e-07
+    result = copy_as.copy_to_clipboard(placed_model(), "pose-line")
+    assert result.verified and result.json_text is None
+    assert result.round_trip_error_m == pytest.approx(9.949e-10, rel=1e-6)
+    assert result.status_message.endswith(" and 9.9e-07 mm — verified."), result.status_message
+
+
+def test_a_pose_copy_a_millimetre_off_says_so_in_mm(monkeypatch):
+    written_off_by(monkeypatch, 0.999e-3)
+    result = copy_as.copy_to_clipboard(placed_model(), "pose-line")
+    assert not result.verified
+    assert " and 0.999 mm — NOT verified; " in result.status_message, result.status_message
+
+
+def test_a_pose_copy_whose_position_is_a_micrometre_off_is_not_verified(monkeypatch):
+    written_off_by(monkeypatch, 1e-6)
     result = copy_as.copy_to_clipboard(placed_model(), "pose-matrix")
     assert not result.verified
     assert result.round_trip_error_m == pytest.approx(1e-6, rel=1e-6)

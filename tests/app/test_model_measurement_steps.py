@@ -123,3 +123,15 @@ def test_the_measurements_belong_to_the_selected_mount(model):
     assert model.undo_stack.undoText() == "Add measurement 1 to “Mast unit”"
     assert len(model.mounts[0].measurements) == 1 and model.mounts[1].measurements[0].weight == 3.0
     np.testing.assert_array_equal(model.mounts[1].measurements[0].orientation.as_quaternion(), [1, 0, 0, 0])
+
+
+def test_removing_one_of_two_equal_measurements_names_the_one_removed(model, seen):
+    model.add_measurement()
+    model.add_measurement()                           # two equal measurements, then another
+    model.set_orientation(_orientation(ROTATIONS[1]))
+    model.add_measurement()
+    model.remove_measurement(0, origin="repeats box")
+    assert model.undo_stack.undoText() == "Remove measurement 1 of “Boom camera”"
+    assert seen[-1].what == {MEASUREMENTS} and seen[-1].origin == "repeats box"
+    assert [m.orientation for m in model.current_mount().measurements] == \
+        [Orientation.identity(), _orientation(ROTATIONS[1])]

@@ -247,3 +247,49 @@ def test_undo_restores_a_description_edit_and_nothing_else(model):
     model.set_preferences(significant_digits=5)
     model.undo()
     assert model.session().description == "" and model.preferences.significant_digits == 5
+
+
+def test_a_new_model_holds_one_mount_no_file_and_nothing_to_undo():
+    from PySide6.QtCore import QObject
+
+    owner = QObject()
+    model = SessionModel(parent=owner)
+    assert model.parent() is owner
+    assert model.session() == Session.single() and len(model.mounts) == 1
+    assert model.file_path is None and model.undo_stack.count() == 0
+    assert model.show_chain_frames is True
+    assert model.set_chain_in_view(False) is False      # not in view to begin with
+    # the stack and the pause clock belong to the model (freed and stopped with it)
+    assert model.undo_stack.parent() is model and model._idle.parent() is model
+
+
+def test_a_continuous_edit_through_apply_waits_for_a_pause_unless_told(model):
+    model.apply(operations.set_orientation, TURN, continuous_key="wheel")
+    assert model._idle.isActive()
+    model.apply(operations.set_orientation, Orientation.identity(), continuous_key="typing", pause_ends_run=False)
+    assert not model._idle.isActive()
+
+
+def test_every_end_of_a_run_starts_a_new_step(model):
+    for degrees in (1.0, 2.0, 3.0, 4.0):
+        model.set_orientation(Orientation.from_axis_angle((0, 0, 1), degrees), continuous_key="drag")
+        model.set_orientation(Orientation.from_axis_angle((0, 0, 1), degrees + 0.5), continuous_key="drag")
+        model.end_continuous()
+    assert model.undo_stack.count() == 4
+    model.undo()
+    assert model.current_orientation() == Orientation.from_axis_angle((0, 0, 1), 3.5)
+
+
+def test_the_frames_of_a_one_step_chain_are_shown_beside_its_mount(model):
+    one = Chain((ChainStep("bracket", Orientation.from_axis_angle((0, 0, 1), 90.0)),), name="mast")
+    model.apply(operations.set_chain, one)
+    model.make_chain_mount()
+    assert [label for _, label in model.scene_frames()] == ["1 bracket = product"]
+
+
+def test_no_ghost_when_the_checks_nominal_is_not_a_mount(model):
+    from core.session import SavedCheck
+
+    model.apply(operations.set_check, SavedCheck("gone", "B"))
+    assert model.check_mount_indices() == (None, 1) and model.selected_index == 1
+    assert model.ghost_orientation() is None and model.ghost_label() is None
