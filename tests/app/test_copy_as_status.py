@@ -124,3 +124,29 @@ def test_a_pose_copy_of_a_mount_without_a_position_is_refused_and_copies_nothing
     assert result.status_message == ("Nothing copied: 4×4 pose matrix (needs a position) failed (the pose-matrix "
                                      "format needs a mount with a position; this one has none).")
     assert QGuiApplication.clipboard().text() == "kept"
+
+
+def test_a_copy_written_in_another_convention_than_its_caption_is_not_verified(model, monkeypatch):
+    # w-last numbers under a w-first caption: read back with the format's own hints they are another
+    # orientation, so the copy must not pass (a reading that guessed the order would hide the fault)
+    real = formats._values
+
+    def swapped(orientation, options):
+        values = real(orientation, options)
+        return values[1:] + values[:1] if options.representation == "quaternion" else values
+
+    monkeypatch.setattr(formats, "_values", swapped)
+    for fmt in ("text", "python", "c", "matlab", "csv"):
+        result = copy_as.copy_to_clipboard(model, fmt, QUATERNION_EDITOR)
+        assert not result.verified and "NOT verified" in result.status_message, (fmt, result.status_message)
+
+
+@pytest.mark.parametrize("kind", ["matrix", "angles", "axis-angle", "rotation-vector"])
+@pytest.mark.parametrize("fmt", ["json", "report"])
+def test_json_and_the_report_are_read_back_by_their_exact_quaternion_from_any_editor(model, fmt, kind):
+    # the report prints its matrix and angles to ten decimals and its quaternion exactly: read back by
+    # the quaternion, whichever editor was in use, the copy is exact
+    editor = SimpleNamespace(representation=representations.lookup(kind))
+    result = copy_as.copy_to_clipboard(model, fmt, editor)
+    assert result.verified, result.status_message
+    assert result.round_trip_error_deg < 1e-12
