@@ -17,6 +17,10 @@ CONTINUOUS_ID = 1001
 RETURNED_TO_START_RAD = 1e-13
 
 
+# Qt calls redo, undo and mergeWith itself. PySide6 6.11 crashes the whole process (a segfault in shiboken's
+# error report) when an error the interpreter raised (a TypeError, a KeyError, not a `raise`) leaves such an
+# override without passing through an except clause; so each re-raises what it catches, and the caller (the
+# editor that made the edit) gets the error instead of the window crashing.
 class ReplaceSessionCommand(QUndoCommand):
     """Replace the session. Consecutive continuous edits with the same key merge into one step (one drag,
     one typing run); a merged step that ends where it started is obsolete and leaves the stack."""
@@ -39,6 +43,12 @@ class ReplaceSessionCommand(QUndoCommand):
         return CONTINUOUS_ID if self.continuous_key is not None else -1
 
     def mergeWith(self, other) -> bool:
+        try:
+            return self._merge(other)
+        except Exception:
+            raise                                   # re-raised: see above the class
+
+    def _merge(self, other) -> bool:
         if (getattr(other, "continuous_key", None) != self.continuous_key
                 or other.merge_token != self.merge_token
                 or other.old != self.new):           # something else changed in between: a step of its own
@@ -54,11 +64,17 @@ class ReplaceSessionCommand(QUndoCommand):
         return True
 
     def redo(self) -> None:
-        origin, self._first_origin = self._first_origin, None
-        self._model._restore(self.new, self.fields, origin)
+        try:
+            origin, self._first_origin = self._first_origin, None
+            self._model._restore(self.new, self.fields, origin)
+        except Exception:
+            raise                                   # re-raised: see above the class
 
     def undo(self) -> None:
-        self._model._restore(self.old, self.fields, None)
+        try:
+            self._model._restore(self.old, self.fields, None)
+        except Exception:
+            raise                                   # re-raised: see above the class
 
 
 def _returned_to_start(old, new) -> bool:
