@@ -63,9 +63,6 @@ def test_the_pose_line_is_t_then_the_quaternion_w_first():
     np.testing.assert_allclose(row[3:], ROTATION.as_quat(scalar_first=True, canonical=True), atol=1e-15)
 
 
-@pytest.mark.xfail(strict=True, reason="core/pose_formats.read_pose passes the order as a hint although the "
-                   "decoder already reordered the named columns, so a scalar-last pose line is always refused "
-                   "('Nothing copied'); the lead engineer is fixing it in core")
 def test_the_pose_line_is_t_then_the_quaternion_w_last_when_asked():
     model = placed_model()
     model.set_preferences(quaternion_order="xyzw")
