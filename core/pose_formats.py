@@ -32,6 +32,10 @@ _LINE_HEADER = ("# Pose: position x, y, z in {unit}, then quaternion {order} (Ha
                 "# {columns}")
 
 
+# The unit as the header writes it: 'in' in full ('t in inches'), which a reader cannot take for a word.
+_UNIT_WORD = {"in": "inches"}
+
+
 def render_pose(orientation, position: Position, fmt: str, scalar_last: bool = False) -> str:
     """The pose as text: the header line, then the numbers (position in its own unit)."""
     if not isinstance(position, Position):
@@ -41,12 +45,13 @@ def render_pose(orientation, position: Position, fmt: str, scalar_last: bool = F
         r = orientation.as_matrix()
         rows = [list(r[i]) + [t[i]] for i in range(3)]
         lines = ["  ".join(format_number(v) for v in row) for row in rows] + ["0.0  0.0  0.0  1.0"]
-        return _MATRIX_HEADER.format(unit=position.unit) + "\n" + "\n".join(lines) + "\n"
+        return _MATRIX_HEADER.format(unit=_UNIT_WORD.get(position.unit, position.unit)) + "\n" + "\n".join(lines) + "\n"
     if fmt == "pose-line":
         q = orientation.as_quaternion(scalar_last=scalar_last)
         columns = [f"{axis}_{position.unit}" for axis in "xyz"] + (
             ["qx", "qy", "qz", "qw"] if scalar_last else ["qw", "qx", "qy", "qz"])
-        header = _LINE_HEADER.format(unit=position.unit, order="x, y, z, w" if scalar_last else "w, x, y, z",
+        header = _LINE_HEADER.format(unit=_UNIT_WORD.get(position.unit, position.unit),
+                                     order="x, y, z, w" if scalar_last else "w, x, y, z",
                                      scalar="scalar last" if scalar_last else "scalar first", columns=" ".join(columns))
         return header + "\n" + ", ".join(format_number(v) for v in list(t) + list(q)) + "\n"
     raise FramewrightError(f"unknown pose format {fmt!r}; expected one of {', '.join(POSE_FORMAT_NAMES)}")
@@ -61,7 +66,8 @@ def pose_round_trip(orientation, position: Position, text: str, fmt: str, scalar
 
 def read_pose(text: str, fmt: str, scalar_last: bool = False):
     """(Orientation, translation in metres) of a pose copy, as the decoder reads it with the hints that
-    match the format: exactly one reading, of the layout the format writes, with a translation in mm or m."""
+    match the format: exactly one reading, of the layout the format writes, with a translation in mm, m,
+    inches or thou."""
     hints = DecodeHints(kind="matrix", transposed=False) if fmt == "pose-matrix" else \
         DecodeHints(kind="quaternion", order="xyzw" if scalar_last else "wxyz")
     readings = decode(text, hints)              # DecodeError is a FramewrightError: the copy is refused
@@ -75,5 +81,5 @@ def read_pose(text: str, fmt: str, scalar_last: bool = False):
     if reading.translation is None:
         raise FramewrightError(f"the {fmt} text holds no translation")
     if reading.translation_unit not in LENGTH_UNITS:
-        raise FramewrightError(f"the {fmt} text names no length unit (mm or m) for its translation")
+        raise FramewrightError(f"the {fmt} text names no length unit (mm, m, inches or thou) for its translation")
     return reading.orientation, Position.from_shown(reading.translation, reading.translation_unit).metres

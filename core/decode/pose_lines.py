@@ -25,7 +25,7 @@ _SUM = re.compile(rf"(?:^|[^\w.])[-+]?[ ]*{_TERM}(?:[ ]*[-+][ ]*{_TERM}){{1,3}}"
 _TIME_COLUMN = re.compile(r"#?(?:timestamp|time|t|stamp|sec|secs|nsec|ns|field\.header\.stamp)")
 _Q_COLUMN = re.compile(r"(?:q|quat|quaternion|orientation|rot|rotation)[\w.]*?[_.]?([wxyz])|q([wxyz])")
 _T_COLUMN = re.compile(r"(?:t|p|pos|position|trans|translation)[\w.]*?[_.]?([xyz])|([xyz])")
-_UNIT_SUFFIX = re.compile(r"_(mm|m|cm)$")
+_UNIT_SUFFIX = re.compile(r"_(mm|m|cm|in|thou)$")
 _COLUMN_UNIT = re.compile(r"[ ]*(?:\[(?P<unit>[^\[\]()]{0,12})\]|\((?P<unit2>[^\[\]()]{0,12})\))$")
 _INLINE_HEADER = re.compile(r"^[^\d\n\[(]{0,80}[\[(](?P<names>[A-Za-z_][^\[\]()\n]{0,200})[\])][ ]*[:=][ ]*(?P<data>[^\n]+)$",
                             re.MULTILINE)
@@ -236,7 +236,7 @@ def _pose_from_columns(header: list[str], rows: list, header_line: int) -> list[
         raise DecodeError(f"line {line}: {len(values)} numbers under a header of {len(header)} columns")
     by = {role: v for role, v in zip(roles, values)}
     units = {u for n in header if (u := _column_unit(n))}
-    unit = "m" if "m" in units else "mm" if "mm" in units else None
+    unit = next((u for u in ("m", "mm", "in", "thou") if u in units), None)
     translation = checked_translation([by.get("tx"), by.get("ty"), by.get("tz")], line) if \
         all(k in by for k in ("tx", "ty", "tz")) else None
     notes = [f"columns named by the header on line {header_line}: {' '.join(header)[:120]}"]

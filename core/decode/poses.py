@@ -42,8 +42,9 @@ class PoseText:
 
 
 _UNIT_SAID = re.compile(r"(?<![a-z])(?:t|translation|position|offset)[ ]*(?:\(|\[|is[ ]+|in[ ]+)[ ]*"
-                        r"(mm|millimet(?:re|er)s?|m|met(?:re|er)s?|cm)(?![a-z])")
-_UNIT_WORDS = {"millimetre": "mm", "millimeter": "mm", "metre": "m", "meter": "m"}
+                        r"(mm|millimet(?:re|er)s?|m|met(?:re|er)s?|cm|inch(?:es)?|thou)(?![a-z])")
+# ('in' alone is not a unit here: 't in mm' has it as a word; inches are named in full)
+_UNIT_WORDS = {"millimetre": "mm", "millimeter": "mm", "metre": "m", "meter": "m", "inch": "in", "inche": "in"}
 
 
 def unit_said(words: str) -> str | None:

@@ -74,9 +74,6 @@ def test_the_pose_line_is_t_then_the_quaternion_w_last_when_asked():
     np.testing.assert_allclose(row[3:], ROTATION.as_quat(canonical=True), atol=1e-15)     # SciPy: scalar last
 
 
-@pytest.mark.xfail(strict=True, reason="a position shown in inches or thou (units the window offers) is "
-                   "refused when copied as a pose: the decoder reads a pose's translation only in mm or m, so "
-                   "the pose matrix says 'names no length unit' and the pose line is not recognised")
 @pytest.mark.parametrize("fmt", copy_as.POSE_FORMATS)
 @pytest.mark.parametrize("unit", ["in", "thou"])
 def test_a_position_in_the_trades_inch_units_is_copied_as_a_pose(fmt, unit):

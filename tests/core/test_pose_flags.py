@@ -69,3 +69,15 @@ def test_flags_that_cannot_be_one_pose_are_refused_naming_the_flag(text, words):
 def test_a_flag_that_is_no_part_of_a_pose_is_named_in_a_note():
     top = decode("--x 0 --y 0 --z 0 --yaw 0.5 --pitch 0 --roll 0 --period 100")[0]
     assert any("--period" in n for n in top.notes)
+
+
+@pytest.mark.parametrize("text, unit", [
+    ("# t in inches\n1 0 0 2\n0 1 0 3\n0 0 1 4\n0 0 0 1", "in"),
+    ("# translation in thou\n1 0 0 2\n0 1 0 3\n0 0 1 4\n0 0 0 1", "thou"),
+    ("# t in in\n1 0 0 2\n0 1 0 3\n0 0 1 4\n0 0 0 1", None),   # 'in' alone is a word, not a unit
+    ("# x_in y_in z_in qw qx qy qz\n2, 3, 4, 1, 0, 0, 0", "in"),
+    ("# x_thou y_thou z_thou qw qx qy qz\n2, 3, 4, 1, 0, 0, 0", "thou"),
+])
+def test_a_translation_in_inches_or_thou_is_read_in_that_unit(text, unit):
+    (reading,) = [r for r in decode(text) if "transposed" not in r.label]
+    assert reading.translation == (2.0, 3.0, 4.0) and reading.translation_unit == unit

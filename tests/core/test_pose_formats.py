@@ -6,6 +6,8 @@ Check values: CONVENTIONS.md "Poses" (p_ref = R · p_body + t, [[R, t], [0 0 0 1
 with one built by numpy from SciPy's Rotation (a general-purpose reference library), and used on a point
 against SciPy's apply plus t; the quaternion against SciPy's as_quat."""
 
+import re
+
 import numpy as np
 import pytest
 from scipy.spatial.transform import Rotation
@@ -52,7 +54,7 @@ def test_the_pose_line_names_its_order_and_holds_position_then_quaternion(scalar
 
 
 @pytest.mark.parametrize("fmt", ["pose-matrix", "pose-line"])
-@pytest.mark.parametrize("unit", ["mm", "m"])
+@pytest.mark.parametrize("unit", ["mm", "m", "in", "thou"])
 @pytest.mark.parametrize("scalar_last", [False, True])
 def test_every_pose_copy_reads_back_exactly(fmt, unit, scalar_last):
     # Scalar last was refused on its way back: the header's named columns were put in w, x, y, z order
@@ -114,3 +116,20 @@ def test_a_damaged_4x4_copy_is_refused_not_read(change, words):
 def test_a_pose_copy_needs_a_position():
     with pytest.raises(FramewrightError, match="needs a mount with a position"):
         render_pose(ORIENTATION, None, "pose-line")
+
+
+@pytest.mark.parametrize("fmt, words", [("pose-matrix", "t in inches"), ("pose-line", "# x_in y_in z_in ")])
+def test_a_pose_in_inches_names_them_in_full_and_reads_back_in_inches(fmt, words):
+    # 1 in = 25.4 mm exactly (international inch, common practice): 250 mm is 9.84251968503937 in.
+    position = POSITION.in_unit("in")
+    text = render_pose(ORIENTATION, position, fmt)
+    assert words in text and not re.search(r"\bin in\b", text)
+    _, metres = read_pose(text, fmt)
+    np.testing.assert_allclose(metres, (0.25, -0.0125, 1.00175), atol=1e-15)
+
+
+def test_a_pose_in_thou_reads_back_in_thou():
+    text = render_pose(ORIENTATION, POSITION.in_unit("thou"), "pose-line")
+    assert "# x_thou y_thou z_thou qw qx qy qz" in text
+    _, metres = read_pose(text, "pose-line")
+    np.testing.assert_allclose(metres, (0.25, -0.0125, 1.00175), atol=1e-15)
