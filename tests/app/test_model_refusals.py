@@ -51,13 +51,13 @@ def test_a_refused_edit_changes_nothing(model, seen, call, error, words):
     assert_unchanged(model, seen, before)
 
 
-@pytest.mark.xfail(strict=True, reason="SessionModel.duplicate_mount reads the mount for its undo text before "
-                   "core/operations.duplicate_mount checks the index, so a mount past the end is refused with "
-                   "Python's 'tuple index out of range', not with the message that names the mount number")
 def test_duplicating_a_mount_past_the_end_is_refused_by_its_number(model, seen):
     before = model.session()
     with pytest.raises(IndexError, match="mount 5 is outside 0..1"):
         model.duplicate_mount(5)
+    assert_unchanged(model, seen, before)
+    with pytest.raises(IndexError, match="mount -1 is outside 0..1"):   # not Python's last item
+        model.duplicate_mount(-1)
     assert_unchanged(model, seen, before)
 
 
