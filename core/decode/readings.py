@@ -22,6 +22,9 @@ from core.decode.numbers import ParsedNumbers, UNDERSTOOD_COUNTS
 
 _COUNT_KINDS = representations.COUNTS                           # {9: ('matrix',), 4: (...), 3: (...)}
 _KIND_COUNT = {r.kind: r.count for r in representations.ALL}
+# the kind as a message names it ('three angles need', not 'a angles needs'); others read 'a <kind>'
+_KIND_WORDS = {"angles": "a set of three angles", "axis-angle": "an axis and angle", "mrp": "an MRP vector",
+               "gibbs": "a Gibbs vector", "rotation-vector": "a rotation vector"}
 
 
 def readings_from_numbers(parsed: ParsedNumbers, hints=None, direction=None) -> list[Reading]:
@@ -116,7 +119,8 @@ def _readings(parsed: ParsedNumbers, hints: DecodeHints, direction=None) -> list
     count = len(values)
     _refuse_square_of_two(parsed, keyed, count)
     if hints.kind is not None and _KIND_COUNT[hints.kind] != count:
-        raise DecodeError(f"a {hints.kind} needs {_KIND_COUNT[hints.kind]} numbers; the text holds {count}"
+        raise DecodeError(f"{_KIND_WORDS.get(hints.kind, 'a ' + hints.kind)} needs {_KIND_COUNT[hints.kind]} numbers;"
+                          f" the text holds {count}"
                           f" ({parsed.lines_summary() or 'none'})")
     builder = {9: _matrix_candidates, 4: _four_candidates, 3: _three_candidates}[count]
     candidates = builder(values, parsed, hints, clues, keyed)

@@ -228,3 +228,17 @@ def test_an_angle_of_more_than_ten_turns_is_refused():
     best = decode("yaw: 725, pitch: 0, roll: 0")[0]
     assert np.allclose(best.orientation.as_matrix(), Rotation.from_euler("ZYX", [725, 0, 0], degrees=True).as_matrix(),
                        atol=1e-12)
+
+
+@pytest.mark.parametrize("kind, words", [
+    ("angles", "a set of three angles needs 3 numbers; the text holds 4"),
+    ("axis-angle", "an axis and angle needs 4 numbers; the text holds 3"),
+    ("mrp", "an MRP vector needs 3 numbers; the text holds 4"),
+    ("gibbs", "a Gibbs vector needs 3 numbers; the text holds 4"),
+    ("rotation-vector", "a rotation vector needs 3 numbers; the text holds 4"),
+    ("quaternion", "a quaternion needs 4 numbers; the text holds 3"),
+])
+def test_a_kind_hint_with_the_wrong_count_is_refused_in_plain_words(kind, words):
+    text = "0.1 0.2 0.3" if words.endswith("holds 3") else "0.1 0.2 0.3 0.4"
+    with pytest.raises(DecodeError, match=words):
+        decode(text, DecodeHints(kind=kind))
