@@ -1,8 +1,9 @@
 """Print the mutation score of the last `make mutate` run, per module, and the mutants that survived.
 
 Reads mutmut's results and the equivalent mutants listed in setup.cfg ([mutmut-equivalent]: a mutant's
-name, then why no test can tell it from the original). Score = killed / (checked − equivalent); a mutant
-that timed out counts as killed (the change made the code hang), one with no test as survived.
+name, then why no test can tell it from the original). Score = killed / (checked − equivalent − crashed); a mutant
+that timed out counts as killed (the change made the code hang), one with no test as survived; one
+whose test process crashed is shown apart (see tally).
 
     python scripts/mutation_score.py 'core.check.*' 'core.nearest.*'
 """
@@ -15,6 +16,7 @@ from collections import defaultdict
 from pathlib import Path
 
 KILLED = {"killed", "timeout"}
+CRASHED = {"segfault"}
 ROOT = Path(__file__).resolve().parents[1]
 
 
@@ -33,40 +35,64 @@ def module_of(name):
     return ".".join(parts[:-1])
 
 
+def tally(results_, equivalent, patterns=()):
+    """module -> kind -> [(name, status)], kind one of killed, equivalent, crashed, survived. A mutant whose
+    test process crashed ('segfault') has no verdict: forked workers also crash at the end of a session
+    with no mutant active (Qt objects collected after the fork), so it is neither killed nor survived."""
+    by_module = defaultdict(lambda: defaultdict(list))
+    for name, status in results_:
+        if patterns and not any(fnmatch.fnmatch(name, p) for p in patterns):
+            continue
+        if status == "not checked":
+            continue
+        kind = "equivalent" if name in equivalent else "killed" if status in KILLED else \
+            "crashed" if status in CRASHED else "survived"
+        by_module[module_of(name)][kind].append((name, status))
+    return by_module
+
+
+def scores(counts):
+    """(score leaving crashed mutants out, score counting them as survived), in percent."""
+    judged = counts["killed"] + counts["survived"]
+    best = 100.0 * counts["killed"] / judged if judged else 100.0
+    worst_judged = judged + counts["crashed"]
+    return best, 100.0 * counts["killed"] / worst_judged if worst_judged else 100.0
+
+
+KINDS = ("killed", "equivalent", "crashed", "survived")
+
+
 def main(patterns):
     config = configparser.ConfigParser(interpolation=None)
     config.optionxform = str
     config.read(ROOT / "setup.cfg")
     equivalent = dict(config["mutmut-equivalent"]) if config.has_section("mutmut-equivalent") else {}
-    by_module = defaultdict(lambda: defaultdict(list))
-    for name, status in results():
-        if patterns and not any(fnmatch.fnmatch(name, p) for p in patterns):
-            continue
-        if status == "not checked":
-            continue
-        kind = "equivalent" if name in equivalent else "killed" if status in KILLED else "survived"
-        by_module[module_of(name)][kind].append((name, status))
+    by_module = tally(results(), equivalent, patterns)
     if not by_module:
         print("no checked mutants; see mutants-run.log")
         return 1
-    print(f"{'module':<24}{'mutants':>9}{'killed':>8}{'equiv.':>8}{'survived':>10}{'score':>9}")
+    print("score = killed / (killed + survived); crashed mutants (no verdict) are left out of it, and the last "
+          "column counts them as survived")
+    print(f"{'module':<28}{'mutants':>9}{'killed':>8}{'equiv.':>8}{'crashed':>9}{'survived':>10}{'score':>9}"
+          f"{'crashed as survived':>21}")
     totals = defaultdict(int)
-    for module in sorted(by_module):
-        counts = {k: len(by_module[module][k]) for k in ("killed", "equivalent", "survived")}
-        judged = counts["killed"] + counts["survived"]
-        score = 100.0 * counts["killed"] / judged if judged else 100.0
-        print(f"{module:<24}{sum(counts.values()):>9}{counts['killed']:>8}{counts['equivalent']:>8}"
-              f"{counts['survived']:>10}{score:>8.1f}%")
-        for k, v in counts.items():
-            totals[k] += v
-    judged = totals["killed"] + totals["survived"]
-    print(f"{'all':<24}{sum(totals.values()):>9}{totals['killed']:>8}{totals['equivalent']:>8}"
-          f"{totals['survived']:>10}{100.0 * totals['killed'] / max(judged, 1):>8.1f}%")
-    survivors = [(n, s) for m in sorted(by_module) for n, s in by_module[m]["survived"]]
-    if survivors:
-        print("\nsurviving mutants (`.venv/bin/mutmut show NAME` shows the change):")
-        for name, status in survivors:
-            print(f"  {name}  [{status}]")
+    rows = sorted(by_module) + ["all"]
+    for module in rows:
+        if module == "all":
+            counts = totals
+        else:
+            counts = {k: len(by_module[module][k]) for k in KINDS}
+            for k, v in counts.items():
+                totals[k] += v
+        best, worst = scores(counts)
+        print(f"{module:<28}{sum(counts[k] for k in KINDS):>9}{counts['killed']:>8}{counts['equivalent']:>8}"
+              f"{counts['crashed']:>9}{counts['survived']:>10}{best:>8.1f}%{worst:>20.1f}%")
+    for kind, title in (("survived", "surviving mutants"), ("crashed", "mutants whose test run crashed")):
+        names = [(n, s) for m in sorted(by_module) for n, s in by_module[m][kind]]
+        if names:
+            print(f"\n{title} (`.venv/bin/mutmut show NAME` shows the change):")
+            for name, status in names:
+                print(f"  {name}  [{status}]")
     return 0
 
 
