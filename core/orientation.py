@@ -188,7 +188,10 @@ class Orientation:
         axis = kernels.check_array(axis, (3,), "axis")
         if axis.shape != (3,):
             raise InvalidInputError(f"axis: expected 3 numbers, got shape {axis.shape}")
-        angle = float(kernels.check_array(angle, (), "angle"))
+        angle = kernels.check_array(angle, (), "angle")
+        if angle.shape != ():                   # float() of an array of two would raise a bare TypeError
+            raise InvalidInputError(f"angle: expected one number, got shape {angle.shape}")
+        angle = float(angle)
         _check_angle_size(angle, degrees, "angle")
         length = _vector_length(axis)
         if length == 0 and angle != 0:

@@ -27,6 +27,9 @@ def _fresh_caches_under_mutation():
     """Under `make mutate` each mutant runs in a process forked after collection: a cache filled then
     would answer with the unmutated code. Emptied before each test there; a no-op otherwise."""
     if os.environ.get("MUTANT_UNDER_TEST"):
-        from core import sequences
+        from core import orientation, sequences
         sequences._parse_sequence_text.cache_clear()
+        orientation._IDENTITIES.clear()
+        from core.kernels import angles
+        angles._terms_matrices.cache_clear()
     yield

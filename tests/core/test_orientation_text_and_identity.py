@@ -68,3 +68,13 @@ def test_a_gibbs_vector_that_is_not_three_finite_numbers_is_refused_word_for_wor
     with pytest.raises(InvalidInputError) as refused:
         Orientation.from_gibbs(gibbs)
     assert str(refused.value) == message
+
+
+def test_the_identity_is_w_1_and_one_shared_value():
+    # The identity rotation is the quaternion (1, 0, 0, 0) (Hamilton, w first; SciPy's Rotation.identity()
+    # as_quat is (0, 0, 0, 1) scalar last). Asked twice it is the very same immutable value.
+    from scipy.spatial.transform import Rotation as R
+    first = Orientation.identity()
+    assert first.quaternion.tolist() == [1.0, 0.0, 0.0, 0.0]
+    assert first.as_quaternion(scalar_last=True).tolist() == R.identity().as_quat().tolist()
+    assert Orientation.identity() is first
