@@ -256,8 +256,7 @@ class SessionModel(QObject):
         self.apply(operations.add_mount, name, orientation, origin=origin)
 
     def duplicate_mount(self, index: int | None = None, origin: object | None = None) -> None:
-        operations.duplicate_mount(self._session, index)      # a mount that is not there: refused by number
-        source = self.mounts[self.selected_index if index is None else index]
+        source = self.mounts[operations.mount_index(self._session, index)]   # not there: refused by number
         self.apply(operations.duplicate_mount, index, origin=origin, text=f"Duplicate mount “{source.name}”")
 
     def rename_mount(self, index: int, name: str, origin: object | None = None) -> None:

@@ -19,7 +19,7 @@ from core.position import Position
 from core.session_values import Mount, PartProperties, SavedCheck, Session
 
 
-def _index(session: Session, index: int | None) -> int:
+def mount_index(session: Session, index: int | None) -> int:
     """The mount an edit is about: the selected one when not told."""
     index = session.selected if index is None else index
     if not isinstance(index, int) or isinstance(index, bool) or not 0 <= index < len(session.mounts):
@@ -45,7 +45,7 @@ def unused_name(session: Session, base: str) -> str:
 # ---- which mount, and how numbers are shown ---------------------------------------------------------
 
 def select(session: Session, index: int) -> Session:
-    return replace(session, selected=_index(session, index))
+    return replace(session, selected=mount_index(session, index))
 
 
 def set_preferences(session: Session, **changes) -> Session:
@@ -64,7 +64,7 @@ def set_reference_frame(session: Session, key: str) -> Session:
 def set_orientation(session: Session, orientation: Orientation, index: int | None = None) -> Session:
     if not isinstance(orientation, Orientation):
         raise TypeError("set_orientation needs an Orientation")
-    index = _index(session, index)
+    index = mount_index(session, index)
     return _with_mount(session, index, session.mounts[index].with_orientation(orientation))
 
 
@@ -72,7 +72,7 @@ def set_position(session: Session, position: Position | None, index: int | None 
     """A mount's position (a core.position.Position), or none."""
     if position is not None and not isinstance(position, Position):
         raise TypeError("set_position needs a Position or None")
-    index = _index(session, index)
+    index = mount_index(session, index)
     return _with_mount(session, index, session.mounts[index].with_position(position))
 
 
@@ -85,7 +85,7 @@ def set_part(session: Session, part: PartProperties, index: int | None = None) -
     """A mount's part (box size, face names, boresight face)."""
     if not isinstance(part, PartProperties):
         raise TypeError("set_part needs PartProperties")
-    index = _index(session, index)
+    index = mount_index(session, index)
     return _with_mount(session, index, replace(session.mounts[index], part=part))
 
 
@@ -98,7 +98,7 @@ def snap_to_right_angle(session: Session) -> Session:
 # ---- repeated measurements of the selected mount ----------------------------------------------------
 
 def set_measurements(session: Session, measurements, index: int | None = None) -> Session:
-    index = _index(session, index)
+    index = mount_index(session, index)
     return _with_mount(session, index, session.mounts[index].with_measurements(measurements))
 
 
@@ -154,7 +154,7 @@ def add_mount(session: Session, name: str | None = None, orientation: Orientatio
 
 def duplicate_mount(session: Session, index: int | None = None) -> Session:
     """A copy of a mount right after it, under a name of its own, selected."""
-    index = _index(session, index)
+    index = mount_index(session, index)
     source = session.mounts[index]
     copy = source.renamed(unused_name(session, source.name + " copy"))
     if source.notes:  # the original's note may state its angles, which the copy will not keep for long
@@ -168,7 +168,7 @@ def rename_mount(session: Session, index: int, name: str) -> Session:
     name = name.strip() if isinstance(name, str) else name
     if not name:
         raise ValueError("a mount needs a name; the old one is kept")
-    index = _index(session, index)
+    index = mount_index(session, index)
     old_name = session.mounts[index].name
     renamed = _with_mount(session, index, session.mounts[index].renamed(name))
     checks = tuple(replace(c, nominal=name if c.nominal == old_name else c.nominal,
@@ -178,7 +178,7 @@ def rename_mount(session: Session, index: int, name: str) -> Session:
 
 def delete_mount(session: Session, index: int | None = None) -> Session:
     """Without a mount; the selection stays on the same mount, or moves to its neighbour."""
-    index = _index(session, index)
+    index = mount_index(session, index)
     if len(session.mounts) <= 1:
         raise ValueError("the session needs at least one mount; the last one cannot be deleted")
     mounts = session.mounts[:index] + session.mounts[index + 1:]

@@ -44,15 +44,15 @@ class PoseText:
 _UNIT_SAID = re.compile(r"(?<![a-z])(?:t|translation|position|offset)[ ]*(?:\(|\[|is[ ]+|in[ ]+)[ ]*"
                         r"(mm|millimet(?:re|er)s?|m|met(?:re|er)s?|cm|inch(?:es)?|thou)(?![a-z])")
 # ('in' alone is not a unit here: 't in mm' has it as a word; inches are named in full)
-_UNIT_WORDS = {"millimetre": "mm", "millimeter": "mm", "metre": "m", "meter": "m", "inch": "in", "inche": "in"}
+_UNIT_WORDS = {"millimetre": "mm", "millimetres": "mm", "millimeter": "mm", "millimeters": "mm", "metre": "m",
+               "metres": "m", "meter": "m", "meters": "m", "inch": "in", "inches": "in"}
 
 
 def unit_said(words: str) -> str | None:
     """The translation's unit when the words name it: 't in mm', 'translation (m)', 'position [mm]'."""
     found = set()
     for m in _UNIT_SAID.finditer(words.lower()):
-        word = m.group(1)[:-1] if m.group(1).endswith("s") else m.group(1)
-        found.add(_UNIT_WORDS.get(word, word))
+        found.add(_UNIT_WORDS.get(m.group(1), m.group(1)))
     return found.pop() if len(found) == 1 else None
 
 
