@@ -1,8 +1,8 @@
-"""All text of the scene drawn in one QPainter pass after the 3D items: labels anchored to 3D points and
-overlay panels in the corners. One pass (instead of one painter per label) keeps a redraw cheap on software
-OpenGL, and every label gets a dark box behind it so it stays readable over any line or face. Each box
-with its text is an image drawn once while it stays the same (text_images.py), so a frame places images
-and draws only the leader lines."""
+"""All text of the scene drawn in one pass after the 3D items: labels anchored to 3D points and overlay
+panels in the corners. Every label gets a dark box behind it so it stays readable over any line or face.
+Each box with its text is an image drawn once while it stays the same (text_images.py) and kept as a
+texture (image_quads.py), so a frame places textures and draws only the leader lines: no QPainter on the
+OpenGL device, whose begin and end alone cost a fifth of a frame on software OpenGL."""
 
 from __future__ import annotations
 
@@ -11,10 +11,10 @@ from dataclasses import dataclass, field
 import numpy as np
 from OpenGL import GL
 from PySide6 import QtCore, QtGui
-from PySide6.QtOpenGL import QOpenGLPaintDevice
 from pyqtgraph.opengl.GLGraphicsItem import GLGraphicsItem
 
 from app.scene import palette
+from app.scene.image_quads import ImageQuads
 from app.scene.label_placement import leader_end, place_labels, stack_panels
 from app.scene.text_images import TextImages
 
@@ -66,7 +66,8 @@ class LabelLayer(GLGraphicsItem):
         self._panel_rects = []
         self.drawn_labels: dict[str, QtCore.QRectF] = {}   # where each label went in the last paint
         self.drawn_panels: dict[str, QtCore.QRectF] = {}
-        self._device = None
+        self.quads = ImageQuads()
+        self._prepared = False
 
     # --- state --------------------------------------------------------------------------------------
     @property
@@ -111,31 +112,31 @@ class LabelLayer(GLGraphicsItem):
             self._fonts[key] = (font, QtGui.QFontMetrics(font))
         return self._fonts[key]
 
-    def paint(self):
+    def prepare(self):
+        """Lay the labels and panels out for the frame about to be drawn and upload their new images; the
+        view calls it before it clears (SceneView.before_clear), while nothing is drawn yet."""
         view = self.view()
-        GL.glDepthMask(GL.GL_TRUE)  # see-through items turn depth writes off; the next clear needs them on
-        # The box part culls its back faces; QPainter leaves culling as it finds it, and its boxes and
-        # images, wound the other way once flipped to the screen, would be culled when the part was the
-        # last item drawn (r along n: no cone after it).
-        GL.glDisable(GL.GL_CULL_FACE)
+        if view is None or not self.visible():
+            return
         _, _, width, height = (int(v) for v in GL.glGetIntegerv(GL.GL_VIEWPORT))
+        self.quads.begin(width, height)
+        self._prepared = True
         if width <= 0 or height <= 0:
             return
         scale = max(0.85, min(3.0, height / _BASE_HEIGHT))
-        if self._device is None:
-            self._device = QOpenGLPaintDevice()
-        self._device.setSize(QtCore.QSize(width, height))
-        painter = QtGui.QPainter(self._device)
-        try:
-            painter.setRenderHints(QtGui.QPainter.RenderHint.Antialiasing | QtGui.QPainter.RenderHint.TextAntialiasing)
-            panels = self._layout_panels(width, height, scale)
-            # leader lines under the panels and the labels, so no line crosses a text
-            self._paint_labels(painter, view, width, height, scale,
-                               before_boxes=lambda: self._paint_panels(painter, panels, scale))
-        finally:
-            painter.end()
+        panels = self._layout_panels(width, height, scale)
+        # leader lines under the panels and the labels, so no line crosses a text
+        self._paint_labels(view, width, height, scale, before_boxes=lambda: self._paint_panels(panels, scale))
+        self.quads.upload()
 
-    def _paint_labels(self, painter, view, width, height, scale, before_boxes):
+    def paint(self):
+        GL.glDepthMask(GL.GL_TRUE)  # see-through items turn depth writes off; the next clear needs them on
+        if not self._prepared:   # drawn without the view's call to prepare first
+            self.prepare()
+        self._prepared = False
+        self.quads.draw()
+
+    def _paint_labels(self, view, width, height, scale, before_boxes):
         self.drawn_labels = {}
         shown = [(key, lab) for key, lab in self._labels.items() if lab.visible and lab.text]
         if not shown:
@@ -159,14 +160,15 @@ class LabelLayer(GLGraphicsItem):
             fonts.append(font)
         # labels keep clear of the corner panels and of each other (label_placement.py)
         places = place_labels(anchors, sizes, [importance(k) for k in keys], width, height, self._panel_rects)
+        leaders = {}   # colour -> segments, one batch each
         for key, (x, y), place in zip(keys, anchors, places):
             if place.rect is not None and place.leader:
-                lab = self._labels[key]
-                painter.setPen(QtGui.QPen(QtGui.QColor(*lab.rgb, 170), max(1.0, scale)))
-                painter.drawLine(QtCore.QPointF(x, y), QtCore.QPointF(*leader_end(place.rect, x, y)))
-                painter.setBrush(QtGui.QColor(*lab.rgb))
-                painter.drawEllipse(QtCore.QPointF(x, y), 2.0 * scale, 2.0 * scale)
-        painter.setBrush(QtCore.Qt.BrushStyle.NoBrush)
+                leaders.setdefault(self._labels[key].rgb, []).append(((x, y), leader_end(place.rect, x, y)))
+        for rgb, segments in leaders.items():
+            self.quads.lines(segments, (*(c / 255 for c in rgb), 170 / 255), max(1.0, scale))
+            dot = self.images.dot(rgb, 2.0 * scale)
+            for (x, y), _ in segments:
+                self.quads.image(dot, round(x - dot.width() / 2), round(y - dot.height() / 2))
         before_boxes()
         for key, font, place in zip(keys, fonts, places):
             if place.rect is None:
@@ -175,7 +177,7 @@ class LabelLayer(GLGraphicsItem):
             self.drawn_labels[key] = place.rect
             rect = place.rect
             image = self.images.label(lab.text, font, lab.rgb, palette.LABEL_BOX_RGBA, rect.width(), rect.height())
-            painter.drawImage(QtCore.QPointF(round(rect.left()), round(rect.top())), image)
+            self.quads.image(image, round(rect.left()), round(rect.top()))
 
     def _layout_panels(self, width, height, scale):
         """Where each shown overlay panel goes, as (panel, rect) pairs; also kept for the labels to avoid."""
@@ -192,10 +194,10 @@ class LabelLayer(GLGraphicsItem):
         self.drawn_panels = {k: r for (k, _), r in zip(shown, rects) if r is not None}
         return [(p, r) for (_, p), r in zip(shown, rects) if r is not None]
 
-    def _paint_panels(self, painter, panels, scale):
+    def _paint_panels(self, panels, scale):
         pad = round(8 * scale)
         font, metrics = self._font(round(14 * scale), False, True)
         for panel, rect in panels:
             image = self.images.panel(panel.lines, font, metrics, palette.OVERLAY_BOX_RGBA, pad, rect.width(),
                                       rect.height())
-            painter.drawImage(QtCore.QPointF(round(rect.left()), round(rect.top())), image)
+            self.quads.image(image, round(rect.left()), round(rect.top()))

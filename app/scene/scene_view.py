@@ -22,6 +22,7 @@ class SceneView(gl.GLViewWidget):
         self.frames_drawn = 0
         self.up_z = 1
         self.before_paint = None   # called just before each frame is drawn (the Scene's settle)
+        self.before_clear = None   # called in each paint with its camera set, before anything is drawn
 
     def viewMatrix(self):
         tr = super().viewMatrix()
@@ -38,6 +39,13 @@ class SceneView(gl.GLViewWidget):
         # asking for another would draw frames without end.
         if not self._settling:
             super().update()
+
+    def paint(self, *, region, viewport, useItemNames=False):
+        if self.before_clear is not None:
+            self.setProjection(region, viewport)
+            self.setModelview()
+            self.before_clear()
+        super().paint(region=region, viewport=viewport, useItemNames=useItemNames)
 
     def paintGL(self):
         if self.before_paint is not None:

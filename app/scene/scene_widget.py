@@ -124,6 +124,7 @@ class SceneWidget(QtWidgets.QWidget):
 
         self.labels = LabelLayer(before_read=self.settle)  # a label read is never stale
         v.addItem(self.labels)
+        v.before_clear = self.labels.prepare   # its new text images are uploaded before the frame's draws
         # Labels are placed in this order; a later one moves aside when an earlier one holds its spot.
         for key in ("body0", "body1", "body2", "r", "n", "phi", "alpha", *(f"face{f}" for f in FACE_NAMES),
                     "ref0", "ref1", "ref2", "ghost"):

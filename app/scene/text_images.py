@@ -52,6 +52,17 @@ class TextImages:
         key = ("label", text, font.key(), tuple(rgb), tuple(box_rgba), width, height)
         return self._image(key, width, height, box_rgba, draw)
 
+    def dot(self, rgb, radius) -> QtGui.QImage:
+        """A filled round dot of `radius` pixels on a clear square, centred: where a leader line starts."""
+        size = 2 * math.ceil(radius) + 2
+
+        def draw(painter):
+            painter.setPen(QtCore.Qt.PenStyle.NoPen)
+            painter.setBrush(QtGui.QColor(*rgb))
+            painter.drawEllipse(QtCore.QPointF(size / 2, size / 2), radius, radius)
+
+        return self._image(("dot", tuple(rgb), radius), size, size, (0, 0, 0, 0), draw)
+
     def panel(self, lines, font, metrics, box_rgba, pad, width, height) -> QtGui.QImage:
         """An overlay panel: its (text, rgb) lines, one under the other, on a box of `box_rgba`."""
         def draw(painter):
