@@ -6,10 +6,14 @@ that timed out counts as killed (the change made the code hang), one with no tes
 whose test process crashed is shown apart (see tally).
 
     python scripts/mutation_score.py 'core.check.*' 'core.nearest.*'
+
+After a sampled run (scripts/mutation_sample.py) `--population=N` names how many mutants the sample was drawn
+from; each score then carries its 95 % Wilson interval, the range the whole run's score lies in.
 """
 
 import configparser
 import fnmatch
+import math
 import subprocess
 import sys
 from collections import defaultdict
@@ -59,10 +63,33 @@ def scores(counts):
     return best, 100.0 * counts["killed"] / worst_judged if worst_judged else 100.0
 
 
+def wilson_interval(killed, judged, z=1.96):
+    """95 % Wilson score interval of a share killed/judged, in percent (Wilson 1927; the usual choice for a
+    proportion from a small sample, since it stays inside 0-100 % where the normal approximation does not)."""
+    if judged == 0:
+        return 0.0, 100.0
+    p = killed / judged
+    centre = (p + z * z / (2 * judged)) / (1 + z * z / judged)
+    half = z * math.sqrt(p * (1 - p) / judged + z * z / (4 * judged * judged)) / (1 + z * z / judged)
+    return 100.0 * max(0.0, centre - half), 100.0 * min(1.0, centre + half)
+
+
+def group_of(module):
+    """'core.decode.poses' -> 'core', 'app.model' -> 'app': the goals are set per group."""
+    return module.split(".")[0]
+
+
 KINDS = ("killed", "equivalent", "crashed", "survived")
 
 
-def main(patterns):
+def main(argv):
+    population = None
+    patterns = []
+    for arg in argv:
+        if arg.startswith("--population="):
+            population = int(arg.split("=", 1)[1])
+        else:
+            patterns.append(arg)
     config = configparser.ConfigParser(interpolation=None)
     config.optionxform = str
     config.read(ROOT / "setup.cfg")
@@ -73,20 +100,26 @@ def main(patterns):
         return 1
     print("score = killed / (killed + survived); crashed mutants (no verdict) are left out of it, and the last "
           "column counts them as survived")
+    if population is not None:
+        checked = sum(len(v) for m in by_module.values() for v in m.values())
+        print(f"a sample: {checked} of {population} mutants checked; '95% interval' is where the whole run's "
+              "score lies (Wilson)")
     print(f"{'module':<28}{'mutants':>9}{'killed':>8}{'equiv.':>8}{'crashed':>9}{'survived':>10}{'score':>9}"
-          f"{'crashed as survived':>21}")
-    totals = defaultdict(int)
-    rows = sorted(by_module) + ["all"]
-    for module in rows:
-        if module == "all":
-            counts = totals
-        else:
-            counts = {k: len(by_module[module][k]) for k in KINDS}
-            for k, v in counts.items():
-                totals[k] += v
+          f"{'crashed as survived':>21}" + (f"{'95% interval':>16}" if population is not None else ""))
+    per_module = {m: {k: len(by_module[m][k]) for k in KINDS} for m in sorted(by_module)}
+    groups = defaultdict(lambda: defaultdict(int))
+    for module, counts in per_module.items():
+        for k, v in counts.items():
+            groups[group_of(module) + "/ (all)"][k] += v
+            groups["all"][k] += v
+    for module, counts in [*per_module.items(), *sorted(groups.items(), key=lambda g: g[0] == "all")]:
         best, worst = scores(counts)
-        print(f"{module:<28}{sum(counts[k] for k in KINDS):>9}{counts['killed']:>8}{counts['equivalent']:>8}"
-              f"{counts['crashed']:>9}{counts['survived']:>10}{best:>8.1f}%{worst:>20.1f}%")
+        row = (f"{module:<28}{sum(counts[k] for k in KINDS):>9}{counts['killed']:>8}{counts['equivalent']:>8}"
+               f"{counts['crashed']:>9}{counts['survived']:>10}{best:>8.1f}%{worst:>20.1f}%")
+        if population is not None:
+            low, high = wilson_interval(counts["killed"], counts["killed"] + counts["survived"])
+            row += f"{low:>8.1f}-{high:.1f}%"
+        print(row)
     for kind, title in (("survived", "surviving mutants"), ("crashed", "mutants whose test run crashed")):
         names = [(n, s) for m in sorted(by_module) for n, s in by_module[m][kind]]
         if names:

@@ -32,3 +32,31 @@ def test_patterns_pick_modules_and_nothing_judged_scores_100():
     by = mutation_score.tally(RESULTS, {}, ["app.*"])
     assert list(by) == ["app.b"]
     assert mutation_score.scores({"killed": 0, "survived": 0, "crashed": 0, "equivalent": 3}) == (100.0, 100.0)
+
+
+@pytest.mark.parametrize("killed, judged", [(90, 100), (81, 263), (1, 29), (1480, 1500), (3, 3)])
+def test_wilson_interval_matches_scipy(killed, judged):
+    # Reference: SciPy's binomtest(...).proportion_ci(method="wilson"), the same score interval.
+    from scipy.stats import binomtest
+    ci = binomtest(killed, judged).proportion_ci(confidence_level=0.95, method="wilson")
+    low, high = mutation_score.wilson_interval(killed, judged)
+    assert (low, high) == pytest.approx((100 * ci.low, 100 * ci.high), abs=0.02)
+
+
+def test_wilson_interval_edges():
+    assert mutation_score.wilson_interval(10, 10)[1] == pytest.approx(100.0)
+    assert mutation_score.wilson_interval(0, 10)[0] == pytest.approx(0.0)
+    assert mutation_score.wilson_interval(0, 0) == (0.0, 100.0)
+
+
+def test_sample_draw_is_repeatable_and_filtered():
+    sample_script = SCRIPT.with_name("mutation_sample.py")
+    spec_ = importlib.util.spec_from_file_location("mutation_sample", sample_script)
+    sampler = importlib.util.module_from_spec(spec_)
+    spec_.loader.exec_module(sampler)
+    names = [f"core.a.x_f__mutmut_{i}" for i in range(100)] + [f"app.b.x_g__mutmut_{i}" for i in range(50)]
+    first = sampler.draw(names, ["core.*"], 10, seed=3)
+    assert first == sampler.draw(list(reversed(names)), ["core.*"], 10, seed=3)
+    assert len(set(first)) == 10 and all(n.startswith("core.a.") for n in first)
+    assert first != sampler.draw(names, ["core.*"], 10, seed=4)
+    assert len(sampler.draw(names, [], 1000, seed=1)) == 150
