@@ -84,14 +84,12 @@ class ImageQuads:
         """Copy the frame's new images into the atlas. Done before the frame's first draw (its clear):
         llvmpipe finishes every draw queued so far before it lets a texture change, and a frame split in
         two so cost 2-3 ms more than the same frame in one go."""
-        if self._images:
-            self._make_room()
+        self._make_room()
 
     def draw(self):
-        """Draw the lines and the images given since begin (their images uploaded by then or now)."""
+        """Draw the lines and the images given since begin, once upload has put the images in the atlas."""
         if not self._images and not self._lines:
             return
-        self._make_room()
         program = _PROGRAM.program()
         GL.glUseProgram(program)
         GL.glUniform2f(GL.glGetUniformLocation(program, "u_view"), *self._size)

@@ -12,18 +12,9 @@ from app.scene import palette
 from app.scene.image_quads import ImageQuads
 from app.scene.scene_widget import SceneWidget
 from core.orientation import Orientation
+from tests.app.test_scene import scene  # noqa: F401  (the same Scene fixture, 1000 x 660 view)
 
 W, H = 800, 600
-
-
-@pytest.fixture
-def scene(qtbot):
-    widget = SceneWidget()
-    qtbot.addWidget(widget)
-    widget.resize(1000, 749)
-    widget.show()
-    qtbot.waitExposed(widget)
-    return widget
 
 
 def _orientation(rotation):
