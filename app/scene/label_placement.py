@@ -64,20 +64,32 @@ def stack_panels(sizes, corners, optional, width, height, margin) -> list[QRectF
 
 def _candidates(w, h):
     """Offsets of a box's centre from its anchor: the anchor itself, then rings around it, nearest first."""
-    yield 0.0, 0.0
-    sx, sy = w * 0.6, h * 1.05
-    for ring in range(1, _RINGS + 1):
-        ring_offsets = [(0, -ring * sy), (0, ring * sy), (ring * sx, 0), (-ring * sx, 0),
-                        (ring * sx, -ring * sy), (-ring * sx, ring * sy), (ring * sx, ring * sy),
-                        (-ring * sx, -ring * sy)]
-        yield from sorted(ring_offsets, key=lambda d: math.hypot(*d))
+    offsets = _RING_OFFSETS.get((w, h))
+    if offsets is None:
+        sx, sy = w * 0.6, h * 1.05
+        offsets = [(0.0, 0.0)]
+        for ring in range(1, _RINGS + 1):
+            ring_offsets = [(0, -ring * sy), (0, ring * sy), (ring * sx, 0), (-ring * sx, 0),
+                            (ring * sx, -ring * sy), (-ring * sx, ring * sy), (ring * sx, ring * sy),
+                            (-ring * sx, -ring * sy)]
+            offsets += sorted(ring_offsets, key=lambda d: math.hypot(*d))
+        if len(_RING_OFFSETS) > 256:
+            _RING_OFFSETS.clear()
+        _RING_OFFSETS[(w, h)] = offsets
+    return offsets
+
+
+# The ring offsets of each label size seen: a scene's labels keep their sizes from frame to frame.
+_RING_OFFSETS: dict[tuple[float, float], list[tuple[float, float]]] = {}
 
 
 def place_labels(anchors, sizes, importance, width, height, obstacles=()) -> list[Placed]:
     """Boxes of `sizes` (w, h) near `anchors` (x, y), wholly inside a width x height image and covering
     neither each other nor `obstacles` (the overlay panels). The most important go first (ties in the
     order given), so when the room runs out it is the least important that are left out."""
-    taken = [QRectF(r) for r in obstacles]
+    # Boxes are (left, top, right, bottom) tuples while they are worked out: a frame tries a few hundred
+    # spots, and plain tuples cost a fraction of QRectF's calls through the bindings.
+    taken = [(r.left(), r.top(), r.right(), r.bottom()) for r in obstacles]
     out: list[Placed | None] = [None] * len(anchors)
     order = sorted(range(len(anchors)), key=lambda i: -importance[i])
     for i in order:
@@ -86,15 +98,26 @@ def place_labels(anchors, sizes, importance, width, height, obstacles=()) -> lis
             out[i] = Placed(None, False)
             continue
         box = _first_free(_boxes_near(x, y, w, h, width, height, taken), taken)
-        out[i] = Placed(box, box is not None and _distance_to(box, x, y) > _LEADER_AFTER_PX)
-        if box is not None:
-            taken.append(box)
+        if box is None:
+            out[i] = Placed(None, False)
+            continue
+        out[i] = Placed(QRectF(box[0], box[1], w, h), _distance_to(box, x, y) > _LEADER_AFTER_PX)
+        taken.append(box)
     return out
 
 
-def _inside_view(cx, cy, w, h, width, height) -> QRectF:
+def _inside_view(cx, cy, w, h, width, height):
     """A w x h box centred as near (cx, cy) as the image allows, wholly inside it."""
-    return QRectF(min(max(cx - w / 2, 2), width - w - 2), min(max(cy - h / 2, 2), height - h - 2), w, h)
+    left = min(max(cx - w / 2, 2), width - w - 2)
+    top = min(max(cy - h / 2, 2), height - h - 2)
+    return left, top, left + w, top + h
+
+
+def _meets(a, b) -> bool:
+    """Whether two boxes share some area, as QRectF.intersects decides it (a box of no width or height
+    meets nothing; boxes that only touch do not meet)."""
+    return (a[0] < a[2] and a[1] < a[3] and b[0] < b[2] and b[1] < b[3]
+            and a[0] < b[2] and b[0] < a[2] and a[1] < b[3] and b[1] < a[3])
 
 
 def _boxes_near(x, y, w, h, width, height, taken):
@@ -106,23 +129,23 @@ def _boxes_near(x, y, w, h, width, height, taken):
     first = _inside_view(x, y, w, h, width, height)
     escapes = []
     for other in taken:
-        if other.intersects(first):
-            escapes += [(x, other.bottom() + h / 2 + 1), (x, other.top() - h / 2 - 1),
-                        (other.right() + w / 2 + 1, y), (other.left() - w / 2 - 1, y)]
+        if _meets(other, first):
+            escapes += [(x, other[3] + h / 2 + 1), (x, other[1] - h / 2 - 1),
+                        (other[2] + w / 2 + 1, y), (other[0] - w / 2 - 1, y)]
     for cx, cy in sorted(escapes, key=lambda c: (c[0] - x) ** 2 + (c[1] - y) ** 2):
         yield _inside_view(cx, cy, w, h, width, height)
 
 
-def _first_free(boxes, taken) -> QRectF | None:
+def _first_free(boxes, taken):
     for box in boxes:
-        if not any(box.intersects(other) for other in taken):
+        if not any(_meets(box, other) for other in taken):
             return box
     return None
 
 
-def _distance_to(box: QRectF, x: float, y: float) -> float:
-    dx = max(box.left() - x, 0.0, x - box.right())
-    dy = max(box.top() - y, 0.0, y - box.bottom())
+def _distance_to(box, x: float, y: float) -> float:
+    dx = max(box[0] - x, 0.0, x - box[2])
+    dy = max(box[1] - y, 0.0, y - box[3])
     return math.hypot(dx, dy)
 
 

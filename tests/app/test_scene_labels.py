@@ -8,6 +8,7 @@ import pytest
 from PySide6.QtCore import QRectF, Qt
 
 from app.scene.label_layer import importance
+from app.scene import label_placement
 from app.scene.label_placement import leader_end, place_labels, stack_panels
 
 POINTS_CSV = Path(__file__).resolve().parents[2] / "resources" / "demo_points.csv"   # invented demo points
@@ -64,6 +65,25 @@ def test_random_scenes_never_overlap_each_other_or_the_panels():
         drawn = [p.rect for p in places if p.rect is not None]
         assert disjoint(drawn + panels)
         assert all(inside(r, width, height) for r in drawn)
+
+
+def test_boxes_that_only_touch_may_sit_side_by_side_as_qt_decides_overlap():
+    # the placement works on plain tuples; Qt's QRectF.intersects is the reference for what "meets" means
+    # (touching edges do not meet), so a label may sit flush against a panel's edge
+    rng = np.random.default_rng(11)
+    grid = rng.integers(0, 5, size=(4000, 4)).astype(float)   # small integers: many exact touches
+    for l1, t1, l2, t2 in grid:
+        a, b = QRectF(l1, t1, 2.0, 2.0), QRectF(l2, t2, 2.0, 1.0)
+        box_a, box_b = (l1, t1, l1 + 2.0, t1 + 2.0), (l2, t2, l2 + 2.0, t2 + 1.0)
+        assert label_placement._meets(box_a, box_b) == a.intersects(b)
+        assert (label_placement._first_free([box_a], [box_b]) is None) == a.intersects(b)
+    panel = QRectF(100, 50, 100, 40)
+    # a 40 x 20 label centred on (150, 100) spans y 90..110: flush against the panel's lower edge (y 90)
+    (place,) = place_labels([(150, 100)], [(40, 20)], [3], 400, 300, obstacles=[panel])
+    assert place.rect == QRectF(130, 90, 40, 20) and not place.leader
+    # one pixel higher it would cover the panel's last row, so it moves off its anchor
+    (place,) = place_labels([(150, 99)], [(40, 20)], [3], 400, 300, obstacles=[panel])
+    assert place.rect != QRectF(130, 89, 40, 20) and not place.rect.intersects(panel)
 
 
 def test_a_label_too_big_for_the_view_is_left_out_rather_than_clipped():
