@@ -40,6 +40,7 @@ fuzz: system-packages $(TEST_STAMP)
 # files, e.g. `make mutate MODULE="core/check.py core/nearest.py"`; JOBS sets how many run at once.
 # SAMPLE=1500 runs a random sample of that many mutants instead (SEED picks it) and prints each score
 # with its 95 % interval: the whole run takes 4-9 hours on this machine class (scripts/mutation_sample.py).
+# KEEP=1 reuses the mutants already made (only changed files are remade, only new tests recorded).
 # Qt offscreen and no Xvfb: each mutant runs in a forked process, and a fork sharing the parent's X
 # connection crashes in xcb (reported as a segfault, not a verdict) and leaves its own Xvfb behind.
 MODULE ?= core/ app/model.py app/commands.py app/changes.py app/copy_as.py
@@ -53,7 +54,7 @@ $(MUTATE_STAMP): pyproject.toml $(TEST_STAMP)
 
 mutate: system-packages $(MUTATE_STAMP)
 ifdef SAMPLE
-	QT_QPA_PLATFORM=offscreen $(PY) scripts/mutation_sample.py --size $(SAMPLE) --seed $(SEED) --jobs $(JOBS) $(MUTANT_PATTERNS)
+	QT_QPA_PLATFORM=offscreen $(PY) scripts/mutation_sample.py --size $(SAMPLE) --seed $(SEED) --jobs $(JOBS) $(if $(KEEP),--keep) $(MUTANT_PATTERNS)
 else
 	rm -rf mutants
 	QT_QPA_PLATFORM=offscreen $(VENV)/bin/mutmut run --max-children $(JOBS) $(MUTANT_PATTERNS) > mutants-run.log 2>&1 || true

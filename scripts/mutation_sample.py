@@ -45,11 +45,15 @@ def main(argv):
     parser.add_argument("--seed", type=int, default=1)
     parser.add_argument("--jobs", type=int, default=2)
     parser.add_argument("--log", default="mutants-run.log")
+    parser.add_argument("--keep", action="store_true",
+                        help="keep the mutants already made (mutmut then remakes only changed source files and "
+                             "records only new tests), instead of starting afresh")
     parser.add_argument("patterns", nargs="*")
     args = parser.parse_args(argv)
     if args.size < 1:
         parser.error("--size must be at least 1")
-    shutil.rmtree(ROOT / "mutants", ignore_errors=True)
+    if not args.keep:
+        shutil.rmtree(ROOT / "mutants", ignore_errors=True)
     with open(ROOT / args.log, "w") as log:
         subprocess.run([MUTMUT, "run", "--max-children", str(args.jobs), NO_MUTANT], cwd=ROOT, stdout=log,
                        stderr=subprocess.STDOUT, check=False)
@@ -67,7 +71,8 @@ def main(argv):
                        stderr=subprocess.STDOUT, check=False)
     population = len([n for n in names if not args.patterns or any(fnmatch.fnmatch(n, p) for p in args.patterns)])
     return subprocess.run([sys.executable, str(ROOT / "scripts" / "mutation_score.py"),
-                           f"--population={population}", *args.patterns], cwd=ROOT, check=False).returncode
+                           f"--population={population}", f"--only={ROOT / 'mutants' / 'sample.txt'}",
+                           *args.patterns], cwd=ROOT, check=False).returncode
 
 
 if __name__ == "__main__":

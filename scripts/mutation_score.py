@@ -7,7 +7,8 @@ whose test process crashed is shown apart (see tally).
 
     python scripts/mutation_score.py 'core.check.*' 'core.nearest.*'
 
-After a sampled run (scripts/mutation_sample.py) `--population=N` names how many mutants the sample was drawn
+`--only=FILE` counts only the mutants named in FILE (one a line), such as a sample's mutants/sample.txt when
+earlier runs' results are still kept. After a sampled run (scripts/mutation_sample.py) `--population=N` names how many mutants the sample was drawn
 from; each score then carries its 95 % Wilson interval, the range the whole run's score lies in.
 """
 
@@ -85,16 +86,20 @@ KINDS = ("killed", "equivalent", "crashed", "survived")
 def main(argv):
     population = None
     patterns = []
+    only = None
     for arg in argv:
         if arg.startswith("--population="):
             population = int(arg.split("=", 1)[1])
+        elif arg.startswith("--only="):   # a file of names, one a line ('#' comments): count these alone
+            lines = Path(arg.split("=", 1)[1]).read_text().splitlines()
+            only = {line.strip() for line in lines if line.strip() and not line.startswith("#")}
         else:
             patterns.append(arg)
     config = configparser.ConfigParser(interpolation=None)
     config.optionxform = str
     config.read(ROOT / "setup.cfg")
     equivalent = dict(config["mutmut-equivalent"]) if config.has_section("mutmut-equivalent") else {}
-    by_module = tally(results(), equivalent, patterns)
+    by_module = tally(((n, s) for n, s in results() if only is None or n in only), equivalent, patterns)
     if not by_module:
         print("no checked mutants; see mutants-run.log")
         return 1

@@ -60,3 +60,18 @@ def test_sample_draw_is_repeatable_and_filtered():
     assert len(set(first)) == 10 and all(n.startswith("core.a.") for n in first)
     assert first != sampler.draw(names, ["core.*"], 10, seed=4)
     assert len(sampler.draw(names, [], 1000, seed=1)) == 150
+
+
+def test_only_counts_the_mutants_named_in_its_file(tmp_path, monkeypatch, capsys):
+    # an earlier run's results stay in mutants/ when a sample reuses them: --only keeps them out of the score
+    fake = [("core.a.x_f__mutmut_1", "killed"), ("core.a.x_f__mutmut_2", "survived"),
+            ("core.a.x_f__mutmut_3", "survived")]
+    monkeypatch.setattr(mutation_score, "results", lambda: iter(fake))
+    names = tmp_path / "sample.txt"
+    names.write_text("# seed 1, 2 of 3 mutants\ncore.a.x_f__mutmut_1\ncore.a.x_f__mutmut_2\n")
+    mutation_score.main([f"--only={names}"])
+    row = next(line for line in capsys.readouterr().out.splitlines() if line.startswith("core.a "))
+    assert row.split()[1:3] == ["2", "1"] and "50.0%" in row   # 2 judged, 1 killed: the third is not counted
+    mutation_score.main([])
+    row = next(line for line in capsys.readouterr().out.splitlines() if line.startswith("core.a "))
+    assert row.split()[1:3] == ["3", "1"] and "33.3%" in row
