@@ -74,3 +74,11 @@ def test_a_rectifying_rotation_beside_a_transform_is_read_and_not_reported_unrea
 def test_the_orientation_reason_leads_the_why():
     first = decode("position: [1, 2, 3]\norientation: [0.1, 0.2, 0.3, 0.927]")[0]
     assert first.why.startswith("orientation lists are usually x, y, z, w (common practice); ")
+
+
+def test_flat_x_y_z_with_qx_to_qw_reads_every_key_as_w_x_y_z():
+    first = decode("x: 1\ny: 2\nz: 3\nqx: 0.1\nqy: 0.2\nqz: 0.3\nqw: 0.927\n")[0]
+    assert first.translation == (1.0, 2.0, 3.0)
+    # SciPy's from_quat takes x, y, z, w (scalar last), Hamilton
+    assert np.allclose(_matrix(first), Rotation.from_quat([0.1, 0.2, 0.3, 0.927]).as_matrix(), atol=1e-12)
+    assert _not_read(first) == []
