@@ -63,7 +63,10 @@ def _footprint(points) -> np.ndarray:
 
 
 def _unit(vector, what) -> np.ndarray:
-    v = np.array(vector, dtype=float).reshape(-1)
+    try:
+        v = np.array(vector, dtype=float).reshape(-1)
+    except (TypeError, ValueError):      # text or a complex number: refused by name like any other slip
+        v = np.full(1, np.nan)
     if v.shape != (3,) or not np.all(np.isfinite(v)) or np.abs(v).max() == 0:
         raise InvalidInputError(f"{what}: expected a direction of three finite numbers, got {vector!r}")
     v = v / np.abs(v).max()
