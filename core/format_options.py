@@ -49,7 +49,8 @@ class FormatOptions:
         if found is None:
             raise FramewrightError(f"unknown representation {self.representation!r}; expected one of "
                                    f"{', '.join(KINDS)}")
-        if self.decimals is not None and not (isinstance(self.decimals, int) and 0 <= self.decimals <= 17):
+        if self.decimals is not None and (isinstance(self.decimals, bool) or not (
+                isinstance(self.decimals, int) and 0 <= self.decimals <= 17)):   # True is an int to Python, not a count
             raise FramewrightError(f"decimals must be a whole number from 0 to 17, got {self.decimals!r}")
         return replace(self, representation=found.kind, sequence=parse_sequence(self.sequence))
 

@@ -12,7 +12,7 @@ def test_decimals_from_0_to_17_or_none_are_accepted(decimals):
     assert FormatOptions(decimals=decimals).checked().decimals == decimals
 
 
-@pytest.mark.parametrize("decimals", [-1, 18, 2.0, "3"])
+@pytest.mark.parametrize("decimals", [-1, 18, 2.0, "3", True, False])   # a bool is an int to Python: refused by name
 def test_decimals_outside_0_to_17_or_not_whole_are_refused(decimals):
     with pytest.raises(FramewrightError, match=r"decimals must be a whole number from 0 to 17, got "):
         FormatOptions(decimals=decimals).checked()
