@@ -92,5 +92,5 @@ def test_a_bracketed_expression_decodes_to_its_angle():
 def test_a_name_in_an_expression_is_refused_as_what_it_is(text, what):
     with pytest.raises(DecodeError) as err:
         evaluate(text)
-    assert f"'foo'" in str(err.value)
+    assert "'foo'" in str(err.value)
     assert f" is {what} Framewright does not evaluate" in str(err.value)
