@@ -20,6 +20,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from core.errors import InvalidInputError
+from core.kernels.checks import shortened_repr
 from core.orientation import Orientation
 
 MAX_FEET = 64
@@ -65,10 +66,11 @@ def _footprint(points) -> np.ndarray:
 def _unit(vector, what) -> np.ndarray:
     try:
         v = np.array(vector, dtype=float).reshape(-1)
-    except (TypeError, ValueError):      # text or a complex number: refused by name like any other slip
-        v = np.full(1, np.nan)
+    except (TypeError, ValueError, OverflowError):   # text, complex, or an integer beyond a double: refused
+        v = np.full(1, np.nan)                          # by name like any other slip
     if v.shape != (3,) or not np.all(np.isfinite(v)) or np.abs(v).max() == 0:
-        raise InvalidInputError(f"{what}: expected a direction of three finite numbers, got {vector!r}")
+        raise InvalidInputError(f"{what}: expected a direction of three finite numbers, "
+                                f"got {shortened_repr(vector)}")
     v = v / np.abs(v).max()
     return v / np.linalg.norm(v)
 

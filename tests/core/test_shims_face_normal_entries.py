@@ -30,3 +30,22 @@ def test_integer_and_number_text_normals_are_directions(normal):
     result = shims(Orientation.identity(), PLATE, normal)
     # By hand: no correction, no shim under any foot, no tilt.
     assert np.array_equal(result.shims_mm, np.zeros(4)) and result.tilt_deg == 0.0
+
+
+@pytest.mark.parametrize("normal", [(10**400, 0, 1), (0, -(10**400), 1)])
+def test_a_face_normal_entry_beyond_a_double_is_refused_not_a_crash(normal):
+    # An integer of 400 digits cannot become a double (the largest is about 1.8e308, IEEE 754).
+    for call in (lambda: shims(Orientation.identity(), PLATE, normal),
+                 lambda: swing_and_twist(Orientation.identity(), normal)):
+        with pytest.raises(InvalidInputError, match=r"^face normal: expected a direction of three finite numbers"):
+            call()
+
+
+def test_a_very_long_face_normal_is_shown_shortened_in_the_refusal():
+    normal = "7" * 100_000
+    with pytest.raises(InvalidInputError) as caught:
+        shims(Orientation.identity(), PLATE, normal)
+    message = str(caught.value)
+    assert message.startswith("face normal: expected a direction of three finite numbers, got '777")
+    # The echo is cut to 80 characters and marked as cut, so a pasted file cannot flood the status line.
+    assert len(message) < 200 and message.endswith("…")
