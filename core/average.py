@@ -44,12 +44,12 @@ class Average:
 
 def _quaternions(measurements) -> np.ndarray:
     if isinstance(measurements, np.ndarray):
-        q = np.array(measurements, dtype=float)
+        q = kernels.float_array(measurements, "average")
     else:
         items = list(measurements)
         if not items:
             raise InvalidInputError("average: expected at least one measurement, got none")
-        q = np.array([m.quaternion if isinstance(m, Orientation) else m for m in items], dtype=float)
+        q = kernels.float_array([m.quaternion if isinstance(m, Orientation) else m for m in items], "average")
     if q.ndim != 2 or q.shape[1] != 4:
         raise InvalidInputError(f"average: expected quaternions (w, x, y, z), got shape {q.shape}")
     if not 1 <= len(q) <= MAX_MEASUREMENTS:
@@ -73,7 +73,7 @@ def _weights(weights, n) -> np.ndarray | None:
     """None for equal weights (the sums skip the products), else the weights scaled to a largest of 1."""
     if weights is None:
         return None
-    w = np.array(weights, dtype=float).reshape(-1)
+    w = kernels.float_array(weights, "average: weights").reshape(-1)
     if w.shape != (n,) or not np.all(np.isfinite(w)) or np.any(w < 0) or w.sum() <= 0 or w.max() > 1e150:
         raise InvalidInputError(f"average: expected {n} finite weights, 0 or more and not all 0")
     return w / w.max()

@@ -83,7 +83,7 @@ def read_points(values, what):
 def read_weights(weights, n, what="weights"):
     if weights is None:
         return None
-    w = np.asarray(weights, dtype=np.float64)
+    w = kernels.float_array(weights, what)
     if w.shape != (n,):
         raise InvalidInputError(f"{what}: expected {n} numbers (one per point), got shape {w.shape}")
     bad = ~np.isfinite(w) | (w < 0)

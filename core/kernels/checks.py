@@ -11,15 +11,21 @@ PROPER_EULER = ("XYX", "XZX", "YXY", "YZY", "ZXZ", "ZYZ")
 ALL_SEQUENCES = TAIT_BRYAN + PROPER_EULER
 
 
-def check_array(values, trailing_shape, what):
-    """Return `values` as a float64 array whose last dimensions are `trailing_shape`, all finite."""
+def float_array(values, what):
+    """`values` as a float64 array; text, None, complex numbers, ragged rows and integers beyond a double
+    are refused by name instead of escaping as a bare conversion error."""
     try:
-        array = np.asarray(values, dtype=np.float64)
+        return np.asarray(values, dtype=np.float64)
     except OverflowError as exc:   # an integer of hundreds of digits
         raise InvalidInputError(f"{what}: a number is beyond the range of a double (about 1.8e308); "
                                 f"expected finite numbers") from exc
     except (TypeError, ValueError) as exc:
         raise InvalidInputError(f"{what}: expected numbers, got {shortened_repr(values)}") from exc
+
+
+def check_array(values, trailing_shape, what):
+    """Return `values` as a float64 array whose last dimensions are `trailing_shape`, all finite."""
+    array = float_array(values, what)
     n = len(trailing_shape)
     if array.ndim < n or array.shape[array.ndim - n:] != tuple(trailing_shape):
         expected = "(..., " + ", ".join(str(s) for s in trailing_shape) + ")"
