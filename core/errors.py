@@ -1,8 +1,25 @@
 """Error types of the core. Every message says what was wrong and what was expected."""
 
 
+# Messages quote what was given, and what was given can be a pasted file of a megabyte. Past this length the
+# middle of a message is left out: its start names the field, its end says what was expected.
+MESSAGE_LIMIT = 600
+_HEAD, _TAIL = 360, 200
+
+
+def bounded_message(message):
+    """`message` itself when short; else its start and end around a note of how much was left out."""
+    if not isinstance(message, str) or len(message) <= MESSAGE_LIMIT:
+        return message
+    left_out = len(message) - _HEAD - _TAIL
+    return f"{message[:_HEAD]} … [{left_out:,} characters left out] … {message[-_TAIL:]}"
+
+
 class FramewrightError(ValueError):
     """Base of every error Framewright raises on bad input."""
+
+    def __init__(self, *args):
+        super().__init__(*(bounded_message(a) for a in args))
 
 
 class InvalidInputError(FramewrightError):
