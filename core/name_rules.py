@@ -15,7 +15,7 @@ _NOT_IN_NAME = re.compile("[\x00-\x1f\x7f-\x9f\u2028\u2029\ud800-\udfff]")
 _NOT_IN_TEXT = re.compile("[\x00-\x08\x0b\x0c\x0e-\x1f\x7f-\x9f\ud800-\udfff]")
 
 
-def _character_problem(text: str, found: re.Match, what: str) -> str:
+def _character_problem(found: re.Match, what: str) -> str:
     char = found.group()
     kind = "a lone surrogate (not valid Unicode text)" if "\ud800" <= char <= "\udfff" else "a control character"
     return f"{what} holds {kind} U+{ord(char):04X} at character {found.start() + 1}; expected plain text"
@@ -47,7 +47,7 @@ def name_problem(value, empty_ok: bool = False) -> str | None:
     if len(value) > MAX_NAME_CHARS:
         return f"a name of {len(value):,} characters; expected at most {MAX_NAME_CHARS}"
     found = _NOT_IN_NAME.search(value)
-    return None if found is None else _character_problem(value, found, "the name")
+    return None if found is None else _character_problem(found, "the name")
 
 
 def free_text_problem(value) -> str | None:
@@ -55,5 +55,5 @@ def free_text_problem(value) -> str | None:
     if not isinstance(value, str):
         return f"expected text, got {kind_of(value)}"
     found = _NOT_IN_TEXT.search(value)
-    return None if found is None else _character_problem(value, found, "the text")
+    return None if found is None else _character_problem(found, "the text")
 
