@@ -72,3 +72,20 @@ def test_the_intrinsic_entry_is_only_checked_when_the_angles_are_read():
     data = json.loads(EXPORT)
     data["intrinsic"] = "false"
     assert is_truth(decode(json.dumps(data))[0])                  # the quaternion, exact
+
+
+def test_a_long_intrinsic_entry_is_echoed_cut_to_40_characters():
+    data = json.loads(EXPORT)
+    data["intrinsic"] = "x" * 100
+    with pytest.raises(DecodeError) as caught:
+        decode(json.dumps(data), {"kind": "angles"})
+    assert str(caught.value).endswith("should be true or false, not " + ('"' + "x" * 39))
+
+
+def test_hints_that_contradict_the_kind_are_refused_as_for_pasted_numbers():
+    # a sequence belongs to angles: with the rotation-vector kind it fits no reading, in our object as in
+    # three pasted numbers (the hints reach the reading of the entry unchanged)
+    hints = {"kind": "rotation-vector", "sequence": "XYZ"}
+    for text in (EXPORT, "10 20 30"):
+        with pytest.raises(DecodeError, match="no reading fits the hints given"):
+            decode(text, hints)
