@@ -32,11 +32,11 @@ def render_report(orientation, o: FormatOptions) -> str:
     if o.name:
         lines.append(f"Mount: {o.name}")
     lines.append(f"Date and time: {when if when else 'not given'}")
-    lines.append("Conventions: v_ref = R v_body (the columns of R are the body axes in reference coordinates);"
-                 " Hamilton quaternion, w first, w not negative; angles in degrees;"
-                 f" the quaternion is printed exactly, other numbers to {d} decimals." if o.decimals is None else
-                 " Hamilton quaternion, w first, w not negative; angles in degrees;"
+    # the matrix's meaning is stated whatever the decimals: only the last clause depends on them
+    precision = (f" the quaternion is printed exactly, other numbers to {d} decimals." if o.decimals is None else
                  f" numbers printed to {d} decimals.")
+    lines.append("Conventions: v_ref = R v_body (the columns of R are the body axes in reference coordinates);"
+                 " Hamilton quaternion, w first, w not negative; angles in degrees;" + precision)
     lines.append("")
     exact = format_number if o.decimals is None else n      # the quaternion line reads back exactly
     lines.append(f"Quaternion (w, x, y, z): {', '.join(exact(v) for v in s['quaternion_wxyz'])}")
@@ -93,5 +93,12 @@ def _report_level(orientation, o: FormatOptions) -> list[str]:
                      f"normal {r.from_up_deg:.3f} from straight up, facing {r.facing}")
     lines.append(f"    up: face {m(report.up_face)}; down: face {m(report.down_face)}")
     lines.append("    elevation above the horizontal: " + ", ".join(
-        f"{m(a.axis)} {m(f'{a.elevation_deg + 0.0:.3f}')}" for a in report.axes))
+        f"{m(a.axis)} {m(_three_decimals(a.elevation_deg))}" for a in report.axes))
     return lines
+
+
+def _three_decimals(value: float) -> str:
+    """Three decimals, and no minus before a zero: an axis left horizontal by rounding dust (1e-14 below
+    the horizontal after a 90° turn) reads 0.000, not −0.000."""
+    text = f"{value:.3f}"
+    return "0.000" if text == "-0.000" else text

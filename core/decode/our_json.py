@@ -16,11 +16,15 @@ from core.decode.readings import readings_from_numbers
 def _decode_our_json(text: str, hints: DecodeHints):
     """Our own JSON object (the export and `decode --json`) holds every representation: read the one
     the hints ask for, or the quaternion, which is exact."""
-    stripped = text.strip()
-    if not stripped.startswith("{") or "quaternion_wxyz" not in stripped:
+    if "quaternion_wxyz" not in text:
+        return None
+    # normalised before the '{' is looked for: a byte-order mark or a zero-width space that an editor put
+    # first would otherwise hide the object, and the other readers would take its lines for bare numbers
+    stripped = _normalise_characters(text).strip()
+    if not stripped.startswith("{"):
         return None
     try:
-        data = json.loads(_normalise_characters(stripped))
+        data = json.loads(stripped)
     except (ValueError, RecursionError):
         return None
     if not isinstance(data, dict) or "quaternion_wxyz" not in data:
@@ -38,7 +42,9 @@ def _decode_our_json(text: str, hints: DecodeHints):
         if kind == "matrix":
             body, extra = numbers("matrix", 9), {"transposed": False}
         elif kind == "axis-angle":
-            body, extra = numbers("axis", 3) + " " + numbers("angle_deg", 1), {"units": "deg"}
+            # the object's order, whatever order a hint gives for pasted numbers
+            body = numbers("axis", 3) + " " + numbers("angle_deg", 1)
+            extra = {"units": "deg", "order": "axis-first"}
         elif representations.by_kind(kind).vector:
             chosen = representations.by_kind(kind)
             if chosen.half_turn_words and chosen.json_key in data and data[chosen.json_key] is None:
@@ -47,8 +53,10 @@ def _decode_our_json(text: str, hints: DecodeHints):
             body, extra = numbers(chosen.json_key, 3), ({"units": "deg"} if chosen.units == "angle" else {})
         elif kind == "angles":
             body = numbers("angles_deg", 3)
-            extra = {"units": "deg", "sequence": data.get("sequence", "ZYX"),
-                     "intrinsic": bool(data.get("intrinsic", True))}
+            intrinsic = data.get("intrinsic", True)
+            if not isinstance(intrinsic, bool):        # bool("false") would be True: a silent wrong reading
+                raise DecodeError(f"JSON key 'intrinsic' should be true or false, not {json.dumps(intrinsic)[:40]}")
+            extra = {"units": "deg", "sequence": data.get("sequence", "ZYX"), "intrinsic": intrinsic}
         else:
             body, extra = numbers("quaternion_wxyz", 4), {"order": "wxyz"}
     except (TypeError, ValueError) as error:
