@@ -143,6 +143,10 @@ def _three_candidates(values, parsed, hints, clues, keyed):
                 (hints.intrinsic is not None and hints.intrinsic != keyed.intrinsic):
             raise DecodeError("the text names yaw, pitch and roll (intrinsic Z-Y'-X''), which the sequence"
                               " options contradict; drop the options or the names")
+        if clues.intrinsic_stated is not None and clues.intrinsic_stated != keyed.intrinsic:
+            raise DecodeError("the text names yaw, pitch and roll (intrinsic Z-Y'-X'') but states the angles are "
+                              "extrinsic; Framewright will not guess which holds (give the sequence and "
+                              "convention as options)")
         sequences = [(keyed.sequence, keyed.intrinsic, 1.0, keyed.note)]
     elif hints.sequence or clues.sequence:
         sequence = hints.sequence or clues.sequence

@@ -20,6 +20,7 @@ class _Clues:
     transposed_reason: str = ""
     sequence: str | None = None
     intrinsic: bool | None = None
+    intrinsic_stated: bool | None = None   # said as a flag ('intrinsic: false'), not only as a word
     order: str | None = None
     kinds: set = field(default_factory=set)
     notes: list = field(default_factory=list)
@@ -51,6 +52,18 @@ _RADIAN_VECTOR = re.compile(r"(?<![a-z])(?:rvecs?|om)(?![a-z])")
 _DEG_WORD = re.compile(r"°|(?<![a-z])deg(?:s|rees?)?(?![a-z])")
 _RAD_WORD = re.compile(r"(?<![a-z])rad(?:s|ians?)?(?![a-z])")
 _PI_EVALUATED = re.compile(r"evaluated '(?P<written>[^']*(?:pi|π)[^']*)'", re.IGNORECASE)
+
+
+# 'intrinsic: false' or '"extrinsic": true' states the convention as a flag: the word alone would read
+# "intrinsic": false as intrinsic. Two flags that disagree say nothing.
+_STATED_FLAG = re.compile(r"(?<![a-z])(intrinsic|extrinsic)[\"']?\s*[:=]\s*[\"']?(true|false|yes|no|on|off)"
+                          r"(?![a-z0-9])")
+
+
+def _stated_intrinsic(words: str) -> bool | None:
+    said = {(m.group(1) == "intrinsic") == (m.group(2) in ("true", "yes", "on"))
+            for m in _STATED_FLAG.finditer(words)}
+    return said.pop() if len(said) == 1 else None
 
 
 def _read_clues(parsed: ParsedNumbers) -> _Clues:
@@ -100,10 +113,17 @@ def _read_clues(parsed: ParsedNumbers) -> _Clues:
     intrinsic, extrinsic = bool(_INTRINSIC_WORD.search(words)) or primes, bool(_EXTRINSIC_WORD.search(words))
     if intrinsic != extrinsic:
         clues.intrinsic = intrinsic
+    stated = clues.intrinsic_stated = _stated_intrinsic(words)
+    if stated is not None:
+        clues.intrinsic = stated
     if clues.sequence is None:
         yaw, pitch, roll = (words.find(w) for w in ("yaw", "pitch", "roll"))
         if min(yaw, pitch, roll) >= 0:
             if yaw < pitch < roll:
+                if stated is False:
+                    raise DecodeError("the text names yaw, pitch and roll (intrinsic Z-Y'-X'') but states the "
+                                      "angles are extrinsic; Framewright will not guess which holds (give the "
+                                      "sequence and convention as options)")
                 clues.sequence, clues.intrinsic = "ZYX", True
             elif roll < pitch < yaw and clues.intrinsic is not True:
                 clues.sequence, clues.intrinsic = "XYZ", False

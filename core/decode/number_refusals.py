@@ -67,9 +67,25 @@ def _words_between_numbers(rest: str, found: list, key_matches: list, line_no: i
     return out
 
 
+# A JSON or Python literal as an element of a list on a line of numbers: '[true, 0.5, 0.5, 0.5]' or
+# '(0.5, 0.5, 0.5, None)' is a list with a gap where a number should be, and reading the three numbers left
+# would take a quaternion for angles. Only list elements count ('"intrinsic": true' is a key's value).
+_LIST_LITERAL = re.compile(r"[\[(,]\s*(true|false|null|none|undefined)\s*(?=[,\])])", re.IGNORECASE)
+_LITERALS = frozenset({"true", "false", "null", "none", "undefined"})
+
+
+def literals_in_lists(rest: str, line_no: int) -> list:
+    """(line, word) for each literal standing as an element of a list on this line (see _LIST_LITERAL)."""
+    return [(line_no, m.group(1)) for m in _LIST_LITERAL.finditer(rest)]
+
+
 def refuse_strays(parsed, lines: set) -> None:
-    """A word between numbers on a line that is read (see _words_between_numbers) is refused."""
+    """A word between numbers on a line that is read (see _words_between_numbers), or a literal in a list
+    of numbers (see literals_in_lists), is refused."""
     for line, word in parsed.strays:
+        if line in lines and word.lower() in _LITERALS:
+            raise DecodeError(f"line {line}: '{word}' stands in a list of numbers where a number should be; "
+                              "Framewright will not read the list with a gap (write the number)")
         if line in lines:
             raise DecodeError(f"line {line}: '{_shorten(word, 24)}' between numbers is not a number, key, unit or"
                               " component name; Framewright will not guess what it stands for (remove it)")

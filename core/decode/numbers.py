@@ -13,7 +13,7 @@ from core.decode.characters import _check_size, _normalise_characters, _shorten,
 from core.decode.angle_marks import _MINUTES, _UNIT, _other_unit
 from core.decode.expressions import substitute
 from core.decode.number_refusals import (_TOKEN, _refuse_empty_cells, _refuse_values_we_will_not_guess,
-                                         _words_between_numbers)
+                                         _words_between_numbers, literals_in_lists)
 
 UNDERSTOOD_COUNTS = "9 (a matrix), 4 (a quaternion, or an axis and an angle) or 3 (angles or a rotation vector)"
 _MAX_NOTES = 12
@@ -235,6 +235,7 @@ def parse_numbers(text: str, max_numbers: int | None = None, first_line: int = 1
         words.append(rest.lower())
         if found_here:
             strays.extend(_words_between_numbers(rest, found_here, key_matches, line_no))
+            strays.extend(literals_in_lists(rest, line_no))
             captions.append((line_no, line[:found_here[0].column - 1].strip().lower()))
             line_words.append((line_no, rest.strip()))
             odd = [w for w in _TOKEN.findall(rest) if _has_digit(w) and w.strip("'\"^°+-*x×·")]
