@@ -111,12 +111,25 @@ def _to_float(match: re.Match, line_no: int) -> float:
     return -value if match.group("sign") == "-" else value
 
 
+_DETACHED_SIGN = re.compile(r"((?:^|[\s,;|(\[{=:&])[+-]) +(?=\.?\d|π|(?:M_PI|PI|Pi|pi)(?![A-Za-z0-9_]))")
+# '- (0.5)' and '- (pi/2)': a sign standing apart before a bracket may negate it or be a bullet or a dash
+_DETACHED_SIGN_BEFORE_BRACKET = re.compile(r"(?:^|[\s,;|(\[{=:&])([+-]) +\(+[ ]*[-+]?(?:\.?\d|π|(?:M_PI|PI|Pi|pi)"
+                                           r"(?![A-Za-z0-9_]))")
+
+
 def _join_detached_signs(line: str, notes: _Notes, line_no: int) -> str:
-    """'- 0.5' after a separator is a sign with a stray space (common in PDFs); dropping it would flip a value."""
+    """'- 0.5' or '- pi/2' after a separator is a sign with a stray space (common in PDFs); dropping it would flip
+    a value. Before a bracket the sign may also be a bullet: refused rather than guessed."""
+    before_bracket = _DETACHED_SIGN_BEFORE_BRACKET.search(line)
+    if before_bracket:
+        raise DecodeError(f"line {line_no}: '{_shorten(before_bracket.group().strip())}': a '{before_bracket.group(1)}'"
+                          " stands apart before a bracket; Framewright will not guess whether it is the value's sign:"
+                          " write it against the value or leave it out")
+
     def join(m: re.Match) -> str:
         notes.add(f"line {line_no}: a sign separated from its number by a space was read as its sign")
         return m.group(1)
-    return re.sub(r"((?:^|[\s,;|(\[{=:&])[+-]) +(?=\.?\d)", join, line)
+    return _DETACHED_SIGN.sub(join, line)
 
 
 def _has_digit(word: str) -> bool:
