@@ -52,11 +52,12 @@ def test_a_library_rotvec_call_names_its_unit(call, degrees, said):
 
 
 def test_from_quat_says_nothing_about_units():
-    # three numbers in a from_quat call: the call gives no unit, so 10, 20, 30 are read as degrees by their
-    # size, never as radians "because the library call says so"
-    readings = decode("R.from_quat([10, 20, 30])")
+    # asked for an axis and an angle, the numbers of a from_quat call get their unit by their size (90:
+    # degrees), never "radians because the library call says so": from_quat has no unit
+    readings = decode("R.from_quat([0, 0, 1, 90])", {"kind": "axis-angle"})
     assert all("the library call says" not in r.why for r in readings)
-    assert readings[0].conventions.get("units") == "deg"
+    assert readings[0].conventions == {"order": "axis, angle", "units": "deg"}
+    same(readings[0], Rotation.from_rotvec([0, 0, np.radians(90)]))
 
 
 def test_from_quat_order_comes_from_the_call():
