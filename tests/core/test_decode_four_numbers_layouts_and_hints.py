@@ -82,3 +82,21 @@ def test_naming_the_order_adds_the_order_points_to_the_hamilton_reading():
     named = decode("quaternion (w, x, y, z): 0.9238795 0 0 0.3826834")[0]
     unnamed = [r for r in decode("quaternion: 0.9238795 0 0 0.3826834") if r.label == named.label][0]
     assert named.score - unnamed.score == pytest.approx(POINTS["order named"])
+
+
+@pytest.mark.parametrize("text", ["0 0 0 5", "0 0 0 1", "0 0 0 0.5"])
+def test_a_zero_axis_with_a_turn_is_no_axis_and_angle(text):
+    assert all(r.kind != "axis-angle" for r in decode(text))
+
+
+def test_four_zeros_are_the_identity_as_an_axis_and_no_turn():
+    readings = decode("0 0 0 0")
+    assert [r.label for r in readings] == ["axis (x, y, z) and angle in degrees", "axis (x, y, z) and angle in radians"]
+    assert all(np.allclose(r.orientation.as_matrix(), np.eye(3)) for r in readings)
+
+
+def test_asked_for_an_axis_and_angle_a_zero_axis_with_a_turn_fits_no_hint():
+    from core.errors import DecodeError
+    with pytest.raises(DecodeError) as err:
+        decode("0 0 0 5", {"kind": "axis-angle"})
+    assert str(err.value) == "cannot read the 4 numbers: no reading fits the hints given"
