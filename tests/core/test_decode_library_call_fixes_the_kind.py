@@ -53,3 +53,27 @@ def test_a_kind_hint_still_wins_over_the_call():
 def test_the_call_matching_its_count_reads_as_before():
     first = decode("R.from_rotvec([0.1, 0.2, 0.3])")[0]
     assert np.allclose(first.orientation.as_matrix(), Rotation.from_rotvec([0.1, 0.2, 0.3]).as_matrix(), atol=1e-12)
+
+
+def test_from_euler_names_its_sequence_and_kind():
+    readings = decode("R.from_euler('xyz', [10, 20, 30], degrees=True)")
+    assert len(readings) == 1
+    assert readings[0].why == ("the only reading: the text names XYZ; the library call says degrees=True; the text"
+                               " says angles")
+    assert readings[0].conventions == {"sequence": "XYZ", "intrinsic": False, "units": "deg"}
+
+
+@pytest.mark.parametrize("text, order, quaternion", [
+    ("R.from_quat([0.9238795, 0, 0, 0.3826834], scalar_first=True)", "wxyz", [0, 0, 0.3826834, 0.9238795]),
+    ("R.from_quat([0, 0, 0.3826834, 0.9238795])", "xyzw", [0, 0, 0.3826834, 0.9238795]),
+])
+def test_from_quat_names_its_order_and_kind(text, order, quaternion):
+    first = decode(text)[0]
+    assert first.conventions == {"order": order, "convention": "Hamilton"}
+    assert "; the text names this order; the text says quaternion" in first.why
+    assert np.allclose(first.orientation.as_matrix(), Rotation.from_quat(quaternion).as_matrix(), atol=1e-6)
+
+
+def test_from_rotvec_names_its_kind():
+    first = decode("R.from_rotvec([0.1, 0.2, 0.3])")[0]
+    assert first.why.endswith("; the text says rotation vector")
