@@ -17,7 +17,7 @@ JOINED = "line 1: a sign separated from its number by a space was read as its si
 @pytest.mark.parametrize("text, values", [
     ("0, - pi/2, 0", [0.0, -math.pi / 2, 0.0]),
     ("0, + pi/2, 0", [0.0, math.pi / 2, 0.0]),
-    ("0 - M_PI 0", [0.0, -math.pi, 0.0]),
+    ("0, - M_PI, 0", [0.0, -math.pi, 0.0]),
     ("0, - π/2, 0", [0.0, -math.pi / 2, 0.0]),
     ("0, - PI/4, 0", [0.0, -math.pi / 4, 0.0]),
     ("yaw = - Pi", [-math.pi]),
@@ -58,3 +58,32 @@ def test_a_detached_sign_before_a_bracket_is_refused(text, shown, sign):
 
 def test_a_dash_before_a_bracket_of_words_is_left_alone():
     assert [n.value for n in parse_numbers("- (front) 1 2 3").numbers] == [1.0, 2.0, 3.0]
+
+
+SPACED = ("has a + or - between spaces next to an expression; Framewright will not guess whether it is arithmetic or"
+          " two values: write it without spaces ('pi/2-0.1') or paste the values")
+
+
+@pytest.mark.parametrize("text, shown", [
+    ("pi/2 + 1, 0, 0", "pi/2 + 1, 0, 0"),          # was read as four numbers: a quaternion
+    ("0 0 pi/2 - 0.1", "0 0 pi/2 - 0.1"),
+    ("1 - pi/2, 0, 0", "1 - pi/2, 0,"),
+    ("(pi/2) - 1 0 0", "(pi/2) - 1 0 0"),
+    ("1 + 2*3 0 0", "1 + 2*3 0 0"),
+    ("0 - M_PI 0", "0 - M_PI 0"),                  # arithmetic (0 - pi) or a list (0, -pi)?
+])
+def test_a_spaced_sign_beside_an_expression_is_refused(text, shown):
+    with pytest.raises(DecodeError) as err:
+        parse_numbers(text)
+    assert str(err.value) == f"line 1: '{shown}' {SPACED}"
+
+
+@pytest.mark.parametrize("text, values", [
+    ("pi/2 +1, 0, 0", [math.pi / 2, 1.0, 0.0, 0.0]),       # a sign against its number: a list
+    ("M_PI/2 -M_PI/2 0", [math.pi / 2, -math.pi / 2, 0.0]),
+    ("1 - 2, 3", [1.0, -2.0, 3.0]),                        # no expression: the plain-number rule
+    ("x (m) - 1.5 0 0", [-1.5, 0.0, 0.0]),
+    ('rpy="${-pi/2 + pi/4} 0 0"', [-math.pi / 2 + math.pi / 4, 0.0, 0.0]),   # inside the wrapper it is arithmetic
+])
+def test_what_is_not_a_spaced_sign_beside_an_expression(text, values):
+    assert [n.value for n in parse_numbers(text).numbers] == values
