@@ -111,12 +111,42 @@ def _to_float(match: re.Match, line_no: int) -> float:
     return -value if match.group("sign") == "-" else value
 
 
+_DETACHED_SIGN = re.compile(r"((?:^|[\s,;|(\[{=:&])[+-]) +(?=\.?\d|π|(?:M_PI|PI|Pi|pi)(?![A-Za-z0-9_]))")
+# '- (0.5)' and '- (pi/2)': a sign standing apart before a bracket may negate it or be a bullet or a dash
+_DETACHED_SIGN_BEFORE_BRACKET = re.compile(r"(?:^|[\s,;|(\[{=:&])([+-]) +\(+[ ]*[-+]?(?:\.?\d|π|(?:M_PI|PI|Pi|pi)"
+                                           r"(?![A-Za-z0-9_]))")
+
+
+_PI_NAME = r"(?:M_PI|PI|Pi|pi|π)(?![A-Za-z0-9_])"
+# 'pi/2 + 1', '0 0 pi/2 - 0.1', '1 - pi/2': a spaced sign beside an expression may be arithmetic or two values
+_SPACED_SIGN_BY_EXPRESSION = re.compile(
+    rf"(?:{_PI_NAME}|[*/][ ]*[\d.]+)\)*[ \t]+[+-][ \t]+(?=[\d.(]|{_PI_NAME})"
+    rf"|[\d.)][ \t]+[+-][ \t]+(?=\(*{_PI_NAME}|\(*[\d.]+[ ]*[*/])")
+
+
+def _refuse_spaced_sign_by_expression(line: str, line_no: int) -> None:
+    # inside '${...}' the spaces are the wrapper's arithmetic: blank it out first
+    m = _SPACED_SIGN_BY_EXPRESSION.search(re.sub(r"\$\{[^{}\n]*\}", lambda w: " " * len(w.group()), line))
+    if m:
+        start, end = max(0, m.start() - 8), min(len(line), m.end() + 8)
+        raise DecodeError(f"line {line_no}: '{_shorten(line[start:end].strip())}' has a + or - between spaces next to"
+                          " an expression; Framewright will not guess whether it is arithmetic or two values: write"
+                          " it without spaces ('pi/2-0.1') or paste the values")
+
+
 def _join_detached_signs(line: str, notes: _Notes, line_no: int) -> str:
-    """'- 0.5' after a separator is a sign with a stray space (common in PDFs); dropping it would flip a value."""
+    """'- 0.5' or '- pi/2' after a separator is a sign with a stray space (common in PDFs); dropping it would flip
+    a value. Before a bracket the sign may also be a bullet: refused rather than guessed."""
+    before_bracket = _DETACHED_SIGN_BEFORE_BRACKET.search(line)
+    if before_bracket:
+        raise DecodeError(f"line {line_no}: '{_shorten(before_bracket.group().strip())}': a '{before_bracket.group(1)}'"
+                          " stands apart before a bracket; Framewright will not guess whether it is the value's sign:"
+                          " write it against the value or leave it out")
+
     def join(m: re.Match) -> str:
         notes.add(f"line {line_no}: a sign separated from its number by a space was read as its sign")
         return m.group(1)
-    return re.sub(r"((?:^|[\s,;|(\[{=:&])[+-]) +(?=\.?\d)", join, line)
+    return _DETACHED_SIGN.sub(join, line)
 
 
 def _has_digit(word: str) -> bool:
@@ -155,6 +185,7 @@ def parse_numbers(text: str, max_numbers: int | None = None, first_line: int = 1
         if "<" in line or "[" in line:
             line = _C_DIMENSIONS.sub(" ", _TEMPLATE_ARGS.sub(" ", line))
         if "-" in line or "+" in line:
+            _refuse_spaced_sign_by_expression(line, line_no)
             line = _join_detached_signs(line, notes, line_no)
         line = substitute(line, line_no, notes)         # pi/2, ${-M_PI/2}: evaluated, with a note
         expression = _EXPRESSION.search(line)

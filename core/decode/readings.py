@@ -84,6 +84,20 @@ def _refuse_square_of_two(parsed: ParsedNumbers, keyed, count: int) -> None:
                           " 3x3 matrix, or a quaternion or axis and angle written as one row")
 
 
+_LIBRARY_CALL_COUNT = {"euler": 3, "rotvec": 3, "quat": 4}
+
+
+def _refuse_library_call_count(parsed: ParsedNumbers, keyed, count: int) -> None:
+    """'from_quat([0.1, 0.2, 0.3])': the call names its kind, so its numbers are never read as another kind."""
+    call = parsed.library_call
+    if call is None or keyed is not None or _LIBRARY_CALL_COUNT[call[0]] == count:
+        return
+    kind = call[0]
+    raise DecodeError(f"the text's library call (from_{kind} or as_{kind}) takes {_LIBRARY_CALL_COUNT[kind]} numbers,"
+                      f" but the text holds {count} ({parsed.lines_summary() or 'none'}): Framewright will not read"
+                      " them as another kind; paste the call's own numbers")
+
+
 def _readings(parsed: ParsedNumbers, hints: DecodeHints, direction=None) -> list[Reading]:
     clues = _read_clues(parsed)
     if direction is not None and clues.transposed is None:
@@ -122,6 +136,7 @@ def _readings(parsed: ParsedNumbers, hints: DecodeHints, direction=None) -> list
         raise DecodeError(f"{_KIND_WORDS.get(hints.kind, 'a ' + hints.kind)} needs {_KIND_COUNT[hints.kind]} numbers;"
                           f" the text holds {count}"
                           f" ({parsed.lines_summary() or 'none'})")
+    _refuse_library_call_count(parsed, keyed, count)
     builder = {9: _matrix_candidates, 4: _four_candidates, 3: _three_candidates}[count]
     candidates = builder(values, parsed, hints, clues, keyed)
     candidates, unit_refusal = respect_unit_marks(candidates, parsed, count, keyed)
@@ -129,6 +144,10 @@ def _readings(parsed: ParsedNumbers, hints: DecodeHints, direction=None) -> list
         raise DecodeError(f"cannot read the {count} numbers: {unit_refusal}")
     if hints.kind is not None:
         candidates = [c for c in candidates if c.kind == hints.kind]
+    elif parsed.library_call is not None and keyed is None:
+        # the call fixes the kind: from_quat([0, 0, 1, 90]) is a quaternion, never an axis and an angle
+        called = {"euler": "angles", "quat": "quaternion", "rotvec": representations.ROTATION_VECTOR.kind}[parsed.library_call[0]]
+        candidates = [c for c in candidates if c.kind == called] or candidates
     if hints.transposed is not None:
         candidates = [c for c in candidates if c.kind != "matrix" or
                       c.conventions["matrix"] == ("reference-to-body" if hints.transposed else "body-to-reference")]

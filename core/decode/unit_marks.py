@@ -26,7 +26,7 @@ _OTHER_UNIT_WORD = re.compile(r"(?<![a-z])(?P<unit>mrads?|milliradians?|arcmin(?
 
 def respect_unit_marks(candidates: list, parsed, count: int, keyed) -> tuple[list, str | None]:
     """(the candidates that read every marked number as an angle, why any were set aside or None).
-    Named components (`keyed`) and numbers picked out of a longer text keep their own rules."""
+    Named angle components (`keyed`) and numbers picked out of a longer text keep their own rules."""
     numbers = parsed.numbers
     marked = [i for i, n in enumerate(numbers) if n.unit]
     written = {numbers[i].converted_from or numbers[i].unit for i in marked}
@@ -41,8 +41,10 @@ def respect_unit_marks(candidates: list, parsed, count: int, keyed) -> tuple[lis
                               "each angle (0.5 mrad, 30″, 2 gon) or convert them to degrees; Framewright will not "
                               "guess which numbers are in that unit")
         return candidates, None
-    if keyed is not None or len(numbers) != count:
+    if len(numbers) != count:
         return candidates, None
+    if keyed is not None and keyed.kind not in _PURE_NUMBERS:
+        return candidates, None         # named angles keep their own rules; a named quaternion part has no unit
     converted = [numbers[i] for i in marked if numbers[i].converted_from]
     unmarked_nonzero = [n for n in numbers if not n.unit and n.value != 0]
     kept, why = [], None
