@@ -137,6 +137,10 @@ def _readings(parsed: ParsedNumbers, hints: DecodeHints, direction=None) -> list
                           f" the text holds {count}"
                           f" ({parsed.lines_summary() or 'none'})")
     _refuse_library_call_count(parsed, keyed, count)
+    if hints.kind is None and keyed is None and clues.kinds == {"quaternion"} and count == 3:
+        # 'quaternion: 0.1 0.2 0.3' is a quaternion with a number missing, not three angles
+        raise DecodeError(f"the text says quaternion, which needs 4 numbers; the text holds 3"
+                          f" ({parsed.lines_summary() or 'none'}); give the fourth, or the kind as an option")
     builder = {9: _matrix_candidates, 4: _four_candidates, 3: _three_candidates}[count]
     candidates = builder(values, parsed, hints, clues, keyed)
     candidates, unit_refusal = respect_unit_marks(candidates, parsed, count, keyed)

@@ -80,3 +80,15 @@ def test_a_flag_beside_a_list_of_numbers_is_not_a_gap():
     # '"intrinsic": true' is a key's value, not a list element; the list is read whole (SciPy check).
     reading = decode('{"sequence": "ZYX", "intrinsic": true, "angles_deg": [10, 20, 30]}')[0]
     assert _same(_quaternion(reading), Rotation.from_euler("ZYX", [10, 20, 30], degrees=True))
+
+
+@pytest.mark.parametrize("text", ["quaternion: 0.1 0.2 0.3", "quat 0.1 0.2 0.3", '{"quaternion": [0.1, 0.2, 0.3]}'])
+def test_three_numbers_the_text_calls_a_quaternion_are_refused_not_read_as_angles(text):
+    with pytest.raises(DecodeError, match=r"^the text says quaternion, which needs 4 numbers; the text holds 3 "):
+        decode(text)
+
+
+def test_three_angles_named_beside_the_word_quaternion_are_still_read():
+    # The words name angles too ('euler', 'yaw'...), so the text is about both: the three are angles (SciPy).
+    reading = decode("quaternion to euler: yaw 10 pitch 20 roll 30 deg")[0]
+    assert _same(_quaternion(reading), Rotation.from_euler("ZYX", [10, 20, 30], degrees=True))
