@@ -161,3 +161,35 @@ def test_a_unit_said_in_a_comment_applies_to_a_keyed_translation():
 def test_a_json_pose_is_labelled_as_json():
     first = decode('{"cam": {"translation": [1, 2, 3], "rotation": [0, 0, 0.6, 0.8]}}')[0]
     assert first.label.startswith("pose (JSON): ") and first.name == "cam"
+
+
+@pytest.mark.parametrize("rotation_line, hints", [
+    ("rvec: [0.1, 0.2, 0.3]", {"units": "rad", "kind": "rotation-vector"}),
+    ("ypr: [10, 20, 30]", {"sequence": "ZYX", "kind": "angles"}),
+    ("quaternion_wxyz: [0.8, 0.6, 0, 0]", {"order": "wxyz", "kind": "quaternion"}),
+    ("q_xyzw: [0.6, 0, 0, 0.8]", {"order": "xyzw", "kind": "quaternion"}),
+    ("rpy: [0.1, 0.2, 0.3]", {"units": "rad", "sequence": "XYZ", "intrinsic": False}),
+])
+def test_hints_that_agree_with_what_the_key_fixes_are_taken(rotation_line, hints):
+    readings = decode(_pose(rotation_line), hints)
+    assert len(readings) == 1 and readings[0].translation == (1.0, 2.0, 3.0)
+
+
+@pytest.mark.parametrize("rotation_line, hints, key", [
+    ("rvec: [0.1, 0.2, 0.3]", {"units": "deg"}, "units"),
+    ("ypr: [10, 20, 30]", {"sequence": "XYZ"}, "sequence"),
+    ("quaternion_wxyz: [0.8, 0.6, 0, 0]", {"order": "xyzw"}, "order"),
+])
+def test_hints_that_contradict_what_the_key_fixes_are_refused(rotation_line, hints, key):
+    with pytest.raises(DecodeError, match=rf"^the text is a pose \(keyed text\), whose {key} is "):
+        decode(_pose(rotation_line), hints)
+
+
+def test_ypr_fixes_the_sequence_but_not_the_units():
+    first = decode(_pose("ypr: [0.1, 0.2, 0.3]"))[0]
+    assert "sequence fixed by the pose; " in first.why and "units fixed" not in first.why
+
+
+def test_three_numbers_under_a_rotation_key_beside_a_position_are_angles():
+    first = decode(_pose("rotation: [10, 20, 30]"))[0]
+    assert first.kind == "angles" and first.translation == (1.0, 2.0, 3.0)
