@@ -129,3 +129,25 @@ def test_a_header_of_position_and_angles_reads_them_by_name():
     assert first.conventions["units"] == "rad"
     # roll 0.1, pitch 0.2, yaw 0.3 = SciPy's intrinsic 'ZYX' with (yaw, pitch, roll)
     assert np.allclose(_matrix(first), Rotation.from_euler("ZYX", [0.3, 0.2, 0.1]).as_matrix(), atol=1e-12)
+
+
+@pytest.mark.parametrize("text, wxyz, missing", [
+    ("0.6 + 0.8*k", (0.6, 0, 0, 0.8), "x, y"),
+    ("q = 0.5+0.5i+0.5j+0.5k", (0.5, 0.5, 0.5, 0.5), None),
+    ("attitude\n-0.5 + 0.5 i - 0.5 j + 0.5 k", (-0.5, 0.5, -0.5, 0.5), None),
+    ("0.6i + 0.8", (0.8, 0.6, 0, 0), "y, z"),
+    ("1e-1 + 9.9499e-1j", (0.1, 0, 0.99499, 0), "x, z"),
+])
+def test_each_way_of_writing_a_quaternion_sum_reads_its_parts(text, wxyz, missing):
+    readings = decode(text)
+    assert len(readings) == 1 and readings[0].label.startswith("quaternion written as a sum: ")
+    assert readings[0].numbers == tuple(float(v) for v in wxyz)
+    assert (f"terms not written are zero: {missing}" in readings[0].notes) == (missing is not None)
+    # SciPy, scalar first (normalised, as SciPy does)
+    expected = Rotation.from_quat(list(wxyz), scalar_first=True).as_matrix()
+    assert np.allclose(_matrix(readings[0]), expected, atol=1e-9)
+
+
+def test_two_numbers_without_imaginary_units_are_no_quaternion_sum():
+    with pytest.raises(DecodeError, match=r"^found 2 numbers"):
+        decode("0.5 - 0.5")
