@@ -93,3 +93,11 @@ def test_a_period_after_the_names_is_named_as_no_part_of_the_pose(text):
     period = text.split()[-1]
     assert f"the last argument ({period}) is the publishing period, not part of the pose" in first.notes
     assert np.allclose(_matrix(first), Rotation.from_euler("ZYX", [0, 0, 0.1]).as_matrix(), atol=1e-12)
+
+
+def test_a_link_after_a_joint_ends_that_joint_so_its_origins_are_set_aside():
+    text = ('<robot>\n<joint name="j"><origin xyz="0 0 1"/><parent link="a"/><child link="b"/></joint>\n'
+            '<link name="b"><visual><origin xyz="5 5 5" rpy="0 0 1"/></visual></link>\n</robot>')
+    readings = decode(text)
+    assert [r.name for r in readings] == ["j"] and readings[0].translation == (0.0, 0.0, 1.0)
+    assert "1 origin(s) outside a joint (visual, collision or inertial offsets) not read" in readings[0].notes
