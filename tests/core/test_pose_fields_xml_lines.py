@@ -17,3 +17,8 @@ def test_an_origin_line_counts_the_lines_of_the_tags_before_it():
     text = '<robot>\n<joint name="j" type="fixed">\n<parent link="a"/>\n<origin xyz="0 0" rpy="0 0 0"/>\n</joint>'
     with pytest.raises(DecodeError, match=r"^line 4: a translation needs 3 numbers \(x, y, z\); found 2"):
         decode(text)
+
+
+def test_a_keyed_translation_of_two_numbers_is_refused_in_full():
+    with pytest.raises(DecodeError, match=r"^line 2: a translation needs 3 numbers \(x, y, z\); found 2$"):
+        decode("cam:\n  translation: [1, 2]\n  rpy: [0, 0, 0]")

@@ -64,3 +64,20 @@ def test_angle_columns_in_different_units_are_refused():
 def test_an_angle_column_in_a_unit_not_read_is_refused():
     with pytest.raises(DecodeError, match=r"^line 1: the angle column 'roll \[grad\]' is marked in 'grad'"):
         decode("x, y, z, roll [grad], pitch [grad], yaw [grad]\n1, 2, 3, 1, 0, 0")
+
+
+@pytest.mark.parametrize("length, translation", [(60, (1.0, 2.0, 3.0)), (61, None)])
+def test_a_column_name_of_up_to_sixty_characters_is_read(length, translation):
+    name = "position" + "_" * (length - 9) + "x"       # 'position____…_x', a position x column by its name
+    assert len(name) == length
+    first = decode(f"{name}, y, z, {_QUAT}\n1, 2, 3, 0, 0, 0, 1")[0]
+    assert first.translation == translation
+    assert any(n.startswith("columns not read") for n in first.notes) == (translation is None)
+
+
+def test_six_named_columns_of_position_and_quaternion_are_enough_for_a_header():
+    # y, z and the four quaternion columns: the quaternion is read by name; no x, so no translation
+    first = decode("# y z qx qy qz qw\n1 2 0 0 0.6 0.8")[0]
+    assert first.translation is None and first.label.startswith("pose line: ")
+    assert np.allclose(np.asarray(first.orientation.as_matrix()), Rotation.from_quat([0, 0, 0.6, 0.8]).as_matrix(),
+                       atol=1e-12)
