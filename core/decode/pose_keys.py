@@ -29,6 +29,11 @@ _ROTATION_VECTOR = ROTATION_VECTOR.key_names      # rvec, om, rotvec, rotation_v
 _COMPONENTS_Q = {"x", "y", "z", "w", "qx", "qy", "qz", "qw"}
 _COMPONENTS_T = ("x", "y", "z")
 _SET_ASIDE_NOTE = 12
+_LENGTH_SUFFIX = re.compile(r"_(?:mm|m|cm)$")      # 'translation_mm': the key names its unit (pose_names reads it)
+
+
+def _translation_key(key: str) -> bool:
+    return _LENGTH_SUFFIX.sub("", key.lower()) in _TRANSLATION
 
 
 def keyed_poses(text: str) -> list[PoseText] | None:
@@ -70,6 +75,7 @@ def keyed_poses(text: str) -> list[PoseText] | None:
         if p.translation is not None and p.unit is None and said:
             p.unit = said
     if not poses:
+        _refuse_a_lone_translation(groups)
         return None
     orphan = next((f for f in fields if f.key == ORPHAN), None)
     if orphan is not None:
@@ -113,7 +119,7 @@ def _group_poses(path, group, groups, used, layout, column_major=False) -> list[
 
 
 def _translation_and_rotation(path, group, groups, used, layout, whole: bool, column_major=False) -> PoseText | None:
-    t_field = next((group[k] for k in group if k.lower() in _TRANSLATION and id(group[k]) not in used), None)
+    t_field = next((group[k] for k in group if _translation_key(k) and id(group[k]) not in used), None)
     r_field = next((group[k] for k in group if k.lower() in _ROTATION and id(group[k]) not in used), None)
     t_sub = next((k for k in _TRANSLATION if _components(groups.get(path + (k,), {}), _COMPONENTS_T)), None)
     r_sub = next((k for k in _ROTATION if _components(groups.get(path + (k,), {}), _COMPONENTS_Q)), None)
@@ -163,6 +169,26 @@ def _translation_and_rotation(path, group, groups, used, layout, whole: bool, co
     display = t_field or r_field or next(iter(group.values()), None)
     return PoseText(tuple(rotation), layout, line or 1, fixed, translation, unit,
                     _group_name(path, groups, display), notes, prefer)
+
+
+def _refuse_a_lone_translation(groups) -> None:
+    """'translation: [1, 2, 3]' with no rotation beside it: the key says the numbers are a position, so they
+    must not fall through to the ordinary decoder and come back as three angles."""
+    for path, group in groups.items():
+        for key, f in group.items():
+            count = len(values_in(f.value, f.line)) if _translation_key(key) else 0
+            if count == 3:
+                raise DecodeError(f"line {f.line}: '{f.key[:40]}' holds a position (x, y, z), and no rotation is"
+                                  " written with it; Framewright will not read a position as angles")
+            if count:
+                raise DecodeError(f"line {f.line}: '{f.key[:40]}' names a position but holds {count} numbers"
+                                  " (x, y, z are 3), and no rotation is written with it; Framewright will not"
+                                  " read them as a rotation")
+        for k in _TRANSLATION:
+            sub = groups.get(path + (k,), {})
+            if all(c in sub for c in _COMPONENTS_T):
+                raise DecodeError(f"line {sub['x'].line}: '{k}' holds a position (x, y, z), and no rotation is"
+                                  " written with it; Framewright will not read a position as angles")
 
 
 def _flat_names(group) -> bool:

@@ -235,8 +235,8 @@ def _pose_from_columns(header: list[str], rows: list, header_line: int) -> list[
     if len(values) != len(header):
         raise DecodeError(f"line {line}: {len(values)} numbers under a header of {len(header)} columns")
     by = {role: v for role, v in zip(roles, values)}
-    units = {u for n in header if (u := _column_unit(n))}
-    unit = next((u for u in ("m", "mm", "in", "thou") if u in units), None)
+    unit = _columns_unit(header, roles, ("tx", "ty", "tz"), _LENGTH_UNITS, "position", header_line)
+    angle_unit = _columns_unit(header, roles, ("aroll", "apitch", "ayaw"), _ANGLE_UNITS, "angle", header_line)
     translation = checked_translation([by.get("tx"), by.get("ty"), by.get("tz")], line) if \
         all(k in by for k in ("tx", "ty", "tz")) else None
     notes = [f"columns named by the header on line {header_line}: {' '.join(header)[:120]}"]
@@ -257,10 +257,31 @@ def _pose_from_columns(header: list[str], rows: list, header_line: int) -> list[
     elif all(k in by for k in ("ayaw", "apitch", "aroll")):
         rotation = (by["ayaw"], by["apitch"], by["aroll"])
         fixed = {"kind": "angles", "sequence": "ZYX", "intrinsic": True}
+        if angle_unit:
+            fixed["units"] = angle_unit
         notes.append("roll, pitch and yaw read by name (yaw-pitch-roll, intrinsic Z-Y'-X'')")
     else:
         return None
     return [PoseText(rotation, "pose line", line, fixed, translation, unit, None, notes)]
+
+
+_LENGTH_UNITS = {"m": "m", "mm": "mm", "cm": "cm", "in": "in", "thou": "thou"}
+_ANGLE_UNITS = {"deg": "deg", "degree": "deg", "degrees": "deg", "rad": "rad", "radian": "rad", "radians": "rad"}
+
+
+def _columns_unit(header, roles, wanted, known: dict, what: str, line: int) -> str | None:
+    """The one unit the header marks on these columns ('x [mm]', 'yaw (deg)'); a mark we do not know, or
+    two different ones, is refused: the numbers would be read in the wrong unit."""
+    marks = {n: u for n, r in zip(header, roles) if r in wanted and (u := _column_unit(n))}
+    for name, mark in marks.items():
+        if mark not in known:
+            raise DecodeError(f"line {line}: the {what} column '{name[:40]}' is marked in '{mark}', a unit Framewright"
+                              f" does not read here (it reads {', '.join(dict.fromkeys(known))})")
+    found = sorted({known[u] for u in marks.values()})
+    if len(found) > 1:
+        raise DecodeError(f"line {line}: the {what} columns are marked in different units ({', '.join(found)});"
+                          " Framewright will not mix them: write them in one unit")
+    return found[0] if found else None
 
 
 def _column_unit(name: str) -> str | None:
