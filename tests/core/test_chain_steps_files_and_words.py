@@ -286,3 +286,12 @@ def test_a_damaged_step_in_a_chain_entry_is_named_by_chain_and_place():
 def test_a_chain_entry_reads_back_its_name_and_steps():
     chain = Chain((ChainStep("a", RZ90, inverted=True), ChainStep("b", RX90, enabled=False)), name="mast")
     assert Chain.from_dict(chain.to_dict()) == chain
+
+
+@pytest.mark.parametrize("value, expected", [
+    ([1.0, 0.0, 0.0], "quaternion_wxyz: expected shape (..., 4), got (3,)"),
+    ([], "quaternion_wxyz: expected shape (..., 4), got (0,)"),
+    ([1.0, 0.0, float("nan"), 0.0], "quaternion_wxyz: contains NaN or infinity; expected finite numbers")])
+def test_a_stored_quaternion_of_the_wrong_length_or_not_finite_is_refused_by_its_key(value, expected):
+    message = words(ChainStep.from_dict, {"name": "p", "orientation": {"quaternion_wxyz": value}})
+    assert message == f"step ('p'): {expected}"

@@ -51,8 +51,13 @@ def test_points_that_are_not_rows_of_three_are_refused_in_words():
         fit_points(PLATE[:, :2], PLATE[:, :2])
     assert str(caught.value) == "nominal points: expected shape (N, 3), got (5, 2)"
     with pytest.raises(InvalidInputError) as caught:
-        fit_points(PLATE, [[0, 0, "x"]] * 5)
-    assert str(caught.value).startswith("measured points: expected rows of three numbers, got ")
+        fit_points(PLATE, [[0, 0, "x"]])
+    assert str(caught.value) == "measured points: expected rows of three numbers, got [[0, 0, 'x']]"
+    with pytest.raises(InvalidInputError) as caught:
+        fit_points([[0, 0, "x"]] * 200, PLATE)
+    message = str(caught.value)                 # what was given is echoed, shortened
+    assert message.startswith("nominal points: expected rows of three numbers, got [[0, 0, 'x'], [0, 0, 'x'], ")
+    assert len(message) < 600
 
 
 def test_a_point_that_is_not_finite_is_refused_by_its_number_from_one():
