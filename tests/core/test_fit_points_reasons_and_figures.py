@@ -148,7 +148,8 @@ def test_below_five_points_there_is_a_note_and_no_threshold_and_from_five_neithe
 
 
 def nearly_collinear_case():
-    nominal = np.array([[-10.0, 0.0, 0.0], [-5.0, 0.0, 0.0], [0.0, 0.0, 0.0], [5.0, 0.0, 0.0], [10.0, 0.2, 0.0]])
+    # Off the X line by 0.2 in y at one end and 0.1 in z at the other: both off-line spreads above zero.
+    nominal = np.array([[-10.0, 0.0, 0.1], [-5.0, 0.0, 0.0], [0.0, 0.0, 0.0], [5.0, 0.0, 0.0], [10.0, 0.2, 0.0]])
     noise = np.array([[0.01, -0.02, 0.015], [-0.01, 0.0, 0.02], [0.0, 0.01, -0.03], [0.02, -0.01, 0.0],
                       [-0.015, 0.02, 0.01]])                                   # invented probe noise, mm
     return nominal, nominal + [1.0, 2.0, 3.0] + noise
@@ -159,6 +160,7 @@ def test_nearly_collinear_points_get_a_note_with_the_weak_turn_in_degrees():
     fit = fit_points(nominal, measured)
     centred = nominal - nominal.mean(0)
     eigen = np.linalg.eigvalsh(centred.T @ centred / len(nominal))
+    assert eigen[0] > 1e-4 and eigen[1] > 1e-4
     assert fit.spread_ratio == pytest.approx(np.sqrt(eigen[1] / eigen[2]), rel=1e-9)
     weak = np.degrees(np.arctan2(fit.rms, np.sqrt(eigen[0] + eigen[1]) * np.sqrt(len(nominal))))
     assert fit.notes == (f"the nominal points are nearly collinear (off-line spread {fit.spread_ratio:.2g} of the "
@@ -175,6 +177,14 @@ def test_the_weak_turn_counts_only_points_of_weight_above_zero():
     eigen = np.linalg.eigvalsh(centred.T @ centred / 5)
     weak = np.degrees(np.arctan2(fit.rms, np.sqrt(eigen[0] + eigen[1]) * np.sqrt(5)))
     assert f"about ±{weak:.2g}° from the residuals" in fit.notes[0]
+
+
+@pytest.mark.parametrize("scale", [50.0, 0.05])
+def test_a_weighted_mirror_image_is_refused_too(scale):
+    nominal = PLATE * scale
+    with pytest.raises(FitRefusedError) as caught:
+        fit_points(nominal, nominal * [1.0, 1.0, -1.0], [1.0, 2.0, 1.0, 0.5, 3.0])
+    assert caught.value.reason == "reflection"
 
 
 def test_the_summary_reads_as_worked_by_hand():
