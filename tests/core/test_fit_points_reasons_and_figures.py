@@ -207,6 +207,16 @@ def test_the_summary_names_flagged_points_from_one():
     assert f"worst point 7 at {fit.distances[6]:.4g} mm" in fit.summary()
 
 
+def test_round_off_is_never_flagged_the_threshold_stays_at_1e_minus_9_of_the_size():
+    # An exact quarter turn of the plate at 100 times its size: one point keeps a round-off residual near
+    # 1e-14 and the others none, so the median and the MAD are 0. The floor is 1e-9 of the size, the
+    # square root of the largest scatter eigenvalue, 100·√3.2 (worked by hand above): 1.789e-7.
+    fit = fit_points(PLATE * 100, PLATE * 100 @ RZ90.T + 7.0)
+    assert fit.flag_threshold == pytest.approx(1e-7 * np.sqrt(3.2), rel=1e-12)
+    assert fit.flagged == ()
+    assert fit_points(PLATE, PLATE).flag_threshold == pytest.approx(1e-9 * np.sqrt(3.2), rel=1e-12)
+
+
 def test_the_flag_rule_is_stated_with_its_numbers():
     assert fit_points(PLATE, PLATE).flag_rule == ("flagged when 0.6745·(d − median)/MAD > 3.5 (modified z-score, "
                                                   "Iglewicz & Hoaglin), with at least 5 points")
