@@ -234,3 +234,32 @@ def test_the_covariance_is_kept_as_tuples_of_floats():
     assert kept == ((1.0, 0.0, 0.0), (0.0, 2.0, 0.0), (0.0, 0.0, 3.0))
     assert isinstance(kept, tuple) and all(isinstance(r, tuple) for r in kept)
     assert all(type(v) is float for r in kept for v in r)
+
+
+def test_an_asymmetry_of_exactly_1e_minus_9_of_the_largest_entry_is_still_taken():
+    # Largest entry 1, asymmetry 1e-9 exactly (1e-9 − 0 is exact): at the bound, not beyond it.
+    kept = AdjustmentSetup(uncertainty_deg=1.0,
+                           covariance_deg2=((1.0, 1e-9, 0.0), (0.0, 1.0, 0.0), (0.0, 0.0, 1.0))).covariance_deg2
+    assert kept[0][1] == kept[1][0] == 0.5e-9
+
+
+def test_a_variance_of_exactly_minus_1e_minus_9_of_the_largest_entry_is_still_taken():
+    # Diagonal, so the smallest eigenvalue is the entry itself, −1e-9 of the largest (1): at the bound.
+    kept = AdjustmentSetup(uncertainty_deg=1.0,
+                           covariance_deg2=((1.0, 0.0, 0.0), (0.0, 1.0, 0.0), (0.0, 0.0, -1e-9))).covariance_deg2
+    assert kept[2][2] == -1e-9
+
+
+@pytest.mark.parametrize("key, value, shown", [("pivot", [1], "pivot: expected a foot number of the footprint, "
+                                                                 "got [1]"),
+                                               ("coverage", [2], "coverage: expected a number above 0 and up to 10, "
+                                                                 "got [2]")])
+def test_a_list_where_a_file_should_hold_a_number_is_refused_showing_the_list(key, value, shown):
+    with pytest.raises(FramewrightError) as caught:
+        AdjustmentSetup.from_dict({key: value})
+    assert str(caught.value) == shown
+
+
+def test_a_footprint_read_from_a_file_comes_back_as_tuples():
+    setup = AdjustmentSetup.from_dict({"footprint": [[1, 2, 3], [4, 5, 6]], "pivot": 1})
+    assert setup.footprint == ((1.0, 2.0, 3.0), (4.0, 5.0, 6.0)) and setup.pivot == 1
