@@ -80,3 +80,39 @@ def test_a_failed_eigenvalue_computation_is_refused_as_numerical(monkeypatch):
     assert caught.value.reason == "numerical"
     assert str(caught.value) == ("the spread of the points could not be computed (did not converge); expected "
                                  "ordinary coordinates")
+
+
+def test_an_xy_point_exactly_0_05_of_the_x_distance_off_the_axis_gets_no_note():
+    # 0.05 off an X distance of 1: at the note's limit, which notes only below it (worked by hand).
+    frame = frame_from_three_points((0, 0, 0), (1, 0, 0), (0.5, 0.05, 0))
+    assert frame.off_axis_distance == 0.05 and frame.notes == ()
+
+
+def test_datum_points_farther_apart_than_a_double_holds_are_refused_in_words():
+    # 3.4e308 from the origin to the X point: beyond the largest double, about 1.8e308 (common practice).
+    refusal = frame_refusal((-1.7e308, 0, 0), (1.7e308, 0, 0), (0, 1.7e308, 0))
+    assert refusal.reason == "range"
+    assert str(refusal) == ("the distances between the points exceed the largest number a double holds (about "
+                            "1.8e308); expected points that lie closer together than that")
+
+
+def test_a_huge_coordinate_s_message_shows_the_spread_in_the_user_s_numbers():
+    # The plate's spread is √3.2 = 1.79 (worked by hand) whatever the working scale inside the fit.
+    plate = np.array([[2.0, 1.0, 0.0], [-2.0, 1.0, 0.0], [-2.0, -1.0, 0.0], [2.0, -1.0, 0.0], [0.0, 0.0, 1.0]])
+    measured = plate.copy()
+    measured[0, 0] = 1e120
+    with pytest.raises(FitRefusedError) as caught:
+        fit_points(plate, measured)
+    assert str(caught.value).startswith("measured point 1, x = 1e+120 is out of all proportion to the spread of "
+                                        "the nominal points, 1.79 (a ratio of 1.8e-120)")
+
+
+def test_measured_points_exactly_on_one_line_are_refused_as_a_line_not_as_one_place():
+    plate = np.array([[2.0, 1.0, 0.0], [-2.0, 1.0, 0.0], [-2.0, -1.0, 0.0], [2.0, -1.0, 0.0], [0.0, 0.0, 1.0]])
+    measured = np.zeros((5, 3))
+    measured[:, 0] = [1.0, 2.0, 3.0, 4.0, 6.0]          # all on the reference X axis (invented)
+    with pytest.raises(FitRefusedError) as caught:
+        fit_points(plate, measured)
+    assert caught.value.reason == "collinear"
+    assert str(caught.value).startswith("the measured points lie on one line (their second spread is 0 of the "
+                                        "first, limit 1e-06)")
