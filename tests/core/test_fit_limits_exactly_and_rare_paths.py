@@ -116,3 +116,14 @@ def test_measured_points_exactly_on_one_line_are_refused_as_a_line_not_as_one_pl
     assert caught.value.reason == "collinear"
     assert str(caught.value).startswith("the measured points lie on one line (their second spread is 0 of the "
                                         "first, limit 1e-06)")
+
+
+def test_measured_points_a_hundred_orders_too_small_are_refused_showing_their_own_spread():
+    # The plate measured at 1e-105 of its size (a unit mistake): the measured spread is √3.2·1e-105 =
+    # 1.79e-105 (worked by hand), against a largest coordinate of 2, a ratio of 8.9e-106.
+    plate = np.array([[2.0, 1.0, 0.0], [-2.0, 1.0, 0.0], [-2.0, -1.0, 0.0], [2.0, -1.0, 0.0], [0.0, 0.0, 1.0]])
+    with pytest.raises(FitRefusedError) as caught:
+        fit_points(plate, plate * 1e-105)
+    assert caught.value.reason == "range"
+    assert str(caught.value).startswith("nominal point 1, x = 2 is out of all proportion to the spread of the "
+                                        "measured points, 1.79e-105 (a ratio of 8.9e-106)")
