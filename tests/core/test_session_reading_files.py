@@ -3,7 +3,8 @@ field checks let through but a constructor refuses; each is a SessionFileError t
 file's name, and only the last is marked `unexpected` (a gap in the field checks, not a named refusal).
 
 Check values: the refusal words are the loader's own (core/session_reading.py) and the JSON reader's
-(core/bounded_json.py); the 2,000-character cap on an unexpected refusal is the loader's own."""
+(core/bounded_json.py); the 2,000-character cap on an unexpected refusal is the loader's own, the shortening of a long
+refusal core/errors.py's."""
 
 import json
 
@@ -88,8 +89,11 @@ def test_an_unexpected_refusal_is_cut_to_2000_characters(tmp_path, monkeypatch):
     path.write_text(json.dumps(MINIMAL), encoding="utf-8")
     with pytest.raises(SessionFileError) as refused:
         load_session(path)
+    # Cut to 2,000 characters, then shortened as every refusal is (core/errors.py keeps its first 360 and
+    # last 200 characters around a note of how many were left out): 2,000 - 560 = 1,440, worked by hand.
     message = str(refused.value)
-    assert len(message) <= 2000 and message.startswith(f"{path}: not a valid session (xxx")
+    assert message.startswith(f"{path}: not a valid session (xxx")
+    assert "[1,440 characters left out]" in message and message.endswith(" " + "x" * 200)
 
 
 def test_a_named_refusal_raised_past_the_checks_is_passed_on_unchanged(tmp_path, monkeypatch):
