@@ -36,6 +36,13 @@ def _object(value: Any, where: str, what: str = "an object") -> dict:
     return value
 
 
+def _only_keys(data: dict, where: str, keys: tuple[str, ...]) -> None:
+    """Refuse a key this format does not have: a misspelt one ("boresite", "invert") would otherwise be
+    dropped and its field read as the default, silently pointing the part another way."""
+    unknown = sorted(set(data) - set(keys))
+    _require(not unknown, where, f"expected only {', '.join(keys)}, found also {unknown}")
+
+
 def _is_number(value: Any) -> bool:
     return isinstance(value, (int, float)) and not isinstance(value, bool)
 
@@ -148,6 +155,7 @@ def _measurements(value: Any, where: str) -> tuple[Measurement, ...]:
 
 def _part_from_dict(value: Any, where: str) -> PartProperties:
     data = _object(value, where)
+    _only_keys(data, where, ("box_size_mm", "face_names", "boresight"))
     sizes = data.get("box_size_mm", list(PartProperties.box_size_mm))
     size_where = _at(where, "box_size_mm")
     _require(isinstance(sizes, list) and len(sizes) == 3, size_where,
@@ -165,6 +173,7 @@ def _part_from_dict(value: Any, where: str) -> PartProperties:
 
 def _mount_from_dict(data: Any, where: str, version: int = FORMAT_VERSION) -> Mount:
     data = _object(data, where, "an object with name and orientation")
+    _only_keys(data, where, ("name", "orientation", "part", "notes", "position", "measurements"))
     _require("name" in data, where, "missing its name")
     name = _name(data["name"], _at(where, "name"))
     _require("orientation" in data, where, 'missing its orientation {"quaternion_wxyz": [w, x, y, z]}')
@@ -241,6 +250,7 @@ def _check_raw(value: Any, where: str, version: int = FORMAT_VERSION) -> None:
 def _chain_raw(value: Any, where: str, version: int = FORMAT_VERSION) -> None:
     """A chain entry's fields, before Chain and ChainStep build it."""
     data = _object(value, where)
+    _only_keys(data, where, ("name", "steps"))
     if "name" in data:
         _name(data["name"], _at(where, "name"))
     steps = data.get("steps", [])
@@ -248,6 +258,7 @@ def _chain_raw(value: Any, where: str, version: int = FORMAT_VERSION) -> None:
     for i, step in enumerate(steps):
         here = _at(_at(where, "steps"), i)
         step = _object(step, here, "an object with name and orientation")
+        _only_keys(step, here, ("name", "orientation", "position", "inverted", "enabled"))
         _require("name" in step, here, "missing its name")
         _name(step["name"], _at(here, "name"), empty_ok=True)
         _require("orientation" in step, here, 'missing its orientation {"quaternion_wxyz": [w, x, y, z]}')
