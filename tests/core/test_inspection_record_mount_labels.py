@@ -117,7 +117,11 @@ def test_extrinsic_angles_are_labelled_extrinsic_with_their_trade_names():
     assert figures["mount[0].angles"].label == "Angles X-Y-Z extrinsic (roll, pitch, yaw)"
     assert figures["mount[0].gimbal_margin"].label == "Gimbal margin of XYZ extrinsic"
     # SciPy's Rotation: lower case is extrinsic
-    assert _numbers(figures["mount[0].angles"]) == pytest.approx(TURN.as_euler("xyz", degrees=True), abs=1e-7)
+    extrinsic = TURN.as_euler("xyz", degrees=True)
+    assert _numbers(figures["mount[0].angles"]) == pytest.approx(extrinsic, abs=1e-7)
+    # worked by hand: the margin is 90° less the size of the middle angle of this very sequence
+    assert _numbers(figures["mount[0].gimbal_margin"]) == pytest.approx([90.0 - abs(extrinsic[1])], abs=1e-7)
+    assert abs(extrinsic[1]) != pytest.approx(abs(TURN.as_euler("XYZ", degrees=True)[1]), abs=1e-3)
 
 
 def test_intrinsic_angles_without_trade_names_name_no_angles():
