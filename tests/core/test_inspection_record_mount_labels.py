@@ -11,16 +11,18 @@ from scipy.spatial.transform import Rotation
 from core import inspection_record as records
 from core.orientation import Orientation
 from core.position import Position
-from core.session import Mount, Preferences, Session
+from core.session import Mount, PartProperties, Preferences, Session
 
 # Invented: a camera bracket turned yaw 30°, pitch 20°, roll 10° (ZYX intrinsic, built through SciPy).
 TURN = Rotation.from_euler("ZYX", [30.0, 20.0, 10.0], degrees=True)
 BRACKET = Orientation.from_quaternion(TURN.as_quat(scalar_first=True))
+# Invented: the camera's box, with its lens on +X
+CAMERA = PartProperties(box_size_mm=(80.0, 50.0, 30.0), face_names={"+X": "lens"}, boresight="+X")
 
 
 def _record(orientation=BRACKET, preferences=None, position=(12.5, -3.0, 40.0), notes=""):
     where = None if position is None else Position.from_shown(position, "mm")
-    mount = Mount("Camera bracket", orientation, notes=notes, position=where)
+    mount = Mount("Camera bracket", orientation, notes=notes, position=where, part=CAMERA)
     session = Session(mounts=(mount,), reference_frame="enu", preferences=preferences or Preferences())
     return records.session_record(session, "bracket.fwsession.json", "0" * 64)
 
@@ -167,3 +169,4 @@ def test_the_session_section_is_titled_by_number_and_name_and_pictures_the_part_
     assert section.picture.ghost.angle_to(Orientation.identity()) == pytest.approx(0, abs=1e-9)
     assert section.picture.orientation.angle_to(BRACKET) == pytest.approx(0, abs=1e-9)
     assert section.picture.preset == "enu"
+    assert section.picture.part == CAMERA
