@@ -216,3 +216,37 @@ def test_a_check_without_both_mounts_is_refused_in_a_check_record_and_not_judged
     assert [s.title for s in whole.sections] == ["Mount 1: Bracket", "Check “Loose check”: not judged"]
     assert whole.sections[1].items == (f"Not judged: {why}",)
     assert whole.sections[1].picture is None
+
+
+def test_a_check_not_judged_does_not_stop_the_checks_after_it():
+    bracket = Mount("Bracket", Orientation.identity())
+    tilted = Mount("Tilted bracket", Orientation.from_axis_angle([0, 1, 0], -1.0))
+    checks = (SavedCheck(None, "Bracket", CheckSettings(), "Loose check"),
+              SavedCheck("Bracket", "Tilted bracket", CheckSettings(total_tolerance_deg=2.0), "Tilt check"))
+    whole = records.session_record(Session(mounts=(bracket, tilted), checks=checks), "s", "0" * 64)
+    # worked by hand: a 1° tilt against a 2° total tolerance passes
+    assert [s.title for s in whole.sections] == ["Mount 1: Bracket", "Mount 2: Tilted bracket",
+                                                 "Check “Loose check”: not judged", "Check “Tilt check”: PASS"]
+    # the second check is the second of the session: its keys say so
+    assert whole.sections[3].items[0].key == "check[1].name"
+
+
+def test_the_mounts_a_check_names_are_found_wherever_they_are_in_the_session():
+    # Invented: the measured mount comes first in the session, the nominal second, and a third stands by
+    measured = Mount("Tilted bracket", Orientation.from_axis_angle([0, 1, 0], -1.0))
+    spare = Mount("Spare", Orientation.from_axis_angle([1, 0, 0], 45.0))
+    nominal = Mount("Bracket", Orientation.identity())
+    check = SavedCheck("Bracket", "Tilted bracket", CheckSettings(), "Tilt check")
+    record = records.check_record(Session(mounts=(measured, spare, nominal), checks=(check,)), "Tilt check", "s",
+                                  "0" * 64)
+    assert record.title == "Inspection record: Tilted bracket"
+    figures = _figures(record.sections[0].items)
+    assert figures["check[0].nominal"].values == ("Bracket",)
+    assert figures["check[0].measured"].values == ("Tilted bracket",)
+    assert figures["check[0].total_deviation"].values == ("1",)          # worked by hand
+    assert record.sections[0].picture.ghost_label == "nominal, Bracket"
+    nominal_section, measured_section = record.sections[1], record.sections[2]
+    # each mount section keeps the mount's own place in the session for its keys
+    assert (nominal_section.items[0].key, nominal_section.items[0].values) == ("mount[2].name", ("Bracket",))
+    assert (measured_section.items[0].key, measured_section.items[0].values) == ("mount[0].name",
+                                                                                 ("Tilted bracket",))
