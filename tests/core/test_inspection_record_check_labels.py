@@ -250,3 +250,19 @@ def test_the_mounts_a_check_names_are_found_wherever_they_are_in_the_session():
     assert (nominal_section.items[0].key, nominal_section.items[0].values) == ("mount[2].name", ("Bracket",))
     assert (measured_section.items[0].key, measured_section.items[0].values) == ("mount[0].name",
                                                                                  ("Tilted bracket",))
+
+
+def test_the_check_picture_shows_the_measured_part_in_the_sessions_frame():
+    from core.session import PartProperties
+    # Invented: the measured mount is a long antenna box pointing along +X, the nominal a plain block
+    antenna = PartProperties(box_size_mm=(300.0, 40.0, 40.0), boresight="+X")
+    nominal = Mount("Block", Orientation.identity())
+    measured = Mount("Antenna", Orientation.from_axis_angle([0, 0, 1], 0.5), part=antenna)
+    check = SavedCheck("Block", "Antenna", CheckSettings(), "Antenna check")
+    session = Session(mounts=(nominal, measured), reference_frame="ned", checks=(check,))
+    section = records.check_record(session, "Antenna check", "s", "0" * 64).sections[0]
+    assert section.picture.part == antenna
+    assert section.picture.preset == "ned"
+    # a deviation well under a degree still prints its axis: 0.5° about +Z (by construction)
+    assert _figures(section.items)["check[0].deviation_axis"].values == ("0", "0", "1")
+    assert _figures(section.items)["check[0].total_deviation"].values == ("0.5",)
