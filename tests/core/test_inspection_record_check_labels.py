@@ -266,3 +266,16 @@ def test_the_check_picture_shows_the_measured_part_in_the_sessions_frame():
     # a deviation well under a degree still prints its axis: 0.5° about +Z (by construction)
     assert _figures(section.items)["check[0].deviation_axis"].values == ("0", "0", "1")
     assert _figures(section.items)["check[0].total_deviation"].values == ("0.5",)
+
+
+def test_each_figures_own_uncertainty_is_labelled_after_the_expanded_one():
+    # Invented: a covariance of 0.03° about reference Z only; the bracket's body Z is reference Z here, so it
+    # turns the part about its own axis (roll) and leaves the pointing alone (the roll's 0.03° as
+    # core/uncertainty.py propagates it, its own tests check it by Monte Carlo)
+    covariance = ((0.0, 0.0, 0.0), (0.0, 0.0, 0.0), (0.0, 0.0, 0.03 ** 2))
+    setup = AdjustmentSetup(uncertainty_deg=0.03, covariance_deg2=covariance)
+    outline = _outline(_items(bracket_session(setup=setup)))
+    at = outline.index(("check[0].expanded_uncertainty", "Expanded uncertainty U = k·u", "deg"))
+    assert outline[at + 1] == ("check[0].figure_uncertainties", "Standard uncertainty of each figure, propagated "
+                               "from the orientation's covariance (pointing error, roll)", "deg")
+    assert outline[at + 2] == ("check[0].decision", "Decision (ISO 14253-1)", "")
