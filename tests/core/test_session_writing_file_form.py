@@ -95,3 +95,12 @@ def test_an_object_json_cannot_hold_is_refused_in_words():
     assert _refusal(Session((Mount("A"),), extra={"kept": object()})) == (
         "bench/rig.fwsession.json: cannot be written as a session file (Object of type object is not JSON "
         "serializable)")
+
+
+def test_a_very_long_reason_is_shortened_and_keeps_its_start_and_end():
+    odd = type("Odd" * 1000, (), {})()               # a class name of 3,000 characters in the reason
+    words = _refusal(Session((Mount("A"),), extra={"kept": odd}))
+    # Every refusal is kept to core.errors.MESSAGE_LIMIT characters (600), the middle left out.
+    assert len(words) <= 600 and words.startswith("bench/rig.fwsession.json: cannot be written as a "
+                                                  "session file (Object of type OddOdd")
+    assert words.endswith("OddOdd is not JSON serializable)")
