@@ -1,12 +1,13 @@
 """Parsing and checking a JSON document (core.bounded_json.parse, check_values, place): what is accepted
 is returned as json.loads gives it; each limit is pinned on both sides (nesting depth, digits of a whole
 number, the range of a double for whole numbers, the length of a spelled place); each refusal is pinned
-in the module's own words with the place it names. Check values: the largest double is about 1.8e308 and
-2**1024 is the first power of two beyond it (IEEE 754, common practice); Python's json module accepts
+in the module's own words with the place it names. Check values: the largest double is 2**1024 - 2**971,
+about 1.8e308, and float() of a whole number rounds half to even (IEEE 754, common practice); Python's json module accepts
 NaN and Infinity and parses \\ud800 to a lone surrogate (its documented behaviour); positions and MB
 sums worked by hand. Documents are invented."""
 
 import json
+import sys
 
 import pytest
 
@@ -131,17 +132,25 @@ def test_a_whole_number_of_400_digits_is_parsed_and_one_of_401_is_refused_before
                                      "may be damaged")
 
 
-BIG = 2 ** 1024          # the first power of two past the largest double (IEEE 754, common practice)
+# The largest double is 2**1024 - 2**971; whole numbers from halfway to 2**1024 on round (half to even)
+# to 2**1024 and overflow (IEEE 754 rounding, common practice; float() rounds correctly).
+FIRST_OVER = 2 ** 1024 - 2 ** 970
 
 
-@pytest.mark.parametrize("number", [BIG - 1, -(BIG - 1), 10 ** 308, 0])
-def test_a_whole_number_inside_the_bound_is_kept(number):
+@pytest.mark.parametrize("number", [FIRST_OVER - 1, -(FIRST_OVER - 1), 10 ** 308, 0],
+                         ids=["just under", "just over minus", "1e308", "zero"])
+def test_a_whole_number_a_double_can_hold_is_kept(number):
     assert parse(f"[{number}]".encode()) == [number]
     assert parse(f"{number}".encode()) == number
+    assert abs(float(number)) <= sys.float_info.max          # so a reader converting it cannot overflow
 
 
-@pytest.mark.parametrize("number", [BIG, -BIG, BIG + 1, -BIG - 1, 10 ** 399])
-def test_a_whole_number_at_or_past_the_bound_is_refused_by_its_place(number):
+@pytest.mark.parametrize("number", [FIRST_OVER, -FIRST_OVER, 2 ** 1024 - 1, 2 ** 1024, -2 ** 1024 - 1,
+                                    10 ** 399],
+                         ids=["first over", "first under minus", "2**1024-1", "2**1024", "-2**1024-1", "1e399"])
+def test_a_whole_number_a_double_cannot_hold_is_refused_by_its_place(number):
+    with pytest.raises(OverflowError):
+        float(number)
     assert _refusal(f'{{"kept": [0, {number}]}}'.encode()) == f"kept[1]: {RANGE_WORDS}"
     assert _refusal(f"{number}".encode()) == f"(the top level): {RANGE_WORDS}"
 
@@ -195,3 +204,17 @@ def test_a_place_of_120_characters_is_given_whole_and_a_longer_one_is_shortened(
     assert _refusal(json.dumps({key: float("nan")}).encode()) == "k" * 100 + f"… (1 levels down): nan {NAN_WORDS}"
     two = json.dumps({"a" * 60: {"b" * 60: float("nan")}}).encode()     # 60 + 1 + 60 = 121 characters
     assert _refusal(two) == "a" * 60 + "." + "b" * 39 + f"… (2 levels down): nan {NAN_WORDS}"
+
+
+def test_a_session_file_with_a_whole_number_just_past_a_double_names_the_field(tmp_path):
+    from core.session import SessionFileError, load_session
+    from tests.core.session_mutations import VALID_DOCUMENTS
+
+    document = json.loads(json.dumps(VALID_DOCUMENTS[0]))
+    document["mounts"][0]["part"]["box_size_mm"][0] = 12345
+    path = tmp_path / "big.fwsession.json"
+    path.write_text(json.dumps(document).replace("12345", str(2 ** 1024 - 1), 1))
+    with pytest.raises(SessionFileError) as caught:
+        load_session(path)
+    assert str(caught.value) == f"{path}: mounts[0].part.box_size_mm[0]: {RANGE_WORDS}"
+    assert not caught.value.unexpected
