@@ -235,6 +235,9 @@ def test_the_age_limit_holds_on_both_sides_for_a_live_process(tmp_path):
     assert young.exists()
     assert atomic_file.remove_stale_temporaries(target, now=1_000_000 + atomic_file.STALE_AFTER_S + 0.5) == [young]
     assert not young.exists()
+    other = _temporary(tmp_path, "autosave.json", os.getpid(), mtime=1_000_000)     # the folder-wide sweep
+    assert atomic_file.remove_stale_temporaries_in(tmp_path, now=1_000_000 + atomic_file.STALE_AFTER_S) == []
+    assert atomic_file.remove_stale_temporaries_in(tmp_path, now=1_000_000 + atomic_file.STALE_AFTER_S + 0.5) == [other]
 
 
 def test_without_a_time_given_the_clock_is_used(tmp_path):
