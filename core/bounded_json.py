@@ -25,7 +25,9 @@ MAX_INT_DIGITS = 400      # beyond a double's range (309 digits) already; Python
 
 _IDENTIFIER = re.compile(r"[A-Za-z_][A-Za-z0-9_]*")
 _SURROGATE_ESCAPE = re.compile(r"\\u[dD][89a-fA-F][0-9a-fA-F]{2}")
-_LARGEST_INT = 2 ** 1024  # the first whole number a double cannot hold
+# The first whole number a double cannot hold: halfway between the largest double (2**1024 - 2**971)
+# and 2**1024, it rounds (half to even) to 2**1024, so float() of it overflows.
+_LARGEST_INT = 2 ** 1024 - 2 ** 970
 
 
 class BoundedJsonError(FramewrightError):

@@ -70,7 +70,8 @@ def session_file_bytes(session: Session, source: str = "session") -> bytes:
     except bounded_json.BoundedJsonError as exc:
         raise SessionFileError(f"{source}: {exc}") from None
     except UNEXPECTED as exc:   # e.g. NaN or an object JSON cannot hold among the kept data
-        raise SessionFileError(f"{source}: cannot be written as a session file ({exc})"[:2000]) from None
+        # No cut here: SessionFileError keeps the start and the end of a long reason (core/errors.py).
+        raise SessionFileError(f"{source}: cannot be written as a session file ({exc})") from None
 
 
 def save_session(session: Session, path: str | os.PathLike) -> None:
