@@ -74,18 +74,40 @@ _LIST_LITERAL = re.compile(r"[\[(,]\s*(true|false|null|none|undefined)\s*(?=[,\]
 _LITERALS = frozenset({"true", "false", "null", "none", "undefined"})
 
 
+# A square-bracketed list on a line of numbers, as the line reads with its numbers blanked out: an element
+# that is a bare word ('[abc, 0.5, 0.5, 0.5]', '[0.5, 0.5, 0.5, q3]') is a gap where a number should be.
+_BRACKETED = re.compile(r"\[([^\[\]]*)\]")
+
+
+class ListGap(str):
+    """A word found standing in a list of numbers: refused in its own words (not 'between numbers')."""
+_WORD_ELEMENT = re.compile(r"[A-Za-z_][\w.]*")
+
+
 def literals_in_lists(rest: str, line_no: int) -> list:
-    """(line, word) for each literal standing as an element of a list on this line (see _LIST_LITERAL)."""
-    return [(line_no, m.group(1)) for m in _LIST_LITERAL.finditer(rest)]
+    """(line, word) for each literal standing as an element of a list on this line (see _LIST_LITERAL), and
+    each bare word standing as an element of a square-bracketed list that holds numbers (see _BRACKETED)."""
+    found = [(line_no, ListGap(m.group(1))) for m in _LIST_LITERAL.finditer(rest)]
+    for group in _BRACKETED.finditer(rest):
+        elements = group.group(1).split(",")
+        if len(elements) < 2 or not any(e and not e.strip() for e in elements):   # no blanked-out number
+            continue
+        for element in elements:
+            word = element.strip()
+            if (_WORD_ELEMENT.fullmatch(word) and word.lower() not in _BETWEEN_WORDS
+                    and not _NUMBER_TYPE.fullmatch(word) and word.lower() not in _LITERALS):
+                found.append((line_no, ListGap(word)))
+    return found
 
 
 def refuse_strays(parsed, lines: set) -> None:
     """A word between numbers on a line that is read (see _words_between_numbers), or a literal in a list
     of numbers (see literals_in_lists), is refused."""
-    for line, word in parsed.strays:
-        if line in lines and word.lower() in _LITERALS:
-            raise DecodeError(f"line {line}: '{word}' stands in a list of numbers where a number should be; "
-                              "Framewright will not read the list with a gap (write the number)")
+    gaps_first = sorted(parsed.strays, key=lambda stray: not isinstance(stray[1], ListGap))   # a gap is named as one
+    for line, word in gaps_first:
+        if line in lines and isinstance(word, ListGap):
+            raise DecodeError(f"line {line}: '{_shorten(word, 24)}' stands in a list of numbers where a number "
+                              "should be; Framewright will not read the list with a gap (write the number)")
         if line in lines:
             raise DecodeError(f"line {line}: '{_shorten(word, 24)}' between numbers is not a number, key, unit or"
                               " component name; Framewright will not guess what it stands for (remove it)")

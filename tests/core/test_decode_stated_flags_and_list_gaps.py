@@ -68,6 +68,9 @@ def test_yaw_pitch_roll_without_a_contrary_flag_is_intrinsic_zyx(text):
     ('{"quaternion": [0.5, 0.5, 0.5, null]}', "null"),
     ("q = (0.5, None, 0.5, 0.5, 0.5)", "None"),
     ("[0.5, 0.5, false, 0.5]", "false"),
+    ("[abc, 0.5, 0.5, 0.5]", "abc"),
+    ("[0.5, 0.5, 0.5, q3]", "q3"),
+    ("[M_PI_2, 0, 0]", "M_PI_2"),
 ])
 def test_a_literal_in_a_list_of_numbers_is_refused_as_a_gap(text, word):
     with pytest.raises(DecodeError) as caught:
@@ -92,3 +95,13 @@ def test_three_angles_named_beside_the_word_quaternion_are_still_read():
     # The words name angles too ('euler', 'yaw'...), so the text is about both: the three are angles (SciPy).
     reading = decode("quaternion to euler: yaw 10 pitch 20 roll 30 deg")[0]
     assert _same(_quaternion(reading), Rotation.from_euler("ZYX", [10, 20, 30], degrees=True))
+
+
+@pytest.mark.parametrize("text, scipy", [
+    ("[10 deg, 20 deg, 30 deg]", Rotation.from_euler("ZYX", [10, 20, 30], degrees=True)),
+    ("[yaw, pitch, roll] = [10, 20, 30]", Rotation.from_euler("ZYX", [10, 20, 30], degrees=True)),
+    ("[np.float64(0.5), 0.5, 0.5, 0.5]", Rotation.from_quat([0.5, 0.5, 0.5, 0.5], scalar_first=True)),
+    ('R.from_euler("zyx", [10, 20, 30], degrees=True)', Rotation.from_euler("zyx", [10, 20, 30], degrees=True)),
+])
+def test_lists_of_numbers_with_units_names_or_number_types_are_still_read(text, scipy):
+    assert _same(_quaternion(decode(text)[0]), scipy)
