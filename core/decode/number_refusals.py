@@ -37,9 +37,23 @@ def _refuse_empty_cells(line: str, line_no: int) -> None:
                               f" ('{m.group()}'): a number seems to be missing")
 
 
+# A flag written as 0 or 1 ('"degrees": 1', 'intrinsic=0'), a lone digit followed by the next key or the end:
+# the digit would be read as one of the orientation's numbers, and three angles with it become an axis and an
+# angle. 'in degrees: 1, 2, 3' is a caption and its numbers, not a flag.
+_NUMBER_FLAG = re.compile(r"(?<![a-z_])(?:use_|in_)?(degrees|radians|intrinsic|extrinsic|scalar_first|scalar_last|"
+                          r"transposed)[\"']?\s*[:=]\s*[01]"
+                          r"(?=\s*(?:$|[})\]]|[,;]\s*[\"'A-Za-z_]|\s+[\"'A-Za-z_]))", re.IGNORECASE)
+
+
 def _refuse_values_we_will_not_guess(line: str, line_no: int) -> None:
     """NaN, inf, PI, M_PI, π, ${…}: dropping them would shift the other numbers into another reading, and
-    reading 'PI/2' as 2 loses the sign and π. Refused by name, with the line."""
+    reading 'PI/2' as 2 loses the sign and π; a flag written as 0 or 1 would be read as a number. Refused by
+    name, with the line."""
+    m = _NUMBER_FLAG.search(line)
+    if m:
+        raise DecodeError(f"line {line_no}: '{_shorten(m.group(), 24)}' is a flag written as a number, which "
+                          f"would be read as part of the orientation; write {m.group(1)} as true or false, or "
+                          "give it as an option")
     m = _NON_FINITE.search(line)
     if m:
         raise DecodeError(f"line {line_no}: '{m.group()}' is not a finite number; every number must be a"

@@ -105,3 +105,22 @@ def test_three_angles_named_beside_the_word_quaternion_are_still_read():
 ])
 def test_lists_of_numbers_with_units_names_or_number_types_are_still_read(text, scipy):
     assert _same(_quaternion(decode(text)[0]), scipy)
+
+
+@pytest.mark.parametrize("text, flag", [
+    ('{"degrees": 1, "angles": [10, 20, 30]}', "degrees"),
+    ("intrinsic=0 XYZ 10 20 30 deg", "intrinsic"),
+    ("angles [10, 20, 30], degrees=1", "degrees"),
+    ("scalar_last: 1\nq: 0 0 0 1", "scalar_last"),
+])
+def test_a_flag_written_as_0_or_1_is_refused_not_read_as_a_number(text, flag):
+    # Read as a number, '"degrees": 1' beside three angles made four numbers: an axis and an angle.
+    with pytest.raises(DecodeError, match=rf"is a flag written as a number, which would be read as part of the "
+                                          rf"orientation; write {flag} as true or false"):
+        decode(text)
+
+
+@pytest.mark.parametrize("text, values", [("in degrees: 1 2 3", [1, 2, 3]), ("in degrees: 1, 2, 3", [1, 2, 3]),
+                                          ("degrees=1.5, 2, 3", [1.5, 2, 3])])
+def test_a_caption_naming_the_unit_before_its_numbers_is_not_a_flag(text, values):
+    assert _same(_quaternion(decode(text)[0]), Rotation.from_euler("ZYX", values, degrees=True))
