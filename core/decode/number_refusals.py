@@ -39,10 +39,11 @@ def _refuse_empty_cells(line: str, line_no: int) -> None:
 
 # A flag written as 0 or 1 ('"degrees": 1', 'intrinsic=0'), a lone digit followed by the next key or the end:
 # the digit would be read as one of the orientation's numbers, and three angles with it become an axis and an
-# angle. 'in degrees: 1, 2, 3' is a caption and its numbers, not a flag.
+# angle. With '=' it is an assignment whatever follows ('intrinsic=1 10 20 30'); with ':' it may be a caption
+# ('in degrees: 1, 2, 3'), so only a digit the next key or the end follows is a flag.
 _NUMBER_FLAG = re.compile(r"(?<![a-z_])(?:use_|in_)?(degrees|radians|intrinsic|extrinsic|scalar_first|scalar_last|"
-                          r"transposed)[\"']?\s*[:=]\s*[01]"
-                          r"(?=\s*(?:$|[})\]]|[,;]\s*[\"'A-Za-z_]|\s+[\"'A-Za-z_]))", re.IGNORECASE)
+                          r"transposed)(?:[\"']?\s*:\s*[01](?=\s*(?:$|[})\]]|[,;]\s*[\"'A-Za-z_]|\s+[\"'A-Za-z_]))"
+                          r"|\s*=\s*[01](?![\w.]))", re.IGNORECASE)
 
 
 def _refuse_values_we_will_not_guess(line: str, line_no: int) -> None:

@@ -111,6 +111,7 @@ def test_lists_of_numbers_with_units_names_or_number_types_are_still_read(text, 
     ('{"degrees": 1, "angles": [10, 20, 30]}', "degrees"),
     ("intrinsic=0 XYZ 10 20 30 deg", "intrinsic"),
     ("angles [10, 20, 30], degrees=1", "degrees"),
+    ("XYZ intrinsic=1 10 20 30", "intrinsic"),
     ("scalar_last: 1\nq: 0 0 0 1", "scalar_last"),
 ])
 def test_a_flag_written_as_0_or_1_is_refused_not_read_as_a_number(text, flag):
