@@ -11,7 +11,7 @@ import numpy as np
 from core import representations
 from core.representations import ANGLES, AXIS_ANGLE, QUATERNION, ROTATION_VECTOR
 from core.errors import DecodeError
-from core.decode.clues import _Clues
+from core.decode.clues import YAW_PITCH_ROLL_STATED_EXTRINSIC, _Clues
 from core.decode.hints import DecodeHints
 
 # Every ranking bonus in one table: the points a candidate earns (or loses) for each kind of evidence.
@@ -144,9 +144,7 @@ def _three_candidates(values, parsed, hints, clues, keyed):
             raise DecodeError("the text names yaw, pitch and roll (intrinsic Z-Y'-X''), which the sequence"
                               " options contradict; drop the options or the names")
         if clues.intrinsic_stated is not None and clues.intrinsic_stated != keyed.intrinsic:
-            raise DecodeError("the text names yaw, pitch and roll (intrinsic Z-Y'-X'') but states the angles are "
-                              "extrinsic; Framewright will not guess which holds (give the sequence and "
-                              "convention as options)")
+            raise DecodeError(YAW_PITCH_ROLL_STATED_EXTRINSIC)
         sequences = [(keyed.sequence, keyed.intrinsic, 1.0, keyed.note)]
     elif hints.sequence or clues.sequence:
         sequence = hints.sequence or clues.sequence

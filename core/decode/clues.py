@@ -60,6 +60,11 @@ _STATED_FLAG = re.compile(r"(?<![a-z])(intrinsic|extrinsic)[\"']?\s*[:=]\s*[\"']
                           r"(?![a-z0-9])")
 
 
+YAW_PITCH_ROLL_STATED_EXTRINSIC = ("the text names yaw, pitch and roll (intrinsic Z-Y'-X'') but states the angles "
+                                   "are extrinsic; Framewright will not guess which holds (give the sequence and "
+                                   "convention as options)")
+
+
 def _stated_intrinsic(words: str) -> bool | None:
     said = {(m.group(1) == "intrinsic") == (m.group(2) in ("true", "yes", "on"))
             for m in _STATED_FLAG.finditer(words)}
@@ -121,9 +126,7 @@ def _read_clues(parsed: ParsedNumbers) -> _Clues:
         if min(yaw, pitch, roll) >= 0:
             if yaw < pitch < roll:
                 if stated is False:
-                    raise DecodeError("the text names yaw, pitch and roll (intrinsic Z-Y'-X'') but states the "
-                                      "angles are extrinsic; Framewright will not guess which holds (give the "
-                                      "sequence and convention as options)")
+                    raise DecodeError(YAW_PITCH_ROLL_STATED_EXTRINSIC)
                 clues.sequence, clues.intrinsic = "ZYX", True
             elif roll < pitch < yaw and clues.intrinsic is not True:
                 clues.sequence, clues.intrinsic = "XYZ", False

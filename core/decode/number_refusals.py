@@ -85,18 +85,16 @@ def _words_between_numbers(rest: str, found: list, key_matches: list, line_no: i
 # A JSON or Python literal as an element of a list on a line of numbers: '[true, 0.5, 0.5, 0.5]' or
 # '(0.5, 0.5, 0.5, None)' is a list with a gap where a number should be, and reading the three numbers left
 # would take a quaternion for angles. Only list elements count ('"intrinsic": true' is a key's value).
-_LIST_LITERAL = re.compile(r"[\[(,]\s*(true|false|null|none|undefined)\s*(?=[,\])])", re.IGNORECASE)
 _LITERALS = frozenset({"true", "false", "null", "none", "undefined"})
-
-
+_LIST_LITERAL = re.compile(rf"[\[(,]\s*({'|'.join(sorted(_LITERALS))})\s*(?=[,\])])", re.IGNORECASE)
 # A square-bracketed list on a line of numbers, as the line reads with its numbers blanked out: an element
 # that is a bare word ('[abc, 0.5, 0.5, 0.5]', '[0.5, 0.5, 0.5, q3]') is a gap where a number should be.
 _BRACKETED = re.compile(r"\[([^\[\]]*)\]")
+_WORD_ELEMENT = re.compile(r"[A-Za-z_][\w.]*")
 
 
 class ListGap(str):
     """A word found standing in a list of numbers: refused in its own words (not 'between numbers')."""
-_WORD_ELEMENT = re.compile(r"[A-Za-z_][\w.]*")
 
 
 def literals_in_lists(rest: str, line_no: int) -> list:
@@ -118,11 +116,12 @@ def literals_in_lists(rest: str, line_no: int) -> list:
 def refuse_strays(parsed, lines: set) -> None:
     """A word between numbers on a line that is read (see _words_between_numbers), or a literal in a list
     of numbers (see literals_in_lists), is refused."""
-    gaps_first = sorted(parsed.strays, key=lambda stray: not isinstance(stray[1], ListGap))   # a gap is named as one
-    for line, word in gaps_first:
-        if line in lines and isinstance(word, ListGap):
-            raise DecodeError(f"line {line}: '{_shorten(word, 24)}' stands in a list of numbers where a number "
-                              "should be; Framewright will not read the list with a gap (write the number)")
-        if line in lines:
-            raise DecodeError(f"line {line}: '{_shorten(word, 24)}' between numbers is not a number, key, unit or"
-                              " component name; Framewright will not guess what it stands for (remove it)")
+    read = [(line, word) for line, word in parsed.strays if line in lines]
+    gap = next(((line, word) for line, word in read if isinstance(word, ListGap)), None)   # named as a gap first
+    if gap:
+        raise DecodeError(f"line {gap[0]}: '{_shorten(gap[1], 24)}' stands in a list of numbers where a number "
+                          "should be; Framewright will not read the list with a gap (write the number)")
+    if read:
+        line, word = read[0]
+        raise DecodeError(f"line {line}: '{_shorten(word, 24)}' between numbers is not a number, key, unit or"
+                          " component name; Framewright will not guess what it stands for (remove it)")

@@ -111,13 +111,10 @@ def _to_float(match: re.Match, line_no: int) -> float:
     return -value if match.group("sign") == "-" else value
 
 
-_DETACHED_SIGN = re.compile(r"((?:^|[\s,;|(\[{=:&])[+-]) +(?=\.?\d|π|(?:M_PI|PI|Pi|pi)(?![A-Za-z0-9_]))")
-# '- (0.5)' and '- (pi/2)': a sign standing apart before a bracket may negate it or be a bullet or a dash
-_DETACHED_SIGN_BEFORE_BRACKET = re.compile(r"(?:^|[\s,;|(\[{=:&])([+-]) +\(+[ ]*[-+]?(?:\.?\d|π|(?:M_PI|PI|Pi|pi)"
-                                           r"(?![A-Za-z0-9_]))")
-
-
 _PI_NAME = r"(?:M_PI|PI|Pi|pi|π)(?![A-Za-z0-9_])"
+_DETACHED_SIGN = re.compile(rf"((?:^|[\s,;|(\[{{=:&])[+-]) +(?=\.?\d|{_PI_NAME})")
+# '- (0.5)' and '- (pi/2)': a sign standing apart before a bracket may negate it or be a bullet or a dash
+_DETACHED_SIGN_BEFORE_BRACKET = re.compile(rf"(?:^|[\s,;|(\[{{=:&])([+-]) +\(+[ ]*[-+]?(?:\.?\d|{_PI_NAME})")
 # 'pi/2 + 1', '0 0 pi/2 - 0.1', '1 - pi/2': a spaced sign beside an expression may be arithmetic or two values
 _SPACED_SIGN_BY_EXPRESSION = re.compile(
     rf"(?:{_PI_NAME}|[*/][ ]*[\d.]+)\)*[ \t]+[+-][ \t]+(?=[\d.(]|{_PI_NAME})"

@@ -84,16 +84,18 @@ def _refuse_square_of_two(parsed: ParsedNumbers, keyed, count: int) -> None:
                           " 3x3 matrix, or a quaternion or axis and angle written as one row")
 
 
-_LIBRARY_CALL_COUNT = {"euler": 3, "rotvec": 3, "quat": 4}
+# The kind a library call's name fixes ('from_quat' is a quaternion), and so how many numbers it takes
+_LIBRARY_CALL_KIND = {"euler": "angles", "quat": "quaternion", "rotvec": representations.ROTATION_VECTOR.kind}
 
 
 def _refuse_library_call_count(parsed: ParsedNumbers, keyed, count: int) -> None:
     """'from_quat([0.1, 0.2, 0.3])': the call names its kind, so its numbers are never read as another kind."""
     call = parsed.library_call
-    if call is None or keyed is not None or _LIBRARY_CALL_COUNT[call[0]] == count:
+    if call is None or keyed is not None or _KIND_COUNT[_LIBRARY_CALL_KIND[call[0]]] == count:
         return
     kind = call[0]
-    raise DecodeError(f"the text's library call (from_{kind} or as_{kind}) takes {_LIBRARY_CALL_COUNT[kind]} numbers,"
+    raise DecodeError(f"the text's library call (from_{kind} or as_{kind}) takes "
+                      f"{_KIND_COUNT[_LIBRARY_CALL_KIND[kind]]} numbers,"
                       f" but the text holds {count} ({parsed.lines_summary() or 'none'}): Framewright will not read"
                       " them as another kind; paste the call's own numbers")
 
@@ -150,7 +152,7 @@ def _readings(parsed: ParsedNumbers, hints: DecodeHints, direction=None) -> list
         candidates = [c for c in candidates if c.kind == hints.kind]
     elif parsed.library_call is not None and keyed is None:
         # the call fixes the kind: from_quat([0, 0, 1, 90]) is a quaternion, never an axis and an angle
-        called = {"euler": "angles", "quat": "quaternion", "rotvec": representations.ROTATION_VECTOR.kind}[parsed.library_call[0]]
+        called = _LIBRARY_CALL_KIND[parsed.library_call[0]]
         candidates = [c for c in candidates if c.kind == called] or candidates
     if hints.transposed is not None:
         candidates = [c for c in candidates if c.kind != "matrix" or

@@ -17,8 +17,7 @@ parameters). `from core import kernels` and `kernels.<name>` keep working for ev
 from core.kernels.angles import (LOCK_MARGIN_RAD, angles_to_quaternions, gimbal_margins, gimbal_margins_of_sequences,
                                  quaternions_to_angles)
 from core.kernels.checks import (ALL_SEQUENCES, PROPER_EULER, TAIT_BRYAN, check_array, check_flag,
-                                 check_sequence_name, float_array, shortened_repr,
-                                 unit_vectors)
+                                 check_sequence_name, float_array, shortened_repr, unit_vectors)
 from core.kernels.matrices import (determinants, matrices_to_quaternions, nearest_rotations, orthogonality_errors,
                                    quaternions_to_matrices)
 from core.kernels.quaternions import (angles_between, canonical_quaternions, conjugate_quaternions,
